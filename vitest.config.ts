@@ -1,0 +1,31 @@
+import { defineConfig } from 'vitest/config';
+import path from 'node:path';
+
+// Two projects: `unit` runs pure library tests (no database); `integration` runs against the real
+// PostgreSQL server started by scripts/test.sh (DATABASE_URL points at a throw-away database).
+export default defineConfig({
+  resolve: { alias: { '@': path.resolve(__dirname) } },
+  test: {
+    projects: [
+      {
+        extends: true,
+        test: {
+          name: 'unit',
+          include: ['tests/lib/**/*.test.ts', 'tests/unit/**/*.test.ts'],
+          environment: 'node',
+        },
+      },
+      {
+        extends: true,
+        test: {
+          name: 'integration',
+          include: ['tests/integration/**/*.test.ts'],
+          environment: 'node',
+          fileParallelism: false,
+          testTimeout: 60_000,
+          hookTimeout: 60_000,
+        },
+      },
+    ],
+  },
+});
