@@ -1,0 +1,11 @@
+import type { ReactNode } from 'react';
+import { WorkspaceNav } from '@/components/shell/WorkspaceNav';
+
+export default function WorkspaceLayout({ children }: { children: ReactNode }) {
+  return (
+    <div className="min-h-screen">
+      <WorkspaceNav />
+      <main className="mx-auto max-w-sheet px-4 py-6">{children}</main>
+    </div>
+  );
+}

@@ -1,0 +1,45 @@
+import { and, desc, eq, sql } from 'drizzle-orm';
+import { getDb, type Executor } from '../client';
+import { projects, sheets } from '../schema';
+import { recordAudit } from './audit';
+
+export async function listProjects(teamId: string) {
+  return getDb()
+    .select({
+      id: projects.id,
+      name: projects.name,
+      site: projects.site,
+      description: projects.description,
+      updatedAt: projects.updatedAt,
+      sheetCount: sql<number>`(select count(*)::int from ${sheets} where ${sheets.projectId} = ${projects.id})`,
+    })
+    .from(projects)
+    .where(eq(projects.teamId, teamId))
+    .orderBy(desc(projects.updatedAt));
+}
+
+export async function getProject(teamId: string, projectId: string, tx: Executor = getDb()) {
+  const [project] = await tx
+    .select()
+    .from(projects)
+    .where(and(eq(projects.teamId, teamId), eq(projects.id, projectId)));
+  return project ?? null;
+}
+
+export interface NewProject {
+  name: string;
+  site?: string;
+  description?: string;
+}
+
+/** Creates a project and its audit entry in one transaction. */
+export async function createProject(teamId: string, actorId: string, input: NewProject) {
+  return getDb().transaction(async (tx) => {
+    const [project] = await tx
+      .insert(projects)
+      .values({ teamId, name: input.name, site: input.site ?? '', description: input.description ?? '', createdBy: actorId })
+      .returning();
+    await recordAudit(tx, { teamId, actorId, action: 'project.create', entity: 'project', entityId: project.id, detail: { name: input.name } });
+    return project;
+  });
+}

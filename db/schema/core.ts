@@ -1,0 +1,111 @@
+import { sql } from 'drizzle-orm';
+import {
+  boolean,
+  index,
+  integer,
+  jsonb,
+  pgEnum,
+  pgTable,
+  text,
+  timestamp,
+  uniqueIndex,
+  uuid,
+} from 'drizzle-orm/pg-core';
+
+/** Roles and what they may do: ../shared/design/product.md, "People and roles". */
+export const roleEnum = pgEnum('role', ['admin', 'designer', 'reviewer', 'viewer']);
+export const sheetStatusEnum = pgEnum('sheet_status', ['draft', 'in_review', 'approved', 'returned']);
+export const unitSystemEnum = pgEnum('unit_system', ['si', 'imperial']);
+
+const createdAt = () => timestamp('created_at', { withTimezone: true }).notNull().defaultNow();
+const updatedAt = () => timestamp('updated_at', { withTimezone: true }).notNull().defaultNow();
+
+/** A team (organisation). Every other row belongs to exactly one. */
+export const teams = pgTable('teams', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  slug: text('slug').notNull().unique(),
+  name: text('name').notNull(),
+  createdAt: createdAt(),
+});
+
+export const users = pgTable(
+  'users',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    teamId: uuid('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
+    email: text('email').notNull(),
+    name: text('name').notNull(),
+    role: roleEnum('role').notNull(),
+    passwordHash: text('password_hash'),
+    active: boolean('active').notNull().default(true),
+    unitSystem: unitSystemEnum('unit_system').notNull().default('si'),
+    /** Bumped on deactivation or password change so that older sessions stop working. */
+    sessionEpoch: integer('session_epoch').notNull().default(0),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [uniqueIndex('users_email_unique').on(sql`lower(${t.email})`), index('users_team_idx').on(t.teamId)],
+);
+
+/** A job site or building. */
+export const projects = pgTable(
+  'projects',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    teamId: uuid('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
+    name: text('name').notNull(),
+    site: text('site').notNull().default(''),
+    description: text('description').notNull().default(''),
+    createdBy: uuid('created_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [index('projects_team_idx').on(t.teamId), uniqueIndex('projects_team_name_unique').on(t.teamId, t.name)],
+);
+
+/**
+ * A sizing sheet: one circuit, its candidates, the result snapshot and its review history.
+ * `inputs` and `result` are JSON validated by zod schemas that carry their own schemaVersion;
+ * `version` is the optimistic-lock counter (a save names the version it started from).
+ */
+export const sheets = pgTable(
+  'sheets',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    teamId: uuid('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
+    projectId: uuid('project_id').notNull().references(() => projects.id, { onDelete: 'cascade' }),
+    circuitTag: text('circuit_tag').notNull(),
+    title: text('title').notNull(),
+    status: sheetStatusEnum('status').notNull().default('draft'),
+    revision: integer('revision').notNull().default(1),
+    /** The sheet this one revises (an approved sheet is frozen; editing makes a new revision). */
+    previousRevisionId: uuid('previous_revision_id'),
+    inputs: jsonb('inputs').notNull(),
+    result: jsonb('result'),
+    schemaVersion: integer('schema_version').notNull().default(1),
+    solverVersion: text('solver_version'),
+    version: integer('version').notNull().default(1),
+    authorId: uuid('author_id').notNull().references(() => users.id),
+    reviewerId: uuid('reviewer_id').references(() => users.id),
+    approvedAt: timestamp('approved_at', { withTimezone: true }),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [index('sheets_team_idx').on(t.teamId), index('sheets_project_idx').on(t.projectId)],
+);
+
+/** Every change that matters: who did what to which row, with a JSON detail. */
+export const auditLog = pgTable(
+  'audit_log',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    teamId: uuid('team_id').references(() => teams.id, { onDelete: 'cascade' }),
+    actorId: uuid('actor_id').references(() => users.id, { onDelete: 'set null' }),
+    action: text('action').notNull(),
+    entity: text('entity').notNull(),
+    entityId: text('entity_id'),
+    detail: jsonb('detail').notNull().default({}),
+    at: timestamp('at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('audit_team_entity_idx').on(t.teamId, t.entity, t.entityId)],
+);

@@ -1,0 +1,2 @@
+// The Drizzle schema, one file per area; drizzle-kit reads this folder to generate `drizzle/`.
+export * from './core';

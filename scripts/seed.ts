@@ -1,0 +1,20 @@
+// Seeds the invented demo scenario once; running it again changes nothing.
+import { closeDb, getDb } from '../db/client';
+import { seedDemo } from '../db/seed/demo';
+
+async function main() {
+  const report = await seedDemo(getDb());
+  const changed = report.teamCreated || report.usersCreated > 0 || report.projectsCreated > 0;
+  console.log(
+    changed
+      ? `ampwarden: demo data seeded (team ${report.teamCreated ? 'created' : 'kept'}, ${report.usersCreated} users, ${report.projectsCreated} projects)`
+      : 'ampwarden: demo data already present',
+  );
+}
+
+main()
+  .catch((error: unknown) => {
+    console.error(`ampwarden: seeding failed: ${error instanceof Error ? error.message : String(error)}`);
+    process.exitCode = 1;
+  })
+  .finally(() => closeDb());
