@@ -31,3 +31,5 @@ export { voltageDrop, ANNEX_G_DEFAULT_REACTANCE_OHM_PER_M } from './voltageDrop'
 export type { VoltageDropResult } from './voltageDrop';
 export { Money, toMoney, lossEnergyCost, conductorMass, materialCost } from './economics';
 export type { MoneyInput, LossEnergyCostInput, LossEnergyCostResult } from './economics';
+export { findLimitCurrent } from './sizing/rootFinder';
+export type { LimitEvaluation, LimitRoot } from './sizing/rootFinder';

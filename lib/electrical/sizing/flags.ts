@@ -1,0 +1,138 @@
+/**
+ * Assumption flags: statements a result depends on that a licensed reviewer must accept.
+ *
+ * Codes are STABLE (stored with sheets and acknowledged by reviewers): add new ones, never
+ * rename or reuse. Each code has one fixed severity:
+ *   note    — shown, no acknowledgement needed;
+ *   review  — a reviewer must acknowledge it before the sheet can be approved;
+ *   blocker — the candidate fails; a sheet built on it cannot be approved.
+ * Every uncertainty listed in physics.md §5 maps to at least one code here.
+ */
+export type FlagSeverity = 'note' | 'review' | 'blocker';
+
+export const FLAG_CODES = [
+  'AMBIENT_ASSUMED',
+  'GROUPING_DERATING_ENTERED',
+  'ENCLOSURE_DERATING_ENTERED',
+  'MUTUAL_HEATING_NOT_MODELLED',
+  'CORRELATION_OUT_OF_RANGE',
+  'SURFACE_COEFFICIENT_ENTERED',
+  'WIND_COOLING_CREDITED',
+  'EMISSIVITY_ASSUMED',
+  'SOLAR_ABSORPTIVITY_ASSUMED',
+  'AC_FACTOR_LOWER_BOUND',
+  'AC_FACTOR_USER_ENTERED',
+  'AC_FORMULA_OUT_OF_RANGE',
+  'PROXIMITY_SPACING_ASSUMED',
+  'NEAR_RUNAWAY',
+  'RUNAWAY',
+  'OVER_LIMIT',
+  'MARGIN_UNDER_10',
+  'USER_LIMIT_ABOVE_RATING',
+  'SHORT_CIRCUIT_NOT_CHECKED',
+  'SHORT_CIRCUIT_EXCEEDED',
+  'SHORT_CIRCUIT_LONG_DURATION',
+  'MULTICORE_APPROXIMATION',
+  'DATA_FROM_MEMORY',
+  'MULTI_BAR_INNER_FACES',
+  'PARALLEL_SHARING_ASSUMED',
+  'BAR_EDGES_LUMPED',
+  'BURIED_SOIL_ASSUMED',
+  'SOIL_DRYING_RISK',
+  'VOLTAGE_DROP_EXCEEDED',
+  'REACTANCE_ASSUMED',
+  'BAR_REACTANCE_ASSUMED',
+  'CROSS_CHECK_DIFFERENCE',
+  'SOLVER_ENERGY_RESIDUAL',
+  'SHEATH_LOSSES_NOT_INCLUDED',
+] as const;
+
+export type FlagCode = (typeof FLAG_CODES)[number];
+
+export interface FlagDefinition {
+  severity: FlagSeverity;
+  /** Short plain title for lists. */
+  title: string;
+  /** Where the concern comes from (physics.md section or the standard). */
+  basis: string;
+}
+
+export const FLAG_REGISTRY: Readonly<Record<FlagCode, Readonly<FlagDefinition>>> = Object.freeze({
+  AMBIENT_ASSUMED: { severity: 'review', title: 'Ambient temperature assumed', basis: 'physics.md §5 (ambient); IEC 60364-5-52 reference ambients 30 °C air, 20 °C ground (from memory)' },
+  GROUPING_DERATING_ENTERED: { severity: 'review', title: 'Grouping derating factor entered', basis: 'physics.md §3 (grouping is a user-entered factor)' },
+  ENCLOSURE_DERATING_ENTERED: { severity: 'review', title: 'Enclosure derating factor entered', basis: 'physics.md §3 (enclosures are a user-entered factor)' },
+  MUTUAL_HEATING_NOT_MODELLED: { severity: 'review', title: 'Heating by the other cables of the circuit not modelled', basis: 'physics.md §3 (one-dimensional model of one cable)' },
+  CORRELATION_OUT_OF_RANGE: { severity: 'review', title: 'Convection correlation used outside its stated range', basis: 'physics.md §2' },
+  SURFACE_COEFFICIENT_ENTERED: { severity: 'review', title: 'Surface heat-transfer coefficient entered by the user', basis: 'physics.md §2' },
+  WIND_COOLING_CREDITED: { severity: 'review', title: 'Cooling by wind or fan credited', basis: 'physics.md §2 (forced convection)' },
+  EMISSIVITY_ASSUMED: { severity: 'note', title: 'Surface emissivity assumed', basis: 'physics.md §2 (radiation)' },
+  SOLAR_ABSORPTIVITY_ASSUMED: { severity: 'note', title: 'Solar absorptivity assumed', basis: 'physics.md §2 (absorbed solar)' },
+  AC_FACTOR_LOWER_BOUND: { severity: 'review', title: 'AC resistance factor is a lower bound', basis: 'physics.md §4 (bars: approximation ignoring edge crowding)' },
+  AC_FACTOR_USER_ENTERED: { severity: 'note', title: 'AC/DC resistance ratio entered from the bar maker', basis: 'physics.md §4' },
+  AC_FORMULA_OUT_OF_RANGE: { severity: 'review', title: 'Skin or proximity formula outside its main range', basis: 'IEC 60287-1-1 §2.1 (x ≤ 2.8)' },
+  PROXIMITY_SPACING_ASSUMED: { severity: 'note', title: 'Cable spacing assumed for the proximity effect', basis: 'IEC 60287-1-1 §2.1.4' },
+  NEAR_RUNAWAY: { severity: 'review', title: 'Close to thermal runaway', basis: 'physics.md §1 (runaway) and §5' },
+  RUNAWAY: { severity: 'blocker', title: 'No steady state: thermal runaway', basis: 'physics.md §1' },
+  OVER_LIMIT: { severity: 'blocker', title: 'Hot spot above the temperature limit', basis: 'physics.md §5' },
+  MARGIN_UNDER_10: { severity: 'review', title: 'Margin under 10 %', basis: 'physics.md §5; product.md (result states)' },
+  USER_LIMIT_ABOVE_RATING: { severity: 'review', title: 'User limit above the material rating', basis: 'physics.md §5' },
+  SHORT_CIRCUIT_NOT_CHECKED: { severity: 'review', title: 'Short circuit not checked', basis: 'physics.md §4–5 (IEC 60949)' },
+  SHORT_CIRCUIT_EXCEEDED: { severity: 'blocker', title: 'Short-circuit temperature above the limit', basis: 'IEC 60949 adiabatic method' },
+  SHORT_CIRCUIT_LONG_DURATION: { severity: 'note', title: 'Fault longer than the adiabatic range', basis: 'IEC 60949 / IEC 60364-4-43 (adiabatic up to 5 s, from memory)' },
+  MULTICORE_APPROXIMATION: { severity: 'review', title: 'Multi-core cable approximated', basis: 'physics.md §3' },
+  DATA_FROM_MEMORY: { severity: 'review', title: 'Data entered from memory', basis: 'physics.md §5; references.md' },
+  MULTI_BAR_INNER_FACES: { severity: 'review', title: 'Inner faces of a multi-bar pack', basis: 'physics.md §3' },
+  PARALLEL_SHARING_ASSUMED: { severity: 'review', title: 'Equal current sharing between parallel conductors assumed', basis: 'common practice' },
+  BAR_EDGES_LUMPED: { severity: 'note', title: 'Bar edges lumped onto the faces', basis: 'physics.md §3' },
+  BURIED_SOIL_ASSUMED: { severity: 'review', title: 'Soil thermal resistivity or ground temperature assumed', basis: 'physics.md §3 (IEC 60287-2-1 T₄)' },
+  SOIL_DRYING_RISK: { severity: 'review', title: 'Soil around the cable may dry out', basis: 'IEC 60287-1-1 (partial drying of the soil, from memory)' },
+  VOLTAGE_DROP_EXCEEDED: { severity: 'blocker', title: 'Voltage drop above the allowed value', basis: 'IEC 60364-5-52 Annex G' },
+  REACTANCE_ASSUMED: { severity: 'note', title: 'Default reactance used for the voltage drop', basis: 'IEC 60364-5-52 Annex G (λ = 0.08 mΩ/m)' },
+  BAR_REACTANCE_ASSUMED: { severity: 'review', title: 'Cable reactance default used for a bus bar', basis: 'IEC 60364-5-52 Annex G (λ is for cables)' },
+  CROSS_CHECK_DIFFERENCE: { severity: 'review', title: 'Solver and closed-form ampacity differ', basis: 'physics.md §5 (IEC 60287 cross-check)' },
+  SOLVER_ENERGY_RESIDUAL: { severity: 'review', title: 'Solver energy balance not closed', basis: 'physics.md §1 (energy balance to 1e-6)' },
+  SHEATH_LOSSES_NOT_INCLUDED: { severity: 'review', title: 'Losses in metallic screens or armour not included', basis: 'IEC 60287-1-1 §2.3 (λ₁, λ₂ taken as zero)' },
+});
+
+export interface AssumptionFlag {
+  code: FlagCode;
+  severity: FlagSeverity;
+  title: string;
+  /** A plain sentence a reviewer can accept or reject. */
+  message: string;
+  /** Numbers behind the sentence, for the UI and the record. */
+  data?: Record<string, number | string | boolean>;
+}
+
+export function makeFlag(code: FlagCode, message: string, data?: AssumptionFlag['data']): AssumptionFlag {
+  const def = FLAG_REGISTRY[code];
+  return data === undefined
+    ? { code, severity: def.severity, title: def.title, message }
+    : { code, severity: def.severity, title: def.title, message, data };
+}
+
+/** Collects flags once per code (the first sentence wins) in a stable order. */
+export class FlagSet {
+  private readonly byCode = new Map<FlagCode, AssumptionFlag>();
+
+  add(code: FlagCode, message: string, data?: AssumptionFlag['data']): void {
+    if (!this.byCode.has(code)) this.byCode.set(code, makeFlag(code, message, data));
+  }
+
+  has(code: FlagCode): boolean {
+    return this.byCode.has(code);
+  }
+
+  list(): AssumptionFlag[] {
+    const order: Record<FlagSeverity, number> = { blocker: 0, review: 1, note: 2 };
+    return [...this.byCode.values()].sort(
+      (a, b) => order[a.severity] - order[b.severity] || FLAG_CODES.indexOf(a.code) - FLAG_CODES.indexOf(b.code),
+    );
+  }
+}
+
+/** Formats a number for a flag sentence without pretending to more digits than it has. */
+export function fmt(value: number, digits = 3): string {
+  if (!Number.isFinite(value)) return String(value);
+  return Number(value.toPrecision(digits)).toString();
+}

@@ -1,0 +1,311 @@
+/**
+ * Inputs and results of the sizing layer (physics.md §5). SI units; temperatures in °C;
+ * sections in mm²; money as decimal strings (decimal.js inside).
+ */
+import type { ConductorMaterial } from '../materials';
+import type { MoneyInput } from '../economics';
+import type { AssumptionFlag } from './flags';
+
+// ───────────────────────────── Candidate ─────────────────────────────
+
+/** One concentric covering of a cable, listed from the conductor outwards. */
+export interface CableLayer {
+  /** Plain name, e.g. 'XLPE insulation', 'PVC sheath'. */
+  name: string;
+  /** What the layer is; metallic screens and armour raise SHEATH_LOSSES_NOT_INCLUDED. */
+  role?: 'insulation' | 'semiconductor' | 'screen' | 'bedding' | 'armour' | 'sheath' | 'jacket' | 'filler' | 'other';
+  thicknessM: number;
+  /** Thermal resistivity ρ_T, K·m/W (IEC 60287-2-1 Table 1 for common materials). */
+  thermalResistivityKmPerW: number;
+  /** Highest continuous temperature of this layer, °C. */
+  continuousLimitC?: number;
+  /** Highest short-circuit temperature of this layer, °C (the insulation's governs the fault check). */
+  shortCircuitLimitC?: number;
+}
+
+export interface CandidateCosts {
+  /** Conductor metal price per kg (decimal). */
+  conductorPricePerKg?: MoneyInput;
+  /** Price of one conductor (a cable, or a bar) per metre; replaces the per-kg metal price. */
+  pricePerM?: MoneyInput;
+  /** Density override, kg/m³ (default: copper 8890, aluminium 2703). */
+  densityKgPerM3?: number;
+}
+
+interface CandidateCommon {
+  /** Stable id within the comparison (e.g. the catalogue conductor id × arrangement). */
+  id?: string;
+  label?: string;
+  material: ConductorMaterial;
+  /** DC resistance at 20 °C of ONE conductor (one core or one bar), Ω/m: datasheet or IEC 60228 maximum. */
+  r20OhmPerM: number;
+  /** Override of α₂₀ (default IEC 60287-1-1 Table 1). */
+  alpha20PerK?: number;
+  /** Identical runs per phase sharing the current (parallel cables or parallel bar packs); default 1. */
+  parallel?: number;
+  catalogue?: { conductorId?: string; coveringIds?: string[] };
+  /** Where the data came from; a note containing "from memory" raises DATA_FROM_MEMORY. */
+  sourceNotes?: string[];
+  /** Set when any of the data was recalled rather than read from a source. */
+  dataFromMemory?: boolean;
+  costs?: CandidateCosts;
+}
+
+export interface CableCandidate extends CandidateCommon {
+  kind: 'cable';
+  /** Nominal conductor section of one core, mm². */
+  sectionMm2: number;
+  /** Conductor diameter d_c, m (catalogue; sets the geometry and the proximity effect). */
+  conductorDiameterM: number;
+  /** Number of cores; more than one is approximated (MULTICORE_APPROXIMATION). Default 1. */
+  cores?: number;
+  /** Coverings from the conductor outwards; the first is in contact with the conductor. */
+  layers: CableLayer[];
+  /** Emissivity of the outer surface (default 0.9, common for PVC/PE jackets; flagged). */
+  emissivity?: number;
+  /** IEC 60287-1-1 Table 2 factors (default 1 and 1: round conductor, extruded insulation). */
+  ks?: number;
+  kp?: number;
+}
+
+export interface BarCoating {
+  name?: string;
+  thicknessM: number;
+  thermalResistivityKmPerW: number;
+  emissivity?: number;
+  continuousLimitC?: number;
+  shortCircuitLimitC?: number;
+}
+
+export interface BarCandidate extends CandidateCommon {
+  kind: 'bar';
+  widthM: number;
+  thicknessM: number;
+  /** Bars in one pack per phase (default 1). */
+  barsPerPhase?: number;
+  /** Clear gap between bars of a pack, m (information for the flag; default the bar thickness). */
+  barGapM?: number;
+  coating?: BarCoating;
+  /** Emissivity of the bare surface (default 0.1 for bright copper/aluminium — low, so conservative; flagged). */
+  emissivity?: number;
+  /** R_ac/R_dc from the bar maker; without it the plane-conductor lower bound is used. */
+  acResistanceRatio?: number;
+  /** Limit of joints and terminals in contact with the bar, °C. */
+  terminalLimitC?: number;
+  /** Highest short-circuit temperature of the bar and its supports, °C. */
+  shortCircuitLimitC?: number;
+}
+
+export type Candidate = CableCandidate | BarCandidate;
+
+// ───────────────────────────── Conditions ─────────────────────────────
+
+export interface CableArrangement {
+  /** How the circuit's single-core cables lie (default trefoil). */
+  formation?: 'trefoil' | 'flat';
+  /** Axis-to-axis spacing between the circuit's cables, m (default touching: the cable diameter). */
+  spacingM?: number;
+}
+
+export type Installation =
+  | ({ kind: 'cable-in-air' } & CableArrangement)
+  | { kind: 'bar-on-edge' }
+  | { kind: 'bar-flat' }
+  | ({
+      kind: 'buried';
+      /** Depth of the cable axis, m. */
+      depthM: number;
+      /** Soil thermal resistivity, K·m/W (default 2.5, flagged). */
+      soilResistivityKmPerW?: number;
+      /** Undisturbed ground temperature at depth, °C (default 20, flagged; replaces ambientC). */
+      groundC?: number;
+    } & CableArrangement)
+  | ({
+      kind: 'enclosure';
+      /** User-entered derating for the enclosure, 0 < f ≤ 1 (flagged). */
+      deratingFactor: number;
+      /** How the conductor lies inside. */
+      inside: 'cable-in-air' | 'bar-on-edge' | 'bar-flat';
+    } & CableArrangement);
+
+export interface EconomicsInputs {
+  lossLoadFactor: number;
+  hoursPerYear?: number;
+  energyPricePerKWh: MoneyInput;
+  demandChargePerKWYear?: MoneyInput;
+  loadGrowthPercent?: number;
+  energyPriceGrowthPercent?: number;
+  discountRatePercent: number;
+  years: number;
+}
+
+export interface Conditions {
+  /** Design current I_B per phase, A (r.m.s.). */
+  designCurrentA: number;
+  /** 0 for DC. */
+  frequencyHz: number;
+  phases: 1 | 3;
+  /** U₀, line to neutral, V. */
+  nominalVoltageV: number;
+  /** Route length, m. */
+  lengthM: number;
+  /** cos φ of the load. */
+  powerFactor: number;
+  /** λ for the voltage drop, Ω/m (default Annex G 0.08e-3; flagged). */
+  reactanceOhmPerM?: number;
+  /** Allowed voltage drop, % of U₀ (optional; exceeding it fails the candidate). */
+  maxVoltageDropPercent?: number;
+  /** Air temperature around the conductor, °C (default 30, flagged). */
+  ambientC?: number;
+  installation: Installation;
+  /** Wind or fan speed across the conductor, m/s (cooling credited; flagged). */
+  windSpeedMPerS?: number;
+  /** Sun on the conductor. */
+  solar?: { irradianceWPerM2: number; absorptivity?: number };
+  /** Prospective fault at the conductor; without it the short circuit is not checked (flagged). */
+  fault?: { currentA: number; durationS: number; initialFrom?: 'limit' | 'operating' };
+  /** A limit of the user's own, °C (a joint, a neighbouring device...). Caps the material limits. */
+  temperatureLimitC?: number;
+  /** When true, `temperatureLimitC` REPLACES the material limits even if higher (flagged). */
+  raiseMaterialLimit?: boolean;
+  /** User-entered grouping derating factor 0 < f ≤ 1 (flagged). */
+  groupingFactor?: number;
+  /** A fixed combined (convection + radiation) surface coefficient, W/(m²·K), replacing the correlations (flagged). */
+  surfaceCoefficientWPerM2K?: number;
+  economics?: EconomicsInputs;
+}
+
+// ───────────────────────────── Results ─────────────────────────────
+
+export type LimitSource = 'insulation' | 'coating' | 'terminal' | 'user' | 'layer';
+
+export interface GoverningLimit {
+  temperatureC: number;
+  source: LimitSource;
+  /** Layer name when a covering's limit governs. */
+  layer?: string;
+}
+
+export interface ProfileLayer {
+  name: string;
+  startM: number;
+  endM: number;
+  limitC?: number;
+  generating: boolean;
+}
+
+/** The heat-balance profile of one conductor, for plotting. */
+export interface HeatProfile {
+  geometry: 'slab' | 'cylinder';
+  /** Cell centres, m (radius for a cylinder, distance from the inner face for a slab). */
+  positionsM: number[];
+  temperaturesC: number[];
+  layers: ProfileLayer[];
+  hotSpot: { temperatureC: number; positionM: number };
+}
+
+export interface ClosedFormCheck {
+  /** Closed-form ampacity of the circuit, A. */
+  currentA: number;
+  method: string;
+  /** 100·(solver − closed form)/closed form. */
+  differencePercent: number;
+  /** External thermal resistance used, K·m/W, and where it came from. */
+  externalResistanceKmPerW: number;
+  internalResistanceKmPerW: number;
+}
+
+export interface AmpacityResult {
+  /** Ampacity of the circuit per phase, A (all parallel conductors, after derating). */
+  current: number;
+  /** Hot spot at that current (≤ the governing limit; the current is the lower end of a ≤ 0.1 A bracket). */
+  hotSpot: { temperature: number; position: number };
+  /** Root-finder evaluations. */
+  iterations: number;
+  /** Heat-balance solves, including any AC-factor refinement. */
+  solves: number;
+  /** Current in one conductor at the ampacity, A. */
+  conductorCurrentA: number;
+  governingLimit: GoverningLimit;
+  acFactor: number;
+  /** Bracket of the circuit current, A. */
+  bracketA: [number, number];
+  closedForm: ClosedFormCheck | null;
+  profile: HeatProfile;
+  /** Set when no current at all can flow (the limit is at or below the temperature without current). */
+  zeroBecause?: string;
+}
+
+export interface ShortCircuitCheck {
+  checked: boolean;
+  /** Why not, when not checked. */
+  reason?: string;
+  currentA?: number;
+  durationS?: number;
+  initialC?: number;
+  finalC?: number | null;
+  limitC?: number;
+  kFactor?: number;
+  /** Minimum section per phase for the fault, mm². */
+  minimumSectionMm2?: number;
+  sectionPerPhaseMm2?: number;
+  withstands?: boolean;
+}
+
+export interface CandidateEvaluationOk {
+  ok: true;
+  index: number;
+  id: string;
+  label: string;
+  kind: 'cable' | 'bar';
+  /** True when no blocker flag was raised. */
+  passes: boolean;
+  designCurrentA: number;
+  conductorCurrentA: number;
+  ambientC: number;
+  hotSpotC: number;
+  limit: GoverningLimit;
+  /** Limit minus hot spot, K. */
+  marginK: number;
+  /** Margin as a share of the allowed rise (limit − ambient), %. */
+  marginPercent: number;
+  ampacityA: number;
+  /** Design current / ampacity. */
+  utilisation: number;
+  acFactor: number;
+  /** AC resistance of one conductor at the hot spot, Ω/m. */
+  resistanceOhmPerM: number;
+  /** Joule loss of one conductor, W/m. */
+  lossPerConductorWPerM: number;
+  /** Joule loss of the whole circuit per metre of route, W/m. */
+  lossWPerM: number;
+  sectionPerPhaseMm2: number;
+  voltageDrop: { volts: number; percent: number; limitPercent?: number };
+  shortCircuit: ShortCircuitCheck;
+  massKg: number;
+  materialCost: string | null;
+  lossCostPresentValue: string | null;
+  lifeCycleCost: string | null;
+  ampacity: AmpacityResult;
+  profile: HeatProfile;
+  flags: AssumptionFlag[];
+  solves: number;
+  isSmallestPassing?: boolean;
+  isLowestLifeCycleCostPassing?: boolean;
+}
+
+export interface CandidateEvaluationError {
+  ok: false;
+  index: number;
+  id: string;
+  label: string;
+  error: { code: string; message: string; field?: string };
+}
+
+export type CandidateEvaluation = CandidateEvaluationOk | CandidateEvaluationError;
+
+export interface Comparison {
+  evaluations: CandidateEvaluation[];
+  smallestPassingIndex: number | null;
+  lowestLifeCycleCostPassingIndex: number | null;
+}
