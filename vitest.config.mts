@@ -4,7 +4,7 @@ import path from 'node:path';
 // Two projects: `unit` runs pure library tests (no database); `integration` runs against the real
 // PostgreSQL server started by scripts/test.sh (DATABASE_URL points at a throw-away database).
 export default defineConfig({
-  resolve: { alias: { '@': path.resolve(__dirname) } },
+  resolve: { alias: { '@': path.resolve(import.meta.dirname) } },
   test: {
     projects: [
       {

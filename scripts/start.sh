@@ -39,7 +39,8 @@ source "$SECRETS"
 PIDS=()
 cleanup() {
   trap - INT TERM EXIT
-  for pid in "${PIDS[@]:-}"; do [ -n "$pid" ] && kill "$pid" 2>/dev/null || true; done
+  # Each service runs in a process group of its own (setsid): stop the whole group.
+  for pid in "${PIDS[@]:-}"; do [ -n "$pid" ] && kill -TERM -- "-$pid" 2>/dev/null || true; done
   for pid in "${PIDS[@]:-}"; do [ -n "$pid" ] && wait "$pid" 2>/dev/null || true; done
   stop_cluster "$PG_DIR"
   say "stopped"
@@ -54,19 +55,19 @@ export NEXTAUTH_SECRET NEXTAUTH_URL="http://localhost:$APP_PORT" APP_URL="http:/
 export SMTP_HOST=127.0.0.1 SMTP_PORT MAIL_CATCHER_URL="http://127.0.0.1:$MAIL_HTTP_PORT" MAIL_FROM="Ampwarden <no-reply@ampwarden.invalid>"
 
 say "applying migrations…"
-npx tsx scripts/migrate.ts
-npx tsx scripts/seed.ts
+node --import tsx scripts/migrate.ts
+node --import tsx scripts/seed.ts
 
 # Build when there is no build or any source file is newer than it.
 if [ ! -f .next/BUILD_ID ] || [ -n "$(find app components lib db fonts next.config.mjs tailwind.config.ts package-lock.json -newer .next/BUILD_ID -print -quit 2>/dev/null)" ]; then
   say "building the app (next build)…"
-  npx next build >"$DATA_DIR/build.log" 2>&1 || { tail -40 "$DATA_DIR/build.log"; die "next build failed (full log: .data/build.log)"; }
+  node_modules/.bin/next build >"$DATA_DIR/build.log" 2>&1 || { tail -40 "$DATA_DIR/build.log"; die "next build failed (full log: .data/build.log)"; }
 fi
 
-npx tsx scripts/mail-catcher.ts --smtp-port "$SMTP_PORT" --http-port "$MAIL_HTTP_PORT" &
+setsid node --import tsx scripts/mail-catcher.ts --smtp-port "$SMTP_PORT" --http-port "$MAIL_HTTP_PORT" &
 PIDS+=($!)
 
 say "Ampwarden on http://localhost:$APP_PORT (Ctrl-C stops it; demo logins in README.md)"
-npx next start -p "$APP_PORT" -H 127.0.0.1 &
+setsid node_modules/.bin/next start -p "$APP_PORT" -H 127.0.0.1 &
 PIDS+=($!)
 wait -n "${PIDS[@]}" || true

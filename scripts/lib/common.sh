@@ -75,9 +75,9 @@ start_cluster() {
   fi
   port_in_use "$port" && die "port $port is taken by another program; stop it or set AMPWARDEN_PG_PORT to a free port"
   rm -f "$dir/postmaster.pid" 2>/dev/null || true
-  as_pg "$PG_BIN/pg_ctl" -D "$dir" -l "$dir/../postgres-$port.log" -w -t 60 \
+  as_pg "$PG_BIN/pg_ctl" -D "$dir" -l "$dir/server.log" -w -t 60 \
     -o "-c listen_addresses=127.0.0.1 -p $port -k $dir -c fsync=${PG_FSYNC:-on}" start >/dev/null \
-    || die "PostgreSQL did not start; see $(dirname "$dir")/postgres-$port.log"
+    || die "PostgreSQL did not start; see $dir/server.log"
 }
 
 stop_cluster() {
