@@ -1,7 +1,7 @@
 import { defineConfig } from 'vitest/config';
 import path from 'node:path';
 
-// Two projects: `unit` runs pure library tests (no database); `integration` runs against the real
+// Three projects: `unit` runs pure library tests (no database); `integration` runs against the real
 // PostgreSQL server started by scripts/test.sh (DATABASE_URL points at a throw-away database).
 export default defineConfig({
   resolve: { alias: { '@': path.resolve(import.meta.dirname) } },
@@ -13,6 +13,18 @@ export default defineConfig({
           name: 'unit',
           include: ['tests/lib/**/*.test.ts', 'tests/unit/**/*.test.ts'],
           environment: 'node',
+        },
+      },
+      {
+        extends: true,
+        test: {
+          // Against the production build that scripts/test.sh serves at APP_URL, in Debian's Chromium.
+          name: 'e2e',
+          include: ['tests/e2e/**/*.test.ts'],
+          environment: 'node',
+          fileParallelism: false,
+          testTimeout: 120_000,
+          hookTimeout: 120_000,
         },
       },
       {

@@ -99,3 +99,15 @@ ensure_database() {
 }
 
 random_hex() { node -e "process.stdout.write(require('crypto').randomBytes($1).toString('hex'))"; }
+
+# Debian's Chromium for the browser tests (never a downloaded browser).
+ensure_chromium() {
+  [ -x /usr/bin/chromium ] && return 0
+  if is_root; then
+    say "installing Debian's chromium for the browser tests…"
+    DEBIAN_FRONTEND=noninteractive apt-get update -qq >/dev/null || die "apt-get update failed"
+    DEBIAN_FRONTEND=noninteractive apt-get install -y -qq chromium >/dev/null || die "apt-get install chromium failed"
+  else
+    die "Chromium is missing for the browser tests: run 'sudo apt-get install -y chromium' and try again"
+  fi
+}
