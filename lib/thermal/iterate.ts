@@ -1,0 +1,260 @@
+/**
+ * Assembly and the outer (Picard/Newton) iteration (physics.md §1).
+ *
+ * Each pass: linearise the surfaces about the current surface temperatures and the source about
+ * the current cell temperatures, assemble a_P T_P = a_W T_W + a_E T_E + b, solve it with one
+ * Thomas sweep, update. Stop when the largest change (cells and surface faces) is below the
+ * tolerance and the energy balance closes.
+ */
+import { boundarySide, boundaryTerms, linearisedSurfaceTemperature, type BoundarySide, type BoundaryTerms } from './boundary';
+import { interiorConductances } from './coefficients';
+import { energyBalance, type EnergyBalance } from './energy';
+import { buildMesh, type Mesh } from './mesh';
+import { jouleCoefficients, jouleHeatDensity, type JouleCoefficients } from './source';
+import { isLinearSurface } from './surface';
+import { thomas } from './tridiagonal';
+import type { Linearisation } from './types';
+import type { NormalizedBoundary, NormalizedProblem } from './validate';
+
+/**
+ * Smallest acceptable pivot/diagonal ratio for a tangent pass. Positive pivots ⇔ the symmetric
+ * tangent matrix K − S_p·D is positive definite; the margin keeps us away from the singular
+ * point where round-off would dominate.
+ */
+const TANGENT_PIVOT_MARGIN = 1e-9;
+
+export interface SolverContext {
+  problem: NormalizedProblem;
+  mesh: Mesh;
+  /** Conductance between cells j and j+1. */
+  conductances: Float64Array;
+  inner: BoundarySide;
+  outer: BoundarySide;
+  /** ρcΔV/Δt per cell (transient only). */
+  capacityRate?: Float64Array;
+  work: {
+    lower: Float64Array;
+    diagonal: Float64Array;
+    upper: Float64Array;
+    rhs: Float64Array;
+    solution: Float64Array;
+    scratch: Float64Array;
+  };
+}
+
+export function createContext(problem: NormalizedProblem, timeStep?: number): SolverContext {
+  const mesh = buildMesh(problem.geometry);
+  const n = mesh.cellCount;
+  let capacityRate: Float64Array | undefined;
+  if (timeStep !== undefined) {
+    capacityRate = new Float64Array(n);
+    for (let i = 0; i < n; i++) {
+      const layer = problem.geometry.layers[mesh.layerOfCell[i]];
+      capacityRate[i] = (layer.density! * layer.heatCapacity! * mesh.volumes[i]) / timeStep;
+    }
+  }
+  return {
+    problem,
+    mesh,
+    conductances: interiorConductances(mesh),
+    inner: boundarySide(mesh, problem.inner, 'inner'),
+    outer: boundarySide(mesh, problem.outer, 'outer'),
+    capacityRate,
+    work: {
+      lower: new Float64Array(n),
+      diagonal: new Float64Array(n),
+      upper: new Float64Array(n),
+      rhs: new Float64Array(n),
+      solution: new Float64Array(n),
+      scratch: new Float64Array(n),
+    },
+  };
+}
+
+function isNonlinearBoundary(b: NormalizedBoundary): boolean {
+  return b.kind === 'surface' && !isLinearSurface(b);
+}
+
+/** True when no boundary conductance depends on temperature. */
+export function hasLinearSurroundings(problem: NormalizedProblem): boolean {
+  return !isNonlinearBoundary(problem.inner) && !isNonlinearBoundary(problem.outer);
+}
+
+/**
+ * Fill the tridiagonal system for one pass and solve it. Returns the smallest pivot ratio
+ * (positive for a positive-definite matrix). Row i: −G_w T_{i−1} + a_P T_i − G_e T_{i+1} = b.
+ */
+function assembleAndSolve(
+  ctx: SolverContext,
+  mode: Linearisation,
+  joule: JouleCoefficients | undefined,
+  temperatures: Float64Array,
+  previous: Float64Array | undefined,
+  inner: BoundaryTerms,
+  outer: BoundaryTerms,
+): number {
+  const { mesh, conductances: g, capacityRate } = ctx;
+  const { lower, diagonal, upper, rhs, solution, scratch } = ctx.work;
+  const n = mesh.cellCount;
+  const source = ctx.problem.source;
+  // Uniform: S_u = q''', S_p = 0. Joule tangent: S_u, S_p constant (exact). Joule lagged: per cell.
+  const spTangent = joule && mode === 'tangent' ? joule.slope : 0;
+  const suConstant = source.kind === 'uniform' ? source.q : joule!.q20 - 20 * joule!.slope;
+  for (let i = 0; i < n; i++) {
+    const gw = i > 0 ? g[i - 1] : 0;
+    const ge = i < n - 1 ? g[i] : 0;
+    let ap = gw + ge;
+    let b = 0;
+    if (mesh.generating[i]) {
+      const v = mesh.volumes[i];
+      if (joule && mode === 'lagged') {
+        b += jouleHeatDensity(joule, temperatures[i]) * v;
+      } else {
+        b += suConstant * v;
+        ap -= spTangent * v;
+      }
+    }
+    if (capacityRate) {
+      ap += capacityRate[i];
+      b += capacityRate[i] * previous![i];
+    }
+    lower[i] = -gw;
+    upper[i] = -ge;
+    diagonal[i] = ap;
+    rhs[i] = b;
+  }
+  diagonal[0] += inner.a;
+  rhs[0] += inner.b;
+  diagonal[n - 1] += outer.a;
+  rhs[n - 1] += outer.b;
+  return thomas(n, lower, diagonal, upper, rhs, solution, scratch);
+}
+
+export type IterationStatus = 'converged' | 'diverged' | 'stalled';
+
+export interface IterationOutcome {
+  status: IterationStatus;
+  temperatures: Float64Array;
+  surfaceC: { inner: number; outer: number };
+  iterations: number;
+  tridiagonalSolves: number;
+  linearisation: Linearisation;
+  linearisationCounts: { tangent: number; lagged: number };
+  energy: EnergyBalance;
+}
+
+export interface IterateArgs {
+  /** Starting cell temperatures, °C (copied). */
+  start: Float64Array;
+  /** Transient: the temperatures at the start of the step. */
+  previous?: Float64Array;
+  /** Joule current to use instead of the problem's (bisection on current). */
+  currentA?: number;
+  /** Starting surface temperatures for the linearisation, °C. */
+  surfaceStart?: { inner: number; outer: number };
+}
+
+/** First linearisation point of a surface in a steady solve: a modest rise above the air. */
+const STEADY_SURFACE_START_RISE_K = 10;
+
+export function iterate(ctx: SolverContext, args: IterateArgs): IterationOutcome {
+  const { problem, mesh } = ctx;
+  const { options, source } = problem;
+  const n = mesh.cellCount;
+  const joule = source.kind === 'joule' ? jouleCoefficients(source, args.currentA ?? source.current) : undefined;
+  const temperatures = Float64Array.from(args.start);
+  const surfaceStartFor = (side: BoundarySide, fallback: number | undefined): number =>
+    side.spec.kind === 'surface' ? (fallback ?? side.spec.ambient + STEADY_SURFACE_START_RISE_K) : NaN;
+  let surfaceInner = surfaceStartFor(ctx.inner, args.surfaceStart?.inner);
+  let surfaceOuter = surfaceStartFor(ctx.outer, args.surfaceStart?.outer);
+  const linearSurroundings = hasLinearSurroundings(problem);
+  const counts = { tangent: 0, lagged: 0 };
+  let solves = 0;
+  let lastMode: Linearisation = 'lagged';
+  let previousDelta = Infinity;
+
+  const finish = (status: IterationStatus, iterations: number): IterationOutcome => ({
+    status,
+    temperatures,
+    surfaceC: { inner: surfaceInner, outer: surfaceOuter },
+    iterations,
+    tridiagonalSolves: solves,
+    linearisation: lastMode,
+    linearisationCounts: counts,
+    energy: energyBalance(ctx, joule, temperatures, surfaceInner, surfaceOuter, args.previous),
+  });
+
+  for (let iteration = 1; iteration <= options.maxIterations; iteration++) {
+    const innerTerms = boundaryTerms(ctx.inner, surfaceInner);
+    const outerTerms = boundaryTerms(ctx.outer, surfaceOuter);
+
+    let mode: Linearisation = joule ? options.linearisation : 'lagged';
+    const pivotRatio = assembleAndSolve(ctx, mode, joule, temperatures, args.previous, innerTerms, outerTerms);
+    solves++;
+    if (mode === 'tangent' && !(pivotRatio > TANGENT_PIVOT_MARGIN)) {
+      // The tangent matrix is not positive definite at this linearisation: its solution would
+      // not be an ordered, physical temperature field. Fall back to the lagged form.
+      mode = 'lagged';
+      assembleAndSolve(ctx, mode, joule, temperatures, args.previous, innerTerms, outerTerms);
+      solves++;
+    }
+    counts[mode]++;
+    lastMode = mode;
+
+    const omega = joule && mode === 'lagged' ? options.relaxation : 1;
+    const solution = ctx.work.solution;
+    let delta = 0;
+    let hottest = -Infinity;
+    for (let i = 0; i < n; i++) {
+      const next = temperatures[i] + omega * (solution[i] - temperatures[i]);
+      const change = Math.abs(next - temperatures[i]);
+      if (change > delta || change !== change) delta = change;
+      temperatures[i] = next;
+      if (next > hottest) hottest = next;
+    }
+    if (innerTerms.exchange) {
+      const ts = linearisedSurfaceTemperature(ctx.inner, innerTerms, temperatures[0]);
+      delta = Math.max(delta, Math.abs(ts - surfaceInner));
+      surfaceInner = ts;
+    }
+    if (outerTerms.exchange) {
+      const ts = linearisedSurfaceTemperature(ctx.outer, outerTerms, temperatures[n - 1]);
+      delta = Math.max(delta, Math.abs(ts - surfaceOuter));
+      surfaceOuter = ts;
+    }
+
+    if (!Number.isFinite(delta) || !Number.isFinite(hottest)) return finish('diverged', iteration);
+    // One pass is the exact answer when nothing is left to re-evaluate: fixed surroundings and a
+    // source represented exactly (uniform, or Joule in tangent form with a positive-definite
+    // matrix). Such an answer is reported even if very hot: it is the model's steady state.
+    const exact = linearSurroundings && (!joule || mode === 'tangent');
+    // Only a temperature-dependent source can run away; a uniform one always has a bounded state.
+    // An iterate past the limit is taken as unbounded growth (see DEFAULT_TEMPERATURE_LIMIT_C).
+    if (!exact && joule && hottest > options.temperatureLimit) return finish('diverged', iteration);
+    // Error estimate for a linearly converging iteration: |e| ≈ Δ·r/(1 − r), r = Δ_k/Δ_{k−1};
+    // near runaway the lagged form converges slowly and a small Δ alone would overstate accuracy.
+    const ratio = delta / previousDelta;
+    const errorEstimate = ratio < 1 ? (delta * ratio) / (1 - ratio) : Infinity;
+    previousDelta = delta;
+    const settled = exact || (delta < options.tolerance && (errorEstimate < options.tolerance || delta < 1e-3 * options.tolerance));
+    if (settled) {
+      const outcome = finish('converged', iteration);
+      if (outcome.energy.residual <= options.energyTolerance) return outcome;
+      // A linear system solved exactly cannot improve by repeating the pass.
+      if (exact) return { ...outcome, status: 'stalled' };
+    }
+  }
+  return finish('stalled', options.maxIterations);
+}
+
+/** Assemble K (conduction + linear boundary conductances) for the runaway analysis. */
+export function conductanceMatrix(ctx: SolverContext): { diagonal: Float64Array; offDiagonal: Float64Array } {
+  const n = ctx.mesh.cellCount;
+  const diagonal = new Float64Array(n);
+  const g = ctx.conductances;
+  for (let i = 0; i < n; i++) diagonal[i] = (i > 0 ? g[i - 1] : 0) + (i < n - 1 ? g[i] : 0);
+  // Linear boundaries do not depend on the linearisation point; any value will do.
+  diagonal[0] += boundaryTerms(ctx.inner, 20).a;
+  diagonal[n - 1] += boundaryTerms(ctx.outer, 20).a;
+  return { diagonal, offDiagonal: g };
+}

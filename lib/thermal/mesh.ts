@@ -1,0 +1,74 @@
+/**
+ * Cell-centred finite-volume mesh in one dimension (Patankar 1980, §4.6 "practice B": faces
+ * first, one node inside each cell). Each layer is split into its own number of equal cells so
+ * that every material interface is a cell face.
+ */
+import type { GeometryKind, LayerBound } from './types';
+import type { NormalizedGeometry } from './validate';
+
+export interface Mesh {
+  kind: GeometryKind;
+  cellCount: number;
+  /** n + 1 face positions, m (x for a slab, r for a cylinder). */
+  faces: Float64Array;
+  /** n node positions, m. */
+  nodes: Float64Array;
+  /** Cell volume per m² of face (slab, m) or per metre of length (cylinder, m²). */
+  volumes: Float64Array;
+  /** n + 1 face areas per m² of face (slab: 1) or per metre of length (cylinder: 2πr). */
+  faceAreas: Float64Array;
+  conductivity: Float64Array;
+  generating: Uint8Array;
+  layerOfCell: Int32Array;
+  layerBounds: LayerBound[];
+}
+
+/**
+ * Node position inside a cylindrical cell [rw, re]: the root-mean-square radius,
+ * r_P² = (rw² + rw·re + re²)/3. Why not the midpoint: with the logarithmic face conductance the
+ * flux a uniform source drives through a face r_f is carried exactly only if r_f² is the
+ * logarithmic mean of r_P² and r_E². The midpoint misses it by a relative δ²/(12 r_f²), and those
+ * errors pile up towards the axis into an O(δ² ln N) temperature error (measured order 1.83–1.89
+ * for a solid cylinder). The RMS radius cancels that leading term (the logarithmic mean of
+ * r_f² ∓ r_f δ + δ²/3 is r_f² + O(δ⁴/r_f²)), restoring a clean second order, while the
+ * conduction-only logarithmic profile stays exact for any node placement.
+ */
+export function cylinderNode(rw: number, re: number): number {
+  return Math.sqrt((rw * rw + rw * re + re * re) / 3);
+}
+
+export function buildMesh(geometry: NormalizedGeometry): Mesh {
+  const n = geometry.layers.reduce((sum, l) => sum + l.cells, 0);
+  const faces = new Float64Array(n + 1);
+  const nodes = new Float64Array(n);
+  const volumes = new Float64Array(n);
+  const faceAreas = new Float64Array(n + 1);
+  const conductivity = new Float64Array(n);
+  const generating = new Uint8Array(n);
+  const layerOfCell = new Int32Array(n);
+  const layerBounds: LayerBound[] = [];
+  const cylinder = geometry.kind === 'cylinder';
+
+  let start = cylinder ? geometry.innerRadius : 0;
+  let cell = 0;
+  faces[0] = start;
+  geometry.layers.forEach((layer, layerIndex) => {
+    const end = start + layer.thickness;
+    for (let c = 0; c < layer.cells; c++, cell++) {
+      const w = faces[cell];
+      // Computing the east face from the layer start (not by repeated addition) lands the last
+      // face of the layer exactly on the interface.
+      const e = c === layer.cells - 1 ? end : start + (layer.thickness * (c + 1)) / layer.cells;
+      faces[cell + 1] = e;
+      nodes[cell] = cylinder ? cylinderNode(w, e) : 0.5 * (w + e);
+      volumes[cell] = cylinder ? Math.PI * (e - w) * (e + w) : e - w;
+      conductivity[cell] = layer.conductivity;
+      generating[cell] = layer.generating ? 1 : 0;
+      layerOfCell[cell] = layerIndex;
+    }
+    layerBounds.push({ ...(layer.name !== undefined ? { name: layer.name } : {}), from: start, to: end });
+    start = end;
+  });
+  for (let f = 0; f <= n; f++) faceAreas[f] = cylinder ? 2 * Math.PI * faces[f] : 1;
+  return { kind: geometry.kind, cellCount: n, faces, nodes, volumes, faceAreas, conductivity, generating, layerOfCell, layerBounds };
+}

@@ -1,0 +1,87 @@
+/**
+ * Heat exchange at a surface boundary (physics.md §2):
+ *   q_s(Ts) = h_c(Ts)·(Ts − T∞) + εσ(Ts⁴ − Tsur⁴) − q_absorbed      [W/m², leaving]
+ * and its linearisation for the outer iteration.
+ */
+import { ABSOLUTE_ZERO_C, KELVIN_OFFSET, STEFAN_BOLTZMANN } from './constants';
+import { evaluateConvection } from './convection';
+import { radiationCoefficient } from './radiation';
+import type { ConvectionEvaluation } from './types';
+import type { NormalizedSurface } from './validate';
+
+export interface SurfaceExchange {
+  /** °C at which it was evaluated */
+  surfaceC: number;
+  /** Net heat leaving per m² of surface, W/m². */
+  netFlux: number;
+  /** d(netFlux)/dTs, W/(m²·K). */
+  slope: number;
+  /** Secant convective coefficient, W/(m²·K). */
+  hConv: number;
+  /** Secant radiative coefficient, W/(m²·K). */
+  hRad: number;
+  convection?: ConvectionEvaluation;
+}
+
+/** Guards the property table and T⁴ against an absurd intermediate iterate below 0 K. */
+const LOWEST_EVALUATION_C = ABSOLUTE_ZERO_C + 1;
+
+function convectiveFlux(s: NormalizedSurface, surfaceC: number): { flux: number; evaluation?: ConvectionEvaluation } {
+  if (s.convection) {
+    const evaluation = evaluateConvection(s.convection, surfaceC, s.ambient);
+    return { flux: evaluation.h * (surfaceC - s.ambient), evaluation };
+  }
+  return { flux: s.fixedH * (surfaceC - s.ambient) };
+}
+
+export function evaluateSurface(s: NormalizedSurface, surfaceTemperatureC: number): SurfaceExchange {
+  const surfaceC = Math.max(surfaceTemperatureC, LOWEST_EVALUATION_C);
+  const conv = convectiveFlux(s, surfaceC);
+  const hConv = conv.evaluation ? conv.evaluation.h : s.fixedH;
+
+  let convSlope = s.fixedH;
+  if (s.convection) {
+    // Correlations are piecewise (property table, regime switches), so differentiate
+    // numerically; the step is small against any temperature difference that matters.
+    const step = Math.max(1e-3, 1e-4 * Math.abs(surfaceC - s.ambient));
+    const up = convectiveFlux(s, surfaceC + step).flux;
+    const down = convectiveFlux(s, Math.max(surfaceC - step, LOWEST_EVALUATION_C)).flux;
+    convSlope = (up - down) / (surfaceC + step - Math.max(surfaceC - step, LOWEST_EVALUATION_C));
+  }
+
+  let hRad = 0;
+  let radSlope = 0;
+  if (s.emissivity > 0) {
+    hRad = radiationCoefficient({ emissivity: s.emissivity, surfaceC, surroundingsC: s.surroundings });
+    const ts = surfaceC + KELVIN_OFFSET;
+    radSlope = 4 * s.emissivity * STEFAN_BOLTZMANN * ts * ts * ts;
+  }
+  const netFlux = conv.flux + hRad * (surfaceC - s.surroundings) - s.absorbedFlux;
+  return {
+    surfaceC,
+    netFlux,
+    slope: convSlope + radSlope,
+    hConv,
+    hRad,
+    ...(conv.evaluation ? { convection: conv.evaluation } : {}),
+  };
+}
+
+/** True when the surface's exchange does not depend on its temperature (fixed h, no radiation). */
+export function isLinearSurface(s: NormalizedSurface): boolean {
+  return s.convection === undefined && s.emissivity === 0;
+}
+
+/**
+ * The slope used to linearise q_s about Ts*: q_s(Ts) ≈ q_s(Ts*) + g·(Ts − Ts*).
+ * Newton's choice g = dq_s/dTs converges quadratically for convex q_s (natural convection,
+ * radiation); where the derivative falls below the secant coefficient (forced convection, whose h
+ * drops slowly with film temperature) the secant h_c + h_r is used instead, which still converges
+ * monotonically. The converged state does not depend on g — only the speed does. A tiny floor
+ * keeps a plate at exactly ambient (h → 0) from cutting its heat path in the first pass.
+ */
+export function linearisationSlope(e: SurfaceExchange, linear: boolean): number {
+  // A linear surface is used as given: a floor there would invent a heat path.
+  if (linear) return e.slope;
+  return Math.max(e.slope, e.hConv + e.hRad, 1e-6);
+}
