@@ -1,0 +1,64 @@
+import { ZodError } from 'zod';
+import { DatabaseConfigError } from '@/db/client';
+
+/** An error a route handler means to show: its status, a stable code and a plain message. */
+export class ApiError extends Error {
+  constructor(
+    public readonly status: number,
+    public readonly code: string,
+    message: string,
+    /** The input field at fault, dot-separated (`candidates.0.currentA`). */
+    public readonly fieldPath?: string,
+  ) {
+    super(message);
+    this.name = 'ApiError';
+  }
+}
+
+export interface ErrorBody {
+  error: { code: string; message: string; fieldPath?: string; issues?: { path: string; message: string }[] };
+}
+
+const UNREACHABLE_CODES = new Set(['ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'ENOTFOUND', 'EAI_AGAIN', 'EHOSTUNREACH', '57P01', '57P03', '08000', '08001', '08006']);
+
+/** True when the error (or anything in its cause chain) says PostgreSQL cannot be reached. */
+export function isDatabaseUnreachable(error: unknown): boolean {
+  for (let current: unknown = error, depth = 0; current && depth < 6; depth += 1) {
+    if (current instanceof DatabaseConfigError) return true;
+    const candidate = current as { code?: unknown; message?: unknown; cause?: unknown; errors?: unknown };
+    if (typeof candidate.code === 'string' && UNREACHABLE_CODES.has(candidate.code)) return true;
+    if (typeof candidate.message === 'string' && /connection terminated|timeout exceeded when trying to connect|Connection terminated unexpectedly/i.test(candidate.message)) return true;
+    // AggregateError from net.connect when several addresses fail.
+    if (Array.isArray(candidate.errors) && candidate.errors.some(isDatabaseUnreachable)) return true;
+    current = candidate.cause;
+  }
+  return false;
+}
+
+export function zodIssues(error: ZodError): { path: string; message: string }[] {
+  return error.issues.map((issue) => ({ path: issue.path.map(String).join('.'), message: issue.message }));
+}
+
+/** Maps any thrown value to the JSON error answer of the API. */
+export function errorResponse(error: unknown): Response {
+  if (error instanceof ApiError) {
+    const body: ErrorBody = { error: { code: error.code, message: error.message, ...(error.fieldPath ? { fieldPath: error.fieldPath } : {}) } };
+    return Response.json(body, { status: error.status });
+  }
+  if (error instanceof ZodError) {
+    const issues = zodIssues(error);
+    const first = issues[0];
+    const message = first ? `${first.path ? `${first.path}: ` : ''}${first.message}` : 'The input is not valid.';
+    return Response.json({ error: { code: 'invalid_input', message, issues } } satisfies ErrorBody, { status: 400 });
+  }
+  if (isDatabaseUnreachable(error)) {
+    return Response.json(
+      { error: { code: 'database_unavailable', message: 'The database cannot be reached just now; try again in a moment.' } } satisfies ErrorBody,
+      { status: 503, headers: { 'retry-after': '5' } },
+    );
+  }
+  console.error('ampwarden: unhandled error in a route handler', error);
+  return Response.json({ error: { code: 'internal_error', message: 'Something went wrong on the server; the error has been logged.' } } satisfies ErrorBody, {
+    status: 500,
+  });
+}
