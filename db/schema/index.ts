@@ -1,3 +1,4 @@
 // The Drizzle schema, one file per area; drizzle-kit reads this folder to generate `drizzle/`.
 export * from './core';
 export * from './auth';
+export * from './catalogue';
