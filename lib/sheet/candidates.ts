@@ -1,0 +1,105 @@
+/**
+ * Candidates as they are stored on a sizing sheet: a full copy of the conductor data the sizing
+ * library needs (not just a catalogue id), so that a saved or approved sheet recomputes to the
+ * same numbers even after the catalogue changes. The catalogue ids ride along for traceability.
+ */
+import { z } from 'zod';
+import type { BarCandidate, CableCandidate, Candidate } from '../electrical/sizing/types';
+
+const positive = (what: string) => z.number({ error: `${what} must be a number` }).positive(`${what} must be greater than 0`);
+const money = z
+  .string()
+  .trim()
+  .regex(/^\d+(\.\d+)?$/, 'must be a decimal amount such as 9.50');
+
+const candidateCommon = {
+  id: z.string().min(1).max(120),
+  label: z.string().min(1).max(200),
+  material: z.enum(['copper', 'aluminium']),
+  r20OhmPerM: positive('Resistance at 20 °C'),
+  alpha20PerK: z.number().positive().max(0.01).optional(),
+  parallel: z.number().int('Conductors per phase must be a whole number').min(1).max(100).default(1),
+  catalogue: z
+    .object({ conductorId: z.string().optional(), coveringIds: z.array(z.string()).optional(), buildId: z.string().optional() })
+    .optional(),
+  sourceNotes: z.array(z.string().max(500)).max(20).optional(),
+  dataFromMemory: z.boolean().optional(),
+  costs: z
+    .object({
+      conductorPricePerKg: money.optional(),
+      pricePerM: money.optional(),
+      densityKgPerM3: z.number().positive().optional(),
+    })
+    .optional(),
+};
+
+const cableLayerSchema = z.object({
+  name: z.string().min(1).max(120),
+  role: z.enum(['insulation', 'semiconductor', 'screen', 'bedding', 'armour', 'sheath', 'jacket', 'filler', 'other']).optional(),
+  thicknessM: positive('Layer thickness'),
+  thermalResistivityKmPerW: positive('Thermal resistivity'),
+  continuousLimitC: z.number().optional(),
+  shortCircuitLimitC: z.number().optional(),
+});
+
+export const cableCandidateSchema = z.object({
+  ...candidateCommon,
+  kind: z.literal('cable'),
+  sectionMm2: positive('Section'),
+  conductorDiameterM: positive('Conductor diameter'),
+  cores: z.number().int().min(1).max(5).optional(),
+  layers: z.array(cableLayerSchema).min(1, 'A cable needs at least its insulation'),
+  emissivity: z.number().min(0).max(1).optional(),
+  ks: z.number().positive().optional(),
+  kp: z.number().positive().optional(),
+});
+
+export const barCandidateSchema = z.object({
+  ...candidateCommon,
+  kind: z.literal('bar'),
+  widthM: positive('Bar width'),
+  thicknessM: positive('Bar thickness'),
+  barsPerPhase: z.number().int('Bars per phase must be a whole number').min(1).max(12).optional(),
+  barGapM: z.number().positive().optional(),
+  coating: z
+    .object({
+      name: z.string().optional(),
+      thicknessM: positive('Coating thickness'),
+      thermalResistivityKmPerW: positive('Coating thermal resistivity'),
+      emissivity: z.number().min(0).max(1).optional(),
+      continuousLimitC: z.number().optional(),
+      shortCircuitLimitC: z.number().optional(),
+    })
+    .optional(),
+  emissivity: z.number().min(0).max(1).optional(),
+  acResistanceRatio: z.number().min(1).max(10).optional(),
+  terminalLimitC: z.number().optional(),
+  shortCircuitLimitC: z.number().optional(),
+});
+
+export const sheetCandidateSchema = z.discriminatedUnion('kind', [cableCandidateSchema, barCandidateSchema]);
+export type SheetCandidate = z.infer<typeof sheetCandidateSchema>;
+
+// The stored shape must stay assignable to the sizing library's Candidate.
+type Assignable<T, U extends T> = U;
+export type _CableCheck = Assignable<CableCandidate, z.infer<typeof cableCandidateSchema>>;
+export type _BarCheck = Assignable<BarCandidate, z.infer<typeof barCandidateSchema>>;
+
+export function toLibraryCandidate(candidate: SheetCandidate): Candidate {
+  return candidate;
+}
+
+/** The section per phase, mm², for sorting and labels. */
+export function sectionPerPhaseMm2(candidate: SheetCandidate): number {
+  if (candidate.kind === 'cable') return candidate.sectionMm2 * candidate.parallel;
+  return candidate.widthM * candidate.thicknessM * 1e6 * (candidate.barsPerPhase ?? 1) * candidate.parallel;
+}
+
+/** "2 × 100 × 10 mm copper bars per phase", "2 × 240 mm² copper XLPE per phase". */
+export function describeArrangement(candidate: SheetCandidate): string {
+  if (candidate.kind === 'bar') {
+    const bars = (candidate.barsPerPhase ?? 1) * candidate.parallel;
+    return `${bars} bar${bars > 1 ? 's' : ''} per phase`;
+  }
+  return `${candidate.parallel} cable${candidate.parallel > 1 ? 's' : ''} per phase`;
+}

@@ -1,0 +1,104 @@
+/**
+ * The sheet form shows values in the user's unit system and stores SI. Each numeric field names
+ * the quantity it is; the conversions themselves live in lib/units.
+ */
+import {
+  celsiusToFahrenheit,
+  convertFromSi,
+  convertToSi,
+  fahrenheitToCelsius,
+  feetToMetres,
+  formatNumber,
+  metresToFeet,
+  unitLabel,
+  type Quantity,
+  type UnitSystem,
+} from '../units';
+
+/** Quantities of the sheet form: lib/units' plus those that have no imperial form of their own. */
+export type FormQuantity = Quantity | 'speedMPerS' | 'none';
+
+export interface FieldUnit {
+  quantity: FormQuantity;
+  /** The unit shown when the quantity is the same in both systems (A, V, Hz, %, W/m²...). */
+  fixedUnit?: string;
+}
+
+export const SHEET_FIELD_UNITS = {
+  'circuit.designCurrentA': { quantity: 'none', fixedUnit: 'A' },
+  'circuit.nominalVoltageV': { quantity: 'none', fixedUnit: 'V' },
+  'circuit.frequencyHz': { quantity: 'none', fixedUnit: 'Hz' },
+  'circuit.lengthM': { quantity: 'lengthM' },
+  'circuit.powerFactor': { quantity: 'none' },
+  'circuit.maxVoltageDropPercent': { quantity: 'none', fixedUnit: '%' },
+  'circuit.reactanceOhmPerM': { quantity: 'resistanceOhmPerKm' },
+  'fault.currentA': { quantity: 'none', fixedUnit: 'A' },
+  'fault.durationS': { quantity: 'none', fixedUnit: 's' },
+  'environment.ambientC': { quantity: 'temperature' },
+  'environment.windSpeedMPerS': { quantity: 'speedMPerS' },
+  'environment.irradianceWPerM2': { quantity: 'none', fixedUnit: 'W/m²' },
+  'environment.solarAbsorptivity': { quantity: 'none' },
+  'installation.spacingM': { quantity: 'lengthMm' },
+  'installation.depthM': { quantity: 'lengthM' },
+  'installation.soilResistivityKmPerW': { quantity: 'thermalResistivityKmPerW' },
+  'installation.groundC': { quantity: 'temperature' },
+  'installation.enclosureDerating': { quantity: 'none' },
+  'limits.temperatureLimitC': { quantity: 'temperature' },
+  'limits.groupingFactor': { quantity: 'none' },
+  'economics.lossLoadFactor': { quantity: 'none' },
+  'economics.hoursPerYear': { quantity: 'none', fixedUnit: 'h' },
+  'economics.discountRatePercent': { quantity: 'none', fixedUnit: '%' },
+  'economics.years': { quantity: 'none', fixedUnit: 'years' },
+  'economics.loadGrowthPercent': { quantity: 'none', fixedUnit: '% / year' },
+  'economics.energyPriceGrowthPercent': { quantity: 'none', fixedUnit: '% / year' },
+} as const satisfies Record<string, FieldUnit>;
+
+export type SheetNumericField = keyof typeof SHEET_FIELD_UNITS;
+
+/**
+ * Stored SI → what the form shows. Stored values carry a scale of their own where the form shows
+ * a handier unit: spacing is stored in m and shown in mm (or in), reactance is stored in Ω/m and
+ * shown in mΩ/m = Ω/km (or Ω/kft).
+ */
+const STORED_TO_QUANTITY_SCALE: Partial<Record<SheetNumericField, number>> = {
+  'installation.spacingM': 1000,
+  'circuit.reactanceOhmPerM': 1000,
+};
+
+export function toDisplay(field: SheetNumericField, storedValue: number, system: UnitSystem): number {
+  const spec: FieldUnit = SHEET_FIELD_UNITS[field];
+  const value = storedValue * (STORED_TO_QUANTITY_SCALE[field] ?? 1);
+  if (spec.quantity === 'none') return value;
+  if (spec.quantity === 'speedMPerS') return system === 'si' ? value : metresToFeet(value);
+  return convertFromSi(value, spec.quantity, system);
+}
+
+export function fromDisplay(field: SheetNumericField, shownValue: number, system: UnitSystem): number {
+  const spec: FieldUnit = SHEET_FIELD_UNITS[field];
+  let value: number;
+  if (spec.quantity === 'none') value = shownValue;
+  else if (spec.quantity === 'speedMPerS') value = system === 'si' ? shownValue : feetToMetres(shownValue);
+  else value = convertToSi(shownValue, spec.quantity, system);
+  return value / (STORED_TO_QUANTITY_SCALE[field] ?? 1);
+}
+
+export function displayUnit(field: SheetNumericField, system: UnitSystem): string {
+  const spec: FieldUnit = SHEET_FIELD_UNITS[field];
+  if (spec.quantity === 'none') return spec.fixedUnit ?? '';
+  if (spec.quantity === 'speedMPerS') return system === 'si' ? 'm/s' : 'ft/s';
+  return unitLabel(spec.quantity, system);
+}
+
+/** A stored value as the text a field shows: rounded for reading, without float noise (0.30000000000000004). */
+export function displayText(field: SheetNumericField, storedValue: number | null, system: UnitSystem): string {
+  if (storedValue === null || !Number.isFinite(storedValue)) return '';
+  return formatNumber(toDisplay(field, storedValue, system), 6);
+}
+
+/** Temperatures on the result strip and plots, in the user's system. */
+export function temperatureIn(system: UnitSystem, temperatureC: number): number {
+  return system === 'si' ? temperatureC : celsiusToFahrenheit(temperatureC);
+}
+export function temperatureFrom(system: UnitSystem, shown: number): number {
+  return system === 'si' ? shown : fahrenheitToCelsius(shown);
+}

@@ -1,0 +1,8 @@
+/** `lib/sheet` — the sizing sheet as data: inputs schema, review states, sizing conversion, result snapshot. Pure TypeScript. */
+export * from './schema';
+export * from './candidates';
+export * from './stateMachine';
+export * from './toSizing';
+export * from './compute';
+export * from './snapshot';
+export * from './formUnits';

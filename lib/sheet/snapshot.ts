@@ -1,0 +1,94 @@
+/**
+ * The result snapshot stored with a saved sheet (`sheets.result`): computed on the server from the
+ * saved inputs — never taken from the client — with the solver version that produced it. Review
+ * decisions (which flags need acknowledging, whether a blocker stands) read this snapshot.
+ */
+import type { AssumptionFlag } from '../electrical/sizing/flags';
+import type { CandidateEvaluation, CandidateEvaluationOk } from '../electrical/sizing/types';
+import { computeSheet, SOLVER_VERSION } from './compute';
+import type { SheetInputs } from './schema';
+import type { ApprovalReadiness } from './stateMachine';
+
+export const SNAPSHOT_VERSION = 1 as const;
+
+export interface ResultSnapshot {
+  snapshotVersion: typeof SNAPSHOT_VERSION;
+  solverVersion: string;
+  computedAt: string;
+  designCurrentA: number;
+  /** Set when the conditions themselves were invalid (no candidate could be evaluated). */
+  error: { message: string; field?: string } | null;
+  evaluations: CandidateEvaluation[];
+  smallestPassingId: string | null;
+  lowestLifeCycleCostPassingId: string | null;
+  chosenCandidateId: string | null;
+  /** The chosen candidate's flags: what the reviewer accepts or rejects. */
+  chosenFlags: AssumptionFlag[];
+  chosenPasses: boolean | null;
+}
+
+/** The stored size matters (one row per sheet): the ampacity search's profile duplicates the design one in shape, so it is dropped. */
+function slim(evaluation: CandidateEvaluation): CandidateEvaluation {
+  if (!evaluation.ok) return evaluation;
+  const { profile: _dropped, ...ampacity } = evaluation.ampacity;
+  return { ...evaluation, ampacity: { ...ampacity, profile: { geometry: _dropped.geometry, positionsM: [], temperaturesC: [], layers: _dropped.layers, hotSpot: _dropped.hotSpot } } };
+}
+
+export function buildSnapshot(inputs: SheetInputs, now = new Date()): ResultSnapshot {
+  const computation = computeSheet(inputs);
+  const evaluations = computation.ok ? computation.comparison.evaluations.map(slim) : [];
+  const idAt = (index: number | null) => (index === null ? null : (evaluations[index]?.id ?? null));
+  const chosen = evaluations.find((e) => e.id === inputs.chosenCandidateId) ?? null;
+  return {
+    snapshotVersion: SNAPSHOT_VERSION,
+    solverVersion: SOLVER_VERSION,
+    computedAt: now.toISOString(),
+    designCurrentA: inputs.circuit.designCurrentA,
+    error: computation.ok ? null : computation.error,
+    evaluations,
+    smallestPassingId: computation.ok ? idAt(computation.comparison.smallestPassingIndex) : null,
+    lowestLifeCycleCostPassingId: computation.ok ? idAt(computation.comparison.lowestLifeCycleCostPassingIndex) : null,
+    chosenCandidateId: inputs.chosenCandidateId,
+    chosenFlags: chosen && chosen.ok ? chosen.flags : [],
+    chosenPasses: chosen ? chosen.ok && chosen.passes : null,
+  };
+}
+
+export function chosenEvaluation(snapshot: ResultSnapshot | null): CandidateEvaluationOk | null {
+  if (!snapshot) return null;
+  const chosen = snapshot.evaluations.find((e) => e.id === snapshot.chosenCandidateId);
+  return chosen && chosen.ok ? chosen : null;
+}
+
+/**
+ * What stands between the sheet and approval: blockers on the chosen candidate (a candidate that
+ * failed to evaluate, or fails without a blocker flag, counts as a blocker too) and review flags
+ * nobody has acknowledged.
+ */
+export function approvalReadiness(snapshot: ResultSnapshot | null, acknowledgedCodes: Iterable<string>): ApprovalReadiness {
+  if (!snapshot || snapshot.chosenCandidateId === null) {
+    return { hasChosenCandidate: false, blockerCodes: [], unacknowledgedReviewCodes: [] };
+  }
+  const chosen = snapshot.evaluations.find((e) => e.id === snapshot.chosenCandidateId);
+  const blockerCodes: string[] = [];
+  if (snapshot.error) blockerCodes.push('CONDITIONS_INVALID');
+  else if (!chosen) blockerCodes.push('CHOSEN_CANDIDATE_MISSING');
+  else if (!chosen.ok) blockerCodes.push('EVALUATION_FAILED');
+  else {
+    for (const flag of chosen.flags) if (flag.severity === 'blocker') blockerCodes.push(flag.code);
+    if (!chosen.passes && blockerCodes.length === 0) blockerCodes.push('CANDIDATE_FAILS');
+  }
+  const acknowledged = new Set(acknowledgedCodes);
+  const unacknowledgedReviewCodes = snapshot.chosenFlags
+    .filter((flag) => flag.severity === 'review' && !acknowledged.has(flag.code))
+    .map((flag) => flag.code);
+  return { hasChosenCandidate: true, blockerCodes, unacknowledgedReviewCodes };
+}
+
+/** A stored snapshot of an unknown future version is shown as "recompute needed", not misread. */
+export function readSnapshot(raw: unknown): ResultSnapshot | null {
+  if (!raw || typeof raw !== 'object') return null;
+  const value = raw as Partial<ResultSnapshot>;
+  if (value.snapshotVersion !== SNAPSHOT_VERSION || !Array.isArray(value.evaluations)) return null;
+  return value as ResultSnapshot;
+}
