@@ -154,6 +154,9 @@ export interface IterateArgs {
   surfaceStart?: { inner: number; outer: number };
 }
 
+/** Consecutive rising passes above the temperature limit that count as divergence. */
+const DIVERGENCE_STREAK = 3;
+
 /** First linearisation point of a surface in a steady solve: a modest rise above the air. */
 const STEADY_SURFACE_START_RISE_K = 10;
 
@@ -172,6 +175,8 @@ export function iterate(ctx: SolverContext, args: IterateArgs): IterationOutcome
   let solves = 0;
   let lastMode: Linearisation = 'lagged';
   let previousDelta = Infinity;
+  let previousHottest = -Infinity;
+  let aboveLimitStreak = 0;
 
   const finish = (status: IterationStatus, iterations: number): IterationOutcome => ({
     status,
@@ -229,8 +234,13 @@ export function iterate(ctx: SolverContext, args: IterateArgs): IterationOutcome
     // matrix). Such an answer is reported even if very hot: it is the model's steady state.
     const exact = linearSurroundings && (!joule || mode === 'tangent');
     // Only a temperature-dependent source can run away; a uniform one always has a bounded state.
-    // An iterate past the limit is taken as unbounded growth (see DEFAULT_TEMPERATURE_LIMIT_C).
-    if (!exact && joule && hottest > options.temperatureLimit) return finish('diverged', iteration);
+    // Growth past the limit for several passes in a row is taken as unbounded (see
+    // DEFAULT_TEMPERATURE_LIMIT_C). One pass above it is not enough: a first linearisation about
+    // a cool surface can overshoot, and the next Newton pass pulls it back.
+    if (!exact && joule && hottest > options.temperatureLimit && hottest > previousHottest) aboveLimitStreak++;
+    else aboveLimitStreak = 0;
+    previousHottest = hottest;
+    if (aboveLimitStreak >= DIVERGENCE_STREAK) return finish('diverged', iteration);
     // Error estimate for a linearly converging iteration: |e| ≈ Δ·r/(1 − r), r = Δ_k/Δ_{k−1};
     // near runaway the lagged form converges slowly and a small Δ alone would overstate accuracy.
     const ratio = delta / previousDelta;

@@ -219,10 +219,21 @@ function eigenvalueOnset(ctx: SolverContext): { currentA: number; peakPosition: 
   };
 }
 
+/** A converged state whose hottest node is within the temperature limit. */
+function boundedBelowLimit(ctx: SolverContext, outcome: IterationOutcome): boolean {
+  if (outcome.status !== 'converged') return false;
+  let hottest = -Infinity;
+  for (const t of outcome.temperatures) hottest = Math.max(hottest, t);
+  return hottest <= ctx.problem.options.temperatureLimit;
+}
+
 /**
- * Temperature-dependent surroundings: no closed criterion, so bisect on current for the largest
- * current whose iteration converges below the temperature limit (existence of a bounded steady
- * state), between 0 A (always fine) and the requested current (known to fail).
+ * Temperature-dependent surroundings have no closed existence criterion (and with radiation,
+ * whose loss grows as T⁴, a steady state exists mathematically at any current, however absurd its
+ * temperature). The question answered is therefore: is there a steady state with the hot spot
+ * below the temperature limit? Bisect on current for the largest current for which there is,
+ * between 0 A (always) and the requested current (known not to). The hot spot rises with
+ * current, so the answer is monotone and the bisection well posed.
  */
 function bisectOnset(ctx: SolverContext, failingCurrentA: number, start: Float64Array): { currentA: number; peakPosition: number; solves: number } {
   let lo = 0;
@@ -233,7 +244,7 @@ function bisectOnset(ctx: SolverContext, failingCurrentA: number, start: Float64
     const mid = 0.5 * (lo + hi);
     const outcome = iterate(ctx, { start, currentA: mid });
     solves += outcome.tridiagonalSolves;
-    if (outcome.status === 'converged') {
+    if (boundedBelowLimit(ctx, outcome)) {
       lo = mid;
       peak = peakPosition(ctx, outcome.temperatures);
     } else {
@@ -274,11 +285,13 @@ export function solveSteady(problem: ThermalProblem): SteadyResult {
 
   const start = steadyStart(normalized, n);
   const outcome = iterate(ctx, { start });
-  if (outcome.status === 'converged') return convergedResult(ctx, outcome, flags, onsetExtra);
 
-  // With fixed surroundings the eigenvalue test above has already settled existence: a lagged
-  // iteration that climbed past the limit below the onset current is not a runaway.
-  if (outcome.status === 'diverged' && source.kind === 'joule' && !onset) {
+  // With fixed surroundings the eigenvalue test above has already settled existence, exactly;
+  // such a result is reported even above the limit (flagged), and a lagged iteration that
+  // climbed past the limit below the onset is not a runaway. With temperature-dependent
+  // surroundings the limit defines the question (see bisectOnset).
+  const temperatureDependent = source.kind === 'joule' && !onset && !hasLinearSurroundings(normalized);
+  if (temperatureDependent && (outcome.status === 'diverged' || !boundedBelowLimit(ctx, outcome))) {
     const found = bisectOnset(ctx, source.current, start);
     return unboundedResult(ctx, {
       iterations: outcome.iterations,
@@ -297,6 +310,7 @@ export function solveSteady(problem: ThermalProblem): SteadyResult {
       runaway: { current: found.currentA, criterion: 'temperature-limit' },
     });
   }
+  if (outcome.status === 'converged') return convergedResult(ctx, outcome, flags, onsetExtra);
 
   return unboundedResult(ctx, {
     iterations: outcome.iterations,

@@ -127,7 +127,12 @@ export interface SolverOptions {
   linearisation?: Linearisation;
   /** Under-relaxation factor for lagged passes, 0 < ω ≤ 1 (default 0.7). */
   relaxation?: number;
-  /** Hot spot, °C, beyond which an iteration counts as unbounded (default 2000). */
+  /**
+   * °C (default 2000). Joule source with temperature-dependent surroundings only: a steady state
+   * hotter than this is not reported; the result is a runaway with criterion 'temperature-limit'
+   * and the largest current whose steady hot spot stays below it. Also stops an iteration that
+   * keeps climbing past it. Fixed surroundings use the exact eigenvalue criterion instead.
+   */
   temperatureLimit?: number;
 }
 
@@ -208,9 +213,10 @@ export interface LayerBound {
 
 export interface RunawayReport {
   /**
-   * A: for 'eigenvalue', the exact onset current of the discrete model (no steady state at or
-   * above it); for 'temperature-limit', the largest current found to have a steady state below
-   * the temperature limit (bisection).
+   * A. 'eigenvalue' (surroundings independent of temperature): the exact current of the discrete
+   * model at and above which no steady state exists. 'temperature-limit' (surroundings whose
+   * conductance depends on temperature): the largest current, found by bisection to a relative
+   * 1e-4, whose steady hot spot stays below options.temperatureLimit — a conservative onset.
    */
   current?: number;
   criterion: 'eigenvalue' | 'temperature-limit';
@@ -237,9 +243,10 @@ export interface SteadyResult {
    */
   temperatures: number[];
   /**
-   * Hottest point among the nodes and the faces whose temperature is known. When there is no
-   * steady state the temperature is +Infinity (fails every limit check) and the position is where
-   * the unstable mode peaks (runaway) or NaN-free 0.
+   * Hottest point among the nodes and the faces whose temperature is known. When no steady state
+   * was established the temperature is +Infinity (so every "below the limit?" test fails safe)
+   * and the position is where the growth concentrates: the peak of the unstable mode (eigenvalue
+   * runaway), of the last bounded state (bisection), or of the last iterate.
    */
   hotSpot: { temperature: number; position: number };
   iterations: number;
