@@ -1,0 +1,64 @@
+/**
+ * next-auth 4 configuration: e-mail + password (Credentials provider), JWT sessions carrying the
+ * user id, team id, role and the user's session epoch. The token alone is never trusted for
+ * access: getSessionUser (session.ts) re-reads the user row on every request.
+ */
+import type { NextAuthOptions } from 'next-auth';
+import CredentialsProvider from 'next-auth/providers/credentials';
+import { clientAddressFrom } from '@/server/limits/signIn';
+import { SESSION_MAX_AGE_S, sessionCookieName, usesSecureCookies } from './cookies';
+import { LIMITED_PREFIX, verifySignIn } from './credentials';
+
+export function authOptions(): NextAuthOptions {
+  const secure = usesSecureCookies();
+  return {
+    secret: process.env.NEXTAUTH_SECRET,
+    session: { strategy: 'jwt', maxAge: SESSION_MAX_AGE_S },
+    jwt: { maxAge: SESSION_MAX_AGE_S },
+    useSecureCookies: secure,
+    cookies: {
+      sessionToken: {
+        name: sessionCookieName(),
+        options: { httpOnly: true, sameSite: 'lax', path: '/', secure },
+      },
+    },
+    pages: { signIn: '/sign-in', error: '/sign-in', signOut: '/sign-out' },
+    providers: [
+      CredentialsProvider({
+        id: 'credentials',
+        name: 'E-mail and password',
+        credentials: { email: { label: 'E-mail', type: 'email' }, password: { label: 'Password', type: 'password' } },
+        async authorize(credentials, req) {
+          const outcome = await verifySignIn(credentials, clientAddressFrom(req?.headers ?? {}));
+          if (outcome.ok) {
+            const { id, teamId, role, name, email, sessionEpoch } = outcome.user;
+            return { id, teamId, role, name, email, sessionEpoch };
+          }
+          // next-auth passes a thrown message to the sign-in page as ?error=…; null becomes CredentialsSignin.
+          if (outcome.reason === 'limited') throw new Error(`${LIMITED_PREFIX}${outcome.retryAfterS}`);
+          return null;
+        },
+      }),
+    ],
+    callbacks: {
+      async jwt({ token, user }) {
+        if (user) {
+          const signedIn = user as unknown as { id: string; teamId: string; role: string; sessionEpoch: number };
+          token.sub = signedIn.id;
+          token.teamId = signedIn.teamId;
+          token.role = signedIn.role;
+          token.epoch = signedIn.sessionEpoch;
+        }
+        return token;
+      },
+      async session({ session, token }) {
+        // The browser copy carries only what the user menu needs; rights are checked on the server.
+        return { ...session, user: { name: session.user?.name, email: session.user?.email }, role: token.role } as typeof session;
+      },
+      async redirect({ url, baseUrl }) {
+        if (url.startsWith('/') && !url.startsWith('//')) return `${baseUrl}${url}`;
+        return new URL(url).origin === baseUrl ? url : `${baseUrl}/projects`;
+      },
+    },
+  };
+}
