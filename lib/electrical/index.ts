@@ -33,3 +33,39 @@ export { Money, toMoney, lossEnergyCost, conductorMass, materialCost } from './e
 export type { MoneyInput, LossEnergyCostInput, LossEnergyCostResult } from './economics';
 export { findLimitCurrent } from './sizing/rootFinder';
 export type { LimitEvaluation, LimitRoot } from './sizing/rootFinder';
+
+// ── Sizing (physics.md §5) ──
+export { ampacity, evaluateCandidate, compareCandidates, AMPACITY_TOLERANCE_A, CROSS_CHECK_LIMIT_PERCENT, NEAR_RUNAWAY_RATIO } from './sizing/evaluate';
+export { FLAG_CODES, FLAG_REGISTRY, makeFlag } from './sizing/flags';
+export type { AssumptionFlag, FlagCode, FlagDefinition, FlagSeverity } from './sizing/flags';
+export {
+  DEFAULT_AIR_AMBIENT_BAR_C,
+  DEFAULT_AIR_AMBIENT_CABLE_C,
+  DEFAULT_GROUND_C,
+  DEFAULT_SOIL_RESISTIVITY_KM_PER_W,
+  DEFAULT_SOLAR_ABSORPTIVITY,
+  ADIABATIC_MAX_DURATION_S,
+} from './sizing/prepare';
+export type {
+  AmpacityResult,
+  BarCandidate,
+  BarCoating,
+  CableArrangement,
+  CableCandidate,
+  CableLayer,
+  Candidate,
+  CandidateCosts,
+  CandidateEvaluation,
+  CandidateEvaluationError,
+  CandidateEvaluationOk,
+  ClosedFormCheck,
+  Comparison,
+  Conditions,
+  EconomicsInputs,
+  GoverningLimit,
+  HeatProfile,
+  Installation,
+  LimitSource,
+  ProfileLayer,
+  ShortCircuitCheck,
+} from './sizing/types';

@@ -43,7 +43,6 @@ export const FLAG_CODES = [
   'REACTANCE_ASSUMED',
   'BAR_REACTANCE_ASSUMED',
   'CROSS_CHECK_DIFFERENCE',
-  'SOLVER_ENERGY_RESIDUAL',
   'SHEATH_LOSSES_NOT_INCLUDED',
 ] as const;
 
@@ -90,7 +89,6 @@ export const FLAG_REGISTRY: Readonly<Record<FlagCode, Readonly<FlagDefinition>>>
   REACTANCE_ASSUMED: { severity: 'note', title: 'Default reactance used for the voltage drop', basis: 'IEC 60364-5-52 Annex G (λ = 0.08 mΩ/m)' },
   BAR_REACTANCE_ASSUMED: { severity: 'review', title: 'Cable reactance default used for a bus bar', basis: 'IEC 60364-5-52 Annex G (λ is for cables)' },
   CROSS_CHECK_DIFFERENCE: { severity: 'review', title: 'Solver and closed-form ampacity differ', basis: 'physics.md §5 (IEC 60287 cross-check)' },
-  SOLVER_ENERGY_RESIDUAL: { severity: 'review', title: 'Solver energy balance not closed', basis: 'physics.md §1 (energy balance to 1e-6)' },
   SHEATH_LOSSES_NOT_INCLUDED: { severity: 'review', title: 'Losses in metallic screens or armour not included', basis: 'IEC 60287-1-1 §2.3 (λ₁, λ₂ taken as zero)' },
 });
 

@@ -234,6 +234,8 @@ export interface AmpacityResult {
   profile: HeatProfile;
   /** Set when no current at all can flow (the limit is at or below the temperature without current). */
   zeroBecause?: string;
+  /** Assumption flags raised by the inputs and the ampacity search. */
+  flags: AssumptionFlag[];
 }
 
 export interface ShortCircuitCheck {
@@ -263,22 +265,30 @@ export interface CandidateEvaluationOk {
   designCurrentA: number;
   conductorCurrentA: number;
   ambientC: number;
-  hotSpotC: number;
+  /** Hot spot at the design current, °C; null when there is no steady state (RUNAWAY). */
+  hotSpotC: number | null;
+  /** Temperature of the governing constraint (the hot spot, or a covering's inner face), °C. */
+  governingTemperatureC: number | null;
   limit: GoverningLimit;
-  /** Limit minus hot spot, K. */
-  marginK: number;
+  /** Limit minus the governing temperature, K (negative when over the limit). */
+  marginK: number | null;
   /** Margin as a share of the allowed rise (limit − ambient), %. */
-  marginPercent: number;
+  marginPercent: number | null;
   ampacityA: number;
   /** Design current / ampacity. */
   utilisation: number;
   acFactor: number;
-  /** AC resistance of one conductor at the hot spot, Ω/m. */
-  resistanceOhmPerM: number;
+  /** Mean conductor temperature at the design current, °C (null on runaway). */
+  conductorC: number | null;
+  /** AC resistance of one conductor (core or bar) at its solved temperature, Ω/m. */
+  resistanceOhmPerM: number | null;
   /** Joule loss of one conductor, W/m. */
-  lossPerConductorWPerM: number;
+  lossPerConductorWPerM: number | null;
   /** Joule loss of the whole circuit per metre of route, W/m. */
-  lossWPerM: number;
+  lossWPerM: number | null;
+  /** Conductors counted for losses and mass. */
+  loadedConductors: number;
+  conductorsInstalled: number;
   sectionPerPhaseMm2: number;
   voltageDrop: { volts: number; percent: number; limitPercent?: number };
   shortCircuit: ShortCircuitCheck;
@@ -287,7 +297,8 @@ export interface CandidateEvaluationOk {
   lossCostPresentValue: string | null;
   lifeCycleCost: string | null;
   ampacity: AmpacityResult;
-  profile: HeatProfile;
+  /** Heat-balance profile at the design current (null on runaway). */
+  profile: HeatProfile | null;
   flags: AssumptionFlag[];
   solves: number;
   isSmallestPassing?: boolean;
