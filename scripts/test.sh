@@ -85,6 +85,8 @@ node -e '
     try {
       const r = JSON.parse(fs.readFileSync(file, "utf8"));
       passed += r.numPassedTests; failed += r.numFailedTests; skipped += r.numPendingTests + r.numTodoTests;
+      // A suite that fails to load has no failed test of its own: count it, never let it pass silently.
+      if (!r.success && r.numFailedTests === 0) failed += Math.max(1, r.numFailedTestSuites);
     } catch { failed += 1; console.error(`no test report in ${file}`); }
   }
   console.log(`tests: ${passed} passed, ${failed} failed` + (skipped ? `, ${skipped} skipped` : ""));

@@ -11,7 +11,7 @@ export function appUrl(pathname = '/'): string {
 
 /** Debian's Chromium, headless, with the flags this closed network needs (stack.md). */
 export async function launchBrowser(): Promise<Browser> {
-  const userDataDir = fs.mkdtempSync(path.join(process.env.AMPWARDEN_TEST_TMP ?? '/tmp', 'chromium-'));
+  // Playwright gives each launch a fresh, empty profile of its own (no --user-data-dir needed).
   return chromium.launch({
     executablePath: '/usr/bin/chromium',
     headless: true,
@@ -23,7 +23,6 @@ export async function launchBrowser(): Promise<Browser> {
       '--disable-background-networking',
       '--disable-component-update',
       '--disable-sync',
-      `--user-data-dir=${userDataDir}`,
     ],
   });
 }
