@@ -21,7 +21,7 @@ PIDS=()
 cleanup() {
   for pid in "${PIDS[@]:-}"; do [ -n "$pid" ] && kill -TERM -- "-$pid" 2>/dev/null || true; done
   stop_cluster "$PG_DIR"
-  rm -rf "$TMP_DIR"
+  rm -rf "$TMP_DIR" "${NEXT_DIST_DIR:-}"
 }
 trap cleanup EXIT
 trap 'exit 130' INT TERM
@@ -52,7 +52,8 @@ step "migrations" node --import tsx scripts/migrate.ts
 
 # The production build for the browser tests runs into its own folder while the type-check and
 # the library and database tests run.
-export NEXT_DIST_DIR=.next-test
+# A folder per run, so that two runs side by side (or a running `npm start`) never share a build.
+export NEXT_DIST_DIR=.next-test-$$
 ( node_modules/.bin/next build >"$TMP_DIR/build.log" 2>&1; echo $? >"$TMP_DIR/build.rc" ) &
 BUILD_PID=$!
 
