@@ -21,6 +21,7 @@ PIDS=()
 cleanup() {
   for pid in "${PIDS[@]:-}"; do [ -n "$pid" ] && kill -TERM -- "-$pid" 2>/dev/null || true; done
   stop_cluster "$PG_DIR"
+  if [ -f "$TMP_DIR/next-env.d.ts.saved" ]; then cp "$TMP_DIR/next-env.d.ts.saved" next-env.d.ts; else rm -f next-env.d.ts; fi
   rm -rf "$TMP_DIR" "${NEXT_DIST_DIR:-}"
 }
 trap cleanup EXIT
@@ -50,19 +51,22 @@ REPORTS=()
 
 step "migrations" node --import tsx scripts/migrate.ts
 
-# The production build for the browser tests runs into its own folder while the type-check and
-# the library and database tests run.
+# The production build for the browser tests runs in the background while the library and
+# database tests run.
+# next build rewrites next-env.d.ts to point at its folder: put back the developer's afterwards.
+[ -f next-env.d.ts ] && cp next-env.d.ts "$TMP_DIR/next-env.d.ts.saved"
 # A folder per run, so that two runs side by side (or a running `npm start`) never share a build.
 export NEXT_DIST_DIR=.next-test-$$
 ( node_modules/.bin/next build >"$TMP_DIR/build.log" 2>&1; echo $? >"$TMP_DIR/build.rc" ) &
 BUILD_PID=$!
 
-step "type-check" node_modules/.bin/tsc --noEmit -p .
 step "unit and integration tests" node_modules/.bin/vitest run --project unit --project integration \
   --reporter=default --reporter=json --outputFile.json="$TMP_DIR/vitest-1.json"
 REPORTS+=("$TMP_DIR/vitest-1.json")
 
 wait "$BUILD_PID"
+# After the build: next-env.d.ts now points at this run's generated route types.
+step "type-check" node_modules/.bin/tsc --noEmit -p .
 if [ "$(cat "$TMP_DIR/build.rc" 2>/dev/null)" != "0" ]; then
   tail -40 "$TMP_DIR/build.log"
   FAILED_STEPS+=("build")
