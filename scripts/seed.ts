@@ -1,13 +1,15 @@
 // Seeds the invented demo scenario once; running it again changes nothing.
 import { closeDb, getDb } from '../db/client';
 import { seedDemo } from '../db/seed/demo';
+import { seedSheets } from '../db/seed/sheets';
 
 async function main() {
   const report = await seedDemo(getDb());
-  const changed = report.teamCreated || report.usersCreated > 0 || report.projectsCreated > 0;
+  const sheetReport = await seedSheets(getDb());
+  const changed = report.teamCreated || report.usersCreated > 0 || report.projectsCreated > 0 || sheetReport.sheetsCreated > 0;
   console.log(
     changed
-      ? `ampwarden: demo data seeded (team ${report.teamCreated ? 'created' : 'kept'}, ${report.usersCreated} users, ${report.projectsCreated} projects)`
+      ? `ampwarden: demo data seeded (team ${report.teamCreated ? 'created' : 'kept'}, ${report.usersCreated} users, ${report.projectsCreated} projects, ${sheetReport.sheetsCreated} sizing sheets)`
       : 'ampwarden: demo data already present',
   );
 }

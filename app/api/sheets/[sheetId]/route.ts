@@ -1,0 +1,27 @@
+import { z } from 'zod';
+import { getSheet, saveSheet } from '@/db/queries/sheets';
+import { sheetInputsSchema } from '@/lib/sheet';
+import { apiHandler, ApiError } from '@/server/http/api';
+import { sheetActor, sheetOperation } from '../_shared/sheetApi';
+
+export const GET = apiHandler({ permission: 'team:read' }, async (_req, { user, params }) => {
+  const sheet = await getSheet(user!.teamId, params.sheetId);
+  if (!sheet) throw new ApiError(404, 'not_found', 'No such sizing sheet.');
+  return Response.json({ sheet });
+});
+
+const saveBodySchema = z.object({
+  expectedVersion: z.number().int().positive(),
+  inputs: sheetInputsSchema,
+  title: z.string().trim().min(1, 'Title is required').max(200).optional(),
+  circuitTag: z.string().trim().min(1, 'Circuit tag is required').max(40).optional(),
+});
+
+/** Saves inputs and the chosen candidate; the result snapshot is computed here, not taken from the client. */
+export const PUT = apiHandler({ permission: 'sheet:write' }, async (req, { user, params }) => {
+  const body = saveBodySchema.parse(await req.json());
+  return sheetOperation(async () => {
+    const saved = await saveSheet(user!.teamId, sheetActor(user!), params.sheetId, body);
+    return Response.json(saved);
+  });
+});
