@@ -1,0 +1,5 @@
+/** `lib/api` — request and answer shapes of the calculation API (v1), its limits and its OpenAPI document. */
+export * from './limits';
+export * from './schemas';
+export * from './responses';
+export { buildOpenApiDocument } from './openapi';

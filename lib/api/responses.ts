@@ -1,0 +1,184 @@
+/**
+ * Answers of the calculation API (v1), as zod schemas: they generate the OpenAPI document and the
+ * tests parse every answer with them (zod 4 numbers refuse NaN and ±Infinity, so a parse also
+ * proves there is no such value in a result). They mirror lib/electrical's result types; the
+ * checks at the bottom keep the two in step.
+ */
+import { z } from 'zod';
+import { FLAG_CODES } from '../electrical/sizing/flags';
+import type { AmpacityResult, CandidateEvaluation } from '../electrical/sizing/types';
+import { API_VERSION } from './limits';
+
+const finite = z.number();
+
+export const flagSchema = z
+  .object({
+    code: z.enum(FLAG_CODES),
+    severity: z.enum(['note', 'review', 'blocker']),
+    title: z.string(),
+    message: z.string(),
+    data: z.record(z.string(), z.union([finite, z.string(), z.boolean()])).optional(),
+  })
+  .meta({ id: 'AssumptionFlag', description: 'A statement the result depends on that a licensed reviewer must accept (note, review, blocker).' });
+
+const governingLimitSchema = z.object({
+  temperatureC: finite,
+  source: z.enum(['insulation', 'coating', 'terminal', 'user', 'layer']),
+  layer: z.string().optional(),
+});
+
+const profileSchema = z
+  .object({
+    geometry: z.enum(['slab', 'cylinder']),
+    positionsM: z.array(finite),
+    temperaturesC: z.array(finite),
+    layers: z.array(
+      z.object({ name: z.string(), startM: finite, endM: finite, limitC: finite.optional(), generating: z.boolean() }),
+    ),
+    hotSpot: z.object({ temperatureC: finite, positionM: finite }),
+  })
+  .meta({ id: 'HeatProfile', description: 'Temperature versus position through the conductor and its coverings.' });
+
+const closedFormSchema = z.object({
+  currentA: finite,
+  method: z.string(),
+  differencePercent: finite,
+  externalResistanceKmPerW: finite,
+  internalResistanceKmPerW: finite,
+});
+
+export const ampacityResultSchema = z
+  .object({
+    current: finite.meta({ description: 'Ampacity of the circuit per phase, A (all parallel conductors, after derating).' }),
+    hotSpot: z.object({ temperature: finite, position: finite }),
+    iterations: finite,
+    solves: finite,
+    conductorCurrentA: finite,
+    governingLimit: governingLimitSchema,
+    acFactor: finite,
+    bracketA: z.tuple([finite, finite]),
+    closedForm: closedFormSchema.nullable(),
+    profile: profileSchema,
+    zeroBecause: z.string().optional(),
+    flags: z.array(flagSchema),
+  })
+  .meta({ id: 'AmpacityResult' });
+
+const shortCircuitSchema = z.object({
+  checked: z.boolean(),
+  reason: z.string().optional(),
+  currentA: finite.optional(),
+  durationS: finite.optional(),
+  initialC: finite.optional(),
+  finalC: finite.nullable().optional(),
+  limitC: finite.optional(),
+  kFactor: finite.optional(),
+  minimumSectionMm2: finite.optional(),
+  sectionPerPhaseMm2: finite.optional(),
+  withstands: z.boolean().optional(),
+});
+
+const decimalText = z.string().meta({ description: 'A decimal amount as text (exact).' });
+
+export const evaluationOkSchema = z
+  .object({
+    ok: z.literal(true),
+    index: finite,
+    id: z.string(),
+    label: z.string(),
+    kind: z.enum(['cable', 'bar']),
+    passes: z.boolean().meta({ description: 'True when no blocker flag was raised.' }),
+    designCurrentA: finite,
+    conductorCurrentA: finite,
+    ambientC: finite,
+    hotSpotC: finite.nullable().meta({ description: 'Hot spot at the design current, °C; null when there is no steady state (RUNAWAY).' }),
+    governingTemperatureC: finite.nullable(),
+    limit: governingLimitSchema,
+    marginK: finite.nullable(),
+    marginPercent: finite.nullable(),
+    ampacityA: finite,
+    utilisation: finite,
+    acFactor: finite,
+    conductorC: finite.nullable(),
+    resistanceOhmPerM: finite.nullable(),
+    lossPerConductorWPerM: finite.nullable(),
+    lossWPerM: finite.nullable(),
+    loadedConductors: finite,
+    conductorsInstalled: finite,
+    sectionPerPhaseMm2: finite,
+    voltageDrop: z.object({ volts: finite, percent: finite, limitPercent: finite.optional() }),
+    shortCircuit: shortCircuitSchema,
+    massKg: finite,
+    materialCost: decimalText.nullable(),
+    lossCostPresentValue: decimalText.nullable(),
+    lifeCycleCost: decimalText.nullable(),
+    ampacity: ampacityResultSchema,
+    profile: profileSchema.nullable(),
+    flags: z.array(flagSchema),
+    solves: finite,
+    isSmallestPassing: z.boolean().optional(),
+    isLowestLifeCycleCostPassing: z.boolean().optional(),
+  })
+  .meta({ id: 'CandidateResult' });
+
+export const evaluationErrorSchema = z
+  .object({
+    ok: z.literal(false),
+    index: finite,
+    id: z.string(),
+    label: z.string(),
+    error: z.object({ code: z.string(), message: z.string(), field: z.string().optional() }),
+  })
+  .meta({ id: 'CandidateNotEvaluated', description: 'A candidate for which no honest answer exists (for example the heat balance has no solution); the others are still evaluated.' });
+
+export const evaluationSchema = z.discriminatedUnion('ok', [evaluationOkSchema, evaluationErrorSchema]);
+
+const answerCommon = {
+  apiVersion: z.literal(API_VERSION),
+  caution: z.string().meta({ description: 'Always present: the terms on which the numbers may be used.' }),
+};
+
+export const evaluateResponseSchema = z
+  .object({
+    ...answerCommon,
+    evaluations: z.array(evaluationSchema),
+    smallestPassingIndex: finite.nullable(),
+    lowestLifeCycleCostPassingIndex: finite.nullable(),
+  })
+  .meta({ id: 'EvaluateResponse' });
+
+export const ampacityResponseSchema = z
+  .object({ ...answerCommon, ampacity: ampacityResultSchema })
+  .meta({ id: 'AmpacityResponse' });
+
+export const flagsResponseSchema = z
+  .object({
+    apiVersion: z.literal(API_VERSION),
+    flags: z.array(z.object({ code: z.enum(FLAG_CODES), severity: z.enum(['note', 'review', 'blocker']), title: z.string(), basis: z.string() })),
+  })
+  .meta({ id: 'FlagsResponse' });
+
+export const errorResponseSchema = z
+  .object({
+    error: z.object({
+      code: z.string().meta({ description: 'Stable, machine-readable: invalid_input, invalid_json, payload_too_large, unsupported_media_type, unauthenticated, forbidden, rate_limited, database_unavailable, internal_error…' }),
+      message: z.string(),
+      fieldPath: z.string().optional().meta({ description: 'The input at fault, dot-separated (candidates.0.layers.1.thicknessM).' }),
+      issues: z.array(z.object({ path: z.string(), message: z.string() })).optional(),
+    }),
+  })
+  .meta({ id: 'Error' });
+
+export type EvaluateResponse = z.output<typeof evaluateResponseSchema>;
+export type AmpacityResponse = z.output<typeof ampacityResponseSchema>;
+
+/** The caution that travels with every calculated answer (product.md, "Cautions"). */
+export const API_CAUTION =
+  'Engineering aid only. These results depend on the assumption flags listed with them. The installation must comply with the applicable wiring rules and standards (IEC 60364 and national codes) and local authority requirements, and a qualified, licensed engineer must check and sign the sizing before it is used for construction.';
+
+// Library results must fit the documented answers: these fail to compile otherwise.
+type Assignable<From, To> = [From] extends [To] ? true : false;
+const evaluationFits: Assignable<CandidateEvaluation, z.input<typeof evaluationSchema>> = true;
+const ampacityFits: Assignable<AmpacityResult, z.input<typeof ampacityResultSchema>> = true;
+void evaluationFits;
+void ampacityFits;
