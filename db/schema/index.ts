@@ -3,3 +3,4 @@ export * from './core';
 export * from './auth';
 export * from './catalogue';
 export * from './sheets';
+export * from './apiTokens';
