@@ -1,0 +1,3 @@
+import type { VerificationCase } from '../types';
+
+export const catalogueCases: VerificationCase[] = [];
