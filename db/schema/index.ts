@@ -3,4 +3,5 @@ export * from './core';
 export * from './auth';
 export * from './catalogue';
 export * from './sheets';
+export * from './schedules';
 export * from './apiTokens';
