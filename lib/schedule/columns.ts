@@ -1,0 +1,89 @@
+/**
+ * The columns of a schedule file: one list drives the template, the header check, the row
+ * validation messages and the preview, so that a cell's problem is named by the header the
+ * designer sees in the spreadsheet. Values are SI, with the unit in the header.
+ */
+export type ScheduleColumnType = 'text' | 'number' | 'integer' | 'enum';
+
+export interface ScheduleColumn {
+  /** Field of the parsed row (lib/schedule/row.ts). */
+  field: ScheduleField;
+  /** Header as written in the file (matched case-insensitively, spaces collapsed). */
+  header: string;
+  type: ScheduleColumnType;
+  required: boolean;
+  /** What the column means and what happens when it is left empty. */
+  hint: string;
+  options?: readonly string[];
+  /** Example value used in the downloadable template. */
+  example: string | number;
+}
+
+export const INSTALLATION_WORDS = ['cable in air', 'buried', 'bar on edge', 'bar flat'] as const;
+export type InstallationWord = (typeof INSTALLATION_WORDS)[number];
+
+export type ScheduleField =
+  | 'circuitTag'
+  | 'from'
+  | 'to'
+  | 'designCurrentA'
+  | 'nominalVoltageV'
+  | 'phases'
+  | 'frequencyHz'
+  | 'lengthM'
+  | 'powerFactor'
+  | 'installation'
+  | 'depthM'
+  | 'ambientC'
+  | 'faultCurrentKA'
+  | 'clearingTimeS'
+  | 'family'
+  | 'maxVoltageDropPercent'
+  | 'maxParallel'
+  | 'groupingFactor';
+
+export const SCHEDULE_COLUMNS: readonly ScheduleColumn[] = [
+  { field: 'circuitTag', header: 'circuit tag', type: 'text', required: true, example: 'F-101', hint: 'Your name for the circuit, unique within the file (at most 64 characters).' },
+  { field: 'from', header: 'from', type: 'text', required: false, example: 'MSB-1', hint: 'Where the circuit starts (board, transformer…). Optional.' },
+  { field: 'to', header: 'to', type: 'text', required: false, example: 'Chiller CH-2', hint: 'Where the circuit ends (load, sub-board…). Optional.' },
+  { field: 'designCurrentA', header: 'design current (A)', type: 'number', required: true, example: 250, hint: 'Design current I_B per phase, r.m.s., greater than 0 and at most 20 000 A.' },
+  { field: 'nominalVoltageV', header: 'voltage U0 (V)', type: 'number', required: true, example: 230, hint: 'Line-to-neutral voltage U₀ (230 for a 230/400 V system); the voltage drop is a percentage of it.' },
+  { field: 'phases', header: 'phases', type: 'integer', required: true, example: 3, options: ['1', '3'], hint: '1 or 3.' },
+  { field: 'frequencyHz', header: 'frequency (Hz)', type: 'number', required: false, example: 50, hint: '0 for DC. Empty means 50 Hz, and the result notes that it was assumed.' },
+  { field: 'lengthM', header: 'length (m)', type: 'number', required: true, example: 60, hint: 'Route length, metres.' },
+  { field: 'powerFactor', header: 'power factor', type: 'number', required: true, example: 0.9, hint: 'cos φ of the load, 0 to 1.' },
+  { field: 'installation', header: 'installation', type: 'enum', required: true, example: 'cable in air', options: INSTALLATION_WORDS, hint: 'How the conductor lies. Cables: cable in air or buried; bars: bar on edge or bar flat.' },
+  { field: 'depthM', header: 'burial depth (m)', type: 'number', required: false, example: '', hint: 'Depth of the cable axis; required when the installation is buried.' },
+  { field: 'ambientC', header: 'ambient (°C)', type: 'number', required: false, example: 35, hint: 'Air temperature, or the ground temperature at depth for buried cables. Empty: the reference value is assumed and flagged for review.' },
+  { field: 'faultCurrentKA', header: 'fault current (kA)', type: 'number', required: false, example: 10, hint: 'Prospective fault current at the circuit. Give it with the clearing time, or leave both empty (the short circuit is then not checked, and flagged).' },
+  { field: 'clearingTimeS', header: 'clearing time (s)', type: 'number', required: false, example: 0.2, hint: 'Time the protective device takes to clear the fault, seconds (at most 60).' },
+  { field: 'family', header: 'conductor family', type: 'text', required: true, example: 'copper XLPE single-core', hint: 'The family the size is chosen from, as listed beside the upload (from your team catalogue), e.g. "copper XLPE single-core" or "aluminium bars".' },
+  { field: 'maxVoltageDropPercent', header: 'max voltage drop (%)', type: 'number', required: false, example: 4, hint: 'Allowed voltage drop, % of U₀. Empty: the drop is reported but does not fail a size.' },
+  { field: 'maxParallel', header: 'max parallel runs', type: 'integer', required: false, example: 1, hint: 'Cables in parallel per phase (or bars per phase for bar families) the sizing may use, 1 to 8. Empty means 1.' },
+  { field: 'groupingFactor', header: 'grouping factor', type: 'number', required: false, example: '', hint: 'Derating for nearby circuits, 0 < f ≤ 1 (e.g. from IEC 60364-5-52 tables). Empty means 1 (no grouping); an entered factor is flagged for review.' },
+];
+
+/** Headers compare case-insensitively with runs of white space collapsed (U₀ and U0 alike). */
+export function normaliseHeader(header: unknown): string {
+  return String(header ?? '')
+    .replace(/₀/g, '0')
+    .replace(/\s+/g, ' ')
+    .trim()
+    .toLowerCase();
+}
+
+const byHeader = new Map(SCHEDULE_COLUMNS.map((c) => [normaliseHeader(c.header), c]));
+const byField = new Map(SCHEDULE_COLUMNS.map((c) => [c.field, c]));
+
+export function columnByHeader(header: string): ScheduleColumn | undefined {
+  return byHeader.get(normaliseHeader(header));
+}
+
+export function columnByField(field: string): ScheduleColumn | undefined {
+  return byField.get(field as ScheduleField);
+}
+
+/** Header for messages: the file's spelling of the column when known. */
+export function headerOf(field: string): string {
+  return columnByField(field)?.header ?? field;
+}

@@ -1,0 +1,222 @@
+/**
+ * One schedule row: the zod schema that turns the cells of a CSV/XLSX row into a typed circuit,
+ * and the file-level checks (duplicate tags, unknown families, installation that does not suit
+ * the family). Every problem names the spreadsheet row and the column header.
+ */
+import { z } from 'zod';
+import { columnByField, headerOf, INSTALLATION_WORDS, normaliseHeader, SCHEDULE_COLUMNS, type ScheduleField } from './columns';
+import { findFamily } from './families';
+
+export type ScheduleInstallation = 'cable-in-air' | 'buried' | 'bar-on-edge' | 'bar-flat';
+
+const INSTALLATION_OF: Record<(typeof INSTALLATION_WORDS)[number], ScheduleInstallation> = {
+  'cable in air': 'cable-in-air',
+  buried: 'buried',
+  'bar on edge': 'bar-on-edge',
+  'bar flat': 'bar-flat',
+};
+
+/** A problem found in a file: spreadsheet row number (header = row 1) and the column header. */
+export interface ScheduleProblem {
+  row: number;
+  /** Header of the column, or '' when the whole row is concerned. */
+  column: string;
+  message: string;
+}
+
+function isBlank(raw: unknown): boolean {
+  return raw === null || raw === undefined || (typeof raw === 'string' && raw.trim() === '');
+}
+
+/** A number cell: numbers from XLSX as they are, text from CSV with a point as decimal separator. */
+function parseNumber(raw: unknown): number | null | { error: string } {
+  if (isBlank(raw)) return null;
+  if (typeof raw === 'number') return Number.isFinite(raw) ? raw : { error: 'must be a finite number' };
+  if (typeof raw !== 'string') return { error: 'must be a number' };
+  const text = raw.trim().replace(/[\u00a0\u202f ]/g, '');
+  if (/^[-+]?\d+,\d+$/.test(text)) return { error: `must use a point as the decimal separator (got "${raw.trim()}")` };
+  if (!/^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(text)) return { error: `must be a number (got "${raw.trim()}")` };
+  return Number(text);
+}
+
+interface NumberBounds {
+  min?: number;
+  minExclusive?: boolean;
+  max?: number;
+  integer?: boolean;
+}
+
+function numberCell(required: boolean, bounds: NumberBounds) {
+  return z.unknown().transform((raw, ctx): number | null => {
+    const parsed = parseNumber(raw);
+    if (parsed !== null && typeof parsed === 'object') {
+      ctx.addIssue({ code: 'custom', message: parsed.error });
+      return z.NEVER;
+    }
+    if (parsed === null) {
+      if (required) ctx.addIssue({ code: 'custom', message: 'is required' });
+      return null;
+    }
+    const { min, max, minExclusive, integer } = bounds;
+    if (integer && !Number.isInteger(parsed)) ctx.addIssue({ code: 'custom', message: `must be a whole number (got ${parsed})` });
+    else if (min !== undefined && (minExclusive ? parsed <= min : parsed < min)) {
+      ctx.addIssue({ code: 'custom', message: `must be ${minExclusive ? 'greater than' : 'at least'} ${min}${max !== undefined ? ` and at most ${max}` : ''} (got ${parsed})` });
+    } else if (max !== undefined && parsed > max) {
+      ctx.addIssue({ code: 'custom', message: `must be at most ${max} (got ${parsed})` });
+    }
+    return parsed;
+  });
+}
+
+const required = (bounds: NumberBounds) => numberCell(true, bounds).transform((v) => v as number);
+const optional = (bounds: NumberBounds) => numberCell(false, bounds);
+
+function textCell(requiredCell: boolean, max: number) {
+  return z.unknown().transform((raw, ctx): string => {
+    const text = isBlank(raw) ? '' : String(raw).trim();
+    if (requiredCell && text === '') ctx.addIssue({ code: 'custom', message: 'is required' });
+    if (text.length > max) ctx.addIssue({ code: 'custom', message: `must be at most ${max} characters` });
+    return text;
+  });
+}
+
+const installationCell = z.unknown().transform((raw, ctx): ScheduleInstallation => {
+  const word = isBlank(raw) ? '' : String(raw).trim().toLowerCase().replace(/[\s_-]+/g, ' ');
+  if (word === '') {
+    ctx.addIssue({ code: 'custom', message: 'is required' });
+    return z.NEVER;
+  }
+  const value = INSTALLATION_OF[word as keyof typeof INSTALLATION_OF];
+  if (!value) {
+    ctx.addIssue({ code: 'custom', message: `must be one of: ${INSTALLATION_WORDS.join(', ')} (got "${String(raw).trim()}")` });
+    return z.NEVER;
+  }
+  return value;
+});
+
+/** The row as typed values, keyed by field. SI units; kA and the empty cells kept as entered (null). */
+export const scheduleRowSchema = z
+  .object({
+    circuitTag: textCell(true, 64),
+    from: textCell(false, 120),
+    to: textCell(false, 120),
+    designCurrentA: required({ min: 0, minExclusive: true, max: 20000 }),
+    nominalVoltageV: required({ min: 0, minExclusive: true, max: 36000 }),
+    phases: numberCell(true, { integer: true }).refine((v) => v === 1 || v === 3, 'must be 1 or 3').transform((v) => v as 1 | 3),
+    frequencyHz: optional({ min: 0, max: 1000 }),
+    lengthM: required({ min: 0, minExclusive: true, max: 100000 }),
+    powerFactor: required({ min: 0, max: 1 }),
+    installation: installationCell,
+    depthM: optional({ min: 0, minExclusive: true, max: 20 }),
+    ambientC: optional({ min: -60, max: 200 }),
+    faultCurrentKA: optional({ min: 0, minExclusive: true, max: 500 }),
+    clearingTimeS: optional({ min: 0, minExclusive: true, max: 60 }),
+    family: textCell(true, 120),
+    maxVoltageDropPercent: optional({ min: 0, minExclusive: true, max: 100 }),
+    maxParallel: optional({ min: 1, max: 8, integer: true }),
+    groupingFactor: optional({ min: 0, minExclusive: true, max: 1 }),
+  })
+  .superRefine((row, ctx) => {
+    if (row.installation === 'buried' && row.depthM === null) {
+      ctx.addIssue({ code: 'custom', path: ['depthM'], message: 'is required when the installation is buried' });
+    }
+    if (row.installation !== 'buried' && row.depthM !== null) {
+      ctx.addIssue({ code: 'custom', path: ['depthM'], message: 'applies only to buried cables; leave it empty' });
+    }
+    if ((row.faultCurrentKA === null) !== (row.clearingTimeS === null)) {
+      const missing: ScheduleField = row.faultCurrentKA === null ? 'faultCurrentKA' : 'clearingTimeS';
+      ctx.addIssue({ code: 'custom', path: [missing], message: `is required with the ${headerOf(missing === 'faultCurrentKA' ? 'clearingTimeS' : 'faultCurrentKA')} (give both, or leave both empty)` });
+    }
+  });
+
+export type ScheduleRowInput = z.infer<typeof scheduleRowSchema>;
+
+/** A clean row ready to size: the typed values, its spreadsheet row number and the family key. */
+export interface ScheduleRow extends Omit<ScheduleRowInput, 'family' | 'maxParallel'> {
+  rowNumber: number;
+  /** Canonical family key (families.ts). */
+  family: string;
+  maxParallel: number;
+}
+
+/** Cells keyed by normalised header → an object keyed by field, for the schema. */
+export function cellsToInput(values: Record<string, unknown>): Record<string, unknown> {
+  const input: Record<string, unknown> = {};
+  for (const column of SCHEDULE_COLUMNS) input[column.field] = values[normaliseHeader(column.header)] ?? null;
+  return input;
+}
+
+export interface FamilyChoice {
+  key: string;
+  label: string;
+  kind: 'cable' | 'bar';
+}
+
+export interface ValidatedSchedule {
+  rows: ScheduleRow[];
+  problems: ScheduleProblem[];
+  /** Spreadsheet rows that have at least one problem. */
+  badRows: number[];
+}
+
+function problemsOf(rowNumber: number, error: z.ZodError): ScheduleProblem[] {
+  return error.issues.map((issue) => {
+    const field = String(issue.path[0] ?? '');
+    return { row: rowNumber, column: columnByField(field)?.header ?? field, message: issue.message };
+  });
+}
+
+/**
+ * Validates every record of a file against the schema and the team's families. A row with any
+ * problem is left out of `rows`; nothing here sizes or stores anything.
+ */
+export function validateScheduleRecords(
+  records: ReadonlyArray<{ row: number; values: Record<string, unknown> }>,
+  families: readonly FamilyChoice[],
+): ValidatedSchedule {
+  const rows: ScheduleRow[] = [];
+  const problems: ScheduleProblem[] = [];
+  const firstRowOfTag = new Map<string, number>();
+  for (const record of records) {
+    const parsed = scheduleRowSchema.safeParse(cellsToInput(record.values));
+    const rowProblems: ScheduleProblem[] = parsed.success ? [] : problemsOf(record.row, parsed.error);
+    const tagCell = record.values[normaliseHeader(headerOf('circuitTag'))];
+    const tag = isBlank(tagCell) ? '' : String(tagCell).trim();
+    if (tag !== '') {
+      const key = tag.toLowerCase();
+      const earlier = firstRowOfTag.get(key);
+      if (earlier !== undefined) rowProblems.push({ row: record.row, column: headerOf('circuitTag'), message: `"${tag}" is already used on row ${earlier}; each circuit tag must be unique` });
+      else firstRowOfTag.set(key, record.row);
+    }
+    const familyCell = record.values[normaliseHeader(headerOf('family'))];
+    let family: FamilyChoice | undefined;
+    if (!isBlank(familyCell)) {
+      family = findFamily(families, String(familyCell));
+      if (!family) {
+        const known = families.map((f) => f.label).join(', ');
+        rowProblems.push({
+          row: record.row,
+          column: headerOf('family'),
+          message: `"${String(familyCell).trim()}" is not a family of your catalogue${known ? ` (families: ${known})` : ' (the catalogue has no conductors yet)'}`,
+        });
+      }
+    }
+    if (parsed.success && family) {
+      const suits = family.kind === 'bar' ? parsed.data.installation.startsWith('bar-') : !parsed.data.installation.startsWith('bar-');
+      if (!suits) {
+        rowProblems.push({
+          row: record.row,
+          column: headerOf('installation'),
+          message: family.kind === 'bar' ? `bars lie "bar on edge" or "bar flat", not "${parsed.data.installation.replace(/-/g, ' ')}"` : `cables are "cable in air" or "buried", not "${parsed.data.installation.replace(/-/g, ' ')}"`,
+        });
+      }
+    }
+    if (rowProblems.length > 0 || !parsed.success || !family) {
+      problems.push(...rowProblems);
+      continue;
+    }
+    rows.push({ ...parsed.data, rowNumber: record.row, family: family.key, maxParallel: parsed.data.maxParallel ?? 1 });
+  }
+  const badRows = [...new Set(problems.map((p) => p.row))].sort((a, b) => a - b);
+  return { rows, problems, badRows };
+}

@@ -1,0 +1,194 @@
+/**
+ * Sizing one schedule row: the smallest size of the allowed family that passes, with its hot
+ * spot, margin, ampacity, voltage drop, short-circuit result and flags — or why none passes.
+ * All the physics is lib/electrical's `evaluateCandidate`; this module only builds the
+ * conditions from the row, lists the sizes in order and picks, exactly as `compareCandidates`
+ * would pick the smallest passing one (least section per phase, then least mass).
+ */
+import { evaluateCandidate } from '../electrical/sizing/evaluate';
+import type { AssumptionFlag } from '../electrical/sizing/flags';
+import type { Candidate, CandidateEvaluationOk, Conditions, ShortCircuitCheck } from '../electrical/sizing/types';
+import { candidateSectionMm2 } from './families';
+import type { ScheduleRow } from './row';
+
+/** Frequency used when the row leaves it empty (IEC 60038 50 Hz systems, common practice); noted on the result. */
+export const DEFAULT_FREQUENCY_HZ = 50;
+
+export function rowConditions(row: ScheduleRow): Conditions {
+  const conditions: Conditions = {
+    designCurrentA: row.designCurrentA,
+    frequencyHz: row.frequencyHz ?? DEFAULT_FREQUENCY_HZ,
+    phases: row.phases,
+    nominalVoltageV: row.nominalVoltageV,
+    lengthM: row.lengthM,
+    powerFactor: row.powerFactor,
+    installation:
+      row.installation === 'buried'
+        ? { kind: 'buried', depthM: row.depthM as number, ...(row.ambientC !== null ? { groundC: row.ambientC } : {}) }
+        : row.installation === 'cable-in-air'
+          ? { kind: 'cable-in-air' }
+          : { kind: row.installation },
+  };
+  if (row.installation !== 'buried' && row.ambientC !== null) conditions.ambientC = row.ambientC;
+  if (row.faultCurrentKA !== null && row.clearingTimeS !== null) conditions.fault = { currentA: row.faultCurrentKA * 1000, durationS: row.clearingTimeS };
+  if (row.maxVoltageDropPercent !== null) conditions.maxVoltageDropPercent = row.maxVoltageDropPercent;
+  if (row.groupingFactor !== null && row.groupingFactor < 1) conditions.groupingFactor = row.groupingFactor;
+  return conditions;
+}
+
+/** Runs per phase (cables in parallel, or bars per phase for bar families) of a listed size. */
+function runsOf(candidate: Candidate): number {
+  return candidate.kind === 'bar' ? (candidate.barsPerPhase ?? 1) * (candidate.parallel ?? 1) : (candidate.parallel ?? 1);
+}
+
+/**
+ * The sizes a row may use: every family candidate with 1…maxParallel runs, smallest section per
+ * phase first (stable: on equal sections fewer runs, then catalogue order).
+ */
+export function expandFamily(familyCandidates: readonly Candidate[], maxParallel: number): Candidate[] {
+  const sizes: Array<{ candidate: Candidate; order: number }> = [];
+  let order = 0;
+  for (let runs = 1; runs <= maxParallel; runs++) {
+    for (const base of familyCandidates) {
+      const id = `${base.id ?? base.label ?? 'size'}${runs > 1 ? ` ×${runs}` : ''}`;
+      const label = runs > 1 ? `${runs} × ${base.label ?? base.id}` : (base.label ?? base.id ?? 'size');
+      const candidate: Candidate =
+        base.kind === 'bar' ? { ...base, id, label, barsPerPhase: (base.barsPerPhase ?? 1) * runs } : { ...base, id, label, parallel: (base.parallel ?? 1) * runs };
+      sizes.push({ candidate, order: order++ });
+    }
+  }
+  return sizes.sort((a, b) => candidateSectionMm2(a.candidate) - candidateSectionMm2(b.candidate) || a.order - b.order).map((s) => s.candidate);
+}
+
+export interface ChosenSize {
+  candidateId: string;
+  label: string;
+  kind: 'cable' | 'bar';
+  runsPerPhase: number;
+  sectionPerPhaseMm2: number;
+  hotSpotC: number | null;
+  limitC: number;
+  limitSource: string;
+  marginK: number | null;
+  marginPercent: number | null;
+  ampacityA: number;
+  utilisation: number;
+  voltageDropV: number;
+  voltageDropPercent: number;
+  voltageDropLimitPercent: number | null;
+  shortCircuit: ShortCircuitCheck;
+  lossWPerM: number | null;
+  /** Joule loss of the whole circuit over its length at the design current, W. */
+  lossW: number | null;
+  massKg: number;
+  materialCost: string | null;
+  flags: AssumptionFlag[];
+}
+
+export type CircuitSizing =
+  | {
+      status: 'sized';
+      chosen: ChosenSize;
+      /** Sizes evaluated (smaller failing ones included). */
+      evaluated: number;
+      solves: number;
+      /** Inputs the schedule assumed on the designer's behalf, in words. */
+      assumptions: string[];
+    }
+  | {
+      status: 'none_passes';
+      reason: string;
+      /** The largest size tried, with the blockers that failed it (null when every size was refused as input). */
+      largest: ChosenSize | null;
+      evaluated: number;
+      solves: number;
+      assumptions: string[];
+    };
+
+function chosenOf(e: CandidateEvaluationOk, candidate: Candidate, lengthM: number): ChosenSize {
+  return {
+    candidateId: e.id,
+    label: e.label,
+    kind: e.kind,
+    runsPerPhase: runsOf(candidate),
+    sectionPerPhaseMm2: e.sectionPerPhaseMm2,
+    hotSpotC: e.hotSpotC,
+    limitC: e.limit.temperatureC,
+    limitSource: e.limit.layer ?? e.limit.source,
+    marginK: e.marginK,
+    marginPercent: e.marginPercent,
+    ampacityA: e.ampacityA,
+    utilisation: e.utilisation,
+    voltageDropV: e.voltageDrop.volts,
+    voltageDropPercent: e.voltageDrop.percent,
+    voltageDropLimitPercent: e.voltageDrop.limitPercent ?? null,
+    shortCircuit: e.shortCircuit,
+    lossWPerM: e.lossWPerM,
+    lossW: e.lossWPerM === null ? null : e.lossWPerM * lengthM,
+    massKg: e.massKg,
+    materialCost: e.materialCost,
+    flags: e.flags,
+  };
+}
+
+function assumptionsOf(row: ScheduleRow): string[] {
+  const notes: string[] = [];
+  if (row.frequencyHz === null) notes.push(`Frequency left empty: ${DEFAULT_FREQUENCY_HZ} Hz assumed.`);
+  if (row.maxParallel === 1) notes.push('One run per phase (max parallel runs empty or 1).');
+  return notes;
+}
+
+/**
+ * Sizes one circuit from its family: evaluates sizes from the smallest up and stops at the first
+ * that passes (no blocker flag); sizes of the same section are all evaluated and the lightest is
+ * taken, as compareCandidates does. Never throws for bad data: a size the library refuses is
+ * skipped and reported when nothing passes.
+ */
+export function sizeCircuit(row: ScheduleRow, familyCandidates: readonly Candidate[]): CircuitSizing {
+  const conditions = rowConditions(row);
+  const sizes = expandFamily(familyCandidates, row.maxParallel);
+  const assumptions = assumptionsOf(row);
+  let evaluated = 0;
+  let solves = 0;
+  let best: { e: CandidateEvaluationOk; c: Candidate } | null = null;
+  let largestOk: { e: CandidateEvaluationOk; c: Candidate } | null = null;
+  const refusals: string[] = [];
+  for (let i = 0; i < sizes.length; i++) {
+    const candidate = sizes[i];
+    const section = candidateSectionMm2(candidate);
+    if (best && section !== candidateSectionMm2(best.c)) break;
+    const e = evaluateCandidate(candidate, conditions, { index: i });
+    evaluated++;
+    if (!e.ok) {
+      refusals.push(`${e.label}: ${e.error.message}${e.error.field ? ` (${e.error.field})` : ''}`);
+      continue;
+    }
+    solves += e.solves;
+    largestOk = { e, c: candidate };
+    if (e.passes && (best === null || e.massKg < best.e.massKg)) best = { e, c: candidate };
+  }
+  if (best) return { status: 'sized', chosen: chosenOf(best.e, best.c, row.lengthM), evaluated, solves, assumptions };
+  if (sizes.length === 0) {
+    return { status: 'none_passes', reason: 'The family has no sizes in the catalogue.', largest: null, evaluated, solves, assumptions };
+  }
+  if (!largestOk) {
+    return {
+      status: 'none_passes',
+      reason: `Every size was refused by the sizing library: ${refusals.slice(0, 3).join('; ')}${refusals.length > 3 ? ` (and ${refusals.length - 3} more)` : ''}.`,
+      largest: null,
+      evaluated,
+      solves,
+      assumptions,
+    };
+  }
+  const blockers = largestOk.e.flags.filter((f) => f.severity === 'blocker').map((f) => f.message);
+  const runsHint = row.maxParallel < 8 ? ' Allow more parallel runs, choose a larger family, or change the installation.' : '';
+  return {
+    status: 'none_passes',
+    reason: `No size of the family passes; even the largest, ${largestOk.e.label}, fails: ${blockers.join(' ') || 'see its flags.'}${runsHint}`,
+    largest: chosenOf(largestOk.e, largestOk.c, row.lengthM),
+    evaluated,
+    solves,
+    assumptions,
+  };
+}
