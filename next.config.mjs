@@ -37,7 +37,7 @@ const nextConfig = {
   // The test script builds into its own folder so that it never clobbers a running `npm start`.
   distDir: process.env.NEXT_DIST_DIR || '.next',
   // Server-only packages that must not be bundled (native-ish or large Node libraries).
-  serverExternalPackages: ['pg', 'smtp-server', 'mailparser', 'exceljs', '@react-pdf/renderer'],
+  serverExternalPackages: ['pg', 'pg-boss', 'smtp-server', 'mailparser', 'exceljs', '@react-pdf/renderer'],
   // forbidden() / unauthorized() in pages and server actions answer 403 / 401 (server/auth).
   experimental: { authInterrupts: true },
   async headers() {
