@@ -3,3 +3,4 @@ export * from './limits';
 export * from './schemas';
 export * from './responses';
 export { buildOpenApiDocument } from './openapi';
+export { findNonFinite, toDotPath } from './finite';

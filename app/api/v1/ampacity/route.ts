@@ -1,0 +1,15 @@
+import { ampacity } from '@/lib/electrical';
+import { API_CAUTION, API_VERSION, MAX_REQUEST_BYTES, ampacityConditions, ampacityRequestSchema, findNonFinite, type AmpacityResponse } from '@/lib/api';
+import { readJsonBody } from '@/server/apiTokens/body';
+import { tokenApiHandler } from '@/server/apiTokens/handler';
+
+export const dynamic = 'force-dynamic';
+
+/** One candidate + conditions → its ampacity, the profile at that current and the flags. */
+export const POST = tokenApiHandler({ scope: 'calc', fieldPrefix: { from: 'candidates.0', to: 'candidate' } }, async (req) => {
+  const request = ampacityRequestSchema.parse(await readJsonBody(req, MAX_REQUEST_BYTES));
+  const answer: AmpacityResponse = { apiVersion: API_VERSION, caution: API_CAUTION, ampacity: ampacity(request.candidate, ampacityConditions(request)) };
+  const nonFinite = findNonFinite(answer);
+  if (nonFinite) throw new Error(`non-finite number in an ampacity result at ${nonFinite}`);
+  return Response.json(answer);
+});
