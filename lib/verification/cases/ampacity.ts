@@ -78,7 +78,7 @@ const buriedCase: VerificationCase = {
   notes:
     `T₁ = ${t1.toPrecision(6)}, T₃ = ${t3.toPrecision(6)}, u = 2L/D_e = ${u.toPrecision(6)}, T₄ = ${t4Buried.toPrecision(6)} K·m/W; ` +
     `R(90 °C) = ${rAt90.toPrecision(6)} Ω/m; I = √(70/(R·ΣT)) = ${buriedReference.toPrecision(6)} A. ` +
-    'The solver takes the conductor as a conducting cylinder (not isothermal) and finds the current to 0.1 A from below; 0.1 % allows for both.,
+    'The solver takes the conductor as a conducting cylinder (not isothermal) and finds the current to 0.1 A from below; 0.1 % allows for both.',
   quantities: [{ key: 'current', label: 'ampacity', unit: 'A', reference: buriedReference, tolerance: { kind: 'relative', value: 0.001 } }],
   compute(lib) {
     const r = lib.ampacity(cable, {
