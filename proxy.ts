@@ -9,7 +9,7 @@ import { decode } from 'next-auth/jwt';
 import { sessionCookieName } from '@/server/auth/cookies';
 
 /** Paths anyone may open: landing, sign-in and its helpers, share links, APIs (they answer 401 themselves). */
-const PUBLIC_PREFIXES = ['/sign-in', '/sign-out', '/invite/', '/reset', '/share/', '/api/'];
+const PUBLIC_PREFIXES = ['/sign-in', '/sign-out', '/invite/', '/reset', '/share/', '/api/', '/dev/mailbox'];
 
 function isPublic(pathname: string): boolean {
   return pathname === '/' || PUBLIC_PREFIXES.some((prefix) => pathname === prefix.replace(/\/$/, '') || pathname.startsWith(prefix));
@@ -28,6 +28,8 @@ async function hasSessionToken(request: NextRequest): Promise<boolean> {
 
 export async function proxy(request: NextRequest) {
   const { pathname, search } = request.nextUrl;
+  // Server actions answer 401/403 themselves (authorizeAction); a redirect would hide that status.
+  if (request.headers.has('next-action')) return NextResponse.next();
   if (pathname === '/') {
     return (await hasSessionToken(request)) ? NextResponse.redirect(new URL('/projects', request.url)) : NextResponse.next();
   }

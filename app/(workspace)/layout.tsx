@@ -1,11 +1,15 @@
 import type { ReactNode } from 'react';
 import { WorkspaceNav } from '@/components/shell/WorkspaceNav';
 import { QueryProvider } from '@/components/providers/QueryProvider';
+import { UserMenu } from '@/components/auth/UserMenu';
+import { requirePageUser } from '@/server/auth/session';
 
-export default function WorkspaceLayout({ children }: { children: ReactNode }) {
+export default async function WorkspaceLayout({ children }: { children: ReactNode }) {
+  // Each page checks again for its own data: a layout is not re-run on every client navigation.
+  const user = await requirePageUser();
   return (
     <div className="min-h-screen">
-      <WorkspaceNav />
+      <WorkspaceNav userSlot={<UserMenu name={user.name} teamName={user.teamName} role={user.role} unitSystem={user.unitSystem} />} />
       <main className="mx-auto max-w-sheet px-4 py-6">
         <QueryProvider>{children}</QueryProvider>
       </main>

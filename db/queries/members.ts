@@ -1,6 +1,6 @@
-import { and, asc, eq, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, gt, isNull, sql } from 'drizzle-orm';
 import { getDb, type Executor } from '../client';
-import { teams, users } from '../schema';
+import { invitations, teams, users } from '../schema';
 
 /** The row behind a session: the user with their team's name, or null when gone. */
 export async function findSessionRow(userId: string, tx: Executor = getDb()) {
@@ -59,4 +59,26 @@ export async function listTeamMembers(teamId: string, tx: Executor = getDb()) {
 export async function getTeamMember(teamId: string, userId: string, tx: Executor = getDb()) {
   const [row] = await tx.select().from(users).where(and(eq(users.teamId, teamId), eq(users.id, userId)));
   return row ?? null;
+}
+
+/** Locks the team row: member changes of one team happen one at a time (last-admin rule). */
+export async function lockTeam(teamId: string, tx: Executor) {
+  const [team] = await tx.select({ id: teams.id, name: teams.name }).from(teams).where(eq(teams.id, teamId)).for('update');
+  return team ?? null;
+}
+
+export async function countActiveAdmins(teamId: string, tx: Executor): Promise<number> {
+  const [row] = await tx
+    .select({ count: sql<number>`count(*)::int` })
+    .from(users)
+    .where(and(eq(users.teamId, teamId), eq(users.role, 'admin'), eq(users.active, true)));
+  return row?.count ?? 0;
+}
+
+export async function listPendingInvitations(teamId: string, tx: Executor = getDb()) {
+  return tx
+    .select({ id: invitations.id, email: invitations.email, role: invitations.role, createdAt: invitations.createdAt, expiresAt: invitations.expiresAt })
+    .from(invitations)
+    .where(and(eq(invitations.teamId, teamId), isNull(invitations.acceptedAt), isNull(invitations.revokedAt), gt(invitations.expiresAt, sql`now()`)))
+    .orderBy(desc(invitations.createdAt));
 }

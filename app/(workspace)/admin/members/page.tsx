@@ -1,10 +1,24 @@
-export const metadata = { title: 'Members' };
+import { listPendingInvitations, listTeamMembers } from '@/db/queries/members';
+import { requirePageUser } from '@/server/auth/session';
+import { MembersAdmin } from './MembersAdmin';
 
-export default function MembersPage() {
+export const metadata = { title: 'Members' };
+export const dynamic = 'force-dynamic';
+
+export default async function MembersPage() {
+  const user = await requirePageUser('members:manage');
+  const [members, invitations] = await Promise.all([listTeamMembers(user.teamId), listPendingInvitations(user.teamId)]);
   return (
-    <section aria-labelledby="members-heading">
-      <h1 id="members-heading" className="text-title">Members</h1>
-      <p className="mt-2 text-ink-600">Invite colleagues, change their roles, deactivate accounts.</p>
+    <section aria-labelledby="members-heading" className="max-w-5xl">
+      <h1 id="members-heading" className="text-title">
+        Members of {user.teamName}
+      </h1>
+      <p className="mt-2 text-ink-600">Invite colleagues by e-mail, change what they may do, or close their access.</p>
+      <MembersAdmin
+        currentUserId={user.id}
+        members={members.map((m) => ({ ...m, createdAt: m.createdAt.toISOString() }))}
+        invitations={invitations.map((i) => ({ ...i, createdAt: i.createdAt.toISOString(), expiresAt: i.expiresAt.toISOString() }))}
+      />
     </section>
   );
 }

@@ -1,0 +1,13 @@
+import { apiHandler } from '@/server/http/api';
+import { requestPasswordReset, resetRequestSchema } from '@/server/auth/members';
+import { allowResetMail } from '@/server/limits/resetMail';
+import { clientAddressFrom } from '@/server/limits/signIn';
+
+export const dynamic = 'force-dynamic';
+
+/** Mails a reset link when the address has an account; the answer is the same either way. */
+export const POST = apiHandler({ permission: 'public' }, async (req) => {
+  const { email } = resetRequestSchema.parse(await req.json().catch(() => ({})));
+  if (await allowResetMail(email, clientAddressFrom(req.headers))) await requestPasswordReset(email);
+  return Response.json({ message: 'If that address belongs to an Ampwarden account, a link to choose a new password is on its way.' }, { status: 202 });
+});

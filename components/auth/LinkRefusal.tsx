@@ -1,0 +1,26 @@
+import Link from 'next/link';
+import type { LinkState } from '@/server/auth/members';
+import { FormMessage } from './AuthFrame';
+
+/** What a visitor sees for a link that no longer works; says how to get a working one. */
+export function LinkRefusal({ state, kind }: { state: Exclude<LinkState, 'valid'>; kind: 'invitation' | 'reset' }) {
+  const what = kind === 'invitation' ? 'invitation' : 'password link';
+  const remedy =
+    kind === 'invitation' ? (
+      <>Ask an admin of your team to invite you again.</>
+    ) : (
+      <>
+        <Link href="/reset" className="font-medium underline">Ask for a new link</Link>.
+      </>
+    );
+  const text = {
+    used: `This ${what} has already been used.`,
+    expired: `This ${what} has expired.`,
+    unknown: `This ${what} is not valid; check that the whole link was copied.`,
+  }[state];
+  return (
+    <FormMessage tone="error">
+      {text} {remedy}
+    </FormMessage>
+  );
+}

@@ -1,0 +1,57 @@
+'use client';
+
+import { useState, useTransition } from 'react';
+import { setUnitSystemAction } from '@/server/auth/preferenceActions';
+import { SignOutButton } from './SignOutButton';
+
+/** Who is signed in, in which team and role; the units switch; sign out. */
+export function UserMenu({ name, teamName, role, unitSystem }: { name: string; teamName: string; role: string; unitSystem: 'si' | 'imperial' }) {
+  const [units, setUnits] = useState(unitSystem);
+  const [pending, startTransition] = useTransition();
+  const [open, setOpen] = useState(false);
+
+  return (
+    <div className="relative">
+      <button type="button" aria-expanded={open} aria-controls="user-menu" onClick={() => setOpen((v) => !v)} className="flex items-center gap-2 rounded px-2 py-1 text-ink-100 hover:bg-ink-800">
+        <span className="font-medium text-white">{name}</span>
+        <span className="text-caption text-ink-300">{role}</span>
+        <span aria-hidden="true">▾</span>
+      </button>
+      {open ? (
+        <div id="user-menu" className="absolute right-0 z-20 mt-2 w-64 rounded-md border border-ink-100 bg-white p-3 text-ink-900 shadow-lg">
+          <p className="text-caption text-ink-500">Team</p>
+          <p className="font-medium">{teamName}</p>
+          <fieldset className="mt-3">
+            <legend className="field-label">Units</legend>
+            <div className="mt-1 flex gap-1" role="radiogroup">
+              {(['si', 'imperial'] as const).map((choice) => (
+                <label key={choice} className={`flex-1 cursor-pointer rounded-md border px-2 py-1 text-center ${units === choice ? 'border-copper-500 bg-copper-300/20 font-medium' : 'border-ink-200'}`}>
+                  <input
+                    type="radio"
+                    name="unit-system"
+                    value={choice}
+                    checked={units === choice}
+                    disabled={pending}
+                    className="sr-only"
+                    onChange={() => {
+                      setUnits(choice);
+                      startTransition(async () => {
+                        try {
+                          await setUnitSystemAction(choice);
+                        } catch {
+                          setUnits(unitSystem);
+                        }
+                      });
+                    }}
+                  />
+                  {choice === 'si' ? 'SI' : 'Imperial'}
+                </label>
+              ))}
+            </div>
+          </fieldset>
+          <SignOutButton className="btn-quiet mt-3 w-full justify-center" />
+        </div>
+      ) : null}
+    </div>
+  );
+}
