@@ -2,9 +2,13 @@
 import { closeDb, getDb } from '../db/client';
 import { seedDemo } from '../db/seed/demo';
 import { seedSheets } from '../db/seed/sheets';
+import { seedCatalogue } from '../db/seed/catalogue';
 
 async function main() {
   const report = await seedDemo(getDb());
+  const catalogueAdded = await seedCatalogue(getDb());
+  const catalogueRows = Object.values(catalogueAdded).reduce((a, b) => a + b, 0);
+  if (catalogueRows > 0) console.log(`ampwarden: standard catalogue seeded (${catalogueRows} rows)`);
   const sheetReport = await seedSheets(getDb());
   const changed = report.teamCreated || report.usersCreated > 0 || report.projectsCreated > 0 || sheetReport.sheetsCreated > 0;
   console.log(
