@@ -3,8 +3,7 @@
  * (physics.md §5). The heat balance comes from `lib/thermal` (physics.md §7); this module only
  * decides what to solve and reads the answers honestly.
  */
-import type { SteadyResult } from '../../thermal/types';
-import { solveSteady } from '../../thermal';
+import { solveSteady, type Boundary, type SteadyResult, type ThermalProblem } from '../../thermal';
 import { ElectricalInputError, SizingError } from '../errors';
 import { lossEnergyCost, Money, conductorMass } from '../economics';
 import { resistanceAt } from '../resistance';
@@ -72,10 +71,25 @@ function fromModelCurrent(ctx: Context, modelA: number): number {
   return (modelA / ctx.model.currentScale) * ctx.cand.conductorsPerPhase * deratingOf(ctx);
 }
 
+/**
+ * Without current and without sun there is no heat flow at all: the exact steady state is the
+ * surroundings' temperature everywhere, whatever the surface law. A linear surface gives it in
+ * one exact pass, where a convection correlation (h → 0 as ΔT → 0) leaves the solver nothing to
+ * iterate on.
+ */
+function zeroFlowProblem(problem: ThermalProblem): ThermalProblem {
+  const still = (b: Boundary): Boundary =>
+    b.kind === 'surface' && !(b.absorbedFlux && b.absorbedFlux > 0)
+      ? { kind: 'surface', ambient: b.ambient, h: 1, emissivity: 0, ...(b.areaFactor !== undefined ? { areaFactor: b.areaFactor } : {}) }
+      : b;
+  return { ...problem, inner: still(problem.inner), outer: still(problem.outer) };
+}
+
 function solve(ctx: Context, modelCurrentA: number, acFactor: number, mesh: Mesh): SteadyResult {
   ctx.solves++;
   try {
-    return solveSteady(ctx.model.problem(modelCurrentA, acFactor, mesh));
+    const problem = ctx.model.problem(modelCurrentA, acFactor, mesh);
+    return solveSteady(modelCurrentA === 0 ? zeroFlowProblem(problem) : problem);
   } catch (e) {
     if (e instanceof Error && e.name === 'ThermalInputError') {
       const field = (e as Error & { field?: string }).field;

@@ -1,0 +1,136 @@
+import { describe, expect, it } from 'vitest';
+import {
+  ampacity,
+  evaluateCandidate,
+  FLAG_CODES,
+  FLAG_REGISTRY,
+  type Candidate,
+  type Conditions,
+  type FlagCode,
+} from '@/lib/electrical';
+import { barConditions, cableConditions, copperBar, xlpeCable } from './fixtures';
+
+/**
+ * Assumption flags (physics.md §5): one case built to trip each code. The cases are physical
+ * situations (no mocking); their numbers are inputs, not check values.
+ */
+function codesOf(candidate: Candidate, conditions: Conditions): FlagCode[] {
+  const e = evaluateCandidate(candidate, conditions);
+  if (!e.ok) throw new Error(`${e.error.code}: ${e.error.message}`);
+  return e.flags.map((f) => f.code);
+}
+
+const cases: Record<FlagCode, () => { candidate: Candidate; conditions: Conditions }> = {
+  AMBIENT_ASSUMED: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ ambientC: undefined }) }),
+  GROUPING_DERATING_ENTERED: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ groupingFactor: 0.8 }) }),
+  ENCLOSURE_DERATING_ENTERED: () => ({
+    candidate: xlpeCable(95),
+    conditions: cableConditions({ installation: { kind: 'enclosure', deratingFactor: 0.85, inside: 'cable-in-air', spacingM: 0.1 } }),
+  }),
+  MUTUAL_HEATING_NOT_MODELLED: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ installation: { kind: 'cable-in-air' } }) }),
+  // A 20 mm bar laid flat: L = w/2 = 10 mm puts Ra below the 1e4 where the horizontal-plate
+  // correlations start (Incropera ch. 9).
+  CORRELATION_OUT_OF_RANGE: () => ({
+    candidate: copperBar(0.02, 0.005),
+    conditions: barConditions({ designCurrentA: 100, installation: { kind: 'bar-flat' } }),
+  }),
+  SURFACE_COEFFICIENT_ENTERED: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ surfaceCoefficientWPerM2K: 9 }) }),
+  WIND_COOLING_CREDITED: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ windSpeedMPerS: 2 }) }),
+  EMISSIVITY_ASSUMED: () => ({ candidate: xlpeCable(95, { emissivity: undefined }), conditions: cableConditions() }),
+  SOLAR_ABSORPTIVITY_ASSUMED: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ solar: { irradianceWPerM2: 1000 } }) }),
+  AC_FACTOR_LOWER_BOUND: () => ({ candidate: copperBar(0.1, 0.01), conditions: barConditions() }),
+  AC_FACTOR_USER_ENTERED: () => ({ candidate: copperBar(0.1, 0.01, { acResistanceRatio: 1.06 }), conditions: barConditions() }),
+  // 400 Hz on a 300 mm² conductor: x_s² = 8π·400·1e-7/R' ≈ 12, x_s ≈ 3.5 > 2.8.
+  AC_FORMULA_OUT_OF_RANGE: () => ({ candidate: xlpeCable(300), conditions: cableConditions({ frequencyHz: 400, designCurrentA: 100 }) }),
+  PROXIMITY_SPACING_ASSUMED: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ installation: { kind: 'cable-in-air' } }) }),
+  NEAR_RUNAWAY: () => {
+    // A bare bar allowed (by the user) to 450 °C behind a fixed 10 W/(m²·K): run at 99 % of
+    // that rating, resistance growth has more than doubled the rise.
+    const candidate = copperBar(0.05, 0.005, { terminalLimitC: undefined, acResistanceRatio: 1.02 });
+    const base = barConditions({ surfaceCoefficientWPerM2K: 10, temperatureLimitC: 450 });
+    const rating = ampacity(candidate, base).current;
+    return { candidate, conditions: { ...base, designCurrentA: 0.99 * rating } };
+  },
+  RUNAWAY: () => {
+    const candidate = copperBar(0.05, 0.005, { terminalLimitC: undefined, acResistanceRatio: 1.02 });
+    const base = barConditions({ surfaceCoefficientWPerM2K: 10, temperatureLimitC: 450 });
+    return { candidate, conditions: { ...base, designCurrentA: 3 * ampacity(candidate, base).current } };
+  },
+  OVER_LIMIT: () => {
+    const candidate = xlpeCable(95);
+    return { candidate, conditions: cableConditions({ designCurrentA: 1.2 * ampacity(candidate, cableConditions()).current }) };
+  },
+  MARGIN_UNDER_10: () => {
+    const candidate = xlpeCable(95);
+    return { candidate, conditions: cableConditions({ designCurrentA: 0.97 * ampacity(candidate, cableConditions()).current }) };
+  },
+  USER_LIMIT_ABOVE_RATING: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ temperatureLimitC: 105, raiseMaterialLimit: true }) }),
+  SHORT_CIRCUIT_NOT_CHECKED: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ fault: undefined }) }),
+  SHORT_CIRCUIT_EXCEEDED: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ fault: { currentA: 50_000, durationS: 1 } }) }),
+  SHORT_CIRCUIT_LONG_DURATION: () => ({ candidate: xlpeCable(240), conditions: cableConditions({ fault: { currentA: 2_000, durationS: 8 } }) }),
+  MULTICORE_APPROXIMATION: () => ({ candidate: xlpeCable(95, { cores: 4 }), conditions: cableConditions() }),
+  DATA_FROM_MEMORY: () => ({ candidate: xlpeCable(95, { sourceNotes: ['R20 from IEC 60228 Table 2, from memory'] }), conditions: cableConditions() }),
+  MULTI_BAR_INNER_FACES: () => ({ candidate: copperBar(0.1, 0.01, { barsPerPhase: 2 }), conditions: barConditions() }),
+  PARALLEL_SHARING_ASSUMED: () => ({ candidate: xlpeCable(95, { parallel: 2 }), conditions: cableConditions() }),
+  BAR_EDGES_LUMPED: () => ({ candidate: copperBar(0.1, 0.01), conditions: barConditions() }),
+  BURIED_SOIL_ASSUMED: () => ({
+    candidate: xlpeCable(95),
+    conditions: cableConditions({ installation: { kind: 'buried', depthM: 0.7, groundC: 15, spacingM: 0.1 } }),
+  }),
+  SOIL_DRYING_RISK: () => {
+    const candidate = xlpeCable(95);
+    const conditions = cableConditions({ installation: { kind: 'buried', depthM: 0.7, soilResistivityKmPerW: 1.0, groundC: 20, spacingM: 0.1 } });
+    return { candidate, conditions: { ...conditions, designCurrentA: 0.95 * ampacity(candidate, conditions).current } };
+  },
+  VOLTAGE_DROP_EXCEEDED: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ maxVoltageDropPercent: 0.5 }) }),
+  REACTANCE_ASSUMED: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ reactanceOhmPerM: undefined }) }),
+  BAR_REACTANCE_ASSUMED: () => ({ candidate: copperBar(0.1, 0.01), conditions: barConditions({ reactanceOhmPerM: undefined }) }),
+  // A 60 mm thick aluminium bar under a fixed 2000 W/(m²·K): h·t/(4k) ≈ 0.13, so the conductor
+  // is far from isothermal and the closed form (which assumes it is) disagrees.
+  CROSS_CHECK_DIFFERENCE: () => ({
+    candidate: { kind: 'bar', material: 'aluminium', widthM: 0.1, thicknessM: 0.06, r20OhmPerM: 2.8264e-8 / 6e-3, terminalLimitC: 90, acResistanceRatio: 1 },
+    conditions: barConditions({ surfaceCoefficientWPerM2K: 2000 }),
+  }),
+  SHEATH_LOSSES_NOT_INCLUDED: () => {
+    const c = xlpeCable(95);
+    c.layers = [c.layers[0], { name: 'copper wire screen', role: 'screen', thicknessM: 0.5e-3, thermalResistivityKmPerW: 0.0025 }, c.layers[1]];
+    return { candidate: c, conditions: cableConditions() };
+  },
+};
+
+describe('each assumption flag is raised by a case built for it (physics.md §5)', () => {
+  it('every registered code has a case here (so none is untested)', () => {
+    expect(Object.keys(cases).sort()).toEqual([...FLAG_CODES].sort());
+  });
+
+  for (const code of FLAG_CODES) {
+    it(`${code} (${FLAG_REGISTRY[code].severity})`, () => {
+      const { candidate, conditions } = cases[code]();
+      const e = evaluateCandidate(candidate, conditions);
+      if (!e.ok) throw new Error(`${e.error.code}: ${e.error.message}`);
+      const flag = e.flags.find((f) => f.code === code);
+      expect(flag, `expected ${code} among ${e.flags.map((f) => f.code).join(', ')}`).toBeDefined();
+      expect(flag!.severity).toBe(FLAG_REGISTRY[code].severity);
+      expect(flag!.message.length).toBeGreaterThan(20);
+      if (flag!.severity === 'blocker') expect(e.passes).toBe(false);
+    });
+  }
+});
+
+describe('a comfortable case', () => {
+  it('a 240 mm² Cu/XLPE circuit at 300 A, every input stated, raises no review or blocker flag', () => {
+    const codes = evaluateCandidate(xlpeCable(240), cableConditions({ designCurrentA: 300 }));
+    if (!codes.ok) throw new Error(codes.error.message);
+    const serious = codes.flags.filter((f) => f.severity !== 'note');
+    expect(serious.map((f) => f.code)).toEqual([]);
+    expect(codes.passes).toBe(true);
+  });
+
+  it('flags come out blockers first, then review, then notes, once per code', () => {
+    const codes = codesOf(xlpeCable(95, { emissivity: undefined, parallel: 2 }), cableConditions({ ambientC: undefined, designCurrentA: 900 }));
+    const order = { blocker: 0, review: 1, note: 2 } as const;
+    const severities = codes.map((c) => order[FLAG_REGISTRY[c].severity]);
+    expect([...severities].sort((a, b) => a - b)).toEqual(severities);
+    expect(new Set(codes).size).toBe(codes.length);
+  });
+});
