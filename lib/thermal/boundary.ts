@@ -39,40 +39,45 @@ export function boundarySide(mesh: Mesh, spec: NormalizedBoundary, side: 'inner'
 export interface BoundaryTerms {
   /** Added to a_P of the boundary cell, W/K (per m² or per m). */
   a: number;
-  /** Added to b of the boundary cell, W. */
+  /** Added to b of the boundary cell, W (equations written for rises above the reference). */
   b: number;
-  /** Surface only: linearisation point Ts*, slope g and the exchange evaluated there. */
-  surfaceC?: number;
+  /** Surface only: linearisation point (rise above the reference), slope g, exchange there. */
+  surfaceRise?: number;
   slope?: number;
   exchange?: SurfaceExchange;
 }
 
 /**
- * Surface: the half-cell conductance G in series with the exchange linearised about Ts*,
- * q_s ≈ q* + g(Ts − Ts*). Eliminating the face temperature from
- *   G(T_P − Ts) = A_f [q* + g(Ts − Ts*)]
- * gives a heat flow a_B(T_P) − b_B with a_B = G·A_f g/(G + A_f g),
- * b_B = G·A_f(g Ts* − q*)/(G + A_f g): a conductance in series with h·A (physics.md §1).
+ * Contributions for the equations written in θ = T − T_ref (T_ref: the context's reference
+ * temperature, usually the ambient), which keeps the digits of small rises.
+ *
+ * Surface: the half-cell conductance G in series with the exchange linearised about θs*,
+ * q_s ≈ q* + g(θs − θs*). Eliminating the face temperature from
+ *   G(θ_P − θs) = A_f [q* + g(θs − θs*)]
+ * gives a heat flow a_B θ_P − b_B with a_B = G·A_f g/(G + A_f g),
+ * b_B = G·A_f(g θs* − q*)/(G + A_f g): a conductance in series with h·A (physics.md §1).
  */
-export function boundaryTerms(side: BoundarySide, surfaceC: number): BoundaryTerms {
+export function boundaryTerms(side: BoundarySide, surfaceRise: number, reference: number): BoundaryTerms {
   const spec = side.spec;
   const G = side.halfConductance;
   switch (spec.kind) {
     case 'temperature':
-      return { a: G, b: G * spec.value };
+      return { a: G, b: G * (spec.value - reference) };
     case 'flux':
       return { a: 0, b: spec.value * side.faceArea };
     case 'symmetry':
       return { a: 0, b: 0 };
     case 'surface': {
-      const exchange = evaluateSurface(spec, surfaceC);
+      const exchange = evaluateSurface(spec, reference + surfaceRise, surfaceRise + (reference - spec.ambient));
       const g = linearisationSlope(exchange, isLinearSurface(spec));
+      // The evaluation may have clamped an absurd iterate; linearise where it evaluated.
+      const rise = exchange.surfaceC === reference + surfaceRise ? surfaceRise : exchange.surfaceC - reference;
       const af = side.exchangeArea;
       const denominator = G + af * g;
       return {
         a: (G * af * g) / denominator,
-        b: (G * af * (g * exchange.surfaceC - exchange.netFlux)) / denominator,
-        surfaceC: exchange.surfaceC,
+        b: (G * af * (g * rise - exchange.netFlux)) / denominator,
+        surfaceRise: rise,
         slope: g,
         exchange,
       };
@@ -80,13 +85,12 @@ export function boundaryTerms(side: BoundarySide, surfaceC: number): BoundaryTer
   }
 }
 
-/** Face temperature of a surface implied by the node temperature under the linearisation. */
-export function linearisedSurfaceTemperature(side: BoundarySide, terms: BoundaryTerms, nodeC: number): number {
+/** Surface rise above the reference implied by the node rise under the linearisation. */
+export function linearisedSurfaceRise(side: BoundarySide, terms: BoundaryTerms, nodeRise: number): number {
   const G = side.halfConductance;
   const af = side.exchangeArea;
   const g = terms.slope!;
-  const ex = terms.exchange!;
-  return (G * nodeC + af * (g * ex.surfaceC - ex.netFlux)) / (G + af * g);
+  return (G * nodeRise + af * (g * terms.surfaceRise! - terms.exchange!.netFlux)) / (G + af * g);
 }
 
 /** Temperature at the boundary face, °C (symmetry: the node's, zero gradient). */
@@ -108,17 +112,18 @@ export function faceTemperature(side: BoundarySide, nodeC: number, surfaceC: num
  * Heat leaving the body through the face (W per m² of slab face or per metre of cylinder),
  * from the boundary's own law — for a surface the non-linear exchange at the final Ts, not its
  * linearisation — so the energy balance checks the iteration rather than repeating it.
+ * Rises are above `reference`.
  */
-export function heatLeaving(side: BoundarySide, nodeC: number, surfaceC: number): number {
+export function heatLeaving(side: BoundarySide, nodeRise: number, surfaceRise: number, reference: number): number {
   const spec = side.spec;
   switch (spec.kind) {
     case 'temperature':
-      return side.halfConductance * (nodeC - spec.value);
+      return side.halfConductance * (nodeRise - (spec.value - reference));
     case 'flux':
       return -spec.value * side.faceArea;
     case 'symmetry':
       return 0;
     case 'surface':
-      return side.exchangeArea * evaluateSurface(spec, surfaceC).netFlux;
+      return side.exchangeArea * evaluateSurface(spec, reference + surfaceRise, surfaceRise + (reference - spec.ambient)).netFlux;
   }
 }

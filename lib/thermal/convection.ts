@@ -31,10 +31,19 @@ export const VERTICAL_PLATE_RANGE = { min: 1e-1, max: 1e12 } as const;
  * Upper face of a hot plate (or lower face of a cold one), L = area/perimeter:
  * Nu = 0.54 Ra^¼ for 1e4 ≤ Ra ≤ 1e7 (Pr ≥ 0.7), Nu = 0.15 Ra^⅓ for 1e7 ≤ Ra ≤ 1e11
  * (Incropera eqs. 9.30, 9.31).
+ *
+ * The two published branches disagree by 6 % at Ra = 1e7 (30.4 vs 32.3). A jump in q(Ts) can leave
+ * a heat flow with no surface temperature at all (the outer iteration then cycles across it), so
+ * between 1e7 and 2e7 this blends the branches linearly in log Ra — our choice, not published.
+ * The blend stays between the two branches, i.e. never above the turbulent value the correlation
+ * gives there; outside that window the published forms are used unchanged.
  */
 export function horizontalPlateUpperHot(rayleigh: number): { nusselt: number; inRange: boolean } {
   if (rayleigh <= 1e7) return { nusselt: 0.54 * rayleigh ** 0.25, inRange: rayleigh >= 1e4 };
-  return { nusselt: 0.15 * rayleigh ** (1 / 3), inRange: rayleigh <= 1e11 };
+  const turbulent = 0.15 * rayleigh ** (1 / 3);
+  if (rayleigh >= 2e7) return { nusselt: turbulent, inRange: rayleigh <= 1e11 };
+  const w = Math.log(rayleigh / 1e7) / Math.LN2;
+  return { nusselt: (1 - w) * 0.54 * rayleigh ** 0.25 + w * turbulent, inRange: true };
 }
 
 /**
@@ -69,14 +78,14 @@ export function flatPlateAverage(reynolds: number, prandtl: number): { nusselt: 
 }
 
 /** Ra = gβ|ΔT|L³/(να) with air at the film temperature. */
-export function rayleighNumber(args: { lengthM: number; surfaceC: number; ambientC: number }): {
+export function rayleighNumber(args: { lengthM: number; surfaceC: number; ambientC: number; deltaK?: number }): {
   rayleigh: number;
   filmTemperatureK: number;
   air: ReturnType<typeof airProperties>;
 } {
   const filmTemperatureK = 0.5 * (args.surfaceC + args.ambientC) + KELVIN_OFFSET;
   const air = airProperties(filmTemperatureK);
-  const deltaK = Math.abs(args.surfaceC - args.ambientC);
+  const deltaK = Math.abs(args.deltaK ?? args.surfaceC - args.ambientC);
   const rayleigh =
     (STANDARD_GRAVITY * air.expansion * deltaK * args.lengthM ** 3) / (air.kinematicViscosity * air.thermalDiffusivity);
   return { rayleigh, filmTemperatureK, air };
@@ -96,10 +105,11 @@ function natural(
   lengthM: number,
   surfaceC: number,
   ambientC: number,
+  deltaK: number,
   nusseltOf: (ra: number, pr: number) => { nusselt: number; inRange: boolean },
   validRange: string,
 ): ConvectionEvaluation {
-  const { rayleigh, filmTemperatureK, air } = rayleighNumber({ lengthM, surfaceC, ambientC });
+  const { rayleigh, filmTemperatureK, air } = rayleighNumber({ lengthM, surfaceC, ambientC, deltaK });
   const { nusselt, inRange } = nusseltOf(rayleigh, air.prandtl);
   return {
     h: (nusselt * air.conductivity) / lengthM,
@@ -145,7 +155,12 @@ function forced(
  * `ambientC`. A horizontal plate colder than the air swaps faces: the upper face of a cold plate
  * behaves as the lower face of a hot one and vice versa (Incropera §9.6.2).
  */
-export function evaluateConvection(spec: NormalizedConvection, surfaceC: number, ambientC: number): ConvectionEvaluation {
+export function evaluateConvection(
+  spec: NormalizedConvection,
+  surfaceC: number,
+  ambientC: number,
+  deltaK: number = surfaceC - ambientC,
+): ConvectionEvaluation {
   switch (spec.kind) {
     case 'horizontal-cylinder':
       return natural(
@@ -153,6 +168,7 @@ export function evaluateConvection(spec: NormalizedConvection, surfaceC: number,
         spec.diameter,
         surfaceC,
         ambientC,
+        deltaK,
         (ra, pr) => ({
           nusselt: churchillChuHorizontalCylinder(ra, pr),
           inRange: ra >= HORIZONTAL_CYLINDER_RANGE.min && ra <= HORIZONTAL_CYLINDER_RANGE.max,
@@ -165,6 +181,7 @@ export function evaluateConvection(spec: NormalizedConvection, surfaceC: number,
         spec.height,
         surfaceC,
         ambientC,
+        deltaK,
         (ra, pr) => ({
           nusselt: churchillChuVerticalPlate(ra, pr),
           inRange: ra >= VERTICAL_PLATE_RANGE.min && ra <= VERTICAL_PLATE_RANGE.max,
@@ -172,7 +189,7 @@ export function evaluateConvection(spec: NormalizedConvection, surfaceC: number,
         '1e-1 ≤ Ra_L ≤ 1e12',
       );
     case 'horizontal-plate': {
-      const hot = surfaceC >= ambientC;
+      const hot = deltaK >= 0;
       const upperHotLike = (spec.facing === 'up') === hot;
       return upperHotLike
         ? natural(
@@ -180,6 +197,7 @@ export function evaluateConvection(spec: NormalizedConvection, surfaceC: number,
             spec.length,
             surfaceC,
             ambientC,
+            deltaK,
             (ra, pr) => {
               const r = horizontalPlateUpperHot(ra);
               return { nusselt: r.nusselt, inRange: r.inRange && (ra > 1e7 || pr >= 0.7) };
@@ -191,6 +209,7 @@ export function evaluateConvection(spec: NormalizedConvection, surfaceC: number,
             spec.length,
             surfaceC,
             ambientC,
+            deltaK,
             (ra, pr) => {
               const r = horizontalPlateLowerHot(ra);
               return { nusselt: r.nusselt, inRange: r.inRange && pr >= 0.7 };
@@ -232,7 +251,7 @@ export function evaluateConvection(spec: NormalizedConvection, surfaceC: number,
       const coefficient = iecFreeAirCoefficient({ externalDiameterM: spec.diameter, Z: spec.Z, E: spec.E, g: spec.g });
       // Heat per m² = h·Δθs^(5/4), i.e. a secant coefficient h·Δθs^(1/4); it includes radiation.
       return {
-        h: coefficient * Math.abs(surfaceC - ambientC) ** 0.25,
+        h: coefficient * Math.abs(deltaK) ** 0.25,
         correlation: 'IEC 60287-2-1 free air h = Z/De^g + E (convection and radiation together)',
         inRange: true,
       };

@@ -17,24 +17,25 @@ export interface EnergyBalance {
   residual: number;
 }
 
+/** All temperatures as rises above ctx.reference (°C = reference + rise). */
 export function energyBalance(
   ctx: SolverContext,
   joule: JouleCoefficients | undefined,
-  temperatures: Float64Array,
-  surfaceInner: number,
-  surfaceOuter: number,
-  previous?: Float64Array,
+  rises: Float64Array,
+  surfaceInnerRise: number,
+  surfaceOuterRise: number,
+  previousRises?: Float64Array,
 ): EnergyBalance {
-  const { mesh, problem, capacityRate } = ctx;
+  const { mesh, problem, capacityRate, reference } = ctx;
   const n = mesh.cellCount;
   let generated = 0;
   let stored = 0;
   for (let i = 0; i < n; i++) {
-    if (mesh.generating[i]) generated += sourceDensity(problem.source, joule, temperatures[i]) * mesh.volumes[i];
-    if (capacityRate) stored += capacityRate[i] * (temperatures[i] - previous![i]);
+    if (mesh.generating[i]) generated += sourceDensity(problem.source, joule, reference + rises[i]) * mesh.volumes[i];
+    if (capacityRate) stored += capacityRate[i] * (rises[i] - previousRises![i]);
   }
-  const leavingInner = heatLeaving(ctx.inner, temperatures[0], surfaceInner);
-  const leavingOuter = heatLeaving(ctx.outer, temperatures[n - 1], surfaceOuter);
+  const leavingInner = heatLeaving(ctx.inner, rises[0], surfaceInnerRise, reference);
+  const leavingOuter = heatLeaving(ctx.outer, rises[n - 1], surfaceOuterRise, reference);
   const scale = Math.max(Math.abs(generated), Math.abs(leavingInner), Math.abs(leavingOuter), Math.abs(stored));
   const imbalance = Math.abs(generated - leavingInner - leavingOuter - stored);
   const residual = scale > 0 ? imbalance / scale : 0;

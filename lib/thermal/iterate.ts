@@ -5,12 +5,16 @@
  * the current cell temperatures, assemble a_P T_P = a_W T_W + a_E T_E + b, solve it with one
  * Thomas sweep, update. Stop when the largest change (cells and surface faces) is below the
  * tolerance and the energy balance closes.
+ *
+ * The unknowns are rises θ = T − T_ref above a reference temperature (the ambient the heat is
+ * finally given to), so that a rise of 1e-9 K keeps its digits instead of drowning in the 1e-14
+ * relative round-off of a temperature near 300; the equations are unchanged by the shift.
  */
-import { boundarySide, boundaryTerms, linearisedSurfaceTemperature, type BoundarySide, type BoundaryTerms } from './boundary';
+import { boundarySide, boundaryTerms, linearisedSurfaceRise, type BoundarySide, type BoundaryTerms } from './boundary';
 import { interiorConductances } from './coefficients';
 import { energyBalance, type EnergyBalance } from './energy';
 import { buildMesh, type Mesh } from './mesh';
-import { jouleCoefficients, jouleHeatDensity, type JouleCoefficients } from './source';
+import { jouleCoefficients, type JouleCoefficients } from './source';
 import { isLinearSurface } from './surface';
 import { thomas } from './tridiagonal';
 import type { Linearisation } from './types';
@@ -20,11 +24,27 @@ import type { NormalizedBoundary, NormalizedProblem } from './validate';
  * Smallest acceptable pivot/diagonal ratio for a tangent pass. Positive pivots ⇔ the symmetric
  * tangent matrix K − S_p·D is positive definite; the margin keeps us away from the singular
  * point where round-off would dominate.
+ *
+ * Why this and not the per-cell test a_P > Σa_nb: with S_p > 0 an interior generating cell has
+ * a_P = a_W + a_E − S_pΔV < Σa_nb, so the per-cell test fails in every interior conductor cell
+ * and would forbid the tangent form outright. What the per-cell test is for — a non-singular
+ * M-matrix whose solution keeps the physical ordering (no spurious undershoot, a unique field) —
+ * holds for a symmetric Z-matrix exactly when it is positive definite, i.e. when it is
+ * diagonally dominant after scaling by some positive vector (Berman & Plemmons, M-matrix
+ * characterisations). Thomas's pivots reveal that at no extra cost.
  */
 const TANGENT_PIVOT_MARGIN = 1e-9;
 
+/** Consecutive rising passes above the temperature limit that count as divergence. */
+const DIVERGENCE_STREAK = 3;
+
+/** First linearisation point of a surface in a steady solve: a modest rise above the air. */
+const STEADY_SURFACE_START_RISE_K = 10;
+
 export interface SolverContext {
   problem: NormalizedProblem;
+  /** °C; unknowns are rises above it. */
+  reference: number;
   mesh: Mesh;
   /** Conductance between cells j and j+1. */
   conductances: Float64Array;
@@ -42,6 +62,15 @@ export interface SolverContext {
   };
 }
 
+/** The temperature the heat is finally given to: the outer ambient or fixed temperature, if any. */
+export function referenceTemperature(problem: NormalizedProblem): number {
+  for (const b of [problem.outer, problem.inner]) {
+    if (b.kind === 'surface') return b.ambient;
+    if (b.kind === 'temperature') return b.value;
+  }
+  return 20;
+}
+
 export function createContext(problem: NormalizedProblem, timeStep?: number): SolverContext {
   const mesh = buildMesh(problem.geometry);
   const n = mesh.cellCount;
@@ -55,6 +84,7 @@ export function createContext(problem: NormalizedProblem, timeStep?: number): So
   }
   return {
     problem,
+    reference: referenceTemperature(problem),
     mesh,
     conductances: interiorConductances(mesh),
     inner: boundarySide(mesh, problem.inner, 'inner'),
@@ -81,25 +111,28 @@ export function hasLinearSurroundings(problem: NormalizedProblem): boolean {
 }
 
 /**
- * Fill the tridiagonal system for one pass and solve it. Returns the smallest pivot ratio
- * (positive for a positive-definite matrix). Row i: −G_w T_{i−1} + a_P T_i − G_e T_{i+1} = b.
+ * Fill the tridiagonal system for one pass (unknowns θ) and solve it. Returns the smallest pivot
+ * ratio (positive for a positive-definite matrix). Row i: −G_w θ_{i−1} + a_P θ_i − G_e θ_{i+1} = b.
  */
 function assembleAndSolve(
   ctx: SolverContext,
   mode: Linearisation,
   joule: JouleCoefficients | undefined,
-  temperatures: Float64Array,
-  previous: Float64Array | undefined,
+  rises: Float64Array,
+  previousRises: Float64Array | undefined,
   inner: BoundaryTerms,
   outer: BoundaryTerms,
 ): number {
-  const { mesh, conductances: g, capacityRate } = ctx;
+  const { mesh, conductances: g, capacityRate, reference } = ctx;
   const { lower, diagonal, upper, rhs, solution, scratch } = ctx.work;
   const n = mesh.cellCount;
   const source = ctx.problem.source;
-  // Uniform: S_u = q''', S_p = 0. Joule tangent: S_u, S_p constant (exact). Joule lagged: per cell.
-  const spTangent = joule && mode === 'tangent' ? joule.slope : 0;
-  const suConstant = source.kind === 'uniform' ? source.q : joule!.q20 - 20 * joule!.slope;
+  // Joule: q(T) = q20 + slope·(T − 20) = qRef + slope·θ, qRef being q at the reference.
+  // Uniform: S_u = q, S_p = 0. Joule tangent: S_u = qRef, S_p = slope (exact). Lagged: per cell.
+  const slope = joule ? joule.slope : 0;
+  const qRef = source.kind === 'uniform' ? source.q : joule!.q20 + slope * (reference - 20);
+  const spTangent = joule && mode === 'tangent' ? slope : 0;
+  const lagged = joule !== undefined && mode === 'lagged';
   for (let i = 0; i < n; i++) {
     const gw = i > 0 ? g[i - 1] : 0;
     const ge = i < n - 1 ? g[i] : 0;
@@ -107,16 +140,16 @@ function assembleAndSolve(
     let b = 0;
     if (mesh.generating[i]) {
       const v = mesh.volumes[i];
-      if (joule && mode === 'lagged') {
-        b += jouleHeatDensity(joule, temperatures[i]) * v;
+      if (lagged) {
+        b += (qRef + slope * rises[i]) * v;
       } else {
-        b += suConstant * v;
+        b += qRef * v;
         ap -= spTangent * v;
       }
     }
     if (capacityRate) {
       ap += capacityRate[i];
-      b += capacityRate[i] * previous![i];
+      b += capacityRate[i] * previousRises![i];
     }
     lower[i] = -gw;
     upper[i] = -ge;
@@ -134,7 +167,9 @@ export type IterationStatus = 'converged' | 'diverged' | 'stalled';
 
 export interface IterationOutcome {
   status: IterationStatus;
+  /** °C */
   temperatures: Float64Array;
+  /** °C (NaN for a side that is not a surface) */
   surfaceC: { inner: number; outer: number };
   iterations: number;
   tridiagonalSolves: number;
@@ -144,9 +179,9 @@ export interface IterationOutcome {
 }
 
 export interface IterateArgs {
-  /** Starting cell temperatures, °C (copied). */
+  /** Starting cell temperatures, °C. */
   start: Float64Array;
-  /** Transient: the temperatures at the start of the step. */
+  /** Transient: the temperatures at the start of the step, °C. */
   previous?: Float64Array;
   /** Joule current to use instead of the problem's (bisection on current). */
   currentA?: number;
@@ -154,20 +189,15 @@ export interface IterateArgs {
   surfaceStart?: { inner: number; outer: number };
 }
 
-/** Consecutive rising passes above the temperature limit that count as divergence. */
-const DIVERGENCE_STREAK = 3;
-
-/** First linearisation point of a surface in a steady solve: a modest rise above the air. */
-const STEADY_SURFACE_START_RISE_K = 10;
-
 export function iterate(ctx: SolverContext, args: IterateArgs): IterationOutcome {
-  const { problem, mesh } = ctx;
+  const { problem, mesh, reference } = ctx;
   const { options, source } = problem;
   const n = mesh.cellCount;
   const joule = source.kind === 'joule' ? jouleCoefficients(source, args.currentA ?? source.current) : undefined;
-  const temperatures = Float64Array.from(args.start);
-  const surfaceStartFor = (side: BoundarySide, fallback: number | undefined): number =>
-    side.spec.kind === 'surface' ? (fallback ?? side.spec.ambient + STEADY_SURFACE_START_RISE_K) : NaN;
+  const rises = Float64Array.from(args.start, (t) => t - reference);
+  const previousRises = args.previous ? Float64Array.from(args.previous, (t) => t - reference) : undefined;
+  const surfaceStartFor = (side: BoundarySide, given: number | undefined): number =>
+    side.spec.kind === 'surface' ? (given ?? side.spec.ambient + STEADY_SURFACE_START_RISE_K) - reference : NaN;
   let surfaceInner = surfaceStartFor(ctx.inner, args.surfaceStart?.inner);
   let surfaceOuter = surfaceStartFor(ctx.outer, args.surfaceStart?.outer);
   const linearSurroundings = hasLinearSurroundings(problem);
@@ -177,30 +207,31 @@ export function iterate(ctx: SolverContext, args: IterateArgs): IterationOutcome
   let previousDelta = Infinity;
   let previousHottest = -Infinity;
   let aboveLimitStreak = 0;
+  const limitRise = options.temperatureLimit - reference;
 
   const finish = (status: IterationStatus, iterations: number): IterationOutcome => ({
     status,
-    temperatures,
-    surfaceC: { inner: surfaceInner, outer: surfaceOuter },
+    temperatures: Float64Array.from(rises, (r) => reference + r),
+    surfaceC: { inner: reference + surfaceInner, outer: reference + surfaceOuter },
     iterations,
     tridiagonalSolves: solves,
     linearisation: lastMode,
     linearisationCounts: counts,
-    energy: energyBalance(ctx, joule, temperatures, surfaceInner, surfaceOuter, args.previous),
+    energy: energyBalance(ctx, joule, rises, surfaceInner, surfaceOuter, previousRises),
   });
 
   for (let iteration = 1; iteration <= options.maxIterations; iteration++) {
-    const innerTerms = boundaryTerms(ctx.inner, surfaceInner);
-    const outerTerms = boundaryTerms(ctx.outer, surfaceOuter);
+    const innerTerms = boundaryTerms(ctx.inner, surfaceInner, reference);
+    const outerTerms = boundaryTerms(ctx.outer, surfaceOuter, reference);
 
     let mode: Linearisation = joule ? options.linearisation : 'lagged';
-    const pivotRatio = assembleAndSolve(ctx, mode, joule, temperatures, args.previous, innerTerms, outerTerms);
+    const pivotRatio = assembleAndSolve(ctx, mode, joule, rises, previousRises, innerTerms, outerTerms);
     solves++;
     if (mode === 'tangent' && !(pivotRatio > TANGENT_PIVOT_MARGIN)) {
       // The tangent matrix is not positive definite at this linearisation: its solution would
       // not be an ordered, physical temperature field. Fall back to the lagged form.
       mode = 'lagged';
-      assembleAndSolve(ctx, mode, joule, temperatures, args.previous, innerTerms, outerTerms);
+      assembleAndSolve(ctx, mode, joule, rises, previousRises, innerTerms, outerTerms);
       solves++;
     }
     counts[mode]++;
@@ -211,19 +242,19 @@ export function iterate(ctx: SolverContext, args: IterateArgs): IterationOutcome
     let delta = 0;
     let hottest = -Infinity;
     for (let i = 0; i < n; i++) {
-      const next = temperatures[i] + omega * (solution[i] - temperatures[i]);
-      const change = Math.abs(next - temperatures[i]);
+      const next = rises[i] + omega * (solution[i] - rises[i]);
+      const change = Math.abs(next - rises[i]);
       if (change > delta || change !== change) delta = change;
-      temperatures[i] = next;
+      rises[i] = next;
       if (next > hottest) hottest = next;
     }
     if (innerTerms.exchange) {
-      const ts = linearisedSurfaceTemperature(ctx.inner, innerTerms, temperatures[0]);
+      const ts = linearisedSurfaceRise(ctx.inner, innerTerms, rises[0]);
       delta = Math.max(delta, Math.abs(ts - surfaceInner));
       surfaceInner = ts;
     }
     if (outerTerms.exchange) {
-      const ts = linearisedSurfaceTemperature(ctx.outer, outerTerms, temperatures[n - 1]);
+      const ts = linearisedSurfaceRise(ctx.outer, outerTerms, rises[n - 1]);
       delta = Math.max(delta, Math.abs(ts - surfaceOuter));
       surfaceOuter = ts;
     }
@@ -237,7 +268,7 @@ export function iterate(ctx: SolverContext, args: IterateArgs): IterationOutcome
     // Growth past the limit for several passes in a row is taken as unbounded (see
     // DEFAULT_TEMPERATURE_LIMIT_C). One pass above it is not enough: a first linearisation about
     // a cool surface can overshoot, and the next Newton pass pulls it back.
-    if (!exact && joule && hottest > options.temperatureLimit && hottest > previousHottest) aboveLimitStreak++;
+    if (!exact && joule && hottest > limitRise && hottest > previousHottest) aboveLimitStreak++;
     else aboveLimitStreak = 0;
     previousHottest = hottest;
     if (aboveLimitStreak >= DIVERGENCE_STREAK) return finish('diverged', iteration);
@@ -264,7 +295,7 @@ export function conductanceMatrix(ctx: SolverContext): { diagonal: Float64Array;
   const g = ctx.conductances;
   for (let i = 0; i < n; i++) diagonal[i] = (i > 0 ? g[i - 1] : 0) + (i < n - 1 ? g[i] : 0);
   // Linear boundaries do not depend on the linearisation point; any value will do.
-  diagonal[0] += boundaryTerms(ctx.inner, 20).a;
-  diagonal[n - 1] += boundaryTerms(ctx.outer, 20).a;
+  diagonal[0] += boundaryTerms(ctx.inner, 0, ctx.reference).a;
+  diagonal[n - 1] += boundaryTerms(ctx.outer, 0, ctx.reference).a;
   return { diagonal, offDiagonal: g };
 }

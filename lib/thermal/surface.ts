@@ -26,27 +26,38 @@ export interface SurfaceExchange {
 /** Guards the property table and T⁴ against an absurd intermediate iterate below 0 K. */
 const LOWEST_EVALUATION_C = ABSOLUTE_ZERO_C + 1;
 
-function convectiveFlux(s: NormalizedSurface, surfaceC: number): { flux: number; evaluation?: ConvectionEvaluation } {
+function convectiveFlux(s: NormalizedSurface, surfaceC: number, deltaK: number): { flux: number; evaluation?: ConvectionEvaluation } {
   if (s.convection) {
-    const evaluation = evaluateConvection(s.convection, surfaceC, s.ambient);
-    return { flux: evaluation.h * (surfaceC - s.ambient), evaluation };
+    const evaluation = evaluateConvection(s.convection, surfaceC, s.ambient, deltaK);
+    return { flux: evaluation.h * deltaK, evaluation };
   }
-  return { flux: s.fixedH * (surfaceC - s.ambient) };
+  return { flux: s.fixedH * deltaK };
 }
 
-export function evaluateSurface(s: NormalizedSurface, surfaceTemperatureC: number): SurfaceExchange {
-  const surfaceC = Math.max(surfaceTemperatureC, LOWEST_EVALUATION_C);
-  const conv = convectiveFlux(s, surfaceC);
+/**
+ * Exchange at surface temperature `surfaceTemperatureC`. `deltaK` = Ts − T∞ may be passed when
+ * the caller knows it more precisely than the difference of two temperatures near 300 would
+ * give (the solver works in rises above a reference, so that tiny rises keep their digits).
+ */
+export function evaluateSurface(s: NormalizedSurface, surfaceTemperatureC: number, deltaK?: number): SurfaceExchange {
+  let surfaceC = surfaceTemperatureC;
+  let delta = deltaK ?? surfaceTemperatureC - s.ambient;
+  if (surfaceC < LOWEST_EVALUATION_C) {
+    surfaceC = LOWEST_EVALUATION_C;
+    delta = surfaceC - s.ambient;
+  }
+  const conv = convectiveFlux(s, surfaceC, delta);
   const hConv = conv.evaluation ? conv.evaluation.h : s.fixedH;
 
   let convSlope = s.fixedH;
   if (s.convection) {
     // Correlations are piecewise (property table, regime switches), so differentiate
     // numerically; the step is small against any temperature difference that matters.
-    const step = Math.max(1e-3, 1e-4 * Math.abs(surfaceC - s.ambient));
-    const up = convectiveFlux(s, surfaceC + step).flux;
-    const down = convectiveFlux(s, Math.max(surfaceC - step, LOWEST_EVALUATION_C)).flux;
-    convSlope = (up - down) / (surfaceC + step - Math.max(surfaceC - step, LOWEST_EVALUATION_C));
+    const step = Math.max(1e-3, 1e-4 * Math.abs(delta));
+    const downStep = Math.min(step, surfaceC - LOWEST_EVALUATION_C);
+    const up = convectiveFlux(s, surfaceC + step, delta + step).flux;
+    const down = convectiveFlux(s, surfaceC - downStep, delta - downStep).flux;
+    convSlope = (up - down) / (step + downStep);
   }
 
   let hRad = 0;
@@ -56,7 +67,7 @@ export function evaluateSurface(s: NormalizedSurface, surfaceTemperatureC: numbe
     const ts = surfaceC + KELVIN_OFFSET;
     radSlope = 4 * s.emissivity * STEFAN_BOLTZMANN * ts * ts * ts;
   }
-  const netFlux = conv.flux + hRad * (surfaceC - s.surroundings) - s.absorbedFlux;
+  const netFlux = conv.flux + hRad * (delta + (s.ambient - s.surroundings)) - s.absorbedFlux;
   return {
     surfaceC,
     netFlux,
@@ -79,6 +90,8 @@ export function isLinearSurface(s: NormalizedSurface): boolean {
  * drops slowly with film temperature) the secant h_c + h_r is used instead, which still converges
  * monotonically. The converged state does not depend on g — only the speed does. A tiny floor
  * keeps a plate at exactly ambient (h → 0) from cutting its heat path in the first pass.
+ * (§2 of physics.md writes the radiation linearisation in secant form, h_r; both give the same
+ * fixed point, and the secant coefficients are what the result reports.)
  */
 export function linearisationSlope(e: SurfaceExchange, linear: boolean): number {
   // A linear surface is used as given: a floor there would invent a heat path.

@@ -57,6 +57,22 @@ describe('natural-convection correlations vs hand-worked values', () => {
   });
 });
 
+describe('horizontal plate, upper hot face: the 1e7–2e7 bridge (our choice, see convection.ts)', () => {
+  it('is continuous and stays between the published branches', () => {
+    let previous = horizontalPlateUpperHot(0.9e7).nusselt;
+    for (let ra = 0.9e7; ra <= 2.2e7; ra *= 1.0001) {
+      const nu = horizontalPlateUpperHot(ra).nusselt;
+      expect(Math.abs(nu - previous)).toBeLessThan(1e-3 * nu); // no jump anywhere
+      expect(nu).toBeGreaterThanOrEqual(previous); // increasing with Ra
+      if (ra > 1e7 && ra < 2e7) {
+        expect(nu).toBeGreaterThanOrEqual(0.54 * ra ** 0.25);
+        expect(nu).toBeLessThanOrEqual(0.15 * ra ** (1 / 3));
+      }
+      previous = nu;
+    }
+  });
+});
+
 describe('forced-convection correlations vs hand-worked values', () => {
   it('Churchill–Bernstein, Re = 1e4, Pr = 0.707 → Nu = 53.540', () => {
     // Pr^(1/3) = 0.890854; (0.4/0.707)^(2/3) = 0.684059; (1.684059)^(1/4) = 1.139172;

@@ -53,7 +53,7 @@ describe('solveTridiagonal (Thomas) vs mathjs lusolve', () => {
       }),
       { numRuns: 300 },
     );
-  });
+  }, 60_000);
 
   it('refuses malformed systems with a named field', () => {
     expect(() => solveTridiagonal([0, 1], [2, 2], [1, 0], [1])).toThrow(ThermalInputError);
@@ -94,5 +94,5 @@ describe('smallestGeneralizedEigenvalue (Sylvester-count bisection) vs mathjs ei
       }),
       { numRuns: 100 },
     );
-  });
+  }, 60_000);
 });
