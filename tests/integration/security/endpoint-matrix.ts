@@ -1,0 +1,294 @@
+/**
+ * The role × endpoint matrix: every route handler (app/**\/route.ts, each exported method) and
+ * every server action ('use server' module export) with the HTTP status expected for each caller.
+ *
+ * - endpoint-coverage.test.ts (integration) fails when an endpoint has no entry or an entry has
+ *   no endpoint, by reading the source tree;
+ * - tests/e2e/auth-endpoint-matrix.test.ts calls every entry as every actor against the
+ *   production build at APP_URL (real sign-in through next-auth, real cookies) and compares.
+ *
+ * Actors: `anonymous` (no cookie), the four roles of team A, and `otherAdmin`, an admin of team B
+ * who must get 404 — never 403, never data — for team A's rows. Calls run in the order of ACTORS
+ * (admin last), each `request` builds its own rows when the call changes them.
+ *
+ * When you add an endpoint or a server action, add its entry here.
+ */
+
+import { defaultSheetInputs } from '@/lib/sheet';
+
+export const ACTORS = ['anonymous', 'viewer', 'designer', 'reviewer', 'otherAdmin', 'admin'] as const;
+export type Actor = (typeof ACTORS)[number];
+export type SignedInActor = Exclude<Actor, 'anonymous'>;
+export type Expectation = Record<Actor, number>;
+
+/** Rows the entries can point at; built per run by the e2e test (tests/e2e/auth-http.ts). */
+export interface MatrixContext {
+  teamId: string;
+  otherTeamId: string;
+  users: Record<SignedInActor, { id: string; email: string }>;
+  /** A project of team A. */
+  projectId: string;
+  /** A draft sheet of team A, authored by the designer. */
+  sheetId: string;
+  /** A new draft sheet of team A (authored by the designer) with its current version. */
+  freshSheet(): Promise<{ id: string; version: number }>;
+  /** A new active member of team A. */
+  freshMember(role: 'admin' | 'designer' | 'reviewer' | 'viewer'): Promise<{ id: string }>;
+  /** A new open invitation of team A. */
+  freshInvitation(): Promise<{ id: string }>;
+  /** A name no other call uses. */
+  unique(label: string): string;
+}
+
+export interface RouteRequest {
+  path: string;
+  body?: unknown;
+  headers?: Record<string, string>;
+}
+
+export interface RouteEntry {
+  kind: 'route';
+  method: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
+  /** The route as the file tree names it, route groups left out: `/api/projects/[projectId]`. */
+  route: string;
+  expect: Expectation;
+  request(ctx: MatrixContext, actor: Actor): RouteRequest | Promise<RouteRequest>;
+  /** Optional check of the answer body (team isolation of lists): returns what is wrong, or null. */
+  check?(body: unknown, actor: Actor, ctx: MatrixContext): string | null;
+}
+
+export interface ActionEntry {
+  kind: 'action';
+  /** The 'use server' module, relative to the repository root. */
+  file: string;
+  name: string;
+  expect: Expectation;
+  /** The action's arguments (FormData allowed), encoded as React's client would encode them. */
+  args(ctx: MatrixContext, actor: Actor): unknown[] | Promise<unknown[]>;
+}
+
+export type MatrixEntry = RouteEntry | ActionEntry;
+
+export function entryKey(entry: MatrixEntry): string {
+  return entry.kind === 'route' ? `${entry.method} ${entry.route}` : `action ${entry.file}#${entry.name}`;
+}
+
+const everyone = (status: number): Expectation => ({ anonymous: status, viewer: status, designer: status, reviewer: status, otherAdmin: status, admin: status });
+const signedIn = (anonymous: number, rest: Omit<Expectation, 'anonymous'>): Expectation => ({ anonymous, ...rest });
+
+/** Fails when an answer lists a row of team A to the admin of team B. */
+function noTeamARows(field: string, idOf: (ctx: MatrixContext) => string) {
+  return (body: unknown, actor: Actor, ctx: MatrixContext): string | null => {
+    if (actor !== 'otherAdmin') return null;
+    const list = (body as Record<string, unknown> | null)?.[field];
+    if (!Array.isArray(list)) return `expected a list in "${field}"`;
+    return list.some((row) => (row as { id?: string }).id === idOf(ctx)) ? `team A's row ${idOf(ctx)} is listed to team B` : null;
+  };
+}
+
+function formData(fields: Record<string, string>): FormData {
+  const form = new FormData();
+  for (const [name, value] of Object.entries(fields)) form.set(name, value);
+  return form;
+}
+
+const BOGUS_LINK_TOKEN = 'A'.repeat(43);
+
+export const ENDPOINT_MATRIX: MatrixEntry[] = [
+  // ── sign-in machinery and public account pages ──────────────────────────────────────────────
+  { kind: 'route', method: 'GET', route: '/api/auth/[...nextauth]', expect: everyone(200), request: () => ({ path: '/api/auth/session' }) },
+  {
+    kind: 'route',
+    method: 'POST',
+    route: '/api/auth/[...nextauth]',
+    // Without next-auth's CSRF token a sign-out is not carried out; next-auth answers with a redirect to its page.
+    expect: everyone(302),
+    request: () => ({ path: '/api/auth/signout', body: {} }),
+  },
+  {
+    kind: 'route',
+    method: 'POST',
+    route: '/api/auth/invitation',
+    expect: everyone(404),
+    request: (ctx) => ({ path: '/api/auth/invitation', body: { token: BOGUS_LINK_TOKEN, name: ctx.unique('name'), password: 'a long enough password' } }),
+  },
+  {
+    kind: 'route',
+    method: 'POST',
+    route: '/api/auth/reset-request',
+    expect: everyone(202),
+    request: (ctx) => ({ path: '/api/auth/reset-request', body: { email: `${ctx.unique('nobody')}@test.example` } }),
+  },
+  {
+    kind: 'route',
+    method: 'POST',
+    route: '/api/auth/reset',
+    expect: everyone(404),
+    request: () => ({ path: '/api/auth/reset', body: { token: BOGUS_LINK_TOKEN, password: 'a long enough password' } }),
+  },
+  { kind: 'route', method: 'GET', route: '/api/health', expect: everyone(200), request: () => ({ path: '/api/health' }) },
+
+  // ── members (admins only) ──────────────────────────────────────────────────────────────────────
+  {
+    kind: 'route',
+    method: 'GET',
+    route: '/api/members',
+    expect: signedIn(401, { viewer: 403, designer: 403, reviewer: 403, otherAdmin: 200, admin: 200 }),
+    request: () => ({ path: '/api/members' }),
+    check: noTeamARows('members', (ctx) => ctx.users.admin.id),
+  },
+  {
+    kind: 'route',
+    method: 'POST',
+    route: '/api/members/invitations',
+    expect: signedIn(401, { viewer: 403, designer: 403, reviewer: 403, otherAdmin: 201, admin: 201 }),
+    request: (ctx) => ({ path: '/api/members/invitations', body: { email: `${ctx.unique('invitee')}@test.example`, role: 'viewer' } }),
+  },
+  {
+    kind: 'route',
+    method: 'DELETE',
+    route: '/api/members/invitations/[invitationId]',
+    expect: signedIn(401, { viewer: 403, designer: 403, reviewer: 403, otherAdmin: 404, admin: 204 }),
+    request: async (ctx) => ({ path: `/api/members/invitations/${(await ctx.freshInvitation()).id}` }),
+  },
+  {
+    kind: 'route',
+    method: 'PATCH',
+    route: '/api/members/[userId]',
+    expect: signedIn(401, { viewer: 403, designer: 403, reviewer: 403, otherAdmin: 404, admin: 200 }),
+    request: async (ctx) => ({ path: `/api/members/${(await ctx.freshMember('viewer')).id}`, body: { role: 'designer' } }),
+  },
+
+  // ── projects and sheets ────────────────────────────────────────────────────────────────────────
+  {
+    kind: 'route',
+    method: 'GET',
+    route: '/api/projects',
+    expect: signedIn(401, { viewer: 200, designer: 200, reviewer: 200, otherAdmin: 200, admin: 200 }),
+    request: () => ({ path: '/api/projects' }),
+    check: noTeamARows('projects', (ctx) => ctx.projectId),
+  },
+  {
+    kind: 'route',
+    method: 'POST',
+    route: '/api/projects',
+    expect: signedIn(401, { viewer: 403, designer: 201, reviewer: 403, otherAdmin: 201, admin: 201 }),
+    request: (ctx) => ({ path: '/api/projects', body: { name: ctx.unique('project') } }),
+  },
+  {
+    kind: 'route',
+    method: 'GET',
+    route: '/api/projects/[projectId]',
+    expect: signedIn(401, { viewer: 200, designer: 200, reviewer: 200, otherAdmin: 404, admin: 200 }),
+    request: (ctx) => ({ path: `/api/projects/${ctx.projectId}` }),
+  },
+  {
+    kind: 'route',
+    method: 'GET',
+    route: '/api/projects/[projectId]/sheets',
+    expect: signedIn(401, { viewer: 200, designer: 200, reviewer: 200, otherAdmin: 404, admin: 200 }),
+    request: (ctx) => ({ path: `/api/projects/${ctx.projectId}/sheets` }),
+  },
+  {
+    kind: 'route',
+    method: 'POST',
+    route: '/api/projects/[projectId]/sheets',
+    expect: signedIn(401, { viewer: 403, designer: 201, reviewer: 403, otherAdmin: 404, admin: 201 }),
+    request: (ctx) => ({ path: `/api/projects/${ctx.projectId}/sheets`, body: { circuitTag: ctx.unique('C').slice(0, 30), title: 'Matrix sheet', installation: 'cable-in-air' } }),
+  },
+  {
+    kind: 'route',
+    method: 'GET',
+    route: '/api/sheets/[sheetId]',
+    expect: signedIn(401, { viewer: 200, designer: 200, reviewer: 200, otherAdmin: 404, admin: 200 }),
+    request: (ctx) => ({ path: `/api/sheets/${ctx.sheetId}` }),
+  },
+  {
+    kind: 'route',
+    method: 'PUT',
+    route: '/api/sheets/[sheetId]',
+    expect: signedIn(401, { viewer: 403, designer: 200, reviewer: 403, otherAdmin: 404, admin: 200 }),
+    request: async (ctx) => {
+      const sheet = await ctx.freshSheet();
+      return { path: `/api/sheets/${sheet.id}`, body: { expectedVersion: sheet.version, title: 'Matrix sheet, saved', inputs: defaultSheetInputs('cable-in-air') } };
+    },
+  },
+  {
+    kind: 'route',
+    method: 'POST',
+    route: '/api/sheets/[sheetId]/candidates',
+    // The body is checked before the sheet is looked up: a malformed candidate is refused with 400 for every
+    // role allowed to edit, and the role check comes first of all.
+    expect: signedIn(401, { viewer: 403, designer: 400, reviewer: 403, otherAdmin: 400, admin: 400 }),
+    request: (ctx) => ({ path: `/api/sheets/${ctx.sheetId}/candidates`, body: { expectedVersion: 1, candidate: { kind: 'not-a-kind' } } }),
+  },
+  {
+    kind: 'route',
+    method: 'PUT',
+    route: '/api/sheets/[sheetId]/flags/[flagCode]/acknowledgement',
+    // A draft sheet has nothing to acknowledge: reviewers and admins get 409 (wrong state), team B 404.
+    expect: signedIn(401, { viewer: 403, designer: 403, reviewer: 409, otherAdmin: 404, admin: 409 }),
+    request: (ctx) => ({ path: `/api/sheets/${ctx.sheetId}/flags/ANY_FLAG/acknowledgement`, body: { comment: 'Matrix check comment' } }),
+  },
+  {
+    kind: 'route',
+    method: 'GET',
+    route: '/api/sheets/[sheetId]/history',
+    expect: signedIn(401, { viewer: 200, designer: 200, reviewer: 200, otherAdmin: 404, admin: 200 }),
+    request: (ctx) => ({ path: `/api/sheets/${ctx.sheetId}/history` }),
+  },
+  {
+    kind: 'route',
+    method: 'POST',
+    route: '/api/sheets/[sheetId]/revisions',
+    // Only approved sheets start a revision: a draft answers 409 to those allowed to edit.
+    expect: signedIn(401, { viewer: 403, designer: 409, reviewer: 403, otherAdmin: 404, admin: 409 }),
+    request: (ctx) => ({ path: `/api/sheets/${ctx.sheetId}/revisions` }),
+  },
+  {
+    kind: 'route',
+    method: 'POST',
+    route: '/api/sheets/[sheetId]/transitions',
+    expect: signedIn(401, { viewer: 403, designer: 200, reviewer: 403, otherAdmin: 404, admin: 200 }),
+    request: async (ctx) => ({ path: `/api/sheets/${(await ctx.freshSheet()).id}/transitions`, body: { action: 'submit' } }),
+  },
+  {
+    kind: 'route',
+    method: 'GET',
+    route: '/api/sheets/review-queue',
+    expect: signedIn(401, { viewer: 403, designer: 403, reviewer: 200, otherAdmin: 200, admin: 200 }),
+    request: () => ({ path: '/api/sheets/review-queue' }),
+    check: noTeamARows('sheets', (ctx) => ctx.sheetId),
+  },
+
+  // ── calculation API v1: bearer team tokens only; a browser session opens none of it ───────────
+  { kind: 'route', method: 'POST', route: '/api/v1/evaluate', expect: everyone(401), request: () => ({ path: '/api/v1/evaluate', body: {} }) },
+  { kind: 'route', method: 'POST', route: '/api/v1/ampacity', expect: everyone(401), request: () => ({ path: '/api/v1/ampacity', body: {} }) },
+  { kind: 'route', method: 'GET', route: '/api/v1/flags', expect: everyone(401), request: () => ({ path: '/api/v1/flags' }) },
+  { kind: 'route', method: 'GET', route: '/api/v1/openapi.json', expect: everyone(200), request: () => ({ path: '/api/v1/openapi.json' }) },
+
+  // ── server actions ─────────────────────────────────────────────────────────────────────────────
+  {
+    kind: 'action',
+    file: 'server/auth/preferenceActions.ts',
+    name: 'setUnitSystemAction',
+    expect: signedIn(401, { viewer: 200, designer: 200, reviewer: 200, otherAdmin: 200, admin: 200 }),
+    args: () => ['si'],
+  },
+  {
+    kind: 'action',
+    file: 'app/(workspace)/projects/actions.ts',
+    name: 'createProjectAction',
+    // Success ends in redirect() to the new project: 303.
+    expect: signedIn(401, { viewer: 403, designer: 303, reviewer: 403, otherAdmin: 303, admin: 303 }),
+    args: (ctx) => [{}, formData({ name: ctx.unique('action project'), site: '', description: '' })],
+  },
+  {
+    kind: 'action',
+    file: 'app/(workspace)/projects/actions.ts',
+    name: 'createSheetAction',
+    // Team B names team A's project: the action answers its form state "No such project." (200), creates nothing.
+    expect: signedIn(401, { viewer: 403, designer: 303, reviewer: 403, otherAdmin: 200, admin: 303 }),
+    args: (ctx) => [{}, formData({ projectId: ctx.projectId, circuitTag: ctx.unique('A').slice(0, 30), title: 'Action sheet', installation: 'cable-in-air' })],
+  },
+];
