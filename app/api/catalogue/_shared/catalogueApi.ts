@@ -1,0 +1,46 @@
+/** Shared pieces of the catalogue route handlers: the kind from the path and our errors as API errors. */
+import { ApiError } from '@/server/http/api';
+import { isCatalogueKind, type CatalogueKind } from '@/lib/catalogue/schemas';
+import { KIND_LABELS } from '@/lib/catalogue/columns';
+import { FileRefusal } from '@/lib/catalogue/files';
+import { CatalogueConflictError, CatalogueNotFoundError, ImportProblemsError } from '@/db/queries/catalogue';
+
+export function kindFrom(params: Record<string, string>): CatalogueKind {
+  const kind = params.kind;
+  if (!isCatalogueKind(kind)) throw new ApiError(404, 'not_found', `No catalogue part called "${kind}".`);
+  return kind;
+}
+
+export function formatFrom(req: Request): 'csv' | 'xlsx' {
+  const format = new URL(req.url).searchParams.get('format') ?? 'csv';
+  if (format !== 'csv' && format !== 'xlsx') throw new ApiError(400, 'invalid_input', 'format must be csv or xlsx.', 'format');
+  return format;
+}
+
+/** Our data-layer errors, as the API answers them; anything else is rethrown for apiHandler. */
+export function catalogueErrorResponse(error: unknown): Response {
+  if (error instanceof CatalogueNotFoundError) throw new ApiError(404, 'not_found', error.message);
+  if (error instanceof CatalogueConflictError) throw new ApiError(409, 'conflict', error.message);
+  if (error instanceof FileRefusal) throw new ApiError(error.status, error.code, error.message, 'file');
+  if (error instanceof ImportProblemsError) {
+    return Response.json({ error: { code: 'import_has_problems', message: error.message, problems: error.problems } }, { status: 422 });
+  }
+  throw error;
+}
+
+export function fileResponse(body: Uint8Array | string, fileName: string, format: 'csv' | 'xlsx'): Response {
+  const type = format === 'csv' ? 'text/csv; charset=utf-8' : 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet';
+  // A BOM so that spreadsheet programs read the CSV (units such as mm², Ω) as UTF-8.
+  const payload = typeof body === 'string' ? `\uFEFF${body}` : body;
+  return new Response(payload as BodyInit, {
+    headers: {
+      'content-type': type,
+      'content-disposition': `attachment; filename="${fileName}"`,
+      'cache-control': 'no-store',
+    },
+  });
+}
+
+export function fileBaseName(kind: CatalogueKind): string {
+  return KIND_LABELS[kind].file;
+}
