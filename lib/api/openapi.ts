@@ -7,6 +7,7 @@
 import { z } from 'zod';
 import { API_VERSION, DEFAULT_REQUESTS_PER_MINUTE, MAX_CANDIDATES_PER_REQUEST, MAX_REQUEST_BYTES } from './limits';
 import { ampacityRequestSchema, evaluateRequestSchema } from './schemas';
+import { EXAMPLE_AMPACITY_REQUEST, EXAMPLE_EVALUATE_REQUEST } from './examples';
 import { ampacityResponseSchema, errorResponseSchema, evaluateResponseSchema, flagsResponseSchema } from './responses';
 
 type JsonObject = Record<string, unknown>;
@@ -78,7 +79,7 @@ export function buildOpenApiDocument(): JsonObject {
           summary: 'Evaluate candidates at the design current and compare them',
           description:
             'For each candidate: hot spot at the design current, governing limit and margin, ampacity, losses, voltage drop, short-circuit check, costs when prices are given, and the assumption flags. Marks the smallest passing candidate and the passing one with the lowest life-cycle cost.',
-          requestBody: { required: true, content: { 'application/json': { schema: evaluateRequest } } },
+          requestBody: { required: true, content: { 'application/json': { schema: evaluateRequest, example: EXAMPLE_EVALUATE_REQUEST } } },
           responses: {
             '200': { description: 'One result per candidate, in order.', content: { 'application/json': { schema: evaluateResponse } } },
             ...calcErrors,
@@ -92,7 +93,7 @@ export function buildOpenApiDocument(): JsonObject {
           summary: 'Ampacity of one candidate',
           description:
             'The circuit current per phase at which the hot spot (or a covering with a limit of its own) reaches its limit, to 0.1 A from below, with the heat-balance profile at that current and the closed-form cross-check.',
-          requestBody: { required: true, content: { 'application/json': { schema: ampacityRequest } } },
+          requestBody: { required: true, content: { 'application/json': { schema: ampacityRequest, example: EXAMPLE_AMPACITY_REQUEST } } },
           responses: {
             '200': { description: 'The ampacity.', content: { 'application/json': { schema: ampacityResponse } } },
             ...calcErrors,

@@ -1,0 +1,69 @@
+/**
+ * Example request bodies for the documentation page, the OpenAPI document and the tests. They are
+ * INPUTS (a plausible invented circuit), not check values. Sources of the numbers:
+ * - R20 of 95 and 120 mm² class 2 copper: IEC 60228 Table 2 maxima, 0.193 and 0.153 Ω/km (from memory);
+ * - conductor diameter ≈ 1.2·√S mm, 1.7 mm XLPE and 1.8 mm PVC for 0.6/1 kV (common practice);
+ * - ρ_T of XLPE 3.5 and PVC 5.0 K·m/W: IEC 60287-2-1 Table 1 (from memory);
+ * - XLPE 90 °C continuous, 250 °C short circuit (common practice);
+ * - copper bar R20 from ρ20 = 1.7241e-8 Ω·m (IEC 60287-1-1 Table 1) over the nominal area.
+ */
+import type { AmpacityRequest, EvaluateRequest } from './schemas';
+
+function xlpeCable(sectionMm2: number, r20OhmPerKm: number) {
+  return {
+    kind: 'cable' as const,
+    id: `cu-xlpe-${sectionMm2}`,
+    label: `Cu/XLPE/PVC 1×${sectionMm2} mm²`,
+    material: 'copper' as const,
+    sectionMm2,
+    r20OhmPerM: r20OhmPerKm / 1000,
+    conductorDiameterM: Number((1.2e-3 * Math.sqrt(sectionMm2)).toFixed(5)),
+    layers: [
+      { name: 'XLPE insulation', role: 'insulation' as const, thicknessM: 0.0017, thermalResistivityKmPerW: 3.5, continuousLimitC: 90, shortCircuitLimitC: 250 },
+      { name: 'PVC sheath', role: 'sheath' as const, thicknessM: 0.0018, thermalResistivityKmPerW: 5 },
+    ],
+    emissivity: 0.9,
+    sourceNotes: ['R20: IEC 60228 Table 2 maximum (from memory)'],
+  };
+}
+
+export const EXAMPLE_EVALUATE_REQUEST: EvaluateRequest = {
+  conditions: {
+    designCurrentA: 250,
+    frequencyHz: 50,
+    phases: 3,
+    nominalVoltageV: 230,
+    lengthM: 60,
+    powerFactor: 0.9,
+    reactanceOhmPerM: 0.00008,
+    maxVoltageDropPercent: 4,
+    ambientC: 35,
+    installation: { kind: 'cable-in-air', formation: 'flat', spacingM: 0.1 },
+    fault: { currentA: 10000, durationS: 0.2 },
+  },
+  candidates: [xlpeCable(95, 0.193), xlpeCable(120, 0.153)],
+};
+
+export const EXAMPLE_AMPACITY_REQUEST: AmpacityRequest = {
+  conditions: {
+    frequencyHz: 50,
+    phases: 3,
+    nominalVoltageV: 230,
+    lengthM: 20,
+    powerFactor: 0.9,
+    ambientC: 40,
+    installation: { kind: 'bar-on-edge' },
+  },
+  candidate: {
+    kind: 'bar',
+    id: 'cu-bar-100x10',
+    label: 'Copper bar 100 × 10 mm',
+    material: 'copper',
+    widthM: 0.1,
+    thicknessM: 0.01,
+    r20OhmPerM: 1.7241e-8 / (0.1 * 0.01),
+    emissivity: 0.4,
+    terminalLimitC: 105,
+    shortCircuitLimitC: 200,
+  },
+};
