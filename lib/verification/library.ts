@@ -27,6 +27,9 @@ import {
   skinEffectFactor,
   voltageDrop,
 } from '../electrical';
+// Plain data (decimal strings and their sources), importable without the database: the rows the
+// seed step copies into every team's catalogue.
+import { STANDARD_CONDUCTORS, STANDARD_MATERIALS } from '../../db/seed/catalogue-data';
 
 export const productLibrary = {
   // lib/thermal
@@ -51,6 +54,9 @@ export const productLibrary = {
   minimumSection,
   voltageDrop,
   ampacity,
+  // the seeded standard catalogue
+  catalogueConductors: STANDARD_CONDUCTORS as ReadonlyArray<{ key: string; materialKey: string; shape: string; sizeSystem: string; sectionMm2: string; r20OhmPerKm: string; resistanceSource: string }>,
+  catalogueMaterials: STANDARD_MATERIALS as ReadonlyArray<{ key: string; rho20OhmM: string; alpha20PerK: string; electricalSource: string }>,
 };
 
 export type ProductLibrary = typeof productLibrary;

@@ -59,9 +59,11 @@ describe('the verification registry', () => {
       'k-factor-al-xlpe',
       'voltage-drop-three-phase-cu',
       'tridiagonal-vs-dense-elimination',
+      'catalogue-iec60228-copper',
+      'catalogue-iec60228-aluminium',
     ];
     for (const id of required) expect(getCase(id), id).toBeDefined();
-    for (const area of METHOD_AREAS.filter((a) => a !== 'catalogue')) expect(casesForMethod(area).length, area).toBeGreaterThan(0);
+    for (const area of METHOD_AREAS) expect(casesForMethod(area).length, area).toBeGreaterThan(0);
   });
 
   it('field cases carry the profile beside the closed form and a convergence study', () => {
@@ -185,6 +187,18 @@ describe('a deliberately broken formula fails its case (dependency injection)', 
     };
     expect(failsWith('ampacity-buried-dc', { ampacity })).toBe(true);
     expect(failsWith('ampacity-air-ac-fixed-h', { ampacity })).toBe(true);
+  });
+
+  it('a seeded catalogue row with a mistyped resistance (0.0745 for 0.0754 Ω/km) fails the IEC 60228 case', () => {
+    const catalogueConductors = productLibrary.catalogueConductors.map((row) =>
+      row.key === 'cu-240' ? { ...row, r20OhmPerKm: '0.0745' } : row,
+    );
+    expect(productLibrary.catalogueConductors.some((row) => row.key === 'cu-240')).toBe(true);
+    expect(failsWith('catalogue-iec60228-copper', { catalogueConductors })).toBe(true);
+    expect(failsWith('catalogue-iec60228-aluminium', { catalogueConductors })).toBe(false);
+    // A size dropped from the seed fails too, rather than being skipped.
+    const withoutAl150 = productLibrary.catalogueConductors.filter((row) => row.key !== 'al-150');
+    expect(failsWith('catalogue-iec60228-aluminium', { catalogueConductors: withoutAl150 })).toBe(true);
   });
 
   it('a Churchill–Chu cylinder with 0.559 replaced by the plate constant 0.492 fails its case', () => {
