@@ -40,7 +40,8 @@ export type ScheduleField =
   | 'family'
   | 'maxVoltageDropPercent'
   | 'maxParallel'
-  | 'groupingFactor';
+  | 'groupingFactor'
+  | 'temperatureLimitC';
 
 export const SCHEDULE_COLUMNS: readonly ScheduleColumn[] = [
   { field: 'circuitTag', header: 'circuit tag', type: 'text', required: true, example: 'F-101', hint: 'Your name for the circuit, unique within the file (at most 64 characters).' },
@@ -60,6 +61,7 @@ export const SCHEDULE_COLUMNS: readonly ScheduleColumn[] = [
   { field: 'family', header: 'conductor family', type: 'text', required: true, example: 'copper XLPE single-core', hint: 'The family the size is chosen from, as listed beside the upload (from your team catalogue), e.g. "copper XLPE single-core" or "aluminium bars".' },
   { field: 'maxVoltageDropPercent', header: 'max voltage drop (%)', type: 'number', required: false, example: 4, hint: 'Allowed voltage drop, % of U₀. Empty: the drop is reported but does not fail a size.' },
   { field: 'maxParallel', header: 'max parallel runs', type: 'integer', required: false, example: 1, hint: 'Cables in parallel per phase (or bars per phase for bar families) the sizing may use, 1 to 8. Empty means 1.' },
+  { field: 'temperatureLimitC', header: 'temperature limit (°C)', type: 'number', required: false, example: '', hint: 'A limit of your own (joints, terminals, neighbouring equipment) that caps the material limits. Required for bar families, whose bare bars have no insulation limit.' },
   { field: 'groupingFactor', header: 'grouping factor', type: 'number', required: false, example: '', hint: 'Derating for nearby circuits, 0 < f ≤ 1 (e.g. from IEC 60364-5-52 tables). Empty means 1 (no grouping); an entered factor is flagged for review.' },
 ];
 

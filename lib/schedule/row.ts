@@ -115,6 +115,7 @@ export const scheduleRowSchema = z
     maxVoltageDropPercent: optional({ min: 0, minExclusive: true, max: 100 }),
     maxParallel: optional({ min: 1, max: 8, integer: true }),
     groupingFactor: optional({ min: 0, minExclusive: true, max: 1 }),
+    temperatureLimitC: optional({ min: -50, minExclusive: true, max: 1000 }),
   })
   .superRefine((row, ctx) => {
     if (row.installation === 'buried' && row.depthM === null) {
@@ -200,6 +201,9 @@ export function validateScheduleRecords(
           message: `"${String(familyCell).trim()}" is not a family of your catalogue${known ? ` (families: ${known})` : ' (the catalogue has no conductors yet)'}`,
         });
       }
+    }
+    if (parsed.success && family?.kind === 'bar' && parsed.data.temperatureLimitC === null) {
+      rowProblems.push({ row: record.row, column: headerOf('temperatureLimitC'), message: 'is required for bar families: bare bars have no insulation limit, so give the limit of their joints and terminals' });
     }
     if (parsed.success && family) {
       const suits = family.kind === 'bar' ? parsed.data.installation.startsWith('bar-') : !parsed.data.installation.startsWith('bar-');

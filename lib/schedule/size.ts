@@ -33,6 +33,7 @@ export function rowConditions(row: ScheduleRow): Conditions {
   if (row.faultCurrentKA !== null && row.clearingTimeS !== null) conditions.fault = { currentA: row.faultCurrentKA * 1000, durationS: row.clearingTimeS };
   if (row.maxVoltageDropPercent !== null) conditions.maxVoltageDropPercent = row.maxVoltageDropPercent;
   if (row.groupingFactor !== null && row.groupingFactor < 1) conditions.groupingFactor = row.groupingFactor;
+  if (row.temperatureLimitC !== null) conditions.temperatureLimitC = row.temperatureLimitC;
   return conditions;
 }
 

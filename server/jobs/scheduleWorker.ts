@@ -1,0 +1,87 @@
+/**
+ * The schedule worker: fetches row-batch jobs, sizes the rows still pending with lib/schedule's
+ * sizeCircuit and stores each result exactly once (db/queries/schedules storeRowResults).
+ * A batch is stored in one statement after all its rows are sized, so a crash loses at most one
+ * batch of work and never half-writes it.
+ */
+import { hostname } from 'node:os';
+import PgBoss from 'pg-boss';
+import { completeScheduleIfDone, loadScheduleForWorker, pendingRows, storeRowResults, type RowResultWrite } from '../../db/queries/schedules';
+import { sizeCircuit } from '../../lib/schedule';
+import { bossOptions, ensureScheduleQueue, queueSettings, SCHEDULE_QUEUE, type ScheduleBatchJob } from './boss';
+
+export interface BatchReport {
+  scheduleId: string;
+  /** Row numbers this worker stored (rows another attempt had already stored are not counted). */
+  stored: number[];
+  skipped: number;
+  solverMs: number;
+  totalMs: number;
+  completed: boolean;
+}
+
+const familiesCache = new Map<string, Awaited<ReturnType<typeof loadScheduleForWorker>>>();
+
+/** Sizes and stores one batch; safe to run again for the same batch (already stored rows are skipped). */
+export async function processScheduleBatch(job: ScheduleBatchJob, workerId: string): Promise<BatchReport> {
+  const started = performance.now();
+  let schedule = familiesCache.get(job.scheduleId);
+  if (!schedule) {
+    schedule = await loadScheduleForWorker(job.scheduleId);
+    // Families are frozen once queued, so they can be kept for the life of the process.
+    if (schedule && schedule.status !== 'draft') familiesCache.set(job.scheduleId, schedule);
+  }
+  if (!schedule || schedule.teamId !== job.teamId) {
+    // The schedule was deleted (or the job is not what it claims): nothing to size.
+    return { scheduleId: job.scheduleId, stored: [], skipped: job.rowNumbers.length, solverMs: 0, totalMs: performance.now() - started, completed: false };
+  }
+  const rows = await pendingRows(job.scheduleId, job.rowNumbers);
+  const writes: RowResultWrite[] = [];
+  let solverMs = 0;
+  for (const row of rows) {
+    const family = schedule.families[row.input.family];
+    const t0 = performance.now();
+    const sizing = sizeCircuit(row.input, family?.candidates ?? []);
+    const ms = performance.now() - t0;
+    solverMs += ms;
+    writes.push({ teamId: row.teamId, scheduleId: job.scheduleId, rowNumber: row.rowNumber, circuitTag: row.circuitTag, input: row.input, sizing, solverMs: ms, sizedBy: workerId });
+  }
+  const stored = await storeRowResults(writes);
+  const completed = stored.length > 0 || rows.length === 0 ? await completeScheduleIfDone(job.scheduleId) : false;
+  return { scheduleId: job.scheduleId, stored, skipped: job.rowNumbers.length - stored.length, solverMs, totalMs: performance.now() - started, completed };
+}
+
+export interface RunningWorker {
+  workerId: string;
+  boss: PgBoss;
+  stop(): Promise<void>;
+}
+
+/**
+ * Starts a worker in this process. `onBatch` sees every stored batch (the worker script prints
+ * it as one JSON line; tests and the benchmark read those lines).
+ */
+export async function startScheduleWorker(options: { workerId?: string; onBatch?: (report: BatchReport) => void } = {}): Promise<RunningWorker> {
+  const workerId = options.workerId ?? `${hostname()}:${process.pid}`;
+  const boss = new PgBoss(bossOptions('worker'));
+  boss.on('error', (error) => console.error(`[worker ${workerId}] pg-boss: ${error.message}`));
+  await boss.start();
+  await ensureScheduleQueue(boss);
+  await boss.work<ScheduleBatchJob>(
+    SCHEDULE_QUEUE,
+    { batchSize: 1, pollingIntervalSeconds: queueSettings().pollingIntervalSeconds },
+    async (jobs) => {
+      for (const job of jobs) {
+        const report = await processScheduleBatch(job.data, workerId);
+        options.onBatch?.(report);
+      }
+    },
+  );
+  return {
+    workerId,
+    boss,
+    stop: async () => {
+      await boss.stop({ graceful: true, wait: true, timeout: 30_000 });
+    },
+  };
+}
