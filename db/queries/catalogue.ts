@@ -387,7 +387,8 @@ export async function previewImport(teamId: string, actorId: string, kind: Catal
   return getDb().transaction(async (tx) => {
     const { records, rows, problems } = await checkImport(tx, teamId, kind, file);
     const table = TABLES[kind];
-    const keys = rows.map((r) => (r.value as { key: string }).key);
+    const rowsWithProblems = new Set(problems.map((p) => p.row));
+    const keys = rows.filter((r) => !rowsWithProblems.has(r.row)).map((r) => (r.value as { key: string }).key);
     const existing = keys.length
       ? await tx.select({ key: table.key }).from(table).where(and(eq(table.teamId, teamId), inArray(table.key, keys)))
       : [];
@@ -418,7 +419,7 @@ export async function previewImport(teamId: string, actorId: string, kind: Catal
       kind,
       fileName: file.fileName,
       rowCount: records.length,
-      newCount: rows.length - existing.length,
+      newCount: keys.length - existing.length,
       replaceCount: existing.length,
       problems,
       sample: rows.slice(0, PREVIEW_SAMPLE_ROWS).map((r) => ({ row: r.row, value: r.value as Record<string, unknown> })),
