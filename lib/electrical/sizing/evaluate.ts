@@ -89,7 +89,17 @@ function solve(ctx: Context, modelCurrentA: number, acFactor: number, mesh: Mesh
   ctx.solves++;
   try {
     const problem = ctx.model.problem(modelCurrentA, acFactor, mesh);
-    return solveSteady(modelCurrentA === 0 ? zeroFlowProblem(problem) : problem);
+    const result = solveSteady(modelCurrentA === 0 ? zeroFlowProblem(problem) : problem);
+    if (!result.converged && result.runaway && !(result.runaway.current !== undefined && result.runaway.current > 0)) {
+      // "No steady state even at 0 A" is impossible physically (with no current the conductor
+      // settles at the surroundings' temperature, or above it in the sun): this is the solver
+      // failing to settle, not a runaway. Say so rather than report a runaway.
+      throw new SizingError(
+        'SOLVER_NOT_CONVERGED',
+        `the heat-balance solver could not settle at ${fmt(modelCurrentA)} A (it reports no steady state even at 0 A, which cannot be true); no temperature is reported`,
+      );
+    }
+    return result;
   } catch (e) {
     if (e instanceof Error && e.name === 'ThermalInputError') {
       const field = (e as Error & { field?: string }).field;
