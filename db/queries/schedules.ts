@@ -15,7 +15,9 @@ import { barToCandidate, buildLayers, cableBuildToCandidate } from '../../lib/ca
 import type { Candidate } from '../../lib/electrical';
 import {
   groupIntoFamilies,
+  readScheduleFile,
   resultLine,
+  validateScheduleRecords,
   type CircuitSizing,
   type ConductorFamily,
   type ResultLine,
@@ -451,4 +453,30 @@ export async function completeScheduleIfDone(scheduleId: string): Promise<boolea
     )
     .returning({ id: schedules.id });
   return done.length > 0;
+}
+
+/**
+ * Reads an uploaded file, validates every row against the team's families and stores the file
+ * with what was found. Throws ScheduleFileRefusal (lib/schedule) for files that are not a
+ * schedule at all; row problems are stored, not thrown.
+ */
+export async function previewScheduleUpload(teamId: string, actorId: string, scheduleId: string, file: { fileName: string; mediaType: string; bytes: Uint8Array }) {
+  const summary = await getSchedule(teamId, scheduleId);
+  if (!summary) throw notFound();
+  if (summary.status !== 'draft') throw new ScheduleOperationError(409, 'already_queued', 'This schedule has been queued; its file can no longer be replaced. Start a new schedule for another file.');
+  const records = await readScheduleFile(file.fileName, file.bytes);
+  const families = await loadTeamFamilies(teamId);
+  const validated = validateScheduleRecords(records, families);
+  await storeSchedulePreview(teamId, actorId, scheduleId, { ...file, rows: validated.rows, problems: validated.problems, fileRowCount: records.length });
+  return { fileRowCount: records.length, cleanRowCount: validated.rows.length, problems: validated.problems, badRows: validated.badRows };
+}
+
+/** The first clean rows of a previewed file, for the preview table. */
+export async function previewRowsOf(teamId: string, scheduleId: string, limit = 200): Promise<ScheduleRow[]> {
+  if (!UUID.test(scheduleId)) return [];
+  const [row] = await getDb()
+    .select({ rows: sql<ScheduleRow[]>`coalesce((select jsonb_agg(e) from (select e from jsonb_array_elements(${schedules.previewRows}) e limit ${limit}) s), '[]'::jsonb)` })
+    .from(schedules)
+    .where(and(eq(schedules.teamId, teamId), eq(schedules.id, scheduleId)));
+  return row?.rows ?? [];
 }

@@ -5,3 +5,4 @@ export * from './row';
 export * from './files';
 export * from './size';
 export * from './results';
+export * from './toSheet';

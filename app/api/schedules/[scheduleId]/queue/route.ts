@@ -1,0 +1,16 @@
+import { z } from 'zod';
+import { queueSchedule } from '@/db/queries/schedules';
+import { enqueueScheduleBatches } from '@/server/jobs/boss';
+import { apiHandler } from '@/server/http/api';
+import { scheduleOperation } from '../../_shared/scheduleApi';
+
+const queueBodySchema = z.object({ dropBadRows: z.boolean().default(false) });
+
+/** Queues the clean rows for the workers (202): the request only stores rows and jobs. */
+export const POST = apiHandler({ permission: 'schedule:write' }, async (req, { user, params }) => {
+  const body = queueBodySchema.parse(await req.json().catch(() => ({})));
+  return scheduleOperation(async () => {
+    const queued = await queueSchedule(user!.teamId, user!.id, params.scheduleId, body, enqueueScheduleBatches);
+    return Response.json({ queued }, { status: 202 });
+  });
+});
