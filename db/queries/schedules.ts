@@ -152,7 +152,7 @@ export async function listSchedulesForProject(teamId: string, projectId: string)
       rowCount: schedules.rowCount,
       fileName: schedules.fileName,
       createdAt: schedules.createdAt,
-      sized: sql<number>`(select count(*)::int from ${scheduleRows} r where r.schedule_id = ${schedules.id} and r.status <> 'pending')`,
+      sized: sql<number>`(select count(*)::int from ${scheduleRows} r where r.schedule_id = "schedules"."id" and r.status <> 'pending')`,
     })
     .from(schedules)
     .where(and(eq(schedules.teamId, teamId), eq(schedules.projectId, projectId)))
@@ -307,9 +307,9 @@ export async function scheduleProgress(teamId: string, scheduleId: string): Prom
       total: schedules.rowCount,
       queuedAt: schedules.queuedAt,
       completedAt: schedules.completedAt,
-      done: sql<number>`(select count(*)::int from ${scheduleRows} r where r.schedule_id = ${schedules.id} and r.status <> 'pending')`,
-      failing: sql<number>`(select count(*)::int from ${scheduleRows} r where r.schedule_id = ${schedules.id} and r.status = 'none_passes')`,
-      elapsedS: sql<number | null>`(select extract(epoch from (max(r.sized_at) - ${schedules.queuedAt}))::float8 from ${scheduleRows} r where r.schedule_id = ${schedules.id} and r.sized_at is not null)`,
+      done: sql<number>`(select count(*)::int from ${scheduleRows} r where r.schedule_id = "schedules"."id" and r.status <> 'pending')`,
+      failing: sql<number>`(select count(*)::int from ${scheduleRows} r where r.schedule_id = "schedules"."id" and r.status = 'none_passes')`,
+      elapsedS: sql<number | null>`(select extract(epoch from (max(r.sized_at) - "schedules"."queued_at"))::float8 from ${scheduleRows} r where r.schedule_id = "schedules"."id" and r.sized_at is not null)`,
     })
     .from(schedules)
     .where(and(eq(schedules.teamId, teamId), eq(schedules.id, scheduleId)));
@@ -448,7 +448,7 @@ export async function completeScheduleIfDone(scheduleId: string): Promise<boolea
       and(
         eq(schedules.id, scheduleId),
         eq(schedules.status, 'queued'),
-        sql`not exists (select 1 from ${scheduleRows} r where r.schedule_id = ${schedules.id} and r.status = 'pending')`,
+        sql`not exists (select 1 from ${scheduleRows} r where r.schedule_id = "schedules"."id" and r.status = 'pending')`,
       ),
     )
     .returning({ id: schedules.id });
