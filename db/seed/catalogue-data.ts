@@ -11,7 +11,7 @@ import Decimal from 'decimal.js';
 import { awgToMm2, kcmilToMm2 } from '@/lib/units';
 import type { BuildRow, ConductorRow, CoveringRow, MaterialRow } from '@/lib/catalogue';
 
-type Input<T> = { [K in keyof T]: T[K] extends string | null ? string | null : T[K] };
+type Input<T> = { [K in keyof T]: T[K] extends string ? string : T[K] extends string | null ? string | null : T[K] };
 
 // ───────────────────────── Metals ─────────────────────────
 
