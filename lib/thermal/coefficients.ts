@@ -17,10 +17,13 @@ export function halfCellResistance(mesh: Mesh, cell: number, facePosition: numbe
   return Math.abs(Math.log(facePosition / node)) / (2 * Math.PI * k);
 }
 
-/** Conductance between cell j and cell j + 1 for j = 0 … n − 2 (W/K per m² or per m). */
-export function interiorConductances(mesh: Mesh): Float64Array {
+/**
+ * Conductance between cell j and cell j + 1 for j = 0 … n − 2 (W/K per m² or per m), written into
+ * `out` when given (length ≥ n − 1).
+ */
+export function interiorConductances(mesh: Mesh, out?: Float64Array): Float64Array {
   const n = mesh.cellCount;
-  const g = new Float64Array(Math.max(n - 1, 0));
+  const g = out ?? new Float64Array(Math.max(n - 1, 0));
   for (let j = 0; j < n - 1; j++) {
     const face = mesh.faces[j + 1];
     g[j] = 1 / (halfCellResistance(mesh, j, face) + halfCellResistance(mesh, j + 1, face));

@@ -59,6 +59,10 @@ export interface SolverContext {
     rhs: Float64Array;
     solution: Float64Array;
     scratch: Float64Array;
+    /** Current iterate, θ = T − reference. */
+    rises: Float64Array;
+    /** Transient: θ at the start of the step. */
+    previousRises: Float64Array;
   };
 }
 
@@ -82,21 +86,25 @@ export function createContext(problem: NormalizedProblem, timeStep?: number): So
       capacityRate[i] = (layer.density! * layer.heatCapacity! * mesh.volumes[i]) / timeStep;
     }
   }
+  // One backing store for the conductances and every work array of the passes.
+  const store = new Float64Array(9 * n);
   return {
     problem,
     reference: referenceTemperature(problem),
     mesh,
-    conductances: interiorConductances(mesh),
+    conductances: interiorConductances(mesh, store.subarray(6 * n, 7 * n - 1)),
     inner: boundarySide(mesh, problem.inner, 'inner'),
     outer: boundarySide(mesh, problem.outer, 'outer'),
     capacityRate,
     work: {
-      lower: new Float64Array(n),
-      diagonal: new Float64Array(n),
-      upper: new Float64Array(n),
-      rhs: new Float64Array(n),
-      solution: new Float64Array(n),
-      scratch: new Float64Array(n),
+      lower: store.subarray(0, n),
+      diagonal: store.subarray(n, 2 * n),
+      upper: store.subarray(2 * n, 3 * n),
+      rhs: store.subarray(3 * n, 4 * n),
+      solution: store.subarray(4 * n, 5 * n),
+      scratch: store.subarray(5 * n, 6 * n),
+      rises: store.subarray(7 * n, 8 * n),
+      previousRises: store.subarray(8 * n, 9 * n),
     },
   };
 }
@@ -194,8 +202,13 @@ export function iterate(ctx: SolverContext, args: IterateArgs): IterationOutcome
   const { options, source } = problem;
   const n = mesh.cellCount;
   const joule = source.kind === 'joule' ? jouleCoefficients(source, args.currentA ?? source.current) : undefined;
-  const rises = Float64Array.from(args.start, (t) => t - reference);
-  const previousRises = args.previous ? Float64Array.from(args.previous, (t) => t - reference) : undefined;
+  const rises = ctx.work.rises;
+  for (let i = 0; i < n; i++) rises[i] = args.start[i] - reference;
+  let previousRises: Float64Array | undefined;
+  if (args.previous) {
+    previousRises = ctx.work.previousRises;
+    for (let i = 0; i < n; i++) previousRises[i] = args.previous[i] - reference;
+  }
   const surfaceStartFor = (side: BoundarySide, given: number | undefined): number =>
     side.spec.kind === 'surface' ? (given ?? side.spec.ambient + STEADY_SURFACE_START_RISE_K) - reference : NaN;
   let surfaceInner = surfaceStartFor(ctx.inner, args.surfaceStart?.inner);
@@ -209,9 +222,14 @@ export function iterate(ctx: SolverContext, args: IterateArgs): IterationOutcome
   let aboveLimitStreak = 0;
   const limitRise = options.temperatureLimit - reference;
 
+  const celsius = (): Float64Array => {
+    const t = new Float64Array(n);
+    for (let i = 0; i < n; i++) t[i] = reference + rises[i];
+    return t;
+  };
   const finish = (status: IterationStatus, iterations: number): IterationOutcome => ({
     status,
-    temperatures: Float64Array.from(rises, (r) => reference + r),
+    temperatures: celsius(),
     surfaceC: { inner: reference + surfaceInner, outer: reference + surfaceOuter },
     iterations,
     tridiagonalSolves: solves,

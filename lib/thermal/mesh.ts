@@ -18,8 +18,10 @@ export interface Mesh {
   /** n + 1 face areas per m² of face (slab: 1) or per metre of length (cylinder: 2πr). */
   faceAreas: Float64Array;
   conductivity: Float64Array;
-  generating: Uint8Array;
-  layerOfCell: Int32Array;
+  /** 1 for a cell of a generating layer, else 0. */
+  generating: Float64Array;
+  /** Index of the layer each cell belongs to. */
+  layerOfCell: Float64Array;
   layerBounds: LayerBound[];
 }
 
@@ -38,21 +40,26 @@ export function cylinderNode(rw: number, re: number): number {
 }
 
 export function buildMesh(geometry: NormalizedGeometry): Mesh {
-  const n = geometry.layers.reduce((sum, l) => sum + l.cells, 0);
-  const faces = new Float64Array(n + 1);
-  const nodes = new Float64Array(n);
-  const volumes = new Float64Array(n);
-  const faceAreas = new Float64Array(n + 1);
-  const conductivity = new Float64Array(n);
-  const generating = new Uint8Array(n);
-  const layerOfCell = new Int32Array(n);
+  const layers = geometry.layers;
+  let n = 0;
+  for (const layer of layers) n += layer.cells;
+  // One backing store for all per-cell arrays: a solve allocates a handful of buffers, not dozens.
+  const store = new Float64Array(2 * (n + 1) + 5 * n);
+  const faces = store.subarray(0, n + 1);
+  const faceAreas = store.subarray(n + 1, 2 * (n + 1));
+  const nodes = store.subarray(2 * (n + 1), 2 * (n + 1) + n);
+  const volumes = store.subarray(2 * (n + 1) + n, 2 * (n + 1) + 2 * n);
+  const conductivity = store.subarray(2 * (n + 1) + 2 * n, 2 * (n + 1) + 3 * n);
+  const generating = store.subarray(2 * (n + 1) + 3 * n, 2 * (n + 1) + 4 * n);
+  const layerOfCell = store.subarray(2 * (n + 1) + 4 * n, 2 * (n + 1) + 5 * n);
   const layerBounds: LayerBound[] = [];
   const cylinder = geometry.kind === 'cylinder';
 
   let start = cylinder ? geometry.innerRadius : 0;
   let cell = 0;
   faces[0] = start;
-  geometry.layers.forEach((layer, layerIndex) => {
+  for (let layerIndex = 0; layerIndex < layers.length; layerIndex++) {
+    const layer = layers[layerIndex];
     const end = start + layer.thickness;
     for (let c = 0; c < layer.cells; c++, cell++) {
       const w = faces[cell];
@@ -66,9 +73,9 @@ export function buildMesh(geometry: NormalizedGeometry): Mesh {
       generating[cell] = layer.generating ? 1 : 0;
       layerOfCell[cell] = layerIndex;
     }
-    layerBounds.push({ ...(layer.name !== undefined ? { name: layer.name } : {}), from: start, to: end });
+    layerBounds.push(layer.name !== undefined ? { name: layer.name, from: start, to: end } : { from: start, to: end });
     start = end;
-  });
+  }
   for (let f = 0; f <= n; f++) faceAreas[f] = cylinder ? 2 * Math.PI * faces[f] : 1;
   return { kind: geometry.kind, cellCount: n, faces, nodes, volumes, faceAreas, conductivity, generating, layerOfCell, layerBounds };
 }

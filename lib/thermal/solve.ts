@@ -47,11 +47,16 @@ function steadyStart(problem: NormalizedProblem, n: number): Float64Array {
   return new Float64Array(n).fill(start);
 }
 
-function surfaceDiagnostics(spec: NormalizedBoundary, surfaceC: number): SurfaceDiagnostics | undefined {
-  if (spec.kind !== 'surface') return undefined;
+/** Diagnostics and validity flags of one surface at its final temperature (one evaluation). */
+function describeSurface(
+  side: 'inner' | 'outer',
+  spec: NormalizedBoundary,
+  surfaceC: number,
+): { diagnostics?: SurfaceDiagnostics; flags: ThermalFlag[] } {
+  if (spec.kind !== 'surface') return { flags: [] };
   const e = evaluateSurface(spec, surfaceC);
   const c = e.convection;
-  return {
+  const diagnostics: SurfaceDiagnostics = {
     temperature: surfaceC,
     hConv: e.hConv,
     hRad: e.hRad,
@@ -63,13 +68,8 @@ function surfaceDiagnostics(spec: NormalizedBoundary, surfaceC: number): Surface
     ...(c?.filmTemperatureK !== undefined ? { filmTemperatureK: c.filmTemperatureK } : {}),
     inRange: c ? c.inRange : true,
   };
-}
-
-function surfaceFlags(side: 'inner' | 'outer', spec: NormalizedBoundary, surfaceC: number): ThermalFlag[] {
-  if (spec.kind !== 'surface' || !spec.convection) return [];
-  const c = evaluateSurface(spec, surfaceC).convection!;
   const flags: ThermalFlag[] = [];
-  if (!c.inRange) {
+  if (c && !c.inRange) {
     const group =
       c.rayleigh !== undefined ? `Ra = ${c.rayleigh.toPrecision(3)}` : c.reynolds !== undefined ? `Re = ${c.reynolds.toPrecision(3)}` : '';
     flags.push({
@@ -78,39 +78,50 @@ function surfaceFlags(side: 'inner' | 'outer', spec: NormalizedBoundary, surface
       message: `${side} surface: ${c.correlation} used outside its stated range (${c.validRange ?? 'n/a'}; ${group}).`,
     });
   }
-  if (c.airPropertiesInTable === false) {
+  if (c && c.airPropertiesInTable === false) {
     flags.push({
       code: 'air-properties-out-of-table',
       severity: 'warning',
       message: `${side} surface: film temperature ${c.filmTemperatureK?.toFixed(1)} K is outside the air table (200–1000 K); properties were held at the nearest end.`,
     });
   }
-  return flags;
+  return { diagnostics, flags };
 }
 
-function baseFields(ctx: SolverContext) {
-  const { mesh } = ctx;
-  return {
-    positions: Array.from(mesh.nodes),
-    geometry: mesh.kind,
-    layerBounds: mesh.layerBounds.map((b) => ({ ...b })),
-  };
+/** Plain, packed number[] (JSON-friendly) from a typed array. */
+function plain(values: Float64Array): number[] {
+  const out: number[] = [];
+  for (let i = 0; i < values.length; i++) out.push(values[i]);
+  return out;
 }
 
-function convergedResult(ctx: SolverContext, outcome: IterationOutcome, flags: ThermalFlag[], extra: Partial<SteadyResult>): SteadyResult {
+function layerBoundsCopy(ctx: SolverContext): SteadyResult['layerBounds'] {
+  return ctx.mesh.layerBounds.map((b) => (b.name !== undefined ? { name: b.name, from: b.from, to: b.to } : { from: b.from, to: b.to }));
+}
+
+/** Sets the per-geometry heat figure (W/m for a cylinder, W/m² for a slab). */
+function setHeatGenerated(result: SteadyResult, cylinder: boolean, value: number): void {
+  if (cylinder) result.heatGeneratedWPerM = value;
+  else result.heatGeneratedWPerM2 = value;
+}
+
+function convergedResult(ctx: SolverContext, outcome: IterationOutcome, flags: ThermalFlag[], runawayOnsetCurrentA?: number): SteadyResult {
   const { mesh, problem } = ctx;
   const n = mesh.cellCount;
   const t = outcome.temperatures;
   const faceInner = faceTemperature(ctx.inner, t[0], outcome.surfaceC.inner);
   const faceOuter = faceTemperature(ctx.outer, t[n - 1], outcome.surfaceC.outer);
 
-  let hotSpot = { temperature: t[0], position: mesh.nodes[0] };
-  for (let i = 1; i < n; i++) if (t[i] > hotSpot.temperature) hotSpot = { temperature: t[i], position: mesh.nodes[i] };
+  let hot = 0;
+  for (let i = 1; i < n; i++) if (t[i] > t[hot]) hot = i;
+  let hotSpot = { temperature: t[hot], position: mesh.nodes[hot] };
   // A face can be the hottest point (heat entering there); a symmetry face carries no new value.
   if (problem.inner.kind !== 'symmetry' && faceInner > hotSpot.temperature) hotSpot = { temperature: faceInner, position: ctx.inner.position };
   if (problem.outer.kind !== 'symmetry' && faceOuter > hotSpot.temperature) hotSpot = { temperature: faceOuter, position: ctx.outer.position };
 
-  const allFlags = [...flags, ...surfaceFlags('inner', problem.inner, outcome.surfaceC.inner), ...surfaceFlags('outer', problem.outer, outcome.surfaceC.outer)];
+  const innerSurface = describeSurface('inner', problem.inner, outcome.surfaceC.inner);
+  const outerSurface = describeSurface('outer', problem.outer, outcome.surfaceC.outer);
+  const allFlags = flags.concat(innerSurface.flags, outerSurface.flags);
   if (hotSpot.temperature > problem.options.temperatureLimit) {
     allFlags.push({
       code: 'above-temperature-limit',
@@ -120,18 +131,20 @@ function convergedResult(ctx: SolverContext, outcome: IterationOutcome, flags: T
   }
   const e = outcome.energy;
   const cylinder = mesh.kind === 'cylinder';
-  const innerDiag = surfaceDiagnostics(problem.inner, outcome.surfaceC.inner);
-  const outerDiag = surfaceDiagnostics(problem.outer, outcome.surfaceC.outer);
-  return {
-    ...baseFields(ctx),
-    temperatures: Array.from(t),
+  const surface: SteadyResult['surface'] = {};
+  if (innerSurface.diagnostics) surface.inner = innerSurface.diagnostics;
+  if (outerSurface.diagnostics) surface.outer = outerSurface.diagnostics;
+  // One literal with every field (no spreads): cheaper to build, and the same shape every time.
+  const result: SteadyResult = {
+    positions: plain(mesh.nodes),
+    temperatures: plain(t),
     hotSpot,
     iterations: outcome.iterations,
     converged: true,
     energyResidual: e.residual,
+    geometry: mesh.kind,
     surfaceTemperature: faceOuter,
     faceTemperatures: { inner: faceInner, outer: faceOuter },
-    ...(cylinder ? { heatGeneratedWPerM: e.generated } : { heatGeneratedWPerM2: e.generated }),
     heatBalance: {
       unit: cylinder ? 'W/m' : 'W/m²',
       generated: e.generated,
@@ -142,10 +155,13 @@ function convergedResult(ctx: SolverContext, outcome: IterationOutcome, flags: T
     linearisation: outcome.linearisation,
     linearisationCounts: outcome.linearisationCounts,
     tridiagonalSolves: outcome.tridiagonalSolves,
-    surface: { ...(innerDiag ? { inner: innerDiag } : {}), ...(outerDiag ? { outer: outerDiag } : {}) },
+    surface,
+    layerBounds: layerBoundsCopy(ctx),
     flags: allFlags,
-    ...extra,
   };
+  setHeatGenerated(result, cylinder, e.generated);
+  if (runawayOnsetCurrentA !== undefined) result.runawayOnsetCurrentA = runawayOnsetCurrentA;
+  return result;
 }
 
 /**
@@ -168,26 +184,29 @@ function unboundedResult(
 ): SteadyResult {
   const cylinder = ctx.mesh.kind === 'cylinder';
   const known = (b: NormalizedBoundary): number => (b.kind === 'temperature' ? b.value : Infinity);
-  return {
-    ...baseFields(ctx),
+  const result: SteadyResult = {
+    positions: plain(ctx.mesh.nodes),
     temperatures: [],
     hotSpot: { temperature: Infinity, position: args.hotSpotPosition },
     iterations: args.iterations,
     converged: false,
     energyResidual: Infinity,
-    ...(args.runaway ? { runaway: args.runaway } : {}),
+    geometry: ctx.mesh.kind,
     surfaceTemperature: known(ctx.problem.outer),
     faceTemperatures: { inner: known(ctx.problem.inner), outer: known(ctx.problem.outer) },
-    ...(cylinder ? { heatGeneratedWPerM: Infinity } : { heatGeneratedWPerM2: Infinity }),
     heatBalance: { unit: cylinder ? 'W/m' : 'W/m²', generated: Infinity, leavingInner: Infinity, leavingOuter: Infinity, stored: 0 },
     linearisation: args.linearisation,
     linearisationCounts: args.linearisationCounts,
     tridiagonalSolves: args.tridiagonalSolves,
     surface: {},
+    layerBounds: layerBoundsCopy(ctx),
     flags: args.flags,
-    ...(args.lastIterate ? { lastIterate: Array.from(args.lastIterate) } : {}),
-    ...(args.runawayOnsetCurrentA !== undefined ? { runawayOnsetCurrentA: args.runawayOnsetCurrentA } : {}),
   };
+  setHeatGenerated(result, cylinder, Infinity);
+  if (args.runaway) result.runaway = args.runaway;
+  if (args.lastIterate) result.lastIterate = plain(args.lastIterate);
+  if (args.runawayOnsetCurrentA !== undefined) result.runawayOnsetCurrentA = args.runawayOnsetCurrentA;
+  return result;
 }
 
 function peakPosition(ctx: SolverContext, t: Float64Array): number {
@@ -261,7 +280,6 @@ export function solveSteady(problem: ThermalProblem): SteadyResult {
   const n = ctx.mesh.cellCount;
 
   const onset = eigenvalueOnset(ctx);
-  const onsetExtra = onset ? { runawayOnsetCurrentA: onset.currentA } : {};
   const source = normalized.source;
   if (onset && source.kind === 'joule' && source.current >= onset.currentA) {
     return unboundedResult(ctx, {
@@ -310,7 +328,7 @@ export function solveSteady(problem: ThermalProblem): SteadyResult {
       runaway: { current: found.currentA, criterion: 'temperature-limit' },
     });
   }
-  if (outcome.status === 'converged') return convergedResult(ctx, outcome, flags, onsetExtra);
+  if (outcome.status === 'converged') return convergedResult(ctx, outcome, flags, onset?.currentA);
 
   return unboundedResult(ctx, {
     iterations: outcome.iterations,
@@ -327,7 +345,7 @@ export function solveSteady(problem: ThermalProblem): SteadyResult {
       },
     ],
     lastIterate: outcome.temperatures,
-    ...onsetExtra,
+    runawayOnsetCurrentA: onset?.currentA,
   });
 }
 
@@ -396,10 +414,10 @@ export function solveTransient(problem: TransientProblem): TransientResult {
       return { ...failed, time: (step - 1) * timeStep, history };
     }
     maxResidual = Math.max(maxResidual, outcome.energy.residual);
-    history.push({ time: step * timeStep, temperatures: Array.from(outcome.temperatures) });
+    history.push({ time: step * timeStep, temperatures: plain(outcome.temperatures) });
     previous = Float64Array.from(outcome.temperatures);
   }
-  const final = convergedResult(ctx, outcome!, [...normalized.assumptions], {});
+  const final = convergedResult(ctx, outcome!, [...normalized.assumptions]);
   return {
     ...final,
     iterations,

@@ -15,13 +15,14 @@ import { ThermalInputError } from './errors';
  */
 export function thomas(
   n: number,
-  lower: ArrayLike<number>,
-  diagonal: ArrayLike<number>,
-  upper: ArrayLike<number>,
-  rhs: ArrayLike<number>,
+  lower: Float64Array,
+  diagonal: Float64Array,
+  upper: Float64Array,
+  rhs: Float64Array,
   x: Float64Array,
   scratch: Float64Array,
 ): number {
+  // Typed arrays only: one element kind keeps V8's property access monomorphic in the hot loop.
   let pivot = diagonal[0];
   let minRatio = pivot / Math.abs(diagonal[0]);
   scratch[0] = upper[0] / pivot;
@@ -61,7 +62,7 @@ export function solveTridiagonal(
   }
   const x = new Float64Array(n);
   const scratch = new Float64Array(n);
-  const minRatio = thomas(n, lower, diagonal, upper, rhs, x, scratch);
+  const minRatio = thomas(n, Float64Array.from(lower), Float64Array.from(diagonal), Float64Array.from(upper), Float64Array.from(rhs), x, scratch);
   for (let i = 0; i < n; i++) {
     if (!Number.isFinite(x[i]) || minRatio === 0) {
       throw new ThermalInputError('diagonal', 'elimination without pivoting broke down (singular or far from diagonally dominant)');

@@ -1,0 +1,124 @@
+/**
+ * Solver benchmark (issue 3): prints figures, asserts nothing.
+ *   npm run bench:solver
+ *
+ * 1. one tridiagonal (Thomas) pass at N = 200;
+ * 2. one full non-linear cable solve: Joule (tangent), natural convection (Churchill–Chu) and
+ *    radiation, conductor + insulation + sheath with 40 cells each (N = 120);
+ * 3. a dense LU solve (mathjs lusolve) of the same 120 × 120 system — the last one the solver
+ *    assembled;
+ * and the ratios against the targets: the non-linear solve costs at most 15 tridiagonal passes
+ * (counted, and in time), and it is at least 100× faster than the dense solve.
+ *
+ * Timing: each sample times a batch long enough to dwarf the clock's resolution; the median of
+ * the samples is reported per operation.
+ */
+import { lusolve } from 'mathjs';
+import { cableProblem, solveSteady } from '../lib/thermal';
+import { createContext, iterate } from '../lib/thermal/iterate';
+import { thomas } from '../lib/thermal/tridiagonal';
+import { validateProblem } from '../lib/thermal/validate';
+
+function median(values: number[]): number {
+  const sorted = [...values].sort((a, b) => a - b);
+  const mid = sorted.length >> 1;
+  return sorted.length % 2 ? sorted[mid] : 0.5 * (sorted[mid - 1] + sorted[mid]);
+}
+
+/** Median time of one call of `fn`, in microseconds. */
+function timeMicros(fn: () => void, opts: { samples: number; batch: number; warmup: number }): number {
+  for (let i = 0; i < opts.warmup; i++) fn();
+  const samples: number[] = [];
+  for (let s = 0; s < opts.samples; s++) {
+    const start = performance.now();
+    for (let i = 0; i < opts.batch; i++) fn();
+    samples.push(((performance.now() - start) * 1000) / opts.batch);
+  }
+  return median(samples);
+}
+
+// 1. Thomas at N = 200 on a conduction-like system (diagonally dominant, symmetric).
+const N = 200;
+const lower = new Float64Array(N);
+const diagonal = new Float64Array(N);
+const upper = new Float64Array(N);
+const rhs = new Float64Array(N);
+const x = new Float64Array(N);
+const scratch = new Float64Array(N);
+for (let i = 0; i < N; i++) {
+  const gw = i > 0 ? 1 + (i % 7) : 0;
+  const ge = i < N - 1 ? 1 + ((i + 3) % 5) : 0;
+  lower[i] = -gw;
+  upper[i] = -ge;
+  diagonal[i] = gw + ge + (i === 0 || i === N - 1 ? 2 : 0);
+  rhs[i] = 1;
+}
+let sink = 0;
+const thomasMicros = timeMicros(
+  () => {
+    thomas(N, lower, diagonal, upper, rhs, x, scratch);
+    sink += x[N >> 1];
+  },
+  { samples: 51, batch: 2000, warmup: 20000 },
+);
+
+// 2. Full non-linear cable solve.
+const problem = cableProblem({
+  conductorDiameterM: 0.0175,
+  currentA: 500,
+  r20OhmPerM: 0.0754e-3, // IEC 60228 240 mm² Cu (from memory)
+  alpha20PerK: 3.93e-3,
+  acFactor: 1.02,
+  conductorConductivity: 390,
+  layers: [
+    { name: 'XLPE', thicknessM: 0.0026, thermalResistivityKmPerW: 3.5 },
+    { name: 'PVC sheath', thicknessM: 0.0018, thermalResistivityKmPerW: 5.0 },
+  ],
+  outer: { kind: 'air', ambientC: 30, emissivity: 0.9, convection: { kind: 'horizontal-cylinder' } },
+});
+const result = solveSteady(problem);
+const solveMicros = timeMicros(
+  () => {
+    sink += solveSteady(problem).hotSpot.temperature;
+  },
+  { samples: 51, batch: 200, warmup: 2000 },
+);
+
+// 3. Dense LU of the same system: the final pass's matrix, as the solver assembled it.
+const ctx = createContext(validateProblem(problem, true));
+iterate(ctx, { start: new Float64Array(ctx.mesh.cellCount).fill(30) });
+const n = ctx.mesh.cellCount;
+const dense: number[][] = Array.from({ length: n }, (_, i) => {
+  const row = new Array<number>(n).fill(0);
+  row[i] = ctx.work.diagonal[i];
+  if (i > 0) row[i - 1] = ctx.work.lower[i];
+  if (i < n - 1) row[i + 1] = ctx.work.upper[i];
+  return row;
+});
+const denseRhs = Array.from(ctx.work.rhs);
+const denseMicros = timeMicros(
+  () => {
+    const solution = lusolve(dense, denseRhs) as number[][];
+    sink += solution[0][0];
+  },
+  { samples: 11, batch: 3, warmup: 3 },
+);
+// Same system, same answer (a sanity line, not a test).
+thomas(n, ctx.work.lower, ctx.work.diagonal, ctx.work.upper, ctx.work.rhs, x, scratch);
+const check = lusolve(dense, denseRhs) as number[][];
+let maxDiff = 0;
+for (let i = 0; i < n; i++) maxDiff = Math.max(maxDiff, Math.abs(check[i][0] - x[i]));
+
+const passesRatio = solveMicros / thomasMicros;
+const denseRatio = denseMicros / solveMicros;
+const fmt = (v: number, digits = 2) => v.toFixed(digits).padStart(10);
+console.log('Ampwarden lib/thermal solver benchmark (median per operation)');
+console.log(`  node ${process.version}`);
+console.log(`  tridiagonal pass, N = ${N}                ${fmt(thomasMicros, 3)} µs`);
+console.log(`  non-linear cable solve, N = ${n}          ${fmt(solveMicros)} µs   (${result.iterations} outer passes, ${result.tridiagonalSolves} tridiagonal solves, linearisation ${result.linearisation}, hot spot ${result.hotSpot.temperature.toFixed(3)} °C, energy residual ${result.energyResidual.toExponential(1)})`);
+console.log(`  dense LU (mathjs lusolve), ${n} × ${n}     ${fmt(denseMicros)} µs   (max |Δx| vs Thomas ${maxDiff.toExponential(1)} K)`);
+console.log('Ratios');
+console.log(`  tridiagonal solves in one non-linear solve: ${result.tridiagonalSolves}  (target ≤ 15: ${result.tridiagonalSolves <= 15 ? 'met' : 'NOT met'})`);
+console.log(`  non-linear solve time / N = 200 pass time: ${passesRatio.toFixed(1)}  (target ≤ 15: ${passesRatio <= 15 ? 'met' : 'NOT met'})`);
+console.log(`  dense solve time / non-linear solve time:  ${denseRatio.toFixed(0)}  (target ≥ 100: ${denseRatio >= 100 ? 'met' : 'NOT met'})`);
+if (Number.isNaN(sink)) console.log('(unreachable)');
