@@ -31,7 +31,7 @@ export const queueSettings = () => ({
   expireInSeconds: Math.floor(envNumber('SCHEDULE_JOB_EXPIRE_SECONDS', 300)),
   /** How often a worker runs pg-boss maintenance (expiry of abandoned jobs). */
   maintenanceIntervalSeconds: Math.floor(envNumber('SCHEDULE_MAINTENANCE_SECONDS', 30)),
-  pollingIntervalSeconds: envNumber('SCHEDULE_POLL_SECONDS', 1),
+  pollingIntervalSeconds: envNumber('SCHEDULE_POLL_SECONDS', 0.5),
   retryLimit: 20,
   retryDelaySeconds: 1,
 });

@@ -67,16 +67,21 @@ export async function startScheduleWorker(options: { workerId?: string; onBatch?
   boss.on('error', (error) => console.error(`[worker ${workerId}] pg-boss: ${error.message}`));
   await boss.start();
   await ensureScheduleQueue(boss);
-  await boss.work<ScheduleBatchJob>(
-    SCHEDULE_QUEUE,
-    { batchSize: 1, pollingIntervalSeconds: queueSettings().pollingIntervalSeconds },
-    async (jobs) => {
-      for (const job of jobs) {
-        const report = await processScheduleBatch(job.data, workerId);
-        options.onBatch?.(report);
-      }
-    },
-  );
+  // Two fetch loops per process: while one waits out its polling delay, the other already holds
+  // the next batch, so the CPU (sizing is synchronous) is not left idle between batches.
+  const loops = Math.max(1, Math.floor(Number(process.env.SCHEDULE_LOOPS_PER_WORKER ?? 2)) || 1);
+  for (let i = 0; i < loops; i++) {
+    await boss.work<ScheduleBatchJob>(
+      SCHEDULE_QUEUE,
+      { batchSize: 1, pollingIntervalSeconds: queueSettings().pollingIntervalSeconds },
+      async (jobs) => {
+        for (const job of jobs) {
+          const report = await processScheduleBatch(job.data, workerId);
+          options.onBatch?.(report);
+        }
+      },
+    );
+  }
   return {
     workerId,
     boss,
