@@ -261,6 +261,15 @@ export const ENDPOINT_MATRIX: MatrixEntry[] = [
     check: noTeamARows('sheets', (ctx) => ctx.sheetId),
   },
 
+  // ── verification report (no team data; any signed-in member; CSV here, the PDF is checked in tests/e2e/verification.test.ts) ──
+  {
+    kind: 'route',
+    method: 'GET',
+    route: '/api/verification/report',
+    expect: signedIn(401, { viewer: 200, designer: 200, reviewer: 200, otherAdmin: 200, admin: 200 }),
+    request: () => ({ path: '/api/verification/report?format=csv' }),
+  },
+
   // ── calculation API v1: bearer team tokens only; a browser session opens none of it ───────────
   { kind: 'route', method: 'POST', route: '/api/v1/evaluate', expect: everyone(401), request: () => ({ path: '/api/v1/evaluate', body: {} }) },
   { kind: 'route', method: 'POST', route: '/api/v1/ampacity', expect: everyone(401), request: () => ({ path: '/api/v1/ampacity', body: {} }) },
