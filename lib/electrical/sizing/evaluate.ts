@@ -42,6 +42,8 @@ export const AMPACITY_TOLERANCE_A = 0.1;
 export const CROSS_CHECK_LIMIT_PERCENT = 3;
 /** I/I_runaway at which NEAR_RUNAWAY is raised: the temperature dependence of R has doubled the rise. */
 export const NEAR_RUNAWAY_RATIO = Math.SQRT1_2;
+/** Relative change of R_ac/R_dc below which a solve is settled (≈1e-4 K on a 100 K rise). */
+const AC_FACTOR_SETTLED = 1e-6;
 /** Surface temperature of a buried cable above which the soil may dry (IEC 60287 practice, 50 °C, from memory). */
 export const SOIL_DRYING_SURFACE_C = 50;
 
@@ -160,7 +162,7 @@ function ampacityOf(ctx: Context): AmpacityResult {
     const point = root.payload;
     // R_ac/R_dc depends (weakly) on the conductor temperature: re-run once it has moved.
     const newFactor = acFn(point.limits.conductorC).factor;
-    if (!root.zero && Math.abs(newFactor - acFactor) > 1e-6 * acFactor && pass < 3) {
+    if (!root.zero && Math.abs(newFactor - acFactor) > AC_FACTOR_SETTLED * acFactor && pass < 3) {
       acFactor = newFactor;
       guess = root.currentA;
       continue;
@@ -222,10 +224,15 @@ export function ampacity(candidate: Candidate, conditions: Conditions): Ampacity
 
 // ───────────────────────────── Evaluate one candidate ─────────────────────────────
 
-function designPoint(ctx: Context): { point: SolvedPoint | null; acFactor: number; runawayCurrentA?: number } {
+function designPoint(ctx: Context, amp: AmpacityResult): { point: SolvedPoint | null; acFactor: number; runawayCurrentA?: number } {
   const { cand, model, acFn, cond } = ctx;
   const modelCurrent = toModelCurrent(ctx, cond.designCurrentA);
-  let acFactor = acFn(cand.contactLimit.temperatureC).factor;
+  // Start R_ac/R_dc at the temperature the rise ∝ I² rule predicts from the ampacity, so that
+  // one solve usually settles it.
+  const limitC = amp.governingLimit.temperatureC;
+  const share = amp.current > 0 ? Math.min(4, (cond.designCurrentA / amp.current) ** 2) : 1;
+  const estimateC = model.referenceC + (limitC - model.referenceC) * share;
+  let acFactor = acFn(Number.isFinite(estimateC) ? estimateC : limitC).factor;
   let point: SolvedPoint | null = null;
   for (let pass = 0; pass < 5; pass++) {
     const r = solve(ctx, modelCurrent, acFactor, 'fine');
@@ -235,7 +242,7 @@ function designPoint(ctx: Context): { point: SolvedPoint | null; acFactor: numbe
     }
     point = { result: r, limits: readLimits(model, r, cand.contactLimit) };
     const next = acFn(point.limits.conductorC).factor;
-    if (Math.abs(next - acFactor) <= 1e-7 * acFactor) break;
+    if (Math.abs(next - acFactor) <= AC_FACTOR_SETTLED * acFactor) break;
     acFactor = next;
   }
   return { point, acFactor };
@@ -248,7 +255,7 @@ function moneyString(d: Decimal | null): string | null {
 function evaluateInContext(ctx: Context, index: number): CandidateEvaluationOk {
   const { cand, cond, flags, model } = ctx;
   const amp = ampacityOf(ctx);
-  const design = designPoint(ctx);
+  const design = designPoint(ctx, amp);
   const limit = design.point?.limits.governing ?? amp.governingLimit;
   const phaseConductors = cond.phases === 3 ? 3 : 2;
   const designConductorA = cond.designCurrentA / cand.conductorsPerPhase; // real current in one conductor

@@ -1,0 +1,181 @@
+/**
+ * Benchmark of the sizing layer (`npm run bench:sizing`), issue 4:
+ *   1. heat-balance solves per ampacity (target ≤ 30),
+ *   2. median time of one ampacity,
+ *   3. time to size 1,000 circuits × 12 candidates (compareCandidates).
+ * Inputs are invented benchmark data (IEC 60228 resistances from memory); deterministic.
+ */
+import { loadavg } from 'node:os';
+import {
+  ampacity,
+  compareCandidates,
+  type BarCandidate,
+  type CableCandidate,
+  type Candidate,
+  type Conditions,
+} from '../lib/electrical';
+
+// IEC 60228 Table 2, class 2 copper, Ω/km at 20 °C (from memory, references.md).
+const CU: Record<number, number> = {
+  16: 1.15, 25: 0.727, 35: 0.524, 50: 0.387, 70: 0.268, 95: 0.193, 120: 0.153,
+  150: 0.124, 185: 0.0991, 240: 0.0754, 300: 0.0601,
+};
+
+function cable(section: number, parallel = 1): CableCandidate {
+  return {
+    kind: 'cable',
+    id: `cu${section}x${parallel}`,
+    material: 'copper',
+    sectionMm2: section,
+    r20OhmPerM: CU[section] * 1e-3,
+    conductorDiameterM: 1.2e-3 * Math.sqrt(section),
+    parallel,
+    layers: [
+      { name: 'XLPE', role: 'insulation', thicknessM: 1.7e-3, thermalResistivityKmPerW: 3.5, continuousLimitC: 90, shortCircuitLimitC: 250 },
+      { name: 'PVC sheath', role: 'sheath', thicknessM: 1.8e-3, thermalResistivityKmPerW: 5 },
+    ],
+    emissivity: 0.9,
+    costs: { conductorPricePerKg: '9.50' },
+  };
+}
+
+function bar(widthMm: number, thicknessMm: number, barsPerPhase: number): BarCandidate {
+  const w = widthMm / 1000;
+  const t = thicknessMm / 1000;
+  return {
+    kind: 'bar',
+    id: `bar${widthMm}x${thicknessMm}x${barsPerPhase}`,
+    material: 'copper',
+    widthM: w,
+    thicknessM: t,
+    barsPerPhase,
+    r20OhmPerM: 1.7241e-8 / (w * t),
+    emissivity: 0.4,
+    terminalLimitC: 105,
+    shortCircuitLimitC: 200,
+    costs: { conductorPricePerKg: '10.20' },
+  };
+}
+
+/** Small deterministic generator (mulberry32) so every run sizes the same circuits. */
+function rng(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+const economics = { lossLoadFactor: 0.4, energyPricePerKWh: '0.15', discountRatePercent: 5, loadGrowthPercent: 1, years: 25 };
+
+function cableCircuit(r: () => number): Conditions {
+  const kind = r() < 0.7 ? 'cable-in-air' : 'buried';
+  return {
+    designCurrentA: 30 + 570 * r(),
+    frequencyHz: 50,
+    phases: 3,
+    nominalVoltageV: 230,
+    lengthM: 10 + 190 * r(),
+    powerFactor: 0.85 + 0.1 * r(),
+    reactanceOhmPerM: 0.08e-3,
+    maxVoltageDropPercent: 5,
+    ambientC: 20 + 25 * r(),
+    installation:
+      kind === 'buried'
+        ? { kind: 'buried', depthM: 0.7 + 0.3 * r(), soilResistivityKmPerW: 1 + 1.5 * r(), groundC: 15 + 10 * r(), spacingM: 0.1 }
+        : { kind: 'cable-in-air', formation: 'flat', spacingM: 0.1 },
+    ...(kind === 'cable-in-air' && r() < 0.2 ? { solar: { irradianceWPerM2: 800, absorptivity: 0.6 } } : {}),
+    ...(kind === 'cable-in-air' && r() < 0.1 ? { windSpeedMPerS: 1 + 3 * r() } : {}),
+    fault: { currentA: 5_000 + 20_000 * r(), durationS: 0.1 + 0.9 * r() },
+    economics,
+  };
+}
+
+function barCircuit(r: () => number): Conditions {
+  return {
+    designCurrentA: 600 + 3400 * r(),
+    frequencyHz: 50,
+    phases: 3,
+    nominalVoltageV: 230,
+    lengthM: 5 + 30 * r(),
+    powerFactor: 0.9,
+    reactanceOhmPerM: 0.15e-3,
+    ambientC: 30 + 10 * r(),
+    installation: { kind: r() < 0.7 ? 'bar-on-edge' : 'bar-flat' },
+    fault: { currentA: 20_000 + 40_000 * r(), durationS: 0.5 + 0.5 * r() },
+    economics,
+  };
+}
+
+const CABLE_SET: Candidate[] = [16, 25, 35, 50, 70, 95, 120, 150, 185, 240, 300].map((s) => cable(s)).concat([cable(240, 2)]);
+const BAR_SET: Candidate[] = [
+  bar(40, 5, 1), bar(50, 10, 1), bar(60, 10, 1), bar(80, 10, 1), bar(100, 10, 1), bar(120, 10, 1),
+  bar(60, 10, 2), bar(80, 10, 2), bar(100, 10, 2), bar(120, 10, 2), bar(100, 10, 3), bar(120, 10, 3),
+];
+
+function median(xs: number[]): number {
+  const s = [...xs].sort((a, b) => a - b);
+  const m = s.length >> 1;
+  return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2;
+}
+function percentile(xs: number[], p: number): number {
+  const s = [...xs].sort((a, b) => a - b);
+  return s[Math.min(s.length - 1, Math.floor(p * s.length))];
+}
+
+function main(): void {
+  const r = rng(20240601);
+  console.log(`Machine load average at start: ${loadavg().map((x) => x.toFixed(1)).join(' / ')} (wall times stretch with load; CPU times less so)`);
+
+  // ── 1 & 2: solves and time per ampacity ──
+  const solves: number[] = [];
+  const times: number[] = [];
+  const cpuTimes: number[] = [];
+  // warm-up (JIT)
+  for (let i = 0; i < 20; i++) ampacity(CABLE_SET[i % CABLE_SET.length], cableCircuit(r));
+  for (let i = 0; i < 400; i++) {
+    const isBar = i % 4 === 3;
+    const candidate = isBar ? BAR_SET[i % BAR_SET.length] : CABLE_SET[i % CABLE_SET.length];
+    const conditions = isBar ? barCircuit(r) : cableCircuit(r);
+    const c0 = process.cpuUsage();
+    const t0 = performance.now();
+    const a = ampacity(candidate, conditions);
+    times.push(performance.now() - t0);
+    const c1 = process.cpuUsage(c0);
+    cpuTimes.push((c1.user + c1.system) / 1000);
+    solves.push(a.solves);
+  }
+  console.log('Ampacity (400 cases: cables in air/buried/sun/wind, bars on edge/flat)');
+  console.log(`  solves per ampacity: median ${median(solves)}, 95th percentile ${percentile(solves, 0.95)}, max ${Math.max(...solves)} (target ≤ 30)`);
+  console.log(`  time per ampacity:   median ${median(times).toFixed(2)} ms wall (${median(cpuTimes).toFixed(2)} ms CPU), 95th percentile ${percentile(times, 0.95).toFixed(2)} ms wall`);
+
+  // ── 3: 1,000 circuits × 12 candidates ──
+  const circuits = Array.from({ length: 1000 }, (_, i) => (i % 5 === 4 ? { c: barCircuit(r), set: BAR_SET } : { c: cableCircuit(r), set: CABLE_SET }));
+  let evaluations = 0;
+  let failed = 0;
+  let totalSolves = 0;
+  let withPassing = 0;
+  const cpu0 = process.cpuUsage();
+  const t0 = performance.now();
+  for (const { c, set } of circuits) {
+    const cmp = compareCandidates(set, c);
+    for (const e of cmp.evaluations) {
+      evaluations++;
+      if (e.ok) totalSolves += e.solves;
+      else failed++;
+    }
+    if (cmp.smallestPassingIndex !== null) withPassing++;
+  }
+  const seconds = (performance.now() - t0) / 1000;
+  const cpu = process.cpuUsage(cpu0);
+  const cpuSeconds = (cpu.user + cpu.system) / 1e6;
+  console.log('Sizing 1,000 circuits × 12 candidates (800 cable circuits, 200 bus-bar circuits)');
+  console.log(`  total ${seconds.toFixed(2)} s wall (${cpuSeconds.toFixed(2)} s CPU, one thread), ${((1000 * seconds) / 1000).toFixed(2)} ms per circuit, ${((1e6 * seconds) / evaluations).toFixed(0)} µs per candidate`);
+  console.log(`  ${evaluations} evaluations, ${failed} could not be evaluated, ${totalSolves} heat-balance solves (${(totalSolves / evaluations).toFixed(1)} per candidate incl. ampacity)`);
+  console.log(`  ${withPassing} circuits with at least one passing candidate`);
+}
+
+main();
