@@ -1,10 +1,13 @@
+import { getProject } from '@/db/queries/projects';
 import { createSheet, isUuid, listSheetsForProject } from '@/db/queries/sheets';
 import { defaultSheetInputs } from '@/lib/sheet';
 import { apiHandler, ApiError } from '@/server/http/api';
 import { createSheetBodySchema, sheetActor, sheetOperation } from '../../../sheets/_shared/sheetApi';
 
 export const GET = apiHandler({ permission: 'team:read' }, async (_req, { user, params }) => {
-  return Response.json({ sheets: await listSheetsForProject(user!.teamId, params.projectId) });
+  const project = isUuid(params.projectId) ? await getProject(user!.teamId, params.projectId) : null;
+  if (!project) throw new ApiError(404, 'not_found', 'No such project.');
+  return Response.json({ sheets: await listSheetsForProject(user!.teamId, project.id) });
 });
 
 /** A new sizing sheet in the project, with the defaults of its installation and no candidates yet. */

@@ -1,0 +1,72 @@
+'use client';
+import type { CandidateEvaluation } from '@/lib/electrical/sizing/types';
+import { formatNumber, formatQuantity, type UnitSystem } from '@/lib/units';
+import { RESULT_STATES, thermalState } from './resultState';
+
+const LIMIT_SOURCES: Record<string, string> = { insulation: 'insulation', coating: 'coating', terminal: 'joints and terminals', user: 'your own limit', layer: 'covering' };
+
+function Figure({ label, value, testId }: { label: string; value: string; testId?: string }) {
+  return (
+    <div className="min-w-0">
+      <p className="text-caption uppercase tracking-wide text-ink-500">{label}</p>
+      <p className="num truncate text-lead font-semibold text-ink-900" data-testid={testId}>{value}</p>
+    </div>
+  );
+}
+
+/** Hot spot / limit / margin / ampacity of the candidate in focus, with its state as word, icon and colour. */
+export function ResultStrip({
+  evaluation,
+  units,
+  source,
+  chosen,
+}: {
+  evaluation: CandidateEvaluation | null;
+  units: UnitSystem;
+  /** Where the numbers come from: the live computation or the stored server snapshot. */
+  source: string;
+  chosen: boolean;
+}) {
+  if (!evaluation) {
+    return (
+      <div className="panel flex items-center gap-3 p-3" data-testid="result-strip">
+        <p className="text-ink-600">No result yet: add a candidate conductor to see its hot spot, limit, margin and ampacity.</p>
+      </div>
+    );
+  }
+  if (!evaluation.ok) {
+    return (
+      <div className={`panel border-2 p-3 ${RESULT_STATES.over.box}`} data-testid="result-strip" role="status">
+        <p className={`font-semibold ${RESULT_STATES.over.text}`}>✖ {evaluation.label}: could not be evaluated</p>
+        <p className="text-body text-ink-800">{evaluation.error.message}</p>
+      </div>
+    );
+  }
+  const { state, word } = thermalState(evaluation);
+  const look = RESULT_STATES[state];
+  const t = (c: number | null) => (c === null ? '—' : formatQuantity(c, 'temperature', units, { digits: 4 }));
+  const margin =
+    evaluation.marginK === null
+      ? '—'
+      : `${formatQuantity(evaluation.marginK, 'temperatureRise', units, { digits: 3 })}${evaluation.marginPercent !== null ? ` · ${formatNumber(evaluation.marginPercent, 3)} %` : ''}`;
+  return (
+    <div className={`panel border-2 p-3 ${look.box}`} data-testid="result-strip" data-state={state} role="status" aria-live="polite">
+      <div className="flex flex-wrap items-baseline justify-between gap-2">
+        <p className={`font-semibold ${look.text}`} data-testid="result-state">
+          <span aria-hidden="true">{look.icon}</span> {word}
+          {!evaluation.passes && state !== 'over' ? <span className="ml-2 text-over-dark">· fails a check (see the flags)</span> : null}
+        </p>
+        <p className="text-caption text-ink-600">
+          {chosen ? 'Chosen: ' : 'Viewing: '}
+          <span className="font-medium text-ink-800">{evaluation.label}</span> at <span className="num">{formatNumber(evaluation.designCurrentA, 4)} A</span> · {source}
+        </p>
+      </div>
+      <div className="mt-2 grid grid-cols-2 gap-3 sm:grid-cols-4">
+        <Figure label="Hot spot" value={t(evaluation.hotSpotC)} testId="hot-spot" />
+        <Figure label={`Limit (${LIMIT_SOURCES[evaluation.limit.source] ?? evaluation.limit.source})`} value={t(evaluation.limit.temperatureC)} testId="limit" />
+        <Figure label="Margin" value={margin} testId="margin" />
+        <Figure label="Ampacity" value={`${formatNumber(evaluation.ampacityA, 4)} A`} testId="ampacity" />
+      </div>
+    </div>
+  );
+}

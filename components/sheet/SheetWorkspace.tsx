@@ -1,0 +1,447 @@
+'use client';
+/**
+ * The sizing sheet's working page: inputs on the left, the result on the right — a strip that
+ * stays in view, the flags directly under it, the checks, the plots and the candidate grid — and
+ * the review panel and history. Inputs re-compute in the browser at once; saving sends the inputs
+ * and the server computes and stores its own snapshot.
+ */
+import { useCallback, useEffect, useMemo, useState } from 'react';
+import Link from 'next/link';
+import { useRouter } from 'next/navigation';
+import { useForm, schemaResolver } from '@mantine/form';
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { CautionNotice } from '@/components/shell/CautionNotice';
+import { ProfilePlot } from '@/components/plots/ProfilePlot';
+import { HotSpotCurvePlot } from '@/components/plots/HotSpotCurvePlot';
+import type { CandidateEvaluation, CandidateEvaluationOk } from '@/lib/electrical/sizing/types';
+import { sheetInputsSchema, type SheetInputs } from '@/lib/sheet/schema';
+import { approvalReadiness, type ResultSnapshot } from '@/lib/sheet/snapshot';
+import { decide, type Actor, type SheetStatus } from '@/lib/sheet/stateMachine';
+import { installationSuits } from '@/lib/sheet/toSizing';
+import type { SheetCandidate } from '@/lib/sheet/candidates';
+import { can, type Role } from '@/server/auth/permissions';
+import type { UnitSystem } from '@/lib/units';
+import { sheetApi, SheetApiError } from './api';
+import { CandidateGrid, candidateRows } from './CandidateGrid';
+import { CandidatePicker } from './CandidatePicker';
+import { ChecksPanel } from './ChecksPanel';
+import { ConflictNotice, type Conflict } from './ConflictNotice';
+import { FlagsPanel } from './FlagsPanel';
+import { HistoryList, type HistoryItem } from './HistoryList';
+import { InputsForm } from './InputsForm';
+import { ResultStrip } from './ResultStrip';
+import { StatusBadge } from './StatusBadge';
+import { useLiveComputation } from './useLiveComputation';
+
+/** The sheet as the API sends it (dates as ISO strings). */
+export interface ClientSheet {
+  id: string;
+  projectId: string;
+  projectName: string;
+  circuitTag: string;
+  title: string;
+  status: SheetStatus;
+  revision: number;
+  previousRevisionId: string | null;
+  newerRevisionId: string | null;
+  inputs: SheetInputs;
+  storedSchemaVersion: number;
+  result: ResultSnapshot | null;
+  solverVersion: string | null;
+  version: number;
+  authorId: string;
+  authorName: string | null;
+  reviewerName: string | null;
+  approvedAt: string | null;
+  updatedAt: string;
+  acknowledgements: { flagCode: string; comment: string; reviewerName: string | null; createdAt: string }[];
+}
+
+export interface WorkspaceUser {
+  id: string;
+  role: Role;
+  unitSystem: UnitSystem;
+}
+
+const same = (a: unknown, b: unknown) => JSON.stringify(a) === JSON.stringify(b);
+
+export function SheetWorkspace({ initialSheet, initialHistory, user }: { initialSheet: ClientSheet; initialHistory: HistoryItem[]; user: WorkspaceUser }) {
+  const router = useRouter();
+  const queryClient = useQueryClient();
+  const sheetId = initialSheet.id;
+  const units = user.unitSystem;
+  const actor: Actor = useMemo(() => ({ userId: user.id, can: (p) => can(user.role, p) }), [user.id, user.role]);
+
+  const sheetQuery = useQuery({
+    queryKey: ['sheet', sheetId],
+    queryFn: async () => (await sheetApi.get(sheetId)).sheet as ClientSheet,
+    initialData: initialSheet,
+  });
+  const historyQuery = useQuery({
+    queryKey: ['sheet', sheetId, 'history'],
+    queryFn: async () => (await sheetApi.history(sheetId)).history as HistoryItem[],
+    initialData: initialHistory,
+  });
+  const sheet = sheetQuery.data;
+
+  const [savedInputs, setSavedInputs] = useState<SheetInputs>(initialSheet.inputs);
+  const [baseVersion, setBaseVersion] = useState(initialSheet.version);
+  const form = useForm<SheetInputs>({
+    mode: 'controlled',
+    initialValues: initialSheet.inputs,
+    validate: schemaResolver(sheetInputsSchema, { sync: true }),
+    validateInputOnChange: true,
+  });
+  const values = form.values;
+  const dirty = !same(values, savedInputs);
+
+  // A newer server copy (another tab, a transition) replaces an untouched form.
+  useEffect(() => {
+    if (!dirty && sheet.version !== baseVersion) {
+      form.setValues(sheet.inputs);
+      form.resetDirty(sheet.inputs);
+      setSavedInputs(sheet.inputs);
+      setBaseVersion(sheet.version);
+    }
+    // eslint-disable-next-line react-hooks/exhaustive-deps -- only when the server copy changes
+  }, [sheet.version]);
+
+  const editable = decide('edit', sheet, actor).allowed;
+  const live = useLiveComputation(values, { enabled: true, withCurves: true });
+  const snapshot = sheet.result;
+  const liveEvaluations = live.computation?.ok ? live.computation.comparison.evaluations : null;
+  // A frozen or submitted sheet shows the server's stored result; a sheet being edited shows the live one.
+  const evaluations: CandidateEvaluation[] | null = editable ? liveEvaluations : (snapshot?.evaluations ?? null);
+  const sourceWords = editable
+    ? live.invalid
+      ? 'inputs incomplete: showing the last valid result'
+      : dirty
+        ? 'computed live in your browser, not saved'
+        : 'computed live, same as saved'
+    : `stored by the server ${snapshot ? snapshot.computedAt.slice(0, 16).replace('T', ' ') : ''}`;
+
+  const [focusedId, setFocusedId] = useState<string | null>(values.chosenCandidateId ?? values.candidates[0]?.id ?? null);
+  useEffect(() => {
+    if (focusedId && values.candidates.some((c) => c.id === focusedId)) return;
+    setFocusedId(values.chosenCandidateId ?? values.candidates[0]?.id ?? null);
+  }, [values.candidates, values.chosenCandidateId, focusedId]);
+  const focused = evaluations?.find((e) => e.id === focusedId) ?? null;
+  const focusedOk = focused && focused.ok ? focused : null;
+
+  const [conflict, setConflict] = useState<Conflict | null>(null);
+  const [notice, setNotice] = useState<{ tone: 'ok' | 'error'; text: string } | null>(null);
+  const [pickerOpen, setPickerOpen] = useState(false);
+  const [returnComment, setReturnComment] = useState('');
+
+  const refresh = useCallback(async () => {
+    await Promise.all([
+      queryClient.invalidateQueries({ queryKey: ['sheet', sheetId] }),
+      queryClient.invalidateQueries({ queryKey: ['sheet', sheetId, 'history'] }),
+    ]);
+  }, [queryClient, sheetId]);
+
+  const save = useMutation({
+    mutationFn: (override?: { expectedVersion: number }) =>
+      sheetApi.save(sheetId, { expectedVersion: override?.expectedVersion ?? baseVersion, inputs: sheetInputsSchema.parse(values) }),
+    onSuccess: async (answer) => {
+      setSavedInputs(values);
+      setBaseVersion(answer.version);
+      setConflict(null);
+      setNotice({ tone: 'ok', text: `Saved as version ${answer.version}; the server computed and stored its own result.` });
+      await refresh();
+    },
+    onError: (error) => {
+      if (error instanceof SheetApiError && error.code === 'version_conflict') {
+        setConflict({
+          message: error.message,
+          currentVersion: Number(error.body.currentVersion),
+          changedSections: (error.body.changedSections as string[]) ?? [],
+          current: error.body.current as Conflict['current'],
+        });
+        return;
+      }
+      setNotice({ tone: 'error', text: error.message });
+    },
+  });
+
+  const transition = useMutation({
+    mutationFn: (body: { action: 'submit' | 'withdraw' | 'approve' | 'return'; comment?: string }) => sheetApi.transition(sheetId, { ...body, expectedVersion: sheet.version }),
+    onSuccess: async (_answer, body) => {
+      const words = { submit: 'Submitted for review.', withdraw: 'Withdrawn: the sheet is a draft again.', approve: 'Approved. The sheet is now frozen.', return: 'Returned to the author with your comment.' };
+      setNotice({ tone: 'ok', text: words[body.action] });
+      setReturnComment('');
+      await refresh();
+      router.refresh();
+    },
+    onError: (error) => setNotice({ tone: 'error', text: error.message }),
+  });
+
+  const acknowledge = useMutation({
+    mutationFn: ({ code, comment }: { code: string; comment: string }) => sheetApi.acknowledge(sheetId, code, comment),
+    onSuccess: refresh,
+    onError: (error) => setNotice({ tone: 'error', text: error.message }),
+  });
+
+  const revise = useMutation({
+    mutationFn: () => sheetApi.revise(sheetId),
+    onSuccess: (answer) => router.push(`/sheets/${answer.sheet.id}`),
+    onError: (error) => setNotice({ tone: 'error', text: error.message }),
+  });
+
+  const readiness = approvalReadiness(snapshot, sheet.acknowledgements.map((a) => a.flagCode));
+  const submitDecision = decide('submit', sheet, actor, readiness);
+  const approveDecision = decide('approve', sheet, actor, readiness);
+  const mayReturn = decide('return', sheet, actor).allowed;
+  const mayAcknowledge = decide('acknowledge', sheet, actor).allowed;
+  const mayWithdraw = decide('withdraw', sheet, actor).allowed;
+  const mayRevise = decide('revise', { ...sheet, hasNewerRevision: sheet.newerRevisionId !== null }, actor).allowed;
+  const inReviewView = sheet.status === 'in_review' || sheet.status === 'approved';
+
+  const chosenFlags = inReviewView ? (snapshot?.chosenFlags ?? []) : focusedOk?.flags ?? [];
+  const flagsHeading = inReviewView ? `Assumption flags of the chosen candidate (as submitted)` : `Assumption flags${focusedOk ? ` of ${focusedOk.label}` : ''}`;
+
+  const addCandidate = (candidate: SheetCandidate) => {
+    const next = [...values.candidates, candidate];
+    form.setFieldValue('candidates', next);
+    if (values.chosenCandidateId === null && next.length === 1) form.setFieldValue('chosenCandidateId', candidate.id);
+    setFocusedId(candidate.id);
+  };
+  const removeCandidate = useCallback(
+    (id: string) => {
+      form.setFieldValue('candidates', (form.getValues().candidates as SheetCandidate[]).filter((c) => c.id !== id));
+      if (form.getValues().chosenCandidateId === id) form.setFieldValue('chosenCandidateId', null);
+    },
+    // eslint-disable-next-line react-hooks/exhaustive-deps -- the form object is stable
+    [],
+  );
+  const chooseCandidate = useCallback(
+    (id: string) => {
+      form.setFieldValue('chosenCandidateId', id);
+      setFocusedId(id);
+    },
+    // eslint-disable-next-line react-hooks/exhaustive-deps -- the form object is stable
+    [],
+  );
+
+  const rows = candidateRows(values.candidates, evaluations, values.chosenCandidateId, units);
+  const limits = Object.fromEntries((evaluations ?? []).filter((e): e is CandidateEvaluationOk => e.ok).map((e) => [e.id, e.limit.temperatureC]));
+  const placement = values.installation.kind === 'enclosure' ? values.installation.enclosureInside : values.installation.kind;
+  const preferredKind = placement === 'bar-on-edge' || placement === 'bar-flat' ? 'bar' : 'cable';
+  const mismatched = values.candidates.filter((c) => !installationSuits(values.installation.kind, c.kind, values.installation.enclosureInside));
+
+  return (
+    <div className="space-y-3" data-testid="sheet-workspace">
+      <header className="flex flex-wrap items-start justify-between gap-3">
+        <div className="min-w-0">
+          <nav aria-label="Breadcrumb" className="text-caption text-ink-500">
+            <Link href="/projects" className="hover:underline">Projects</Link> / <Link href={`/projects/${sheet.projectId}`} className="hover:underline">{sheet.projectName}</Link> /
+          </nav>
+          <h1 className="flex flex-wrap items-center gap-x-3 text-title">
+            <span className="num">{sheet.circuitTag}</span>
+            <span className="font-normal text-ink-700">{sheet.title}</span>
+            <StatusBadge status={sheet.status} />
+          </h1>
+          <p className="text-caption text-ink-500">
+            Revision {sheet.revision} · version <span data-testid="sheet-version">{sheet.version}</span> · by {sheet.authorName ?? 'unknown'}
+            {sheet.reviewerName ? ` · reviewed by ${sheet.reviewerName}` : ''}
+            {sheet.solverVersion ? ` · ${sheet.solverVersion}` : ''}
+            {sheet.previousRevisionId ? (
+              <>
+                {' · '}
+                <Link className="underline" href={`/sheets/${sheet.previousRevisionId}`}>previous revision</Link>
+              </>
+            ) : null}
+            {sheet.newerRevisionId ? (
+              <>
+                {' · '}
+                <Link className="font-medium text-copper-700 underline" href={`/sheets/${sheet.newerRevisionId}`}>a newer revision exists</Link>
+              </>
+            ) : null}
+          </p>
+        </div>
+        <div className="flex flex-wrap items-center gap-2">
+          {editable ? (
+            <>
+              <span className="text-caption text-ink-500" data-testid="save-state" aria-live="polite">
+                {save.isPending ? 'Saving…' : dirty ? 'Unsaved changes' : 'All changes saved'}
+              </span>
+              <button type="button" className="btn-primary" data-testid="save-button" disabled={!dirty || save.isPending || live.invalid} onClick={() => save.mutate(undefined)}>
+                Save
+              </button>
+            </>
+          ) : null}
+          {submitDecision.allowed || (editable && actor.can('sheet:submit')) ? (
+            <button
+              type="button"
+              className="btn-quiet"
+              data-testid="submit-button"
+              disabled={!submitDecision.allowed || dirty || transition.isPending}
+              title={dirty ? 'Save your changes first' : submitDecision.allowed ? undefined : submitDecision.reason}
+              onClick={() => transition.mutate({ action: 'submit' })}
+            >
+              Submit for review
+            </button>
+          ) : null}
+          {mayWithdraw ? (
+            <button type="button" className="btn-quiet" onClick={() => transition.mutate({ action: 'withdraw' })} disabled={transition.isPending}>
+              Withdraw from review
+            </button>
+          ) : null}
+          {mayRevise ? (
+            <button type="button" className="btn-quiet" data-testid="revise-button" onClick={() => revise.mutate()} disabled={revise.isPending}>
+              Start a new revision
+            </button>
+          ) : null}
+        </div>
+      </header>
+
+      <CautionNotice compact />
+      {sheet.status === 'approved' ? (
+        <p className="rounded-md border border-within bg-within-light px-3 py-1.5 text-body text-within-dark">
+          ✔ Approved{sheet.approvedAt ? ` on ${sheet.approvedAt.slice(0, 10)}` : ''} by {sheet.reviewerName ?? 'a reviewer'}. The sheet is frozen; {mayRevise ? 'start a new revision to change it.' : 'a designer can start a new revision.'}
+        </p>
+      ) : null}
+      {sheet.status === 'returned' ? (
+        <p className="rounded-md border border-tight bg-tight-light px-3 py-1.5 text-body text-tight-dark">↩ Returned by {sheet.reviewerName ?? 'the reviewer'}: see the comment in the history below, change the sheet, save and submit again.</p>
+      ) : null}
+      {notice ? (
+        <p role={notice.tone === 'error' ? 'alert' : 'status'} className={`rounded-md px-3 py-1.5 text-body ${notice.tone === 'error' ? 'border border-over bg-over-light text-over-dark' : 'border border-within bg-within-light text-within-dark'}`} data-testid="sheet-notice">
+          {notice.text}
+        </p>
+      ) : null}
+      {conflict ? (
+        <ConflictNotice
+          conflict={conflict}
+          mine={values}
+          busy={save.isPending}
+          onTakeTheirs={() => {
+            form.setValues(conflict.current.inputs);
+            setSavedInputs(conflict.current.inputs);
+            setBaseVersion(conflict.currentVersion);
+            setConflict(null);
+            void refresh();
+          }}
+          onKeepMine={() => save.mutate({ expectedVersion: conflict.currentVersion })}
+        />
+      ) : null}
+
+      <div className="grid gap-4 lg:grid-cols-[288px_minmax(0,1fr)] xl:grid-cols-[312px_minmax(0,1fr)]">
+        <aside className="panel self-start px-3 py-1 lg:sticky lg:top-2 lg:max-h-[calc(100vh-1rem)] lg:overflow-y-auto" aria-label="Inputs">
+          {!editable ? (
+            <p className="mt-2 rounded bg-ink-50 px-2 py-1 text-caption text-ink-600">
+              {sheet.status === 'in_review' ? 'In review: inputs are read-only.' : sheet.status === 'approved' ? 'Approved: inputs are frozen.' : 'Your role reads this sheet; designers edit it.'}
+            </p>
+          ) : null}
+          <InputsForm form={form} units={units} disabled={!editable} />
+        </aside>
+
+        <div className="min-w-0 space-y-3">
+          <div className="sticky top-0 z-10 -mx-1 bg-paper px-1 pb-1 pt-0.5">
+            <ResultStrip evaluation={focused ?? null} units={units} source={live.computing && editable ? 'computing…' : sourceWords} chosen={focusedId !== null && focusedId === values.chosenCandidateId} />
+          </div>
+          <FlagsPanel
+            flags={chosenFlags}
+            heading={flagsHeading}
+            acknowledgements={sheet.acknowledgements}
+            canAcknowledge={mayAcknowledge}
+            pendingCode={acknowledge.isPending ? (acknowledge.variables?.code ?? null) : null}
+            onAcknowledge={(code, comment) => acknowledge.mutate({ code, comment })}
+          />
+
+          {(mayReturn || approveDecision.allowed || (approveDecision.code !== 'forbidden' && approveDecision.code !== 'own_sheet' && approveDecision.code !== 'wrong_state')) && sheet.status === 'in_review' ? (
+            <section aria-labelledby="decision-heading" className="panel border-copper-300 p-3" data-testid="review-decision">
+              <h2 id="decision-heading" className="text-body font-semibold">Your review</h2>
+              {!approveDecision.allowed ? <p className="text-caption text-tight-dark" data-testid="approve-blocked-reason">{approveDecision.reason}</p> : <p className="text-caption text-within-dark">Every review flag is acknowledged and no blocker stands.</p>}
+              <div className="mt-2 flex flex-wrap items-end gap-2">
+                <button type="button" className="btn-primary" data-testid="approve-button" disabled={!approveDecision.allowed || transition.isPending} onClick={() => transition.mutate({ action: 'approve' })}>
+                  Approve
+                </button>
+                <div className="min-w-64 flex-1">
+                  <label htmlFor="return-comment" className="field-label">Comment for the author (needed to return)</label>
+                  <input id="return-comment" className="field-input py-1" value={returnComment} onChange={(e) => setReturnComment(e.target.value)} />
+                </div>
+                <button type="button" className="btn-quiet" data-testid="return-button" disabled={!mayReturn || returnComment.trim().length === 0 || transition.isPending} onClick={() => transition.mutate({ action: 'return', comment: returnComment })}>
+                  Return to the author
+                </button>
+              </div>
+            </section>
+          ) : null}
+
+          {focusedOk ? <ChecksPanel evaluation={focusedOk} units={units} lengthM={values.circuit.lengthM} /> : null}
+
+          {values.candidates.length === 0 ? (
+            <section className="panel p-4" data-testid="no-candidates">
+              <h2 className="font-semibold">No candidates on this sheet yet</h2>
+              <p className="mt-1 max-w-3xl text-ink-600">
+                A candidate is one conductor option: a cable build or a bar from the team’s catalogue, with how many run per phase. Add two or three — say the section you expect, one size down and one size up — and the sheet computes each one’s hot spot against its limit, its ampacity, losses, voltage drop and short-circuit withstand as you type, marks the smallest and the cheapest that pass, and lets you choose one.
+              </p>
+              {editable ? (
+                <button type="button" className="btn-primary mt-3" data-testid="add-candidates" onClick={() => setPickerOpen(true)}>
+                  Add candidates from the catalogue
+                </button>
+              ) : null}
+            </section>
+          ) : (
+            <div className="grid gap-3 xl:grid-cols-2">
+              <section className="panel p-2" aria-label="Heat-balance profile">
+                {focusedOk?.profile ? (
+                  <ProfilePlot
+                    profile={focusedOk.profile}
+                    limitC={focusedOk.limit.temperatureC}
+                    limitLabel={focusedOk.limit.layer ?? focusedOk.limit.source}
+                    units={units}
+                    title={`Heat-balance profile: ${focusedOk.label}`}
+                  />
+                ) : (
+                  <p className="p-4 text-caption text-ink-500">{focused && focused.ok && focused.hotSpotC === null ? 'No steady state at the design current (thermal runaway): no profile to draw.' : 'The profile appears when the candidate has a result.'}</p>
+                )}
+              </section>
+              <section className="panel p-2" aria-label="Hot spot versus current">
+                {live.curves.length > 0 ? (
+                  <HotSpotCurvePlot curves={live.curves} designCurrentA={values.circuit.designCurrentA} limits={limits} units={units} />
+                ) : (
+                  <p className="p-4 text-caption text-ink-500">{live.computing ? 'Computing the curves…' : 'The curves appear when the candidates have results.'}</p>
+                )}
+              </section>
+            </div>
+          )}
+
+          {values.candidates.length > 0 ? (
+            <section aria-labelledby="compare-heading" className="panel p-3">
+              <div className="mb-2 flex flex-wrap items-baseline justify-between gap-2">
+                <h2 id="compare-heading" className="text-body font-semibold">
+                  Compare candidates <span className="font-normal text-ink-500">— click a row to see it above{editable ? '; choose the one the sheet is for' : ''}</span>
+                </h2>
+                {editable ? (
+                  <button type="button" className="btn-quiet py-1" data-testid="add-candidates" onClick={() => setPickerOpen((v) => !v)}>
+                    {pickerOpen ? 'Close the catalogue' : 'Add candidates'}
+                  </button>
+                ) : null}
+              </div>
+              {mismatched.length > 0 ? (
+                <p className="mb-2 text-caption text-tight-dark">
+                  ▲ {mismatched.map((c) => c.label).join(', ')} {mismatched.length === 1 ? 'does' : 'do'} not suit the installation chosen ({values.installation.kind}); {mismatched.length === 1 ? 'it' : 'they'} will not evaluate until the installation matches.
+                </p>
+              ) : null}
+              {values.chosenCandidateId === null ? <p className="mb-2 text-caption text-ink-600">No candidate chosen yet: choose one in the first column before submitting the sheet.</p> : null}
+              <CandidateGrid rows={rows} units={units} focusedId={focusedId} onFocus={setFocusedId} onChoose={chooseCandidate} onRemove={removeCandidate} editable={editable} />
+            </section>
+          ) : null}
+
+          {pickerOpen && editable ? (
+            <CandidatePicker preferredKind={preferredKind} existingIds={values.candidates.map((c) => c.id)} units={units} onAdd={addCandidate} onClose={() => setPickerOpen(false)} />
+          ) : null}
+
+          {live.computation && !live.computation.ok && editable ? (
+            <p role="alert" className="field-error">The circuit could not be computed: {live.computation.error.message}</p>
+          ) : null}
+
+          <HistoryList items={historyQuery.data ?? []} loading={historyQuery.isFetching} />
+          {live.elapsedMs !== null && editable ? (
+            <p className="text-right text-caption text-ink-400">Computed in your browser in <span className="num">{live.elapsedMs.toFixed(0)}</span> ms.</p>
+          ) : null}
+        </div>
+      </div>
+    </div>
+  );
+}
