@@ -106,6 +106,7 @@ export interface TokenPrincipal {
   name: string;
   scopes: ApiTokenScope[];
   requestsPerMinute: number;
+  lastUsedAt: Date | null;
 }
 
 export type TokenLookup = { state: 'active'; principal: TokenPrincipal } | { state: 'revoked' | 'expired' | 'unknown' };
@@ -124,6 +125,7 @@ export async function findTokenByHash(tokenHash: string): Promise<TokenLookup> {
       requestsPerMinute: apiTokens.requestsPerMinute,
       expiresAt: apiTokens.expiresAt,
       revokedAt: apiTokens.revokedAt,
+      lastUsedAt: apiTokens.lastUsedAt,
     })
     .from(apiTokens)
     .where(eq(apiTokens.tokenHash, tokenHash))
@@ -133,11 +135,14 @@ export async function findTokenByHash(tokenHash: string): Promise<TokenLookup> {
   if (row.expiresAt && row.expiresAt.getTime() <= Date.now()) return { state: 'expired' };
   return {
     state: 'active',
-    principal: { tokenId: row.id, teamId: row.teamId, name: row.name, scopes: asScopes(row.scopes), requestsPerMinute: row.requestsPerMinute },
+    principal: { tokenId: row.id, teamId: row.teamId, name: row.name, scopes: asScopes(row.scopes), requestsPerMinute: row.requestsPerMinute, lastUsedAt: row.lastUsedAt },
   };
 }
 
-/** Stamps last use, at most once a minute per token so that busy integrations do not write on every call. */
+/** Last use is stamped at most once a minute per token, so that busy integrations do not write on every call. */
+export const LAST_USED_RESOLUTION_MS = 60_000;
+
+/** Stamps last use (the WHERE keeps concurrent requests from all writing). */
 export async function touchApiToken(tokenId: string): Promise<void> {
   await getDb()
     .update(apiTokens)

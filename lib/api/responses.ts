@@ -97,7 +97,7 @@ export const evaluationOkSchema = z
     marginK: finite.nullable(),
     marginPercent: finite.nullable(),
     ampacityA: finite,
-    utilisation: finite,
+    utilisation: finite.nullable().meta({ description: "Design current / ampacity; null when the ampacity is zero and current flows." }),
     acFactor: finite,
     conductorC: finite.nullable(),
     resistanceOhmPerM: finite.nullable(),

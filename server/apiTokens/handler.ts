@@ -14,7 +14,7 @@
 import type { NextRequest } from 'next/server';
 import { ElectricalInputError, SizingError } from '@/lib/electrical';
 import { toDotPath } from '@/lib/api/finite';
-import { findTokenByHash, touchApiToken, type ApiTokenScope, type TokenPrincipal } from '@/db/queries/apiTokens';
+import { LAST_USED_RESOLUTION_MS, findTokenByHash, touchApiToken, type ApiTokenScope, type TokenPrincipal } from '@/db/queries/apiTokens';
 import { ApiError, errorResponse } from '@/server/http/errors';
 import { hashApiToken, looksLikeApiToken } from './tokens';
 import { consumeTokenRequest, type TokenRateState } from './limiter';
@@ -66,6 +66,21 @@ export function calculationErrorResponse(error: unknown, fieldPrefix?: { from: s
   return errorResponse(error);
 }
 
+/**
+ * A result holding NaN or ±Infinity is never sent (JSON would turn it into null, read as "no
+ * value"). It happens only at the degenerate edge of a method — a limit a hair above the starting
+ * temperature, say — so the caller gets 422 naming the value, and the server log keeps the case
+ * for the library's authors.
+ */
+export function nonFiniteResult(resultPath: string): ApiError {
+  console.warn(`ampwarden: non-finite number in a calculation result at ${resultPath}`);
+  return new ApiError(
+    422,
+    'no_finite_result',
+    `The calculation gave no finite value for ${resultPath}; the inputs lie at the edge of the method (for example a limit equal to the starting temperature). Check them.`,
+  );
+}
+
 export function tokenApiHandler(
   options: { scope: ApiTokenScope; fieldPrefix?: { from: string; to: string } },
   handler: (req: NextRequest, ctx: TokenApiContext) => Promise<Response>,
@@ -90,7 +105,7 @@ export function tokenApiHandler(
           { ...rateHeaders(rate), 'retry-after': String(rate.resetS) },
         );
       }
-      await touchApiToken(token.tokenId);
+      if (!token.lastUsedAt || Date.now() - token.lastUsedAt.getTime() > LAST_USED_RESOLUTION_MS) await touchApiToken(token.tokenId);
       const response = await handler(req, { token });
       return withHeaders(response, rateHeaders(rate));
     } catch (error) {

@@ -1,7 +1,7 @@
 import { ampacity } from '@/lib/electrical';
 import { API_CAUTION, API_VERSION, MAX_REQUEST_BYTES, ampacityConditions, ampacityRequestSchema, findNonFinite, type AmpacityResponse } from '@/lib/api';
 import { readJsonBody } from '@/server/apiTokens/body';
-import { tokenApiHandler } from '@/server/apiTokens/handler';
+import { nonFiniteResult, tokenApiHandler } from '@/server/apiTokens/handler';
 
 export const dynamic = 'force-dynamic';
 
@@ -10,6 +10,6 @@ export const POST = tokenApiHandler({ scope: 'calc', fieldPrefix: { from: 'candi
   const request = ampacityRequestSchema.parse(await readJsonBody(req, MAX_REQUEST_BYTES));
   const answer: AmpacityResponse = { apiVersion: API_VERSION, caution: API_CAUTION, ampacity: ampacity(request.candidate, ampacityConditions(request)) };
   const nonFinite = findNonFinite(answer);
-  if (nonFinite) throw new Error(`non-finite number in an ampacity result at ${nonFinite}`);
+  if (nonFinite) throw nonFiniteResult(nonFinite);
   return Response.json(answer);
 });

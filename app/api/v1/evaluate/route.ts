@@ -1,7 +1,7 @@
 import { compareCandidates } from '@/lib/electrical';
 import { API_CAUTION, API_VERSION, MAX_REQUEST_BYTES, evaluateRequestSchema, findNonFinite, toDotPath, type EvaluateResponse } from '@/lib/api';
 import { readJsonBody } from '@/server/apiTokens/body';
-import { tokenApiHandler } from '@/server/apiTokens/handler';
+import { nonFiniteResult, tokenApiHandler } from '@/server/apiTokens/handler';
 
 export const dynamic = 'force-dynamic';
 
@@ -31,7 +31,7 @@ export const POST = tokenApiHandler({ scope: 'calc' }, async (req) => {
   }
   const answer: EvaluateResponse = { apiVersion: API_VERSION, caution: API_CAUTION, ...comparison };
   const nonFinite = findNonFinite(answer);
-  if (nonFinite) throw new Error(`non-finite number in an evaluation result at ${nonFinite}`);
+  if (nonFinite) throw nonFiniteResult(nonFinite);
   return Response.json(answer);
 });
 
