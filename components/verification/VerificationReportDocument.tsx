@@ -10,6 +10,7 @@ import {
   formatNumber,
   METHOD_AREA_LABELS,
   METHOD_AREAS,
+  sourceBasis,
   summarise,
   type CaseResult,
   type QuantityResult,
@@ -104,7 +105,7 @@ function QuantityRow({ q }: { q: QuantityResult }) {
 }
 
 function CaseBlock({ result }: { result: CaseResult }) {
-  const basis = result.source.fromMemory ? `${result.source.kind}; from memory` : result.source.kind;
+  const basis = sourceBasis(result.source);
   const inputs = result.inputs.map((i) => `${i.name} = ${typeof i.value === 'number' ? formatNumber(i.value) : i.value}${i.unit ? ` ${i.unit}` : ''}`).join('; ');
   return (
     <View style={styles.case}>

@@ -9,7 +9,7 @@
 export { verificationCases, getCase, casesForMethod, verificationCaseHref, METHODS_BEHIND_RESULT, isMethodArea, type CaseLink } from './registry';
 export { runCase, withinTolerance, describeTolerance } from './run';
 export { productLibrary, type ProductLibrary } from './library';
-export { summarise, reportRows, reportCsv, formatNumber, type ReportSummary, type ReportRow } from './report';
+export { summarise, sourceBasis, reportRows, reportCsv, formatNumber, type ReportSummary, type ReportRow } from './report';
 export { METHOD_AREAS, METHOD_AREA_LABELS } from './types';
 export type {
   CaseComputation,

@@ -31,6 +31,12 @@ export function formatNumber(value: number, digits = 7): string {
   return String(Number(value.toPrecision(digits)));
 }
 
+/** The kind of source in words, keeping the "from memory" label (references.md). */
+export function sourceBasis(source: CaseResult['source']): string {
+  if (source.kind === 'from memory' || !source.fromMemory) return source.kind;
+  return `${source.kind}, from memory`;
+}
+
 export interface ReportRow {
   caseId: string;
   case: string;
@@ -57,7 +63,7 @@ export function reportRows(results: readonly CaseResult[]): ReportRow[] {
         case: r.title,
         area: METHOD_AREA_LABELS[r.area],
         source: r.source.citation,
-        basis: r.source.fromMemory ? `${r.source.kind} (from memory)` : r.source.kind,
+        basis: sourceBasis(r.source),
         quantity: q.label,
         unit: q.unit,
         reference: formatNumber(q.reference, 10),
@@ -65,7 +71,7 @@ export function reportRows(results: readonly CaseResult[]): ReportRow[] {
         deviation: formatNumber(q.deviation, 3),
         relativeDeviation: q.relativeDeviation === null ? '' : formatNumber(q.relativeDeviation, 3),
         tolerance: describeTolerance(q.tolerance, q.unit),
-        result: q.pass && r.pass ? 'pass' : 'fail',
+        result: q.pass ? 'pass' : 'fail',
         note: r.error ?? '',
       });
     }
