@@ -11,9 +11,9 @@ import { z } from 'zod';
 import { CATALOGUE_COLUMNS, KIND_LABELS, columnByField, columnByHeader, type ColumnSpec } from './columns';
 import { ROW_SCHEMAS, type CatalogueKind, type CatalogueRowByKind } from './schemas';
 
-/** Large enough for several thousand rows; a bigger file is almost certainly not a catalogue sheet. */
-export const MAX_IMPORT_BYTES = 2 * 1024 * 1024;
-export const MAX_IMPORT_ROWS = 5000;
+import { MAX_IMPORT_BYTES, MAX_IMPORT_ROWS } from './limits';
+
+export { MAX_IMPORT_BYTES, MAX_IMPORT_ROWS };
 
 export type ImportFormat = 'csv' | 'xlsx';
 

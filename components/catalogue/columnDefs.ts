@@ -1,0 +1,99 @@
+/**
+ * Grid columns for a catalogue part, from the shared column descriptions (lib/catalogue/columns):
+ * converted for display in the user's unit system, typed editors for admins, number filters on
+ * numbers and text filters on text.
+ */
+import Decimal from 'decimal.js';
+import type { ColDef, ValueFormatterParams, ValueGetterParams } from 'ag-grid-community';
+import { CATALOGUE_COLUMNS, type ColumnSpec } from '@/lib/catalogue/columns';
+import type { CatalogueKind } from '@/lib/catalogue/schemas';
+import { convertFromSi, convertToSi, formatNumber, unitLabel, type UnitSystem } from '@/lib/units';
+
+export type GridRow = Record<string, unknown> & { id: string };
+
+export function headerOf(column: ColumnSpec, units: UnitSystem): string {
+  const unit = column.quantity ? unitLabel(column.quantity, units) : column.fixedUnit;
+  return unit ? `${column.label} (${unit})` : column.label;
+}
+
+/** The number a decimal cell shows and filters on, in the user's units. */
+export function displayNumber(value: unknown, column: ColumnSpec, units: UnitSystem): number | null {
+  if (value === null || value === undefined || value === '') return null;
+  const n = Number(value);
+  if (!Number.isFinite(n)) return null;
+  if (!column.quantity || units === 'si') return n;
+  // Six figures: enough to edit and filter on, without binary tails from the conversion factor.
+  return Number(convertFromSi(n, column.quantity, units).toPrecision(6));
+}
+
+/** Text of a decimal cell: the stored decimal exactly in SI; four significant figures when converted. */
+export function formatDecimalCell(value: unknown, column: ColumnSpec, units: UnitSystem): string {
+  if (value === null || value === undefined || value === '') return '';
+  if (!column.quantity || units === 'si') return new Decimal(String(value)).toString();
+  const shown = displayNumber(value, column, units);
+  return shown === null ? '' : formatNumber(shown, 4);
+}
+
+/**
+ * A value the user typed in their units → what the API stores (SI decimal string). SI input
+ * passes through as typed (exact); converted input is rounded to 6 significant figures, more than
+ * any catalogue value carries, so that 0.3048-type factors do not leave 1e-17 tails.
+ */
+export function toStoredValue(typed: unknown, column: ColumnSpec, units: UnitSystem): unknown {
+  if (column.type !== 'decimal') return typeof typed === 'string' ? typed : typed ?? '';
+  if (typed === null || typed === undefined || typed === '') return null;
+  if (!column.quantity || units === 'si') return String(typed);
+  const n = Number(typed);
+  if (!Number.isFinite(n)) return String(typed);
+  return new Decimal(convertToSi(n, column.quantity, units)).toSignificantDigits(6).toFixed();
+}
+
+export function columnDefsFor(
+  kind: CatalogueKind,
+  units: UnitSystem,
+  editable: boolean,
+  referenceOptions: Partial<Record<CatalogueKind, string[]>>,
+): ColDef<GridRow>[] {
+  return CATALOGUE_COLUMNS[kind].map((column): ColDef<GridRow> => {
+    const base: ColDef<GridRow> = {
+      colId: column.field,
+      headerName: headerOf(column, units),
+      headerTooltip: column.hint,
+      hide: column.hiddenByDefault ?? false,
+      editable: editable,
+      pinned: column.field === 'key' ? 'left' : undefined,
+    };
+    if (column.type === 'decimal') {
+      return {
+        ...base,
+        type: 'rightAligned',
+        cellClass: 'num',
+        width: 140,
+        filter: 'agNumberColumnFilter',
+        valueGetter: (p: ValueGetterParams<GridRow>) => displayNumber(p.data?.[column.field], column, units),
+        valueFormatter: (p: ValueFormatterParams<GridRow>) => formatDecimalCell(p.data?.[column.field], column, units),
+        cellEditor: 'agTextCellEditor',
+        // The editor starts from what the cell shows, so that SI decimals stay exact.
+        valueParser: (p) => p.newValue,
+      };
+    }
+    if (column.type === 'integer') {
+      return { ...base, field: column.field, width: 90, type: 'rightAligned', cellClass: 'num', filter: 'agNumberColumnFilter', cellEditor: 'agNumberCellEditor' };
+    }
+    if (column.type === 'enum' || column.type === 'reference') {
+      const values = column.type === 'enum' ? [...(column.options ?? [])] : [...(column.required ? [] : ['']), ...(referenceOptions[column.references!] ?? [])];
+      return { ...base, field: column.field, width: 150, filter: 'agTextColumnFilter', cellEditor: 'agSelectCellEditor', cellEditorParams: { values } };
+    }
+    const isSource = /source|note/i.test(column.field);
+    return {
+      ...base,
+      field: column.field,
+      width: isSource ? 260 : column.field === 'key' ? 170 : 200,
+      filter: 'agTextColumnFilter',
+      tooltipField: isSource ? column.field : undefined,
+      cellEditor: isSource ? 'agLargeTextCellEditor' : 'agTextCellEditor',
+      cellEditorPopup: isSource,
+      cellClass: isSource ? 'text-ink-600' : undefined,
+    };
+  });
+}
