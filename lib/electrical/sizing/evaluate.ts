@@ -136,6 +136,22 @@ function firstGuess(ctx: Context): number {
   return Number.isFinite(i) && i > 0 ? i : 1;
 }
 
+/** Raises CORRELATION_OUT_OF_RANGE when a surface correlation or the air table was stretched. */
+function correlationFlags(result: SteadyResult, flags: FlagSet, where: string): void {
+  for (const side of ['inner', 'outer'] as const) {
+    const d = result.surface?.[side];
+    if (d && !d.inRange) {
+      const group = d.rayleigh !== undefined ? `Ra = ${fmt(d.rayleigh)}` : d.reynolds !== undefined ? `Re = ${fmt(d.reynolds)}` : 'see the solver notes';
+      flags.add('CORRELATION_OUT_OF_RANGE', `The ${d.correlation} correlation was used outside its stated range (${group}) at the ${side} surface ${where}; the surface heat transfer there is an extrapolation.`, { side });
+    }
+  }
+  for (const tf of result.flags ?? []) {
+    if (tf.code === 'correlation-out-of-range' || tf.code === 'air-properties-out-of-table') {
+      flags.add('CORRELATION_OUT_OF_RANGE', `${tf.message} (${where})`, { solverCode: tf.code });
+    }
+  }
+}
+
 interface SolvedPoint {
   result: SteadyResult;
   limits: LimitReading;
@@ -168,6 +184,7 @@ function ampacityOf(ctx: Context): AmpacityResult {
       continue;
     }
     acFn(point.limits.conductorC, ctx.flags); // raise the AC-method flags once, at the final state
+    correlationFlags(point.result, ctx.flags, 'at the ampacity');
     const current = root.zero ? 0 : fromModelCurrent(ctx, root.currentA);
     let closedForm: AmpacityResult['closedForm'] = null;
     if (!root.zero) {
@@ -302,17 +319,7 @@ function evaluateInContext(ctx: Context, index: number): CandidateEvaluationOk {
     if (ratio >= NEAR_RUNAWAY_RATIO) {
       flags.add('NEAR_RUNAWAY', `The design current is ${fmt(100 * ratio, 3)} % of the current at which no steady state exists; the rise of resistance with temperature has at least doubled the heating, so small changes in the inputs move the temperature a lot.`, { ratio });
     }
-    for (const side of ['inner', 'outer'] as const) {
-      const s = result.surface?.[side];
-      if (s && !s.inRange) {
-        flags.add('CORRELATION_OUT_OF_RANGE', `The ${s.correlation} correlation was used outside its stated range (${s.rayleigh !== undefined ? `Ra = ${fmt(s.rayleigh)}` : s.reynolds !== undefined ? `Re = ${fmt(s.reynolds)}` : 'see solver notes'}) at the ${side} surface.`, { side });
-      }
-    }
-    for (const tf of result.flags ?? []) {
-      if (tf.code === 'correlation-out-of-range' || tf.code === 'air-properties-out-of-table') {
-        flags.add('CORRELATION_OUT_OF_RANGE', tf.message, { solverCode: tf.code });
-      }
-    }
+    correlationFlags(result, flags, 'at the design current');
     // (The solver reports `converged` only once its energy balance closes to 1e-6, physics.md §1,
     // so a converged result needs no further residual check here.)
     if (cond.placement === 'buried' && result.surfaceTemperature > SOIL_DRYING_SURFACE_C) {
@@ -384,7 +391,7 @@ function evaluateInContext(ctx: Context, index: number): CandidateEvaluationOk {
     marginK,
     marginPercent,
     ampacityA,
-    utilisation: ampacityA > 0 ? cond.designCurrentA / ampacityA : cond.designCurrentA > 0 ? Number.MAX_VALUE : 0,
+    utilisation: ampacityA > 0 ? cond.designCurrentA / ampacityA : cond.designCurrentA > 0 ? null : 0,
     acFactor: design.acFactor,
     conductorC,
     resistanceOhmPerM,

@@ -275,8 +275,8 @@ export interface CandidateEvaluationOk {
   /** Margin as a share of the allowed rise (limit − ambient), %. */
   marginPercent: number | null;
   ampacityA: number;
-  /** Design current / ampacity. */
-  utilisation: number;
+  /** Design current / ampacity (null when the ampacity is zero and current is asked for). */
+  utilisation: number | null;
   acFactor: number;
   /** Mean conductor temperature at the design current, °C (null on runaway). */
   conductorC: number | null;

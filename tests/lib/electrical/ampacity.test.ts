@@ -119,6 +119,16 @@ describe('ampacity search (physics.md §5: bracketing root finder, 0.1 A)', () =
     expect(r.current).toBeLessThan(ampacity(xlpeCable(240), cableConditions()).current);
   });
 
+  it('the closed-form cross-check also holds when the sheath governs and in the sun (IEC 60287-1-1 eq. 1 with σD_eH)', () => {
+    const cable = xlpeCable(240);
+    cable.layers[1] = { ...cable.layers[1], continuousLimitC: 70 };
+    const sheath = ampacity(cable, cableConditions());
+    expect(Math.abs(sheath.closedForm!.differencePercent)).toBeLessThan(1);
+    const sunny = ampacity(xlpeCable(240), cableConditions({ solar: { irradianceWPerM2: 1000, absorptivity: 0.6 } }));
+    expect(Math.abs(sunny.closedForm!.differencePercent)).toBeLessThan(1);
+    expect(sunny.current).toBeLessThan(ampacity(xlpeCable(240), cableConditions()).current);
+  });
+
   it('no current can flow when the ambient is above the limit: 0 A, said why', () => {
     const r = ampacity(xlpeCable(95), cableConditions({ ambientC: 95 }));
     expect(r.current).toBe(0);
