@@ -72,7 +72,7 @@ export function candidateRows(candidates: SheetCandidate[], evaluations: Candida
       hotSpot: e.hotSpotC === null ? null : convertFromSi(e.hotSpotC, 'temperature', units),
       marginPercent: e.marginPercent,
       ampacity: e.ampacityA,
-      utilisation: e.utilisation * 100,
+      utilisation: e.utilisation === null ? null : e.utilisation * 100,
       lossWPerM: e.lossWPerM === null ? null : convertFromSi(e.lossWPerM, 'powerWPerM', units),
       voltageDropPercent: e.voltageDrop.percent,
       shortCircuit: !e.shortCircuit.checked ? 'not checked' : e.shortCircuit.withstands ? '✔ passes' : '✖ fails',
