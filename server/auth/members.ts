@@ -113,7 +113,9 @@ export async function inspectInvitation(token: string): Promise<InvitationView> 
 
 /** Sets the password once: creates the member with the invited role and closes the invitation. */
 export async function acceptInvitation(input: z.infer<typeof acceptInvitationSchema>) {
-  if (!looksLikeLinkToken(input.token)) throw LINK_REFUSALS.unknown;
+  // The link is checked before the (deliberately slow) hash, so that bad links cost the server little.
+  const seen = await inspectInvitation(input.token);
+  if (seen.state !== 'valid') throw LINK_REFUSALS[seen.state];
   const passwordHash = await hashPassword(input.password);
   return getDb().transaction(async (tx) => {
     const [invitation] = await tx.select().from(invitations).where(eq(invitations.tokenHash, hashLinkToken(input.token))).for('update');
@@ -209,7 +211,8 @@ export async function inspectResetToken(token: string): Promise<ResetView> {
 
 /** Saves the new password once, ends the member's other sessions and closes every open reset link. */
 export async function resetPassword(input: z.infer<typeof resetPasswordSchema>) {
-  if (!looksLikeLinkToken(input.token)) throw LINK_REFUSALS.unknown;
+  const seen = await inspectResetToken(input.token);
+  if (seen.state !== 'valid') throw LINK_REFUSALS[seen.state];
   const passwordHash = await hashPassword(input.password);
   const result = await getDb().transaction(async (tx) => {
     const [reset] = await tx.select().from(passwordResetTokens).where(eq(passwordResetTokens.tokenHash, hashLinkToken(input.token))).for('update');

@@ -65,6 +65,8 @@ export interface ActionEntry {
   expect: Expectation;
   /** The action's arguments (FormData allowed), encoded as React's client would encode them. */
   args(ctx: MatrixContext, actor: Actor): unknown[] | Promise<unknown[]>;
+  /** Optional check of the answer (e.g. where redirect() pointed): returns what is wrong, or null. */
+  check?(answer: { status: number; redirect: string | null; text: string }, actor: Actor, ctx: MatrixContext): string | null;
 }
 
 export type MatrixEntry = RouteEntry | ActionEntry;
@@ -93,6 +95,17 @@ function formData(fields: Record<string, string>): FormData {
 }
 
 const BOGUS_LINK_TOKEN = 'A'.repeat(43);
+
+/** One draft schedule of team A per run (no file yet), created directly in the database. */
+const scheduleOfTeamA = new Map<string, Promise<string>>();
+function teamASchedule(ctx: MatrixContext): Promise<string> {
+  let pending = scheduleOfTeamA.get(ctx.teamId);
+  if (!pending) {
+    pending = import('@/db/queries/schedules').then(async ({ createSchedule }) => (await createSchedule(ctx.teamId, ctx.users.designer.id, { projectId: ctx.projectId, name: ctx.unique('matrix schedule') })).id);
+    scheduleOfTeamA.set(ctx.teamId, pending);
+  }
+  return pending;
+}
 
 export const ENDPOINT_MATRIX: MatrixEntry[] = [
   // ── sign-in machinery and public account pages ──────────────────────────────────────────────
@@ -249,8 +262,10 @@ export const ENDPOINT_MATRIX: MatrixEntry[] = [
     kind: 'route',
     method: 'POST',
     route: '/api/sheets/[sheetId]/transitions',
-    expect: signedIn(401, { viewer: 403, designer: 200, reviewer: 403, otherAdmin: 404, admin: 200 }),
-    request: async (ctx) => ({ path: `/api/sheets/${(await ctx.freshSheet()).id}/transitions`, body: { action: 'submit' } }),
+    // The state machine decides per action: a draft cannot be withdrawn, so those whose role may submit get
+    // past the role check to 409 (wrong state); the others 403; team B 404.
+    expect: signedIn(401, { viewer: 403, designer: 409, reviewer: 403, otherAdmin: 404, admin: 409 }),
+    request: (ctx) => ({ path: `/api/sheets/${ctx.sheetId}/transitions`, body: { action: 'withdraw' } }),
   },
   {
     kind: 'route',
@@ -276,6 +291,75 @@ export const ENDPOINT_MATRIX: MatrixEntry[] = [
   { kind: 'route', method: 'GET', route: '/api/v1/flags', expect: everyone(401), request: () => ({ path: '/api/v1/flags' }) },
   { kind: 'route', method: 'GET', route: '/api/v1/openapi.json', expect: everyone(200), request: () => ({ path: '/api/v1/openapi.json' }) },
 
+  // ── schedules ──────────────────────────────────────────────────────────────────────────────────
+  {
+    kind: 'route',
+    method: 'POST',
+    route: '/api/schedules',
+    expect: signedIn(401, { viewer: 403, designer: 201, reviewer: 403, otherAdmin: 404, admin: 201 }),
+    request: (ctx) => ({ path: '/api/schedules', body: { projectId: ctx.projectId, name: ctx.unique('schedule') } }),
+  },
+  {
+    kind: 'route',
+    method: 'GET',
+    route: '/api/schedules/template',
+    expect: signedIn(401, { viewer: 200, designer: 200, reviewer: 200, otherAdmin: 200, admin: 200 }),
+    request: () => ({ path: '/api/schedules/template?format=csv' }),
+  },
+  {
+    kind: 'route',
+    method: 'GET',
+    route: '/api/schedules/[scheduleId]',
+    expect: signedIn(401, { viewer: 200, designer: 200, reviewer: 200, otherAdmin: 404, admin: 200 }),
+    request: async (ctx) => ({ path: `/api/schedules/${await teamASchedule(ctx)}` }),
+  },
+  {
+    kind: 'route',
+    method: 'POST',
+    route: '/api/schedules/[scheduleId]/file',
+    // A JSON body is not a file upload: 400 for those allowed to upload; team B 404 before the body is read.
+    expect: signedIn(401, { viewer: 403, designer: 400, reviewer: 403, otherAdmin: 404, admin: 400 }),
+    request: async (ctx) => ({ path: `/api/schedules/${await teamASchedule(ctx)}/file`, body: { file: 'not a file' } }),
+  },
+  {
+    kind: 'route',
+    method: 'GET',
+    route: '/api/schedules/[scheduleId]/file',
+    // The schedule has no file yet.
+    expect: signedIn(401, { viewer: 404, designer: 404, reviewer: 404, otherAdmin: 404, admin: 404 }),
+    request: async (ctx) => ({ path: `/api/schedules/${await teamASchedule(ctx)}/file` }),
+  },
+  {
+    kind: 'route',
+    method: 'POST',
+    route: '/api/schedules/[scheduleId]/queue',
+    // Nothing uploaded yet: 409 for those allowed to queue.
+    expect: signedIn(401, { viewer: 403, designer: 409, reviewer: 403, otherAdmin: 404, admin: 409 }),
+    request: async (ctx) => ({ path: `/api/schedules/${await teamASchedule(ctx)}/queue`, body: { dropBadRows: false } }),
+  },
+  {
+    kind: 'route',
+    method: 'GET',
+    route: '/api/schedules/[scheduleId]/progress',
+    expect: signedIn(401, { viewer: 200, designer: 200, reviewer: 200, otherAdmin: 404, admin: 200 }),
+    request: async (ctx) => ({ path: `/api/schedules/${await teamASchedule(ctx)}/progress` }),
+  },
+  {
+    kind: 'route',
+    method: 'GET',
+    route: '/api/schedules/[scheduleId]/results',
+    expect: signedIn(401, { viewer: 200, designer: 200, reviewer: 200, otherAdmin: 404, admin: 200 }),
+    request: async (ctx) => ({ path: `/api/schedules/${await teamASchedule(ctx)}/results` }),
+  },
+  {
+    kind: 'route',
+    method: 'POST',
+    route: '/api/schedules/[scheduleId]/rows/[rowNumber]/sheet',
+    // The draft schedule has no rows: 404 for those allowed to create sheets.
+    expect: signedIn(401, { viewer: 403, designer: 404, reviewer: 403, otherAdmin: 404, admin: 404 }),
+    request: async (ctx) => ({ path: `/api/schedules/${await teamASchedule(ctx)}/rows/2/sheet` }),
+  },
+
   // ── server actions ─────────────────────────────────────────────────────────────────────────────
   {
     kind: 'action',
@@ -288,16 +372,23 @@ export const ENDPOINT_MATRIX: MatrixEntry[] = [
     kind: 'action',
     file: 'app/(workspace)/projects/actions.ts',
     name: 'createProjectAction',
-    // Success ends in redirect() to the new project: 303.
-    expect: signedIn(401, { viewer: 403, designer: 303, reviewer: 403, otherAdmin: 303, admin: 303 }),
+    // Success ends in redirect() to the new project, which a fetch-style action call answers with 200 and an
+    // x-action-redirect header (303 is for a form posted without JavaScript).
+    expect: signedIn(401, { viewer: 403, designer: 200, reviewer: 403, otherAdmin: 200, admin: 200 }),
     args: (ctx) => [{}, formData({ name: ctx.unique('action project'), site: '', description: '' })],
   },
   {
     kind: 'action',
     file: 'app/(workspace)/projects/actions.ts',
     name: 'createSheetAction',
-    // Team B names team A's project: the action answers its form state "No such project." (200), creates nothing.
-    expect: signedIn(401, { viewer: 403, designer: 303, reviewer: 403, otherAdmin: 200, admin: 303 }),
+    // Team B names team A's project: the action answers its form state "No such project." (200) and creates
+    // nothing; the e2e test checks that no redirect to a new sheet came back.
+    expect: signedIn(401, { viewer: 403, designer: 200, reviewer: 403, otherAdmin: 200, admin: 200 }),
     args: (ctx) => [{}, formData({ projectId: ctx.projectId, circuitTag: ctx.unique('A').slice(0, 30), title: 'Action sheet', installation: 'cable-in-air' })],
+    check: ({ status, redirect }, actor) => {
+      if (status !== 200) return null;
+      if (actor === 'otherAdmin') return redirect ? `team B was sent on to ${redirect}` : null;
+      return redirect?.includes('/sheets/') ? null : `expected a redirect to the new sheet, got ${redirect}`;
+    },
   },
 ];
