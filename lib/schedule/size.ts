@@ -73,7 +73,8 @@ export interface ChosenSize {
   marginK: number | null;
   marginPercent: number | null;
   ampacityA: number;
-  utilisation: number;
+  /** Design current / ampacity; null when the ampacity is zero. */
+  utilisation: number | null;
   voltageDropV: number;
   voltageDropPercent: number;
   voltageDropLimitPercent: number | null;

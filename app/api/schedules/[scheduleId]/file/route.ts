@@ -1,4 +1,4 @@
-import { getScheduleFile, previewScheduleUpload } from '@/db/queries/schedules';
+import { getSchedule, getScheduleFile, previewScheduleUpload } from '@/db/queries/schedules';
 import { MAX_SCHEDULE_BYTES } from '@/lib/schedule';
 import { apiHandler, ApiError } from '@/server/http/api';
 import { scheduleOperation } from '../../_shared/scheduleApi';
@@ -10,6 +10,8 @@ export const POST = apiHandler({ permission: 'schedule:write' }, async (req, { u
   if (declared > MAX_SCHEDULE_BYTES + 64 * 1024) {
     throw new ApiError(413, 'file_too_large', `The upload is ${(declared / 1048576).toFixed(1)} MB; a schedule file may be at most ${MAX_SCHEDULE_BYTES / 1048576} MB. Split it into smaller schedules.`);
   }
+  // Another team's schedule answers 404 before its body is even read.
+  if (!(await getSchedule(user!.teamId, params.scheduleId))) throw new ApiError(404, 'not_found', 'No such schedule.');
   let form: FormData;
   try {
     form = await req.formData();

@@ -1,0 +1,29 @@
+import Link from 'next/link';
+import { listSchedulesForProject } from '@/db/queries/schedules';
+
+const STATE_WORDS = { draft: 'waiting for a file', queued: 'sizing', done: 'sized' } as const;
+
+/** The schedules of a project, for the project page. */
+export async function ProjectSchedules({ teamId, projectId, mayCreate }: { teamId: string; projectId: string; mayCreate: boolean }) {
+  const schedules = await listSchedulesForProject(teamId, projectId);
+  return (
+    <section aria-labelledby="project-schedules-heading" className="mt-6">
+      <h2 id="project-schedules-heading" className="font-semibold">Schedules</h2>
+      {schedules.length === 0 ? (
+        <p className="panel mt-2 p-4 text-ink-600">
+          No schedules yet. A schedule sizes a whole list of circuits from one file{mayCreate ? ': create one with the form beside this list.' : '; a designer of your team creates them.'}
+        </p>
+      ) : (
+        <ul className="panel mt-2 divide-y divide-ink-50">
+          {schedules.map((s) => (
+            <li key={s.id} className="flex flex-wrap items-baseline gap-3 px-3 py-2">
+              <Link href={`/schedules/${s.id}`} className="font-medium text-copper-700 hover:underline">{s.name}</Link>
+              <span className="text-caption text-ink-500">{s.fileName ?? 'no file yet'}</span>
+              <span className="num text-caption">{s.status === 'draft' ? STATE_WORDS.draft : `${s.sized} of ${s.rowCount} circuits ${STATE_WORDS[s.status]}`}</span>
+            </li>
+          ))}
+        </ul>
+      )}
+    </section>
+  );
+}
