@@ -67,6 +67,10 @@ fi
 setsid node --import tsx scripts/mail-catcher.ts --smtp-port "$SMTP_PORT" --http-port "$MAIL_HTTP_PORT" &
 PIDS+=($!)
 
+# One schedule worker (sizes uploaded schedules in the background; more can run, see README).
+setsid node --import tsx scripts/worker.ts >>"$DATA_DIR/worker.log" 2>&1 &
+PIDS+=($!)
+
 say "Ampwarden on http://localhost:$APP_PORT (Ctrl-C stops it; demo logins in README.md)"
 setsid node_modules/.bin/next start -p "$APP_PORT" -H 127.0.0.1 &
 PIDS+=($!)
