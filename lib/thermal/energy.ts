@@ -8,12 +8,19 @@ import { heatLeaving } from './boundary';
 import type { SolverContext } from './iterate';
 import { sourceDensity, type JouleCoefficients } from './source';
 
+/**
+ * Heat flows below 1e-12 W (per metre of cable or per m² of slab) have no physical meaning here;
+ * the balance is judged relative to the largest flow, but never to less than this, so that a body
+ * at rest (all flows ~0, or subnormal) does not fail the check on round-off.
+ */
+const ENERGY_SCALE_FLOOR_W = 1e-12;
+
 export interface EnergyBalance {
   generated: number;
   leavingInner: number;
   leavingOuter: number;
   stored: number;
-  /** |generated − leaving − stored| / largest term (0 when every term is 0). */
+  /** |generated − leaving − stored| / max(largest term, 1e-12 W). */
   residual: number;
 }
 
@@ -36,8 +43,14 @@ export function energyBalance(
   }
   const leavingInner = heatLeaving(ctx.inner, rises[0], surfaceInnerRise, reference);
   const leavingOuter = heatLeaving(ctx.outer, rises[n - 1], surfaceOuterRise, reference);
-  const scale = Math.max(Math.abs(generated), Math.abs(leavingInner), Math.abs(leavingOuter), Math.abs(stored));
+  // Absorbed (solar) heat enters through a surface and is netted into its "leaving" figure; it
+  // still belongs in the scale, or a sunlit body without current (net flows ≈ 0) could never pass.
+  let absorbed = 0;
+  for (const side of [ctx.inner, ctx.outer]) {
+    if (side.spec.kind === 'surface') absorbed += side.exchangeArea * side.spec.absorbedFlux;
+  }
+  const scale = Math.max(Math.abs(generated), Math.abs(leavingInner), Math.abs(leavingOuter), Math.abs(stored), absorbed, ENERGY_SCALE_FLOOR_W);
   const imbalance = Math.abs(generated - leavingInner - leavingOuter - stored);
-  const residual = scale > 0 ? imbalance / scale : 0;
+  const residual = imbalance / scale;
   return { generated, leavingInner, leavingOuter, stored, residual: Number.isFinite(residual) ? residual : Infinity };
 }

@@ -309,7 +309,10 @@ export function solveSteady(problem: ThermalProblem): SteadyResult {
   // climbed past the limit below the onset is not a runaway. With temperature-dependent
   // surroundings the limit defines the question (see bisectOnset).
   const temperatureDependent = source.kind === 'joule' && !onset && !hasLinearSurroundings(normalized);
-  if (temperatureDependent && (outcome.status === 'diverged' || !boundedBelowLimit(ctx, outcome))) {
+  // Runaway means growth past the limit (diverged) or a steady state above it — never merely an
+  // iteration that ran out of passes, which is reported as not converged below.
+  const unbounded = outcome.status === 'diverged' || (outcome.status === 'converged' && !boundedBelowLimit(ctx, outcome));
+  if (temperatureDependent && unbounded) {
     const found = bisectOnset(ctx, source.current, start);
     return unboundedResult(ctx, {
       iterations: outcome.iterations,

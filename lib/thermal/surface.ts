@@ -52,8 +52,9 @@ export function evaluateSurface(s: NormalizedSurface, surfaceTemperatureC: numbe
   let convSlope = s.fixedH;
   if (s.convection) {
     // Correlations are piecewise (property table, regime switches), so differentiate
-    // numerically; the step is small against any temperature difference that matters.
-    const step = Math.max(1e-3, 1e-4 * Math.abs(delta));
+    // numerically. The step shrinks with ΔT so that near ΔT = 0, where h itself vanishes for some
+    // correlations, the slope is that of the nearby curve and not of a chord across zero.
+    const step = 1e-4 * Math.abs(delta) + 1e-9;
     const downStep = Math.min(step, surfaceC - LOWEST_EVALUATION_C);
     const up = convectiveFlux(s, surfaceC + step, delta + step).flux;
     const down = convectiveFlux(s, surfaceC - downStep, delta - downStep).flux;

@@ -99,6 +99,17 @@ describe('cableProblem', () => {
     expect(s.correlation).toMatch(/Churchill–Bernstein/);
   });
 
+  it('a sunlit cable carrying no current settles above ambient, with no runaway (regression)', () => {
+    // Net flows are ~0 here (absorbed = lost); the energy balance must be scaled by the gross flow.
+    for (const currentA of [0, 1]) {
+      const r = solveSteady(cableProblem(cable240({ kind: 'air', ambientC: 30, emissivity: 0.9, convection: { kind: 'horizontal-cylinder' }, solarWPerM2: 900, absorptivity: 0.5 }, currentA)));
+      expect(r.converged).toBe(true);
+      expect(r.runaway).toBeUndefined();
+      expect(r.hotSpot.temperature).toBeGreaterThan(35);
+      expect(r.energyResidual).toBeLessThan(1e-6);
+    }
+  });
+
   it('IEC free-air surface: emissivity set aside and said so', () => {
     const p = cableProblem(cable240({ kind: 'air', ambientC: 30, emissivity: 0.9, convection: { kind: 'iec-60287-free-air' } }));
     expect(p.outer).toMatchObject({ kind: 'surface', emissivity: 0 });

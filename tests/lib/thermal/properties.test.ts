@@ -26,7 +26,7 @@ const sourceArb: fc.Arbitrary<Source> = fc.oneof(
   fc.record({ kind: fc.constant('uniform' as const), q: logBetween(1, 1e7) }),
   fc.record({
     kind: fc.constant('joule' as const),
-    current: between(0.1, 3000),
+    current: fc.oneof(fc.constant(0), logBetween(1e-3, 3000)),
     area: logBetween(1e-6, 1e-3),
     rho20: logBetween(1e-9, 1e-7),
     alpha20: between(0, 5e-3),
@@ -47,10 +47,13 @@ function convectionArb(cylinderOuter: boolean): fc.Arbitrary<ConvectionSpec> {
   return fc.oneof(...(cylinderOuter ? [...plates, ...cylinders] : plates));
 }
 
+/** Absorbed (solar) flux: none most of the time, sometimes up to 1 kW/m². */
+const absorbedArb = fc.oneof(fc.constant(0), logBetween(1e-3, 1000));
+
 function surfaceArb(ambient: number, cylinderOuter: boolean): fc.Arbitrary<Boundary> {
   return fc.oneof(
-    fc.record({ kind: fc.constant('surface' as const), ambient: fc.constant(ambient), h: logBetween(0.5, 200), emissivity: between(0, 1) }),
-    fc.record({ kind: fc.constant('surface' as const), ambient: fc.constant(ambient), emissivity: between(0, 1), convection: convectionArb(cylinderOuter) }),
+    fc.record({ kind: fc.constant('surface' as const), ambient: fc.constant(ambient), h: logBetween(0.5, 200), emissivity: between(0, 1), absorbedFlux: absorbedArb }),
+    fc.record({ kind: fc.constant('surface' as const), ambient: fc.constant(ambient), emissivity: between(0, 1), convection: convectionArb(cylinderOuter), absorbedFlux: absorbedArb }),
     cylinderOuter
       ? fc.constant<Boundary>({ kind: 'surface', ambient, convection: { kind: 'iec-60287-free-air' } })
       : fc.constant<Boundary>({ kind: 'surface', ambient, h: 10 }),
@@ -104,7 +107,11 @@ describe('random valid problems', () => {
           expect(r.temperatures.length).toBe(r.positions.length);
           for (const t of r.temperatures) expect(Number.isFinite(t)).toBe(true);
           expect(r.energyResidual).toBeLessThanOrEqual(1e-6);
-          expect(r.hotSpot.temperature).toBeGreaterThan(ambient);
+          // Something heats the body unless it is a Joule source at 0 A with no sun and no flux in.
+          const absorbed = [problem.inner, problem.outer].some((b) => b.kind === 'surface' && (b.absorbedFlux ?? 0) > 0);
+          const heats = problem.source.kind === 'uniform' || problem.source.current > 0 || absorbed || problem.inner.kind === 'flux';
+          if (heats) expect(r.hotSpot.temperature).toBeGreaterThan(ambient);
+          else expect(Math.abs(r.hotSpot.temperature - ambient)).toBeLessThan(1e-9);
           expect(r.runaway).toBeUndefined();
         } else {
           // Only a temperature-dependent (Joule) source may fail to have a steady state.

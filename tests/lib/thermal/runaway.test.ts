@@ -101,6 +101,23 @@ describe('conductor with R(T) behind a constant R_th (references.md closed form)
   });
 });
 
+describe('an iteration that runs out of passes is not a runaway', () => {
+  it('reports not converged, no runaway, no temperatures, the last iterate for diagnosis', () => {
+    const r = solveSteady({
+      ...conductorProblem(0.5 * iRunaway),
+      outer: { kind: 'surface', ambient: 30, emissivity: 0.9, convection: { kind: 'horizontal-cylinder' } },
+      options: { maxIterations: 1 },
+    });
+    expect(r.converged).toBe(false);
+    expect(r.runaway).toBeUndefined();
+    expect(r.temperatures).toEqual([]);
+    expect(r.hotSpot.temperature).toBe(Infinity);
+    expect(r.lastIterate).toHaveLength(80);
+    expect(r.flags.some((f) => f.code === 'not-converged')).toBe(true);
+    expect(findNaN(r)).toBeUndefined();
+  });
+});
+
 describe('runaway with temperature-dependent surroundings (bisection on current)', () => {
   // Natural convection alone (no radiation): at large rises h stops growing (air properties held
   // at the table's end, β = 1/T_film falling), so Joule heating, growing linearly with T, wins.
