@@ -65,7 +65,7 @@ function toRecords(fileName: string, headerCells: unknown[], body: Array<{ row: 
     throw new ScheduleFileRefusal(400, 'no_rows', `"${fileName}" has no header row. The first row must name the columns; download the template.`);
   }
   const missing = SCHEDULE_COLUMNS.filter((c) => c.required && !headers.includes(normaliseHeader(c.header))).map((c) => c.header);
-  const unknown = headers.filter((h) => h !== '' && !columnByHeader(h));
+  const unknown = [...new Set(headers.filter((h) => h !== '' && !columnByHeader(h)))];
   const duplicated = [...new Set(headers.filter((h, i) => h !== '' && headers.indexOf(h) !== i))];
   const parts: string[] = [];
   if (missing.length) parts.push(`missing column${missing.length > 1 ? 's' : ''}: ${missing.join(', ')}`);
