@@ -391,7 +391,7 @@ function evaluateInContext(ctx: Context, index: number): CandidateEvaluationOk {
     marginK,
     marginPercent,
     ampacityA,
-    utilisation: ampacityA > 0 ? cond.designCurrentA / ampacityA : cond.designCurrentA > 0 ? null : 0,
+    utilisation: ampacityA > 0 ? cond.designCurrentA / ampacityA : cond.designCurrentA > 0 ? Number.MAX_VALUE : 0,
     acFactor: design.acFactor,
     conductorC,
     resistanceOhmPerM,

@@ -275,8 +275,12 @@ export interface CandidateEvaluationOk {
   /** Margin as a share of the allowed rise (limit − ambient), %. */
   marginPercent: number | null;
   ampacityA: number;
-  /** Design current / ampacity (null when the ampacity is zero and current is asked for). */
-  utilisation: number | null;
+  /**
+   * Design current / ampacity. When no current at all is allowed (ampacity 0) but some is asked
+   * for, Number.MAX_VALUE: a finite number that still reads as "over" to any `> 1` check
+   * (OVER_LIMIT is raised too).
+   */
+  utilisation: number;
   acFactor: number;
   /** Mean conductor temperature at the design current, °C (null on runaway). */
   conductorC: number | null;
