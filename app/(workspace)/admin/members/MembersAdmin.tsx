@@ -69,7 +69,7 @@ export function MembersAdmin({ currentUserId, members, invitations }: { currentU
     <div className="mt-6 space-y-8">
       <div aria-live="polite">{message ? <FormMessage tone={message.tone}>{message.text}</FormMessage> : null}</div>
 
-      <form onSubmit={onInvite} className="panel grid gap-4 p-5 sm:grid-cols-[2fr_1fr_auto] sm:items-end" aria-labelledby="invite-heading">
+      <form onSubmit={onInvite} className="panel grid gap-4 p-5 sm:grid-cols-[3fr_2fr_auto] sm:items-end" aria-labelledby="invite-heading">
         <h2 id="invite-heading" className="text-lead font-semibold sm:col-span-3">
           Invite someone
         </h2>
