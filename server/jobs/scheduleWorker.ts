@@ -20,6 +20,7 @@ export interface BatchReport {
   completed: boolean;
 }
 
+const FAMILIES_CACHE_SIZE = 20;
 const familiesCache = new Map<string, Awaited<ReturnType<typeof loadScheduleForWorker>>>();
 
 /** Sizes and stores one batch; safe to run again for the same batch (already stored rows are skipped). */
@@ -29,7 +30,11 @@ export async function processScheduleBatch(job: ScheduleBatchJob, workerId: stri
   if (!schedule) {
     schedule = await loadScheduleForWorker(job.scheduleId);
     // Families are frozen once queued, so they can be kept for the life of the process.
-    if (schedule && schedule.status !== 'draft') familiesCache.set(job.scheduleId, schedule);
+    if (schedule && schedule.status !== 'draft') {
+      familiesCache.set(job.scheduleId, schedule);
+      // Keep the few schedules in hand, not every schedule a long-lived worker has seen.
+      if (familiesCache.size > FAMILIES_CACHE_SIZE) familiesCache.delete(familiesCache.keys().next().value as string);
+    }
   }
   if (!schedule || schedule.teamId !== job.teamId) {
     // The schedule was deleted (or the job is not what it claims): nothing to size.
