@@ -29,7 +29,12 @@ export function displayNumber(value: unknown, column: ColumnSpec, units: UnitSys
 /** Text of a decimal cell: the stored decimal exactly in SI; four significant figures when converted. */
 export function formatDecimalCell(value: unknown, column: ColumnSpec, units: UnitSystem): string {
   if (value === null || value === undefined || value === '') return '';
-  if (!column.quantity || units === 'si') return new Decimal(String(value)).toString();
+  if (!column.quantity || units === 'si') {
+    // As stored (keeps the figures the source gives), except long runs of zeros, shown with an exponent.
+    const text = String(value);
+    const decimal = new Decimal(text);
+    return !decimal.isZero() && decimal.abs().lt('0.0001') ? decimal.toString() : text;
+  }
   const shown = displayNumber(value, column, units);
   return shown === null ? '' : formatNumber(shown, 4);
 }

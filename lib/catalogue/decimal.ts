@@ -62,8 +62,20 @@ export function decimalField(bounds: DecimalBounds = {}) {
       ctx.addIssue({ code: 'custom', message: outOfRange });
       return z.NEVER;
     }
-    return parsed.value.toFixed();
+    return plainDecimalText(raw, parsed.value);
   });
+}
+
+/**
+ * The stored text: a plain decimal as typed (so that '0.320' keeps the three figures a table
+ * gives), anything else (exponents, numbers) in plain positional notation.
+ */
+function plainDecimalText(raw: unknown, value: Decimal): string {
+  if (typeof raw === 'string') {
+    const text = raw.trim().replace(/^\+/, '');
+    if (/^-?\d+(\.\d+)?$/.test(text)) return text.replace(/^(-?)0+(?=\d)/, '$1');
+  }
+  return value.toFixed();
 }
 
 /** An optional decimal: an empty cell gives null. */
@@ -80,7 +92,7 @@ export function optionalDecimalField(bounds: DecimalBounds = {}) {
       ctx.addIssue({ code: 'custom', message: outOfRange });
       return z.NEVER;
     }
-    return parsed.value.toFixed();
+    return plainDecimalText(raw, parsed.value);
   });
 }
 

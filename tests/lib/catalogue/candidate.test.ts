@@ -37,7 +37,7 @@ describe('cable build → CableCandidate', () => {
   it('carries every source and notices "from memory"', () => {
     expect(candidate.sourceNotes).toContain('240 mm² R₂₀: IEC 60228 Table 2, class 2, maximum at 20 °C (from memory, as listed in references.md)');
     expect(candidate.dataFromMemory).toBe(true);
-    expect(candidate.costs?.conductorPricePerKg).toBe('9.5');
+    expect(candidate.costs?.conductorPricePerKg).toBe('9.50');
   });
   it('is accepted by the sizing library', () => {
     const conditions: Conditions = {

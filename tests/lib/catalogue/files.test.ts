@@ -86,7 +86,7 @@ describe('export → import round trip', () => {
     const { rows, problems } = validateRecords('coverings', await readCatalogueFile('coverings', 'x.csv', encode(csv)));
     expect(problems).toEqual([]);
     expect(rows.map((r) => r.value.key)).toEqual(STANDARD_COVERINGS.map((c) => c.key));
-    expect(rows[0].value.thermalResistivityKmPerW).toBe('5');
+    expect(rows[0].value.thermalResistivityKmPerW).toBe('5.0');
   });
   it('XLSX too (numbers as spreadsheet numbers)', async () => {
     const bytes = await writeXlsx('coverings', STANDARD_COVERINGS);
