@@ -2,6 +2,7 @@ import Link from 'next/link';
 import { redirect } from 'next/navigation';
 import { AuthFrame } from '@/components/auth/AuthFrame';
 import { getSessionUser } from '@/server/auth/session';
+import { isSafeLocalPath } from '@/server/http/localPath';
 import { SignInForm } from './SignInForm';
 
 export const metadata = { title: 'Sign in' };
@@ -9,7 +10,7 @@ export const metadata = { title: 'Sign in' };
 /** Only paths of this app, never another site, are followed after signing in. */
 function safeNext(next: string | string[] | undefined): string {
   const value = Array.isArray(next) ? next[0] : next;
-  return value && value.startsWith('/') && !value.startsWith('//') && !value.startsWith('/sign-in') ? value : '/projects';
+  return isSafeLocalPath(value) && !value.startsWith('/sign-in') ? value : '/projects';
 }
 
 export default async function SignInPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {

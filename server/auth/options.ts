@@ -6,6 +6,7 @@
 import type { NextAuthOptions } from 'next-auth';
 import CredentialsProvider from 'next-auth/providers/credentials';
 import { clientAddressFrom } from '@/server/limits/signIn';
+import { isSafeLocalPath } from '@/server/http/localPath';
 import { SESSION_MAX_AGE_S, sessionCookieName, usesSecureCookies } from './cookies';
 import { LIMITED_PREFIX, verifySignIn } from './credentials';
 
@@ -56,8 +57,12 @@ export function authOptions(): NextAuthOptions {
         return { ...session, user: { name: session.user?.name, email: session.user?.email }, role: token.role } as typeof session;
       },
       async redirect({ url, baseUrl }) {
-        if (url.startsWith('/') && !url.startsWith('//')) return `${baseUrl}${url}`;
-        return new URL(url).origin === baseUrl ? url : `${baseUrl}/projects`;
+        if (isSafeLocalPath(url)) return `${baseUrl}${url}`;
+        try {
+          return new URL(url).origin === new URL(baseUrl).origin ? url : `${baseUrl}/projects`;
+        } catch {
+          return `${baseUrl}/projects`;
+        }
       },
     },
   };

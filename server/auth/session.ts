@@ -10,6 +10,7 @@ import { decode } from 'next-auth/jwt';
 import { findSessionRow } from '@/db/queries/members';
 import { can, isRole, type Permission, type Role } from './permissions';
 import { sessionCookieName } from './cookies';
+import { isSafeLocalPath } from '@/server/http/localPath';
 
 export interface SessionUser {
   id: string;
@@ -78,7 +79,7 @@ export async function requirePageUser(permission?: Permission): Promise<SessionU
   const user = await getSessionUser();
   if (!user) {
     const back = (await headers()).get('x-ampwarden-path');
-    redirect(back && back.startsWith('/') && !back.startsWith('//') ? `/sign-in?next=${encodeURIComponent(back)}` : '/sign-in');
+    redirect(isSafeLocalPath(back) ? `/sign-in?next=${encodeURIComponent(back)}` : '/sign-in');
   }
   if (permission && !can(user.role, permission)) forbidden();
   return user;
