@@ -15,6 +15,7 @@
  */
 
 import { defaultSheetInputs } from '@/lib/sheet';
+import { EXAMPLE_AMPACITY_REQUEST, EXAMPLE_EVALUATE_REQUEST } from '@/lib/api/examples';
 
 export const ACTORS = ['anonymous', 'viewer', 'designer', 'reviewer', 'otherAdmin', 'admin'] as const;
 export type Actor = (typeof ACTORS)[number];
@@ -105,6 +106,42 @@ function teamASchedule(ctx: MatrixContext): Promise<string> {
     scheduleOfTeamA.set(ctx.teamId, pending);
   }
   return pending;
+}
+
+/**
+ * Team API tokens for the /api/v1 rows, made once per run. The API takes tokens, not sessions (the
+ * signed-in actors' cookies ride along and open nothing), so there the actors stand for token holders:
+ * anonymous → no token (401); viewer → team A's read-only token (403 on calculations); designer → team
+ * A's calc-only token (403 on the read endpoint); reviewer → team A's revoked token (401); otherAdmin →
+ * team B's own read+calc token (200: a calculation touches no team's rows); admin → no token, only the
+ * admin's session cookie (401).
+ */
+const v1TokensOfRun = new Map<string, Promise<Partial<Record<Actor, string>>>>();
+function v1Tokens(ctx: MatrixContext): Promise<Partial<Record<Actor, string>>> {
+  let pending = v1TokensOfRun.get(ctx.teamId);
+  if (!pending) {
+    pending = Promise.all([import('@/server/apiTokens/manage'), import('@/db/queries/apiTokens')]).then(async ([{ createTeamApiToken }, { revokeApiToken }]) => {
+      const make = (teamId: string, by: string, scopes: ('read' | 'calc')[]) => createTeamApiToken(teamId, by, { name: ctx.unique('matrix token'), scopes });
+      const readOnly = await make(ctx.teamId, ctx.users.admin.id, ['read']);
+      const calcOnly = await make(ctx.teamId, ctx.users.admin.id, ['calc']);
+      const revoked = await make(ctx.teamId, ctx.users.admin.id, ['read', 'calc']);
+      await revokeApiToken(ctx.teamId, ctx.users.admin.id, revoked.id);
+      const teamB = await make(ctx.otherTeamId, ctx.users.otherAdmin.id, ['read', 'calc']);
+      return { viewer: readOnly.token, designer: calcOnly.token, reviewer: revoked.token, otherAdmin: teamB.token };
+    });
+    v1TokensOfRun.set(ctx.teamId, pending);
+  }
+  return pending;
+}
+async function v1Request(ctx: MatrixContext, actor: Actor, path: string, body?: unknown): Promise<RouteRequest> {
+  const token = (await v1Tokens(ctx))[actor];
+  return { path, body, headers: token ? { authorization: `Bearer ${token}` } : undefined };
+}
+
+/** A fresh active API token of team A, to revoke. */
+async function freshApiToken(ctx: MatrixContext): Promise<string> {
+  const { createTeamApiToken } = await import('@/server/apiTokens/manage');
+  return (await createTeamApiToken(ctx.teamId, ctx.users.admin.id, { name: ctx.unique('matrix revoke'), scopes: ['calc'] })).id;
 }
 
 export const ENDPOINT_MATRIX: MatrixEntry[] = [
@@ -286,9 +323,29 @@ export const ENDPOINT_MATRIX: MatrixEntry[] = [
   },
 
   // ── calculation API v1: bearer team tokens only; a browser session opens none of it ───────────
-  { kind: 'route', method: 'POST', route: '/api/v1/evaluate', expect: everyone(401), request: () => ({ path: '/api/v1/evaluate', body: {} }) },
-  { kind: 'route', method: 'POST', route: '/api/v1/ampacity', expect: everyone(401), request: () => ({ path: '/api/v1/ampacity', body: {} }) },
-  { kind: 'route', method: 'GET', route: '/api/v1/flags', expect: everyone(401), request: () => ({ path: '/api/v1/flags' }) },
+  // The actors stand for token holders here (see v1Tokens): no token, team A's read-only token, team A's
+  // calc-only token, team A's revoked token, team B's own token, and the admin's session cookie alone.
+  {
+    kind: 'route',
+    method: 'POST',
+    route: '/api/v1/evaluate',
+    expect: { anonymous: 401, viewer: 403, designer: 200, reviewer: 401, otherAdmin: 200, admin: 401 },
+    request: (ctx, actor) => v1Request(ctx, actor, '/api/v1/evaluate', EXAMPLE_EVALUATE_REQUEST),
+  },
+  {
+    kind: 'route',
+    method: 'POST',
+    route: '/api/v1/ampacity',
+    expect: { anonymous: 401, viewer: 403, designer: 200, reviewer: 401, otherAdmin: 200, admin: 401 },
+    request: (ctx, actor) => v1Request(ctx, actor, '/api/v1/ampacity', EXAMPLE_AMPACITY_REQUEST),
+  },
+  {
+    kind: 'route',
+    method: 'GET',
+    route: '/api/v1/flags',
+    expect: { anonymous: 401, viewer: 200, designer: 403, reviewer: 401, otherAdmin: 200, admin: 401 },
+    request: (ctx, actor) => v1Request(ctx, actor, '/api/v1/flags'),
+  },
   { kind: 'route', method: 'GET', route: '/api/v1/openapi.json', expect: everyone(200), request: () => ({ path: '/api/v1/openapi.json' }) },
 
   // ── schedules ──────────────────────────────────────────────────────────────────────────────────
@@ -390,5 +447,21 @@ export const ENDPOINT_MATRIX: MatrixEntry[] = [
       if (actor === 'otherAdmin') return redirect ? `team B was sent on to ${redirect}` : null;
       return redirect?.includes('/sheets/') ? null : `expected a redirect to the new sheet, got ${redirect}`;
     },
+  },
+  {
+    kind: 'action',
+    file: 'app/(workspace)/admin/tokens/actions.ts',
+    name: 'createApiTokenAction',
+    // Team B's admin makes a token of team B (the session's team), never one of team A.
+    expect: signedIn(401, { viewer: 403, designer: 403, reviewer: 403, otherAdmin: 200, admin: 200 }),
+    args: (ctx) => [{}, formData({ name: ctx.unique('action token'), scopes: 'calc', requestsPerMinute: '60', expiresInDays: '' })],
+    check: ({ status, text }) => (status === 200 && !/awt_[A-Za-z0-9_-]{43}/.test(text) ? 'the new token was not shown once' : null),
+  },
+  {
+    kind: 'action',
+    file: 'app/(workspace)/admin/tokens/actions.ts',
+    name: 'revokeApiTokenAction',
+    expect: signedIn(401, { viewer: 403, designer: 403, reviewer: 403, otherAdmin: 404, admin: 200 }),
+    args: async (ctx) => [{}, formData({ tokenId: await freshApiToken(ctx) })],
   },
 ];
