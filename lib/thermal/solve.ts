@@ -38,6 +38,26 @@ function referenceTemperature(b: NormalizedBoundary): number | undefined {
   return undefined;
 }
 
+/**
+ * The temperature of a body with no heat input (no source, no absorbed or imposed flux) whose
+ * boundaries all refer to one temperature; undefined when anything drives heat.
+ */
+function undrivenTemperature(problem: NormalizedProblem): number | undefined {
+  const s = problem.source;
+  if ((s.kind === 'uniform' && s.q !== 0) || (s.kind === 'joule' && s.current !== 0)) return undefined;
+  const refs: number[] = [];
+  for (const b of [problem.inner, problem.outer]) {
+    if (b.kind === 'flux' && b.value !== 0) return undefined;
+    if (b.kind === 'temperature') refs.push(b.value);
+    if (b.kind === 'surface') {
+      if (b.absorbedFlux !== 0) return undefined;
+      refs.push(b.ambient);
+      if (b.emissivity > 0) refs.push(b.surroundings);
+    }
+  }
+  return refs.length > 0 && refs.every((t) => t === refs[0]) ? refs[0] : undefined;
+}
+
 /** Starting field for a steady solve: the mean of the boundaries' reference temperatures. */
 function steadyStart(problem: NormalizedProblem, n: number): Float64Array {
   const refs = [referenceTemperature(problem.inner), referenceTemperature(problem.outer)].filter(
@@ -302,7 +322,12 @@ export function solveSteady(problem: ThermalProblem): SteadyResult {
   }
 
   const start = steadyStart(normalized, n);
-  const outcome = iterate(ctx, { start });
+  // With nothing driving heat, the steady state is the one reference temperature everywhere;
+  // linearising the surfaces there (instead of 10 K above) lets one pass confirm it, where a
+  // Newton iteration towards ΔT = 0 — a root at which h itself vanishes for some correlations —
+  // would only creep.
+  const undriven = undrivenTemperature(normalized);
+  const outcome = iterate(ctx, undriven === undefined ? { start } : { start, surfaceStart: { inner: undriven, outer: undriven } });
 
   // With fixed surroundings the eigenvalue test above has already settled existence, exactly;
   // such a result is reported even above the limit (flagged), and a lagged iteration that

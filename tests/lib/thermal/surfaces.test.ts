@@ -228,6 +228,17 @@ describe('solver surface boundary', () => {
     expect(r.flags.some((f) => f.code === 'correlation-out-of-range')).toBe(true);
   });
 
+  it('with nothing driving heat the body sits at ambient (h → 0 at ΔT → 0 for a horizontal plate)', () => {
+    const r = solveSteady({
+      geometry: { kind: 'slab', layers: [{ thickness: 0.01, conductivity: 1, generating: true }] },
+      source: { kind: 'joule', current: 0, area: 1e-4, rho20: 1.7e-8, alpha20: 4e-3 },
+      inner: { kind: 'symmetry' },
+      outer: { kind: 'surface', ambient: 12, convection: { kind: 'horizontal-plate', facing: 'up', length: 0.05 } },
+    });
+    expect(r.converged).toBe(true);
+    for (const t of r.temperatures) expect(t).toBe(12);
+  });
+
   it('absorbed (solar) flux raises the surface and closes the balance', () => {
     const base = solveSteady(cableWithSurface({ kind: 'surface', ambient: 30, h: 10 }));
     const sunny = solveSteady(cableWithSurface({ kind: 'surface', ambient: 30, h: 10, absorbedFlux: 100 }));
