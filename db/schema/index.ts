@@ -5,3 +5,4 @@ export * from './catalogue';
 export * from './sheets';
 export * from './schedules';
 export * from './apiTokens';
+export * from './shares';
