@@ -35,6 +35,9 @@ import type { NormalizedBoundary, NormalizedProblem } from './validate';
  */
 const TANGENT_PIVOT_MARGIN = 1e-9;
 
+/** Relative change treated as round-off when rises are huge (a few thousand ulps). */
+const ROUND_OFF_RELATIVE = 1e-12;
+
 /** Consecutive rising passes above the temperature limit that count as divergence. */
 const DIVERGENCE_STREAK = 3;
 
@@ -295,7 +298,12 @@ export function iterate(ctx: SolverContext, args: IterateArgs): IterationOutcome
     const ratio = delta / previousDelta;
     const errorEstimate = ratio < 1 ? (delta * ratio) / (1 - ratio) : Infinity;
     previousDelta = delta;
-    const settled = exact || (delta < options.tolerance && (errorEstimate < options.tolerance || delta < 1e-3 * options.tolerance));
+    // 1e-6 K, or round-off where rises are so large (absurd, but valid input) that 1e-6 K is
+    // below the resolution of a double.
+    let largest = 0;
+    for (let i = 0; i < n; i++) largest = Math.max(largest, Math.abs(rises[i]));
+    const tolerance = Math.max(options.tolerance, ROUND_OFF_RELATIVE * largest);
+    const settled = exact || (delta < tolerance && (errorEstimate < tolerance || delta < 1e-3 * tolerance));
     if (settled) {
       const outcome = finish('converged', iteration);
       if (outcome.energy.residual <= options.energyTolerance) return outcome;

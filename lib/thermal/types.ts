@@ -251,7 +251,10 @@ export interface SteadyResult {
   hotSpot: { temperature: number; position: number };
   iterations: number;
   converged: boolean;
-  /** |generated − leaving − stored| / largest term; +Infinity when not converged. */
+  /**
+   * |generated − leaving − stored| divided by the largest flow (absorbed heat included, never
+   * less than 1e-12 W); +Infinity when not converged.
+   */
   energyResidual: number;
   runaway?: RunawayReport;
 
