@@ -1,0 +1,290 @@
+/**
+ * The sizing sheet as plain tables — inputs with units, candidates, the chosen candidate's results,
+ * the method and standards — shared by the share view, the PDF and the candidate exports so that all
+ * three print the same words and the same numbers from the saved snapshot. Pure TypeScript (no
+ * React, no server code): the browser and the server both use it. SI units, as stored.
+ */
+import type { CandidateEvaluation, CandidateEvaluationOk } from '@/lib/electrical/sizing/types';
+import { describeArrangement, sectionPerPhaseMm2, type SheetCandidate } from '@/lib/sheet/candidates';
+import type { SheetInputs } from '@/lib/sheet/schema';
+import type { ResultSnapshot } from '@/lib/sheet/snapshot';
+import { formatNumber, formatQuantity } from '@/lib/units';
+
+export interface InputRow {
+  section: string;
+  label: string;
+  value: string;
+  unit: string;
+}
+
+const INSTALLATION_WORDS: Record<SheetInputs['installation']['kind'], string> = {
+  'bar-on-edge': 'Bars on edge in air',
+  'bar-flat': 'Bars laid flat in air',
+  'cable-in-air': 'Cables in free air',
+  buried: 'Cables buried in the ground',
+  enclosure: 'In an enclosure',
+};
+
+const n = (value: number, digits = 4) => formatNumber(value, digits);
+const orAssumed = (value: number | null, digits = 4) => (value === null ? 'not entered (assumed, flagged)' : n(value, digits));
+
+/** Every input of the circuit with its unit, in the order of the inputs form. */
+export function inputRows(inputs: SheetInputs): InputRow[] {
+  const { circuit, fault, environment, installation, limits, economics } = inputs;
+  const rows: InputRow[] = [
+    { section: 'Circuit', label: 'Design current', value: n(circuit.designCurrentA), unit: 'A' },
+    { section: 'Circuit', label: 'Voltage U0 (line to neutral)', value: n(circuit.nominalVoltageV), unit: 'V' },
+    { section: 'Circuit', label: 'Phases', value: String(circuit.phases), unit: '' },
+    { section: 'Circuit', label: 'Frequency', value: circuit.frequencyHz === 0 ? '0 (DC)' : n(circuit.frequencyHz), unit: 'Hz' },
+    { section: 'Circuit', label: 'Route length', value: n(circuit.lengthM), unit: 'm' },
+    { section: 'Circuit', label: 'Power factor', value: n(circuit.powerFactor, 3), unit: '' },
+    { section: 'Circuit', label: 'Allowed voltage drop', value: circuit.maxVoltageDropPercent === null ? 'none set' : n(circuit.maxVoltageDropPercent, 3), unit: '%' },
+    {
+      section: 'Circuit',
+      label: 'Reactance',
+      value: circuit.reactanceOhmPerM === null ? 'not entered (0.08 default, flagged)' : n(circuit.reactanceOhmPerM * 1000, 4),
+      unit: 'mΩ/m',
+    },
+    { section: 'Fault', label: 'Short circuit checked', value: fault.checked ? 'yes' : 'no', unit: '' },
+  ];
+  if (fault.checked) {
+    rows.push(
+      { section: 'Fault', label: 'Prospective fault current', value: n(fault.currentA), unit: 'A' },
+      { section: 'Fault', label: 'Clearing time', value: n(fault.durationS, 3), unit: 's' },
+    );
+  }
+  rows.push(
+    { section: 'Surroundings', label: 'Ambient', value: orAssumed(environment.ambientC), unit: '°C' },
+    { section: 'Surroundings', label: 'Air speed', value: n(environment.windSpeedMPerS, 3), unit: 'm/s' },
+    { section: 'Surroundings', label: 'Outdoors in sun', value: environment.outdoorSun ? 'yes' : 'no', unit: '' },
+  );
+  if (environment.outdoorSun) {
+    rows.push(
+      { section: 'Surroundings', label: 'Sun irradiance', value: n(environment.irradianceWPerM2), unit: 'W/m²' },
+      { section: 'Surroundings', label: 'Solar absorptivity', value: orAssumed(environment.solarAbsorptivity, 3), unit: '' },
+    );
+  }
+  rows.push({ section: 'Installation', label: 'Installation', value: INSTALLATION_WORDS[installation.kind], unit: '' });
+  if (installation.kind === 'cable-in-air' || installation.kind === 'buried' || (installation.kind === 'enclosure' && installation.enclosureInside === 'cable-in-air')) {
+    rows.push(
+      { section: 'Installation', label: 'Formation', value: installation.formation, unit: '' },
+      { section: 'Installation', label: 'Cable spacing (axis to axis)', value: installation.spacingM === null ? 'touching' : n(installation.spacingM * 1000), unit: 'mm' },
+    );
+  }
+  if (installation.kind === 'buried') {
+    rows.push(
+      { section: 'Installation', label: 'Depth of the cable axis', value: n(installation.depthM, 3), unit: 'm' },
+      { section: 'Installation', label: 'Soil thermal resistivity', value: orAssumed(installation.soilResistivityKmPerW, 3), unit: 'K·m/W' },
+      { section: 'Installation', label: 'Ground temperature', value: orAssumed(installation.groundC), unit: '°C' },
+    );
+  }
+  if (installation.kind === 'enclosure') {
+    rows.push(
+      { section: 'Installation', label: 'Inside the enclosure', value: INSTALLATION_WORDS[installation.enclosureInside], unit: '' },
+      { section: 'Installation', label: 'Enclosure derating', value: n(installation.enclosureDerating, 3), unit: '' },
+    );
+  }
+  rows.push(
+    { section: 'Limits', label: 'Own temperature limit', value: limits.temperatureLimitC === null ? 'none (material limits govern)' : n(limits.temperatureLimitC), unit: '°C' },
+    { section: 'Limits', label: 'Own limit replaces material limits', value: limits.raiseMaterialLimit ? 'yes' : 'no', unit: '' },
+    { section: 'Limits', label: 'Grouping factor', value: n(limits.groupingFactor, 3), unit: '' },
+    { section: 'Life-cycle cost', label: 'Included', value: economics.included ? 'yes' : 'no', unit: '' },
+  );
+  if (economics.included) {
+    rows.push(
+      { section: 'Life-cycle cost', label: 'Loss load factor', value: n(economics.lossLoadFactor, 3), unit: '' },
+      { section: 'Life-cycle cost', label: 'Hours per year', value: n(economics.hoursPerYear), unit: 'h' },
+      { section: 'Life-cycle cost', label: 'Energy price', value: economics.energyPricePerKWh, unit: 'per kWh' },
+      { section: 'Life-cycle cost', label: 'Discount rate', value: n(economics.discountRatePercent, 3), unit: '%' },
+      { section: 'Life-cycle cost', label: 'Years', value: String(economics.years), unit: 'years' },
+      { section: 'Life-cycle cost', label: 'Load growth', value: n(economics.loadGrowthPercent, 3), unit: '% a year' },
+      { section: 'Life-cycle cost', label: 'Energy price growth', value: n(economics.energyPriceGrowthPercent, 3), unit: '% a year' },
+    );
+  }
+  return rows;
+}
+
+/** One candidate of the comparison with its saved result; numbers unrounded (the snapshot's own). */
+export interface CandidateRecord {
+  id: string;
+  label: string;
+  kind: 'cable' | 'bar';
+  material: string;
+  arrangement: string;
+  sectionPerPhaseMm2: number;
+  chosen: boolean;
+  evaluated: boolean;
+  state: string;
+  passes: boolean | null;
+  hotSpotC: number | null;
+  limitC: number | null;
+  limitSource: string | null;
+  marginK: number | null;
+  marginPercent: number | null;
+  ampacityA: number | null;
+  utilisationPercent: number | null;
+  lossWPerM: number | null;
+  voltageDropPercent: number | null;
+  shortCircuit: string;
+  massKg: number | null;
+  materialCost: string | null;
+  lifeCycleCost: string | null;
+  flagCodes: string[];
+  marks: string[];
+  error: string | null;
+}
+
+export function resultWord(e: CandidateEvaluationOk): string {
+  if (e.hotSpotC === null) return 'Runaway: no steady state';
+  if (e.marginK === null || e.marginK < 0) return 'Over limit';
+  const word = e.marginPercent !== null && e.marginPercent < 10 ? 'Margin under 10 %' : 'Within limit';
+  return e.passes ? word : `${word}; fails a check`;
+}
+
+export function candidateRecords(candidates: SheetCandidate[], snapshot: ResultSnapshot | null): CandidateRecord[] {
+  return candidates.map((candidate) => {
+    const e: CandidateEvaluation | undefined = snapshot?.evaluations.find((x) => x.id === candidate.id);
+    const base = {
+      id: candidate.id,
+      label: candidate.label,
+      kind: candidate.kind,
+      material: candidate.material,
+      arrangement: describeArrangement(candidate),
+      sectionPerPhaseMm2: sectionPerPhaseMm2(candidate),
+      chosen: snapshot?.chosenCandidateId === candidate.id,
+    };
+    if (!e || !e.ok) {
+      return {
+        ...base,
+        evaluated: false,
+        state: e ? 'Not evaluated' : 'No saved result',
+        passes: null,
+        hotSpotC: null,
+        limitC: null,
+        limitSource: null,
+        marginK: null,
+        marginPercent: null,
+        ampacityA: null,
+        utilisationPercent: null,
+        lossWPerM: null,
+        voltageDropPercent: null,
+        shortCircuit: '',
+        massKg: null,
+        materialCost: null,
+        lifeCycleCost: null,
+        flagCodes: [],
+        marks: [],
+        error: e && !e.ok ? e.error.message : null,
+      };
+    }
+    const marks: string[] = [];
+    if (e.isSmallestPassing || snapshot?.smallestPassingId === e.id) marks.push('Smallest passing');
+    if (e.isLowestLifeCycleCostPassing || snapshot?.lowestLifeCycleCostPassingId === e.id) marks.push('Lowest cost passing');
+    return {
+      ...base,
+      evaluated: true,
+      state: resultWord(e),
+      passes: e.passes,
+      hotSpotC: e.hotSpotC,
+      limitC: e.limit.temperatureC,
+      limitSource: e.limit.layer ?? e.limit.source,
+      marginK: e.marginK,
+      marginPercent: e.marginPercent,
+      ampacityA: e.ampacityA,
+      // Number.MAX_VALUE stands for "no current allowed at all"; a spreadsheet reads that better as empty.
+      utilisationPercent: e.utilisation >= Number.MAX_VALUE / 100 ? null : e.utilisation * 100,
+      lossWPerM: e.lossWPerM,
+      voltageDropPercent: e.voltageDrop.percent,
+      shortCircuit: !e.shortCircuit.checked ? 'not checked' : e.shortCircuit.withstands ? 'passes' : 'fails',
+      massKg: e.massKg,
+      materialCost: e.materialCost,
+      lifeCycleCost: e.lifeCycleCost,
+      flagCodes: e.flags.map((f) => f.code),
+      marks,
+      error: null,
+    };
+  });
+}
+
+/** Columns of the candidate exports: header with unit, and the cell of a record. */
+export const CANDIDATE_EXPORT_COLUMNS: ReadonlyArray<{ header: string; value: (r: CandidateRecord) => string | number | null }> = [
+  { header: 'candidate id', value: (r) => r.id },
+  { header: 'candidate', value: (r) => r.label },
+  { header: 'chosen', value: (r) => (r.chosen ? 'yes' : 'no') },
+  { header: 'kind', value: (r) => r.kind },
+  { header: 'material', value: (r) => r.material },
+  { header: 'arrangement', value: (r) => r.arrangement },
+  { header: 'section per phase (mm²)', value: (r) => r.sectionPerPhaseMm2 },
+  { header: 'state', value: (r) => r.state },
+  { header: 'hot spot (°C)', value: (r) => r.hotSpotC },
+  { header: 'limit (°C)', value: (r) => r.limitC },
+  { header: 'limit set by', value: (r) => r.limitSource },
+  { header: 'margin (K)', value: (r) => r.marginK },
+  { header: 'margin (%)', value: (r) => r.marginPercent },
+  { header: 'ampacity (A)', value: (r) => r.ampacityA },
+  { header: 'utilisation (%)', value: (r) => r.utilisationPercent },
+  { header: 'loss of the circuit (W/m)', value: (r) => r.lossWPerM },
+  { header: 'voltage drop (%)', value: (r) => r.voltageDropPercent },
+  { header: 'short circuit', value: (r) => r.shortCircuit },
+  { header: 'conductor mass (kg)', value: (r) => r.massKg },
+  { header: 'material cost', value: (r) => r.materialCost },
+  { header: 'life-cycle cost', value: (r) => r.lifeCycleCost },
+  { header: 'assumption flags', value: (r) => r.flagCodes.join(' ') },
+  { header: 'marked', value: (r) => r.marks.join('; ') },
+  { header: 'not evaluated because', value: (r) => r.error },
+];
+
+export interface ChosenResultRow {
+  label: string;
+  value: string;
+}
+
+/** The chosen candidate's results in words and numbers with units, SI. */
+export function chosenResultRows(e: CandidateEvaluationOk, lengthM: number): ChosenResultRow[] {
+  const t = (c: number | null | undefined) => (c === null || c === undefined ? '—' : formatQuantity(c, 'temperature', 'si'));
+  const sc = e.shortCircuit;
+  const vd = e.voltageDrop;
+  return [
+    { label: 'Result', value: resultWord(e) },
+    { label: 'Design current', value: `${n(e.designCurrentA)} A` },
+    { label: 'Hot spot', value: e.hotSpotC === null ? 'no steady state (thermal runaway)' : t(e.hotSpotC) },
+    { label: 'Limit', value: `${t(e.limit.temperatureC)} (${e.limit.layer ?? e.limit.source})` },
+    { label: 'Margin', value: e.marginK === null ? '—' : `${formatQuantity(e.marginK, 'temperatureRise', 'si')}${e.marginPercent === null ? '' : ` (${n(e.marginPercent, 3)} % of the allowed rise)`}` },
+    { label: 'Ampacity', value: `${n(e.ampacityA)} A` },
+    { label: 'Utilisation', value: e.utilisation >= Number.MAX_VALUE / 100 ? 'no current allowed' : `${n(e.utilisation * 100, 3)} %` },
+    { label: 'Ambient used', value: t(e.ambientC) },
+    { label: 'Conductor temperature (mean)', value: t(e.conductorC) },
+    { label: 'AC/DC resistance ratio', value: n(e.acFactor, 4) },
+    {
+      label: 'Loss of the circuit',
+      value: e.lossWPerM === null ? '—' : `${formatQuantity(e.lossWPerM, 'powerWPerM', 'si')}, ${n((e.lossWPerM * lengthM) / 1000, 3)} kW over the route`,
+    },
+    {
+      label: 'Voltage drop (IEC 60364-5-52 Annex G)',
+      value: `${n(vd.volts, 3)} V, ${n(vd.percent, 3)} %${vd.limitPercent === undefined ? '' : ` of ${n(vd.limitPercent, 3)} % allowed: ${vd.percent <= vd.limitPercent ? 'passes' : 'fails'}`}`,
+    },
+    {
+      label: 'Short circuit (IEC 60949 adiabatic)',
+      value: !sc.checked
+        ? `not checked${sc.reason ? `: ${sc.reason}` : ''}`
+        : `${n(sc.currentA ?? 0)} A for ${n(sc.durationS ?? 0, 3)} s: ${sc.finalC === null || sc.finalC === undefined ? 'beyond the method' : t(sc.finalC)} of ${t(sc.limitC)} allowed; needs at least ${formatQuantity(sc.minimumSectionMm2 ?? 0, 'areaMm2', 'si')}: ${sc.withstands ? 'passes' : 'fails'}`,
+    },
+    { label: 'Conductor mass', value: `${n(e.massKg)} kg` },
+    { label: 'Material cost / life-cycle cost', value: `${e.materialCost ?? '—'} / ${e.lifeCycleCost ?? '—'}` },
+  ];
+}
+
+/** What the result rests on, in our words, naming the published methods (physics.md). */
+export const METHOD_LINES: readonly string[] = [
+  'Heat balance: steady one-dimensional finite-volume method (Patankar 1980) through the conductor and its coverings, with temperature-dependent Joule heating ρ(T) = ρ20[1 + α20(T − 20 °C)] (IEC 60287-1-1 Table 1 coefficients).',
+  'Surfaces: natural convection by the Churchill and Chu (1975) correlations, forced convection by Churchill and Bernstein (1977) or flat-plate correlations, radiation with the Stefan–Boltzmann law, absorbed sun per IEC 60287-2-1 where outdoors.',
+  'Buried cables: external thermal resistance T4 of IEC 60287-2-1. Cables: skin and proximity effects by IEC 60287-1-1 §2.1; bars: the maker’s AC/DC ratio or a plane-conductor lower bound.',
+  'Ampacity: the highest current at which the governing temperature stays at or under its limit, found by bracketing; cross-checked against an IEC 60287-style closed form.',
+  'Voltage drop: IEC 60364-5-52 Annex G. Short circuit: IEC 60949 adiabatic method. Life-cycle cost: IEC 60287-3-2 loss-cost approach, where included.',
+];
+
+export function formatDate(value: Date | string | null | undefined): string {
+  if (!value) return '—';
+  const date = typeof value === 'string' ? new Date(value) : value;
+  return `${date.toISOString().slice(0, 16).replace('T', ' ')} UTC`;
+}

@@ -1,0 +1,28 @@
+/** Renders the PDF sizing sheet of a saved sheet to bytes (server only). */
+import { createElement, type ReactElement } from 'react';
+import { renderToBuffer, type DocumentProps } from '@react-pdf/renderer';
+import { registerPdfFonts } from './fonts';
+import { SizingSheetDocument, type PdfSheet } from './SizingSheetDocument';
+
+export async function renderSheetPdf(sheet: PdfSheet, generatedAt = new Date()): Promise<Buffer> {
+  registerPdfFonts();
+  const document = createElement(SizingSheetDocument, { sheet, generatedAt }) as unknown as ReactElement<DocumentProps>;
+  return renderToBuffer(document);
+}
+
+/** "sizing-sheet-KY-MSB-CH1-rev2.pdf": only characters every file system and mail client keeps. */
+export function sheetFileStem(sheet: { circuitTag: string; revision: number }): string {
+  const tag = sheet.circuitTag.replace(/[^A-Za-z0-9._-]+/g, '-').replace(/^-+|-+$/g, '') || 'sheet';
+  return `sizing-sheet-${tag}-rev${sheet.revision}`;
+}
+
+export function pdfResponse(body: Buffer, stem: string, disposition: 'inline' | 'attachment' = 'inline'): Response {
+  return new Response(new Uint8Array(body), {
+    headers: {
+      'Content-Type': 'application/pdf',
+      'Content-Disposition': `${disposition}; filename="${stem}.pdf"`,
+      'Cache-Control': 'private, no-store',
+      'X-Robots-Tag': 'noindex, nofollow',
+    },
+  });
+}
