@@ -12,6 +12,8 @@ export interface OutgoingMail {
   subject: string;
   text: string;
   html?: string;
+  /** Files sent along (e.g. the PDF sizing sheet). */
+  attachments?: { filename: string; content: Buffer; contentType?: string }[];
 }
 
 const holder = globalThis as unknown as { ampwardenMailer?: Transporter };
@@ -42,6 +44,7 @@ export async function sendMail(mail: OutgoingMail): Promise<void> {
     subject: mail.subject,
     text: mail.text,
     html: mail.html,
+    attachments: mail.attachments,
   });
 }
 
