@@ -52,9 +52,9 @@ export function HotSpotCurvePlot({
         layout={{
           ...PLOT_LAYOUT_BASE,
           title: { text: 'Hot spot versus current (○ = ampacity)', font: { size: 12 } },
-          height: 280,
-          legend: { orientation: 'h', y: -0.25, font: { size: 10 } },
-          margin: { ...PLOT_LAYOUT_BASE.margin, b: 70 },
+          height: 300,
+          legend: { orientation: 'h', y: -0.32, yanchor: 'top', font: { size: 10 } },
+          margin: { ...PLOT_LAYOUT_BASE.margin, b: 86 },
           shapes: [
             { type: 'line', xref: 'x', yref: 'paper', x0: designCurrentA, x1: designCurrentA, y0: 0, y1: 1, line: { color: '#b8703d', width: 1.5, dash: 'dot' } },
           ],
@@ -66,7 +66,7 @@ export function HotSpotCurvePlot({
         }}
         config={PLOT_CONFIG}
         useResizeHandler
-        style={{ width: '100%', height: 280 }}
+        style={{ width: '100%', height: 300 }}
       />
     </div>
   );

@@ -31,12 +31,14 @@ export function ProfilePlot({ profile, limitC, limitLabel, units, title }: { pro
     line: { width: 0 },
     layer: 'below' as const,
   }));
-  const annotations = profile.layers.map((layer) => ({
+  const annotations = profile.layers.map((layer, i) => ({
     x: (toX(layer.startM) + toX(layer.endM)) / 2,
     y: 1,
     xref: 'x' as const,
     yref: 'paper' as const,
     yanchor: 'bottom' as const,
+    // Thin neighbouring layers would print over each other: every other label sits one line higher.
+    yshift: i % 2 === 1 ? 11 : 0,
     text: layer.name.length > 18 ? `${layer.name.slice(0, 16)}…` : layer.name,
     showarrow: false,
     font: { size: 10, color: '#3d4e62' },
@@ -83,8 +85,9 @@ export function ProfilePlot({ profile, limitC, limitLabel, units, title }: { pro
         ]}
         layout={{
           ...PLOT_LAYOUT_BASE,
-          title: { text: title, font: { size: 12 } },
-          height: 280,
+          margin: { ...PLOT_LAYOUT_BASE.margin, t: 44 },
+          title: { text: title, font: { size: 12 }, y: 0.98 },
+          height: 300,
           showlegend: false,
           shapes,
           annotations,
@@ -93,7 +96,7 @@ export function ProfilePlot({ profile, limitC, limitLabel, units, title }: { pro
         }}
         config={PLOT_CONFIG}
         useResizeHandler
-        style={{ width: '100%', height: 280 }}
+        style={{ width: '100%', height: 300 }}
       />
     </div>
   );

@@ -2,7 +2,7 @@
 import { useMemo } from 'react';
 import { AgGridReact } from 'ag-grid-react';
 import { AllCommunityModule, ModuleRegistry, themeQuartz, type ColDef, type ICellRendererParams } from 'ag-grid-community';
-import type { CandidateEvaluation } from '@/lib/electrical/sizing/types';
+import type { CandidateEvaluation, CandidateEvaluationOk } from '@/lib/electrical/sizing/types';
 import type { SheetCandidate } from '@/lib/sheet/candidates';
 import { describeArrangement, sectionPerPhaseMm2 } from '@/lib/sheet/candidates';
 import { convertFromSi, formatNumber, unitLabel, type UnitSystem } from '@/lib/units';
@@ -80,13 +80,26 @@ export function candidateRows(candidates: SheetCandidate[], evaluations: Candida
       cost: e.materialCost,
       lifeCycleCost: e.lifeCycleCost,
       flags: `${counts.blocker ? `${counts.blocker} ✖ ` : ''}${counts.review ? `${counts.review} ▲ ` : ''}${counts.note ? `${counts.note} i` : ''}`.trim(),
-      state: e.passes ? word : `${word}; fails a check`,
+      state: e.passes ? word : failureWords(e),
       stateKey: e.passes ? state : 'over',
       passes: e.passes,
       marks,
       error: null,
     };
   });
+}
+
+const FAILURE_WORDS: Record<string, string> = {
+  OVER_LIMIT: 'over limit',
+  RUNAWAY: 'runaway',
+  SHORT_CIRCUIT_EXCEEDED: 'short circuit',
+  VOLTAGE_DROP_EXCEEDED: 'voltage drop',
+};
+
+/** "Fails: short circuit, voltage drop" from the blocker flags. */
+function failureWords(e: CandidateEvaluationOk): string {
+  const reasons = e.flags.filter((f) => f.severity === 'blocker').map((f) => FAILURE_WORDS[f.code] ?? f.title.toLowerCase());
+  return `Fails: ${reasons.join(', ') || 'a check'}`;
 }
 
 const num = (digits: number) => (p: { value: number | null }) => (p.value === null || p.value === undefined ? '—' : formatNumber(p.value, digits));
