@@ -13,7 +13,7 @@
 import { boundarySide, boundaryTerms, linearisedSurfaceRise, type BoundarySide, type BoundaryTerms } from './boundary';
 import { interiorConductances } from './coefficients';
 import { energyBalance, type EnergyBalance } from './energy';
-import { buildMesh, type Mesh } from './mesh';
+import { buildMesh, cellCount, meshStoreSize, type Mesh } from './mesh';
 import { jouleCoefficients, type JouleCoefficients } from './source';
 import { isLinearSurface } from './surface';
 import { thomas } from './tridiagonal';
@@ -78,8 +78,20 @@ export function referenceTemperature(problem: NormalizedProblem): number {
   return 20;
 }
 
-export function createContext(problem: NormalizedProblem, timeStep?: number): SolverContext {
-  const mesh = buildMesh(problem.geometry);
+/**
+ * Mesh, conductances and work arrays for one solve, all views into `scratch` when given
+ * (see pool.ts); its size must be at least contextStoreSize(problem).
+ */
+export function contextStoreSize(problem: NormalizedProblem): number {
+  const n = cellCount(problem.geometry);
+  return meshStoreSize(n) + 9 * n;
+}
+
+export function createContext(problem: NormalizedProblem, timeStep?: number, scratch?: Float64Array): SolverContext {
+  const cells = cellCount(problem.geometry);
+  const all = scratch ?? new Float64Array(contextStoreSize(problem));
+  const meshSize = meshStoreSize(cells);
+  const mesh = buildMesh(problem.geometry, all.subarray(0, meshSize));
   const n = mesh.cellCount;
   let capacityRate: Float64Array | undefined;
   if (timeStep !== undefined) {
@@ -89,8 +101,8 @@ export function createContext(problem: NormalizedProblem, timeStep?: number): So
       capacityRate[i] = (layer.density! * layer.heatCapacity! * mesh.volumes[i]) / timeStep;
     }
   }
-  // One backing store for the conductances and every work array of the passes.
-  const store = new Float64Array(9 * n);
+  // The conductances and every work array of the passes share the rest of the store.
+  const store = all.subarray(meshSize, meshSize + 9 * n);
   return {
     problem,
     reference: referenceTemperature(problem),
@@ -190,8 +202,8 @@ export interface IterationOutcome {
 }
 
 export interface IterateArgs {
-  /** Starting cell temperatures, °C. */
-  start: Float64Array;
+  /** Starting cell temperatures, °C: one for all cells, or one per cell. */
+  start: number | ArrayLike<number>;
   /** Transient: the temperatures at the start of the step, °C. */
   previous?: Float64Array;
   /** Joule current to use instead of the problem's (bisection on current). */
@@ -206,7 +218,9 @@ export function iterate(ctx: SolverContext, args: IterateArgs): IterationOutcome
   const n = mesh.cellCount;
   const joule = source.kind === 'joule' ? jouleCoefficients(source, args.currentA ?? source.current) : undefined;
   const rises = ctx.work.rises;
-  for (let i = 0; i < n; i++) rises[i] = args.start[i] - reference;
+  const start = args.start;
+  if (typeof start === 'number') rises.fill(start - reference);
+  else for (let i = 0; i < n; i++) rises[i] = start[i] - reference;
   let previousRises: Float64Array | undefined;
   if (args.previous) {
     previousRises = ctx.work.previousRises;

@@ -39,12 +39,24 @@ export function cylinderNode(rw: number, re: number): number {
   return Math.sqrt((rw * rw + rw * re + re * re) / 3);
 }
 
-export function buildMesh(geometry: NormalizedGeometry): Mesh {
-  const layers = geometry.layers;
+export function cellCount(geometry: NormalizedGeometry): number {
   let n = 0;
-  for (const layer of layers) n += layer.cells;
-  // One backing store for all per-cell arrays: a solve allocates a handful of buffers, not dozens.
-  const store = new Float64Array(2 * (n + 1) + 5 * n);
+  for (const layer of geometry.layers) n += layer.cells;
+  return n;
+}
+
+/** Doubles a mesh of n cells needs in its store. */
+export function meshStoreSize(n: number): number {
+  return 2 * (n + 1) + 5 * n;
+}
+
+/**
+ * Build the mesh; its arrays are views into `store` (length ≥ meshStoreSize(n), zero-filled) when
+ * given, so that a solve allocates one buffer instead of a dozen.
+ */
+export function buildMesh(geometry: NormalizedGeometry, store: Float64Array = new Float64Array(meshStoreSize(cellCount(geometry)))): Mesh {
+  const layers = geometry.layers;
+  const n = cellCount(geometry);
   const faces = store.subarray(0, n + 1);
   const faceAreas = store.subarray(n + 1, 2 * (n + 1));
   const nodes = store.subarray(2 * (n + 1), 2 * (n + 1) + n);

@@ -4,7 +4,16 @@
 import { faceTemperature } from './boundary';
 import { evaluateSurface } from './surface';
 import { ThermalInputError } from './errors';
-import { conductanceMatrix, createContext, hasLinearSurroundings, iterate, type IterationOutcome, type SolverContext } from './iterate';
+import {
+  conductanceMatrix,
+  contextStoreSize,
+  createContext,
+  hasLinearSurroundings,
+  iterate,
+  type IterationOutcome,
+  type SolverContext,
+} from './iterate';
+import { borrowScratch } from './pool';
 import { onsetCurrent, slowestModePeak, smallestGeneralizedEigenvalue } from './runaway';
 import type {
   RunawayReport,
@@ -58,13 +67,12 @@ function undrivenTemperature(problem: NormalizedProblem): number | undefined {
   return refs.length > 0 && refs.every((t) => t === refs[0]) ? refs[0] : undefined;
 }
 
-/** Starting field for a steady solve: the mean of the boundaries' reference temperatures. */
-function steadyStart(problem: NormalizedProblem, n: number): Float64Array {
-  const refs = [referenceTemperature(problem.inner), referenceTemperature(problem.outer)].filter(
-    (t): t is number => t !== undefined,
-  );
-  const start = refs.length > 0 ? refs.reduce((a, b) => a + b, 0) / refs.length : 20;
-  return new Float64Array(n).fill(start);
+/** Starting temperature for a steady solve: the mean of the boundaries' reference temperatures. */
+function steadyStart(problem: NormalizedProblem): number {
+  const a = referenceTemperature(problem.inner);
+  const b = referenceTemperature(problem.outer);
+  if (a !== undefined && b !== undefined) return 0.5 * (a + b);
+  return a ?? b ?? 20;
 }
 
 /** Diagnostics and validity flags of one surface at its final temperature (one evaluation). */
@@ -274,7 +282,7 @@ function boundedBelowLimit(ctx: SolverContext, outcome: IterationOutcome): boole
  * between 0 A (always) and the requested current (known not to). The hot spot rises with
  * current, so the answer is monotone and the bisection well posed.
  */
-function bisectOnset(ctx: SolverContext, failingCurrentA: number, start: Float64Array): { currentA: number; peakPosition: number; solves: number } {
+function bisectOnset(ctx: SolverContext, failingCurrentA: number, start: number): { currentA: number; peakPosition: number; solves: number } {
   let lo = 0;
   let hi = failingCurrentA;
   let solves = 0;
@@ -295,9 +303,16 @@ function bisectOnset(ctx: SolverContext, failingCurrentA: number, start: Float64
 
 export function solveSteady(problem: ThermalProblem): SteadyResult {
   const normalized = validateProblem(problem, true);
-  const ctx = createContext(normalized);
+  const scratch = borrowScratch(contextStoreSize(normalized));
+  try {
+    return steady(normalized, createContext(normalized, undefined, scratch.store));
+  } finally {
+    scratch.release();
+  }
+}
+
+function steady(normalized: NormalizedProblem, ctx: SolverContext): SteadyResult {
   const flags = [...normalized.assumptions];
-  const n = ctx.mesh.cellCount;
 
   const onset = eigenvalueOnset(ctx);
   const source = normalized.source;
@@ -321,7 +336,7 @@ export function solveSteady(problem: ThermalProblem): SteadyResult {
     });
   }
 
-  const start = steadyStart(normalized, n);
+  const start = steadyStart(normalized);
   // With nothing driving heat, the steady state is the one reference temperature everywhere;
   // linearising the surfaces there (instead of 10 K above) lets one pass confirm it, where a
   // Newton iteration towards ΔT = 0 — a root at which h itself vanishes for some correlations —
@@ -398,7 +413,21 @@ export function solveTransient(problem: TransientProblem): TransientResult {
       throw new ThermalInputError(`geometry.layers[${i}].heatCapacity`, 'is required for a transient solve');
     }
   });
-  const ctx = createContext(normalized, timeStep);
+  const scratch = borrowScratch(contextStoreSize(normalized));
+  try {
+    return transient(raw, normalized, createContext(normalized, timeStep, scratch.store), timeStep, steps);
+  } finally {
+    scratch.release();
+  }
+}
+
+function transient(
+  raw: Record<string, unknown>,
+  normalized: NormalizedProblem,
+  ctx: SolverContext,
+  timeStep: number,
+  steps: number,
+): TransientResult {
   const n = ctx.mesh.cellCount;
 
   let previous: Float64Array;
