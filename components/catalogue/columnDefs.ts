@@ -72,7 +72,8 @@ export function columnDefsFor(
       return {
         ...base,
         type: 'rightAligned',
-        cellClass: 'num',
+        // Keep AG Grid's right alignment class alongside our tabular-figures class.
+        cellClass: 'num ag-right-aligned-cell',
         width: 140,
         filter: 'agNumberColumnFilter',
         valueGetter: (p: ValueGetterParams<GridRow>) => displayNumber(p.data?.[column.field], column, units),
@@ -83,7 +84,7 @@ export function columnDefsFor(
       };
     }
     if (column.type === 'integer') {
-      return { ...base, field: column.field, width: 90, type: 'rightAligned', cellClass: 'num', filter: 'agNumberColumnFilter', cellEditor: 'agNumberCellEditor' };
+      return { ...base, field: column.field, width: 90, type: 'rightAligned', cellClass: 'num ag-right-aligned-cell', filter: 'agNumberColumnFilter', cellEditor: 'agNumberCellEditor' };
     }
     if (column.type === 'enum' || column.type === 'reference') {
       const values = column.type === 'enum' ? [...(column.options ?? [])] : [...(column.required ? [] : ['']), ...(referenceOptions[column.references!] ?? [])];

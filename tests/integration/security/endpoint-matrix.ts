@@ -15,6 +15,7 @@
  */
 
 import { defaultSheetInputs } from '@/lib/sheet';
+import { freshCatalogueCovering, freshCatalogueImport } from '../catalogue/matrixRows';
 import { EXAMPLE_AMPACITY_REQUEST, EXAMPLE_EVALUATE_REQUEST } from '@/lib/api/examples';
 
 export const ACTORS = ['anonymous', 'viewer', 'designer', 'reviewer', 'otherAdmin', 'admin'] as const;
@@ -415,6 +416,80 @@ export const ENDPOINT_MATRIX: MatrixEntry[] = [
     // The draft schedule has no rows: 404 for those allowed to create sheets.
     expect: signedIn(401, { viewer: 403, designer: 404, reviewer: 403, otherAdmin: 404, admin: 404 }),
     request: async (ctx) => ({ path: `/api/schedules/${await teamASchedule(ctx)}/rows/2/sheet` }),
+  },
+
+  // ── catalogue (issue 5): everyone of the team reads; admins write ─────────────────────────────
+  {
+    kind: 'route',
+    method: 'GET',
+    route: '/api/catalogue/[kind]',
+    expect: signedIn(401, { viewer: 200, designer: 200, reviewer: 200, otherAdmin: 200, admin: 200 }),
+    request: () => ({ path: '/api/catalogue/coverings' }),
+  },
+  {
+    kind: 'route',
+    method: 'PATCH',
+    route: '/api/catalogue/[kind]/[id]',
+    expect: signedIn(401, { viewer: 403, designer: 403, reviewer: 403, otherAdmin: 404, admin: 200 }),
+    request: async (ctx) => ({ path: `/api/catalogue/coverings/${(await freshCatalogueCovering(ctx.teamId)).id}`, body: { changes: { name: 'Matrix covering, renamed' } } }),
+  },
+  {
+    kind: 'route',
+    method: 'DELETE',
+    route: '/api/catalogue/[kind]/[id]',
+    expect: signedIn(401, { viewer: 403, designer: 403, reviewer: 403, otherAdmin: 404, admin: 204 }),
+    request: async (ctx) => ({ path: `/api/catalogue/coverings/${(await freshCatalogueCovering(ctx.teamId)).id}` }),
+  },
+  {
+    kind: 'route',
+    method: 'GET',
+    route: '/api/catalogue/[kind]/template',
+    expect: signedIn(401, { viewer: 200, designer: 200, reviewer: 200, otherAdmin: 200, admin: 200 }),
+    request: () => ({ path: '/api/catalogue/conductors/template?format=csv' }),
+  },
+  {
+    kind: 'route',
+    method: 'GET',
+    route: '/api/catalogue/[kind]/export',
+    expect: signedIn(401, { viewer: 200, designer: 200, reviewer: 200, otherAdmin: 200, admin: 200 }),
+    request: () => ({ path: '/api/catalogue/materials/export?format=xlsx' }),
+  },
+  {
+    kind: 'route',
+    method: 'POST',
+    route: '/api/catalogue/imports',
+    // The matrix sends JSON; an import is multipart, so those allowed get 400 (the role check comes first).
+    // Real uploads are covered by tests/e2e/catalogue.test.ts.
+    expect: signedIn(401, { viewer: 403, designer: 403, reviewer: 403, otherAdmin: 400, admin: 400 }),
+    request: () => ({ path: '/api/catalogue/imports', body: { kind: 'coverings' } }),
+  },
+  {
+    kind: 'route',
+    method: 'GET',
+    route: '/api/catalogue/imports',
+    expect: signedIn(401, { viewer: 403, designer: 403, reviewer: 403, otherAdmin: 200, admin: 200 }),
+    request: () => ({ path: '/api/catalogue/imports' }),
+  },
+  {
+    kind: 'route',
+    method: 'POST',
+    route: '/api/catalogue/imports/[importId]/commit',
+    expect: signedIn(401, { viewer: 403, designer: 403, reviewer: 403, otherAdmin: 404, admin: 200 }),
+    request: async (ctx) => ({ path: `/api/catalogue/imports/${(await freshCatalogueImport(ctx.teamId, ctx.users.admin.id)).id}/commit` }),
+  },
+  {
+    kind: 'route',
+    method: 'GET',
+    route: '/api/catalogue/imports/[importId]/file',
+    expect: signedIn(401, { viewer: 403, designer: 403, reviewer: 403, otherAdmin: 404, admin: 200 }),
+    request: async (ctx) => ({ path: `/api/catalogue/imports/${(await freshCatalogueImport(ctx.teamId, ctx.users.admin.id)).id}/file` }),
+  },
+  {
+    kind: 'route',
+    method: 'POST',
+    route: '/api/catalogue/standard',
+    expect: signedIn(401, { viewer: 403, designer: 403, reviewer: 403, otherAdmin: 200, admin: 200 }),
+    request: () => ({ path: '/api/catalogue/standard' }),
   },
 
   // ── server actions ─────────────────────────────────────────────────────────────────────────────
