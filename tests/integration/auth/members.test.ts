@@ -12,6 +12,8 @@ import { ApiError } from '@/server/http/errors';
 import { createTestTeam, createTestUser } from '../../helpers/fixtures';
 
 const NEW_PASSWORD = 'a fresh and long passphrase';
+// Links in mail are built on the app's public address; the integration phase runs before the app is served.
+process.env.NEXTAUTH_URL ??= 'http://127.0.0.1:3999';
 
 interface CaughtMessage {
   to: string[];
