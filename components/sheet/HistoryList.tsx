@@ -17,6 +17,8 @@ const WORDS: Record<string, string> = {
   'sheet.return': 'returned it',
   'sheet.flag.acknowledge': 'acknowledged a flag',
   'sheet.revise': 'started a new revision',
+  'sheet.share.create': 'made a read-only link',
+  'sheet.share.revoke': 'revoked a read-only link',
 };
 
 function describe(item: HistoryItem): string {
@@ -28,6 +30,9 @@ function describe(item: HistoryItem): string {
   if (item.action === 'sheet.flag.acknowledge') return `acknowledged ${String(d.flagCode)}: “${String(d.comment ?? '')}”`;
   if (item.action === 'sheet.create' && d.revisionOf) return `created revision ${String(d.revision)} from an approved sheet`;
   if (item.action === 'sheet.revise') return `started revision ${String(d.newRevision)}`;
+  if (item.action === 'sheet.share.create') return `made a read-only link valid until ${String(d.expiresAt ?? '').slice(0, 16).replace('T', ' ')}`;
+  if (item.action === 'sheet.email') return `e-mailed a read-only link${d.pdfAttached ? ' and the PDF' : ''} to ${String(d.to)}${typeof d.message === 'string' && d.message ? `: “${d.message}”` : ''}`;
+  if (item.action === 'sheet.email.failed') return `tried to e-mail ${String(d.to)}, but the message could not be sent (the link was revoked)`;
   return WORDS[item.action] ?? item.action;
 }
 

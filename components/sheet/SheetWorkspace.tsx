@@ -11,6 +11,7 @@ import { useRouter } from 'next/navigation';
 import { useForm, schemaResolver } from '@mantine/form';
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { CautionNotice } from '@/components/shell/CautionNotice';
+import { SharePanel } from '@/components/share/SharePanel';
 import { ProfilePlot } from '@/components/plots/ProfilePlot';
 import { HotSpotCurvePlot } from '@/components/plots/HotSpotCurvePlot';
 import type { CandidateEvaluation, CandidateEvaluationOk } from '@/lib/electrical/sizing/types';
@@ -436,6 +437,7 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
             <p role="alert" className="field-error">The circuit could not be computed: {live.computation.error.message}</p>
           ) : null}
 
+          <SharePanel sheetId={sheetId} canShare={can(user.role, 'sheet:share')} dirty={dirty} />
           <HistoryList items={historyQuery.data ?? []} loading={historyQuery.isFetching} />
           {live.elapsedMs !== null && editable ? (
             <p className="text-right text-caption text-ink-400">Computed in your browser in <span className="num">{live.elapsedMs.toFixed(0)}</span> ms.</p>

@@ -1,0 +1,104 @@
+'use client';
+/**
+ * The sizing sheet for a link holder: read-only, from the saved snapshot. The result strip with
+ * the flags directly under it, the checks, the heat-balance profile and the hot-spot curves, the
+ * candidate grid (a row click shows that candidate above) and the inputs with units. Nothing here
+ * links to any other page of the team; nothing can be changed.
+ */
+import { useState } from 'react';
+import { ProfilePlot } from '@/components/plots/ProfilePlot';
+import { HotSpotCurvePlot } from '@/components/plots/HotSpotCurvePlot';
+import { CandidateGrid, candidateRows } from '@/components/sheet/CandidateGrid';
+import { ChecksPanel } from '@/components/sheet/ChecksPanel';
+import { FlagsPanel } from '@/components/sheet/FlagsPanel';
+import { ResultStrip } from '@/components/sheet/ResultStrip';
+import { useLiveComputation } from '@/components/sheet/useLiveComputation';
+import type { CandidateEvaluationOk } from '@/lib/electrical/sizing/types';
+import type { SheetInputs } from '@/lib/sheet/schema';
+import type { ResultSnapshot } from '@/lib/sheet/snapshot';
+import { formatDate, inputRows } from './sheetTables';
+
+export interface SharedSheet {
+  inputs: SheetInputs;
+  result: ResultSnapshot | null;
+  acknowledgements: { flagCode: string; comment: string; reviewerName: string | null }[];
+}
+
+const noop = () => {};
+
+export function SharedSheetView({ sheet }: { sheet: SharedSheet }) {
+  const snapshot = sheet.result;
+  const evaluations = snapshot?.evaluations ?? null;
+  const [focusedId, setFocusedId] = useState<string | null>(snapshot?.chosenCandidateId ?? sheet.inputs.candidates[0]?.id ?? null);
+  const focused = evaluations?.find((e) => e.id === focusedId) ?? null;
+  const focusedOk = focused && focused.ok ? focused : null;
+  const isChosen = focusedId !== null && focusedId === snapshot?.chosenCandidateId;
+  // The curves are not stored: they are drawn in this browser from the saved inputs, by the same library.
+  const live = useLiveComputation(sheet.inputs, { enabled: sheet.inputs.candidates.length > 0, withCurves: true });
+  const rows = candidateRows(sheet.inputs.candidates, evaluations, snapshot?.chosenCandidateId ?? null, 'si');
+  const limits = Object.fromEntries((evaluations ?? []).filter((e): e is CandidateEvaluationOk => e.ok).map((e) => [e.id, e.limit.temperatureC]));
+  const flags = isChosen ? (snapshot?.chosenFlags ?? []) : (focusedOk?.flags ?? []);
+  const inputs = inputRows(sheet.inputs);
+
+  return (
+    <div className="grid gap-4 lg:grid-cols-[300px_minmax(0,1fr)]">
+      <aside className="panel self-start p-3" aria-labelledby="inputs-heading">
+        <h2 id="inputs-heading" className="text-body font-semibold">Inputs (SI units)</h2>
+        <table className="mt-1 w-full text-caption" data-testid="shared-inputs">
+          <tbody>
+            {inputs.map((row, i) => (
+              <tr key={`${row.section}-${row.label}`} className={i > 0 && inputs[i - 1].section !== row.section ? 'border-t border-ink-100' : ''}>
+                <th scope="row" className="py-0.5 pr-2 text-left font-normal text-ink-600">
+                  {row.label}
+                </th>
+                <td className="num py-0.5 text-right text-ink-900">
+                  {row.value} {row.unit}
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+        {sheet.inputs.notes.trim() ? <p className="mt-2 whitespace-pre-line text-caption text-ink-700">Designer’s notes: {sheet.inputs.notes}</p> : null}
+      </aside>
+
+      <div className="min-w-0 space-y-3">
+        <div className="sticky top-0 z-10 -mx-1 bg-paper px-1 pb-1 pt-0.5">
+          <ResultStrip evaluation={focused} units="si" source={`saved result of ${formatDate(snapshot?.computedAt)}`} chosen={isChosen} />
+        </div>
+        <FlagsPanel
+          flags={flags}
+          heading={isChosen ? 'Assumption flags of the chosen candidate' : `Assumption flags of ${focusedOk?.label ?? 'this candidate'} (not the chosen one)`}
+          acknowledgements={sheet.acknowledgements}
+          canAcknowledge={false}
+          onAcknowledge={noop}
+          pendingCode={null}
+        />
+        {focusedOk ? <ChecksPanel evaluation={focusedOk} units="si" lengthM={sheet.inputs.circuit.lengthM} /> : null}
+        {sheet.inputs.candidates.length > 0 ? (
+          <div className="grid gap-3 xl:grid-cols-2">
+            <section className="panel p-2" aria-label="Heat-balance profile">
+              {focusedOk?.profile ? (
+                <ProfilePlot profile={focusedOk.profile} limitC={focusedOk.limit.temperatureC} limitLabel={focusedOk.limit.layer ?? focusedOk.limit.source} units="si" title={`Heat-balance profile: ${focusedOk.label}`} />
+              ) : (
+                <p className="p-4 text-caption text-ink-500">No heat-balance profile for this candidate (no steady state, or no result).</p>
+              )}
+            </section>
+            <section className="panel p-2" aria-label="Hot spot versus current">
+              {live.curves.length > 0 ? (
+                <HotSpotCurvePlot curves={live.curves} designCurrentA={sheet.inputs.circuit.designCurrentA} limits={limits} units="si" />
+              ) : (
+                <p className="p-4 text-caption text-ink-500">{live.computing || !live.computation ? 'Drawing the hot-spot curves in your browser…' : 'No curves: the candidates have no result.'}</p>
+              )}
+            </section>
+          </div>
+        ) : null}
+        <section aria-labelledby="compare-heading" className="panel p-3">
+          <h2 id="compare-heading" className="mb-2 text-body font-semibold">
+            Candidates compared <span className="font-normal text-ink-500">— click a row to see it above</span>
+          </h2>
+          {rows.length === 0 ? <p className="text-caption text-ink-500">No candidates on this sheet.</p> : <CandidateGrid rows={rows} units="si" focusedId={focusedId} onFocus={setFocusedId} onChoose={noop} onRemove={noop} editable={false} />}
+        </section>
+      </div>
+    </div>
+  );
+}
