@@ -1,8 +1,8 @@
 /**
  * The schedule worker: fetches row-batch jobs, sizes the rows still pending with lib/schedule's
  * sizeCircuit and stores each result exactly once (db/queries/schedules storeRowResults).
- * A batch is stored in one statement after all its rows are sized, so a crash loses at most one
- * batch of work and never half-writes it.
+ * Results are stored in one statement per batch (or per second of work when a batch is slow), so a
+ * crash loses at most that much work and never half-writes a row.
  */
 import { hostname } from 'node:os';
 import PgBoss from 'pg-boss';
@@ -21,6 +21,8 @@ export interface BatchReport {
 }
 
 const FAMILIES_CACHE_SIZE = 20;
+/** Longest stretch of sizing kept in memory before it is stored, ms. */
+const FLUSH_AFTER_MS = 1000;
 const familiesCache = new Map<string, Awaited<ReturnType<typeof loadScheduleForWorker>>>();
 
 /** Sizes and stores one batch; safe to run again for the same batch (already stored rows are skipped). */
@@ -41,8 +43,10 @@ export async function processScheduleBatch(job: ScheduleBatchJob, workerId: stri
     return { scheduleId: job.scheduleId, stored: [], skipped: job.rowNumbers.length, solverMs: 0, totalMs: performance.now() - started, completed: false };
   }
   const rows = await pendingRows(job.scheduleId, job.rowNumbers);
-  const writes: RowResultWrite[] = [];
+  const stored: number[] = [];
+  let writes: RowResultWrite[] = [];
   let solverMs = 0;
+  let lastFlush = performance.now();
   for (const row of rows) {
     const family = schedule.families[row.input.family];
     const t0 = performance.now();
@@ -50,8 +54,15 @@ export async function processScheduleBatch(job: ScheduleBatchJob, workerId: stri
     const ms = performance.now() - t0;
     solverMs += ms;
     writes.push({ teamId: row.teamId, scheduleId: job.scheduleId, rowNumber: row.rowNumber, circuitTag: row.circuitTag, input: row.input, sizing, solverMs: ms, sizedBy: workerId });
+    // On a slow machine a batch may outlast its job's expiry and be retried: storing at least
+    // every second keeps the work done so far, so a retry always makes progress.
+    if (performance.now() - lastFlush > FLUSH_AFTER_MS) {
+      stored.push(...(await storeRowResults(writes)));
+      writes = [];
+      lastFlush = performance.now();
+    }
   }
-  const stored = await storeRowResults(writes);
+  stored.push(...(await storeRowResults(writes)));
   const completed = stored.length > 0 || rows.length === 0 ? await completeScheduleIfDone(job.scheduleId) : false;
   return { scheduleId: job.scheduleId, stored, skipped: job.rowNumbers.length - stored.length, solverMs, totalMs: performance.now() - started, completed };
 }

@@ -81,7 +81,6 @@ export function spawnWorker(workerId: string, env: Record<string, string> = {}):
       WORKER_ID: workerId,
       SCHEDULE_POLL_SECONDS: '0.5',
       SCHEDULE_MAINTENANCE_SECONDS: '1',
-      SCHEDULE_JOB_EXPIRE_SECONDS: '4',
       ...env,
     },
     stdio: ['ignore', 'pipe', 'pipe'],

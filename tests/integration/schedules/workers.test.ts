@@ -37,10 +37,21 @@ beforeAll(async () => {
   await seedSmallCatalogue(teamId);
 });
 
-async function queued(name: string, rows: number, prefix: string) {
+/**
+ * A queued schedule of small batches whose jobs expire after 8 s (both are the enqueuer's
+ * settings, written into each job), so a killed worker's batch is retried within seconds.
+ */
+async function queued(name: string, rows: number, prefix: string, batchRows: number) {
   const { id } = await createSchedule(teamId, userId, { projectId, name });
   await previewScheduleUpload(teamId, userId, id, { fileName: `${name}.csv`, mediaType: 'text/csv', bytes: scheduleCsv(circuitRows(rows, prefix)) });
-  await queueSchedule(teamId, userId, id, { dropBadRows: false }, enqueueScheduleBatches);
+  process.env.SCHEDULE_BATCH_ROWS = String(batchRows);
+  process.env.SCHEDULE_JOB_EXPIRE_SECONDS = '8';
+  try {
+    await queueSchedule(teamId, userId, id, { dropBadRows: false }, enqueueScheduleBatches);
+  } finally {
+    delete process.env.SCHEDULE_BATCH_ROWS;
+    delete process.env.SCHEDULE_JOB_EXPIRE_SECONDS;
+  }
   return id;
 }
 
@@ -77,9 +88,9 @@ async function expectEachRowOnce(scheduleId: string, total: number) {
 
 describe('schedule workers', () => {
   it('resumes after the worker is killed mid-run: every row stored exactly once', { timeout: 180_000 }, async () => {
-    const total = 60;
-    const scheduleId = await queued('killed', total, 'K');
-    const first = spawnWorker('first', { SCHEDULE_BATCH_ROWS: '5' });
+    const total = 40;
+    const scheduleId = await queued('killed', total, 'K', 5);
+    const first = spawnWorker('first');
     started.push(first);
     await first.ready;
     // Kill it as soon as some, but not all, rows are stored: no chance to finish or clean up.
@@ -112,18 +123,12 @@ describe('schedule workers', () => {
   });
 
   it('two workers on one database share a schedule: every row stored exactly once', { timeout: 180_000 }, async () => {
-    const total = 80;
-    const workers = [spawnWorker('alpha', { SCHEDULE_BATCH_ROWS: '4' }), spawnWorker('beta', { SCHEDULE_BATCH_ROWS: '4' })];
+    const total = 48;
+    const workers = [spawnWorker('alpha'), spawnWorker('beta')];
     started.push(...workers);
     await Promise.all(workers.map((w) => w.ready));
-    // Batches of 4 rows: the queue is filled once both workers are polling.
-    process.env.SCHEDULE_BATCH_ROWS = '4';
-    let scheduleId: string;
-    try {
-      scheduleId = await queued('shared', total, 'S');
-    } finally {
-      delete process.env.SCHEDULE_BATCH_ROWS;
-    }
+    // Batches of 4 rows, queued once both workers are polling.
+    const scheduleId = await queued('shared', total, 'S', 4);
     await waitFor('the shared schedule to complete', async () => (await getSchedule(teamId, scheduleId))?.status === 'done', 150_000, 200);
 
     const rows = await expectEachRowOnce(scheduleId, total);
