@@ -145,6 +145,14 @@ async function freshApiToken(ctx: MatrixContext): Promise<string> {
   return (await createTeamApiToken(ctx.teamId, ctx.users.admin.id, { name: ctx.unique('matrix revoke'), scopes: ['calc'] })).id;
 }
 
+/** A fresh read-only link to team A's matrix sheet (made by the designer), for the rows that revoke or open one. */
+async function freshShare(ctx: MatrixContext): Promise<{ id: string; token: string }> {
+  const { createShare } = await import('@/db/queries/shares');
+  const share = await createShare(ctx.teamId, ctx.users.designer.id, ctx.sheetId, { expiresInDays: 1 });
+  if (!share) throw new Error('the matrix sheet of team A was not found');
+  return share;
+}
+
 export const ENDPOINT_MATRIX: MatrixEntry[] = [
   // ── sign-in machinery and public account pages ──────────────────────────────────────────────
   { kind: 'route', method: 'GET', route: '/api/auth/[...nextauth]', expect: everyone(200), request: () => ({ path: '/api/auth/session' }) },
@@ -312,6 +320,58 @@ export const ENDPOINT_MATRIX: MatrixEntry[] = [
     expect: signedIn(401, { viewer: 403, designer: 403, reviewer: 200, otherAdmin: 200, admin: 200 }),
     request: () => ({ path: '/api/sheets/review-queue' }),
     check: noTeamARows('sheets', (ctx) => ctx.sheetId),
+  },
+
+  // ── sharing: read-only links, the PDF sizing sheet, e-mail, candidate exports (issue 8) ─────────
+  {
+    kind: 'route',
+    method: 'GET',
+    route: '/api/sheets/[sheetId]/shares',
+    expect: signedIn(401, { viewer: 403, designer: 200, reviewer: 403, otherAdmin: 404, admin: 200 }),
+    request: (ctx) => ({ path: `/api/sheets/${ctx.sheetId}/shares` }),
+  },
+  {
+    kind: 'route',
+    method: 'POST',
+    route: '/api/sheets/[sheetId]/shares',
+    expect: signedIn(401, { viewer: 403, designer: 201, reviewer: 403, otherAdmin: 404, admin: 201 }),
+    request: (ctx) => ({ path: `/api/sheets/${ctx.sheetId}/shares`, body: { expiresInDays: 1 } }),
+  },
+  {
+    kind: 'route',
+    method: 'DELETE',
+    route: '/api/sheets/[sheetId]/shares/[shareId]',
+    expect: signedIn(401, { viewer: 403, designer: 200, reviewer: 403, otherAdmin: 404, admin: 200 }),
+    request: async (ctx) => ({ path: `/api/sheets/${ctx.sheetId}/shares/${(await freshShare(ctx)).id}` }),
+  },
+  {
+    kind: 'route',
+    method: 'GET',
+    route: '/api/sheets/[sheetId]/pdf',
+    expect: signedIn(401, { viewer: 200, designer: 200, reviewer: 200, otherAdmin: 404, admin: 200 }),
+    request: (ctx) => ({ path: `/api/sheets/${ctx.sheetId}/pdf` }),
+  },
+  {
+    kind: 'route',
+    method: 'POST',
+    route: '/api/sheets/[sheetId]/email',
+    expect: signedIn(401, { viewer: 403, designer: 201, reviewer: 403, otherAdmin: 404, admin: 201 }),
+    request: (ctx) => ({ path: `/api/sheets/${ctx.sheetId}/email`, body: { to: `${ctx.unique('colleague')}@test.example`, message: 'Matrix check', attachPdf: false, expiresInDays: 1 } }),
+  },
+  {
+    kind: 'route',
+    method: 'GET',
+    route: '/api/sheets/[sheetId]/candidates/export',
+    expect: signedIn(401, { viewer: 200, designer: 200, reviewer: 200, otherAdmin: 404, admin: 200 }),
+    request: (ctx) => ({ path: `/api/sheets/${ctx.sheetId}/candidates/export?format=csv` }),
+  },
+  {
+    kind: 'route',
+    method: 'GET',
+    route: '/share/[token]/pdf',
+    // A link holder needs no session: a valid link opens for everyone, whoever else they are.
+    expect: everyone(200),
+    request: async (ctx) => ({ path: `/share/${(await freshShare(ctx)).token}/pdf` }),
   },
 
   // ── verification report (no team data; any signed-in member; CSV here, the PDF is checked in tests/e2e/verification.test.ts) ──
