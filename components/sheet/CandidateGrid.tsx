@@ -186,7 +186,7 @@ export function CandidateGrid({
   }, [units, editable, onChoose, onRemove]);
 
   return (
-    <div className="w-full" data-testid="candidate-grid">
+    <div className="w-full [&_.ag-center-cols-container]:!min-h-0 [&_.ag-center-cols-viewport]:!min-h-0" data-testid="candidate-grid">
       <AgGridReact<CandidateRow>
         theme={gridTheme}
         rowData={rows}

@@ -440,7 +440,9 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
           <SharePanel sheetId={sheetId} canShare={can(user.role, 'sheet:share')} dirty={dirty} />
           <HistoryList items={historyQuery.data ?? []} loading={historyQuery.isFetching} />
           {live.elapsedMs !== null && editable ? (
-            <p className="text-right text-caption text-ink-400">Computed in your browser in <span className="num">{live.elapsedMs.toFixed(0)}</span> ms.</p>
+            <p className="text-right text-caption text-ink-400" data-engine={live.engine ?? undefined}>
+              Computed in your browser {live.engine === 'worker' ? 'in a background worker ' : ''}in <span className="num">{live.elapsedMs.toFixed(0)}</span> ms (all candidates and their curves).
+            </p>
           ) : null}
         </div>
       </div>

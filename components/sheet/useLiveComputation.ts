@@ -18,6 +18,8 @@ export interface LiveResult {
   elapsedMs: number | null;
   /** The inputs are not valid yet: the result shown is from the last valid inputs. */
   invalid: boolean;
+  /** Where the last result was computed: a background worker, or the page itself when no worker could start. */
+  engine: 'worker' | 'page' | null;
 }
 
 const DEBOUNCE_MS = 200;
@@ -32,7 +34,7 @@ function computeHere(inputs: SheetInputs, withCurves: boolean) {
 }
 
 export function useLiveComputation(inputs: SheetInputs, options: { enabled: boolean; withCurves: boolean }): LiveResult {
-  const [result, setResult] = useState<LiveResult>({ computation: null, curves: [], inputsKey: null, computing: false, elapsedMs: null, invalid: false });
+  const [result, setResult] = useState<LiveResult>({ computation: null, curves: [], inputsKey: null, computing: false, elapsedMs: null, invalid: false, engine: null });
   const workerRef = useRef<Worker | null>(null);
   const requestRef = useRef(0);
   const key = JSON.stringify(inputs);
@@ -60,26 +62,26 @@ export function useLiveComputation(inputs: SheetInputs, options: { enabled: bool
     const timer = setTimeout(() => {
       const id = ++requestRef.current;
       const worker = workerRef.current;
-      const finish = (payload: { computation: SheetComputation; curves: HotSpotCurve[]; elapsedMs: number }) => {
+      const finish = (payload: { computation: SheetComputation; curves: HotSpotCurve[]; elapsedMs: number }, engine: 'worker' | 'page') => {
         if (id !== requestRef.current) return; // a newer edit superseded this one
-        setResult({ ...payload, inputsKey: key, computing: false, invalid: false });
+        setResult({ computation: payload.computation, curves: payload.curves, elapsedMs: payload.elapsedMs, inputsKey: key, computing: false, invalid: false, engine });
       };
       if (worker) {
         const onMessage = (event: MessageEvent) => {
           if (event.data?.id !== id) return;
           worker.removeEventListener('message', onMessage);
-          finish(event.data);
+          finish(event.data, 'worker');
         };
         const onError = () => {
           worker.removeEventListener('error', onError);
           workerRef.current = null;
-          finish(computeHere(parsed.data, options.withCurves));
+          finish(computeHere(parsed.data, options.withCurves), 'page');
         };
         worker.addEventListener('message', onMessage);
         worker.addEventListener('error', onError);
         worker.postMessage({ id, inputs: parsed.data, withCurves: options.withCurves });
       } else {
-        finish(computeHere(parsed.data, options.withCurves));
+        finish(computeHere(parsed.data, options.withCurves), 'page');
       }
     }, DEBOUNCE_MS);
     return () => clearTimeout(timer);
