@@ -297,6 +297,8 @@ export interface ScheduleProgress {
   /** Rows per second since the first row was stored (null before two rows are stored). */
   ratePerSecond: number | null;
   secondsLeft: number | null;
+  /** Seconds since a row was last stored (or since queueing, before the first row). */
+  secondsSinceActivity: number | null;
 }
 
 export async function scheduleProgress(teamId: string, scheduleId: string): Promise<ScheduleProgress | null> {
@@ -309,6 +311,7 @@ export async function scheduleProgress(teamId: string, scheduleId: string): Prom
       completedAt: schedules.completedAt,
       done: sql<number>`(select count(*)::int from ${scheduleRows} r where r.schedule_id = "schedules"."id" and r.status <> 'pending')`,
       failing: sql<number>`(select count(*)::int from ${scheduleRows} r where r.schedule_id = "schedules"."id" and r.status = 'none_passes')`,
+      idleS: sql<number | null>`(select extract(epoch from (now() - coalesce(max(r.sized_at), "schedules"."queued_at")))::float8 from ${scheduleRows} r where r.schedule_id = "schedules"."id")`,
       elapsedS: sql<number | null>`(select extract(epoch from (max(r.sized_at) - "schedules"."queued_at"))::float8 from ${scheduleRows} r where r.schedule_id = "schedules"."id" and r.sized_at is not null)`,
     })
     .from(schedules)
@@ -324,6 +327,7 @@ export async function scheduleProgress(teamId: string, scheduleId: string): Prom
     completedAt: row.completedAt?.toISOString() ?? null,
     ratePerSecond: rate,
     secondsLeft: rate ? (row.total - row.done) / rate : null,
+    secondsSinceActivity: row.idleS,
   };
 }
 

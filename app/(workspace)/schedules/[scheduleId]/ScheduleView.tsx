@@ -12,6 +12,9 @@ import { DataGrid } from '@/components/grid/DataGrid';
 import type { ResultLine } from '@/lib/schedule';
 import { fetchProgress, fetchResults, fetchSchedule, openRowAsSheet, queueScheduleRows, uploadScheduleFile, type ScheduleDetail } from '../api';
 
+/** Without a stored row for this long, the page says that no worker seems to be running. */
+const STALL_SECONDS = 120;
+
 const fmt = (value: number | null | undefined, digits = 1) => (value === null || value === undefined || !Number.isFinite(value) ? '—' : value.toLocaleString('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits }));
 
 function duration(seconds: number | null): string {
@@ -195,6 +198,11 @@ function RunStep({ detail, mayOpenSheet }: { detail: ScheduleDetail; mayOpenShee
           {p.failing > 0 ? <span className="text-over-dark"> · ✕ {p.failing} with no passing size</span> : null}
         </p>
         {!done ? <p className="text-caption text-ink-600">You can leave this page: the workers carry on, and the results appear here when every circuit is sized.</p> : null}
+        {!done && p.secondsSinceActivity !== null && p.secondsSinceActivity > STALL_SECONDS ? (
+          <p role="alert" className="text-body text-tight-dark">
+            ◐ No circuit has been sized for {duration(p.secondsSinceActivity)}. Sizing needs a worker process: `npm start` runs one; see the README to run more.
+          </p>
+        ) : null}
         {progress.isError ? <p role="alert" className="field-error">Could not refresh the progress: {progress.error.message}</p> : null}
         {schedule.droppedRows.length > 0 ? <p className="text-caption text-ink-600">Rows left out because of problems in the file: {schedule.droppedRows.join(', ')}.</p> : null}
       </section>
