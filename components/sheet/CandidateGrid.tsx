@@ -6,7 +6,7 @@ import type { CandidateEvaluation, CandidateEvaluationOk } from '@/lib/electrica
 import type { SheetCandidate } from '@/lib/sheet/candidates';
 import { describeArrangement, sectionPerPhaseMm2 } from '@/lib/sheet/candidates';
 import { convertFromSi, formatNumber, unitLabel, type UnitSystem } from '@/lib/units';
-import { RESULT_STATES, thermalState } from './resultState';
+import { failureWords, RESULT_STATES, thermalState } from './resultState';
 
 ModuleRegistry.registerModules([AllCommunityModule]);
 
@@ -87,19 +87,6 @@ export function candidateRows(candidates: SheetCandidate[], evaluations: Candida
       error: null,
     };
   });
-}
-
-const FAILURE_WORDS: Record<string, string> = {
-  OVER_LIMIT: 'over limit',
-  RUNAWAY: 'runaway',
-  SHORT_CIRCUIT_EXCEEDED: 'short circuit',
-  VOLTAGE_DROP_EXCEEDED: 'voltage drop',
-};
-
-/** "Fails: short circuit, voltage drop" from the blocker flags. */
-function failureWords(e: CandidateEvaluationOk): string {
-  const reasons = e.flags.filter((f) => f.severity === 'blocker').map((f) => FAILURE_WORDS[f.code] ?? f.title.toLowerCase());
-  return `Fails: ${reasons.join(', ') || 'a check'}`;
 }
 
 const num = (digits: number) => (p: { value: number | null }) => (p.value === null || p.value === undefined ? '—' : formatNumber(p.value, digits));

@@ -1,7 +1,7 @@
 'use client';
 import type { CandidateEvaluation } from '@/lib/electrical/sizing/types';
 import { formatNumber, formatQuantity, type UnitSystem } from '@/lib/units';
-import { RESULT_STATES, thermalState } from './resultState';
+import { failureWords, RESULT_STATES, thermalState } from './resultState';
 
 const LIMIT_SOURCES: Record<string, string> = { insulation: 'insulation', coating: 'coating', terminal: 'joints and terminals', user: 'your own limit', layer: 'covering' };
 
@@ -42,7 +42,10 @@ export function ResultStrip({
       </div>
     );
   }
-  const { state, word } = thermalState(evaluation);
+  const thermal = thermalState(evaluation);
+  // A candidate that fails any check (short circuit, voltage drop) is shown as failing, whatever its hot spot.
+  const state = evaluation.passes ? thermal.state : 'over';
+  const word = evaluation.passes ? thermal.word : failureWords(evaluation);
   const look = RESULT_STATES[state];
   const t = (c: number | null) => (c === null ? '—' : formatQuantity(c, 'temperature', units, { digits: 4 }));
   const margin =
@@ -54,7 +57,7 @@ export function ResultStrip({
       <div className="flex flex-wrap items-baseline justify-between gap-2">
         <p className={`font-semibold ${look.text}`} data-testid="result-state">
           <span aria-hidden="true">{look.icon}</span> {word}
-          {!evaluation.passes && state !== 'over' ? <span className="ml-2 text-over-dark">· fails a check (see the flags)</span> : null}
+          {!evaluation.passes && thermal.state !== 'over' ? <span className="ml-2 font-normal text-ink-700">(hot spot {thermal.word.toLowerCase()}; see the flags)</span> : null}
         </p>
         <p className="text-caption text-ink-600">
           {chosen ? 'Chosen: ' : 'Viewing: '}

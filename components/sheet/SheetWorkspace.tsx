@@ -224,6 +224,7 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
     [],
   );
 
+  const lastReturnComment = [...(historyQuery.data ?? [])].reverse().find((h) => h.action === 'sheet.return')?.detail.comment as string | undefined;
   const rows = candidateRows(values.candidates, evaluations, values.chosenCandidateId, units);
   const limits = Object.fromEntries((evaluations ?? []).filter((e): e is CandidateEvaluationOk => e.ok).map((e) => [e.id, e.limit.temperatureC]));
   const placement = values.installation.kind === 'enclosure' ? values.installation.enclosureInside : values.installation.kind;
@@ -303,7 +304,10 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
         </p>
       ) : null}
       {sheet.status === 'returned' ? (
-        <p className="rounded-md border border-tight bg-tight-light px-3 py-1.5 text-body text-tight-dark">↩ Returned by {sheet.reviewerName ?? 'the reviewer'}: see the comment in the history below, change the sheet, save and submit again.</p>
+        <p className="rounded-md border border-tight bg-tight-light px-3 py-1.5 text-body text-tight-dark" data-testid="returned-notice">
+          ↩ Returned by {sheet.reviewerName ?? 'the reviewer'}
+          {lastReturnComment ? <>: “{lastReturnComment}”</> : null} — change the sheet, save and submit again.
+        </p>
       ) : null}
       {notice ? (
         <p role={notice.tone === 'error' ? 'alert' : 'status'} className={`rounded-md px-3 py-1.5 text-body ${notice.tone === 'error' ? 'border border-over bg-over-light text-over-dark' : 'border border-within bg-within-light text-within-dark'}`} data-testid="sheet-notice">

@@ -15,3 +15,16 @@ export function thermalState(e: CandidateEvaluationOk): { state: ResultState; wo
   if (e.marginPercent !== null && e.marginPercent < 10) return { state: 'tight', word: 'Margin under 10 %' };
   return { state: 'within', word: 'Within limit' };
 }
+
+const FAILURE_WORDS: Record<string, string> = {
+  OVER_LIMIT: 'over limit',
+  RUNAWAY: 'runaway',
+  SHORT_CIRCUIT_EXCEEDED: 'short circuit',
+  VOLTAGE_DROP_EXCEEDED: 'voltage drop',
+};
+
+/** "Fails: short circuit, voltage drop" from the blocker flags. */
+export function failureWords(e: CandidateEvaluationOk): string {
+  const reasons = e.flags.filter((f) => f.severity === 'blocker').map((f) => FAILURE_WORDS[f.code] ?? f.title.toLowerCase());
+  return `Fails: ${reasons.join(', ') || 'a check'}`;
+}
