@@ -13,6 +13,8 @@ export default defineConfig({
           name: 'unit',
           include: ['tests/lib/**/*.test.ts', 'tests/unit/**/*.test.ts'],
           environment: 'node',
+          // Property tests run thousands of solves; a loaded 2-core machine must not turn them into timeouts.
+          testTimeout: 120_000,
         },
       },
       {
