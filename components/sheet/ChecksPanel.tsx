@@ -1,6 +1,6 @@
 'use client';
 import type { CandidateEvaluationOk } from '@/lib/electrical/sizing/types';
-import { formatNumber, formatQuantity, type UnitSystem } from '@/lib/units';
+import { formatNumber, formatQuantity, KG_PER_POUND, type UnitSystem } from '@/lib/units';
 
 function Row({ label, children, state }: { label: string; children: React.ReactNode; state?: 'pass' | 'fail' | 'none' }) {
   const mark = state === 'pass' ? <span className="text-within-dark">✔ passes</span> : state === 'fail' ? <span className="font-semibold text-over-dark">✖ fails</span> : null;
@@ -37,7 +37,7 @@ export function ChecksPanel({ evaluation, units, lengthM }: { evaluation: Candid
         ) : (
           <Row label="Short circuit">not checked{sc.reason ? `: ${sc.reason}` : ''}</Row>
         )}
-        <Row label="Conductor mass">{formatNumber(evaluation.massKg, 4)} kg</Row>
+        <Row label="Conductor mass (route)">{units === 'si' ? `${formatNumber(evaluation.massKg, 4)} kg` : `${formatNumber(evaluation.massKg / KG_PER_POUND, 4)} lb`}</Row>
         <Row label="Material cost · life-cycle cost">
           {evaluation.materialCost ?? '—'} · {evaluation.lifeCycleCost ?? '—'}
         </Row>

@@ -2,7 +2,7 @@
 import type { UseFormReturnType } from '@mantine/form';
 import type { ReactNode } from 'react';
 import { DEFAULT_SOURCES, type SheetInputs } from '@/lib/sheet/schema';
-import type { SheetNumericField } from '@/lib/sheet/formUnits';
+import { displayText, type SheetNumericField } from '@/lib/sheet/formUnits';
 import type { UnitSystem } from '@/lib/units';
 import { NumberField } from './NumberField';
 
@@ -77,7 +77,7 @@ export function InputsForm({ form, units, disabled }: { form: Form; units: UnitS
           {num('circuit.lengthM', 'Route length')}
           <div className="grid grid-cols-2 gap-2">
             {num('circuit.maxVoltageDropPercent', 'Allowed drop', { nullable: true, placeholder: 'no limit' })}
-            {num('circuit.reactanceOhmPerM', 'Reactance', { nullable: true, placeholder: '0.08 (Annex G)' })}
+            {num('circuit.reactanceOhmPerM', 'Reactance', { nullable: true, placeholder: `${displayText('circuit.reactanceOhmPerM', 0.08e-3, units)} (Annex G)` })}
           </div>
           <p className="text-[0.6875rem] leading-4 text-ink-500">{DEFAULT_SOURCES.maxVoltageDropPercent} {DEFAULT_SOURCES.reactanceOhmPerM}</p>
         </Section>
