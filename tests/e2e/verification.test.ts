@@ -22,12 +22,12 @@ beforeAll(async () => {
   page = await context.newPage();
   // Anonymous visitors are sent to sign in first, and come back here afterwards.
   await page.goto(appUrl('/verification'));
-  await page.waitForURL(/\/sign-in/);
+  await page.waitForURL((url) => url.pathname === '/sign-in', { timeout: 120_000 });
   await page.getByLabel('E-mail').fill(viewer.email);
   await page.getByLabel('Password').fill(TEST_PASSWORD);
   await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL(/\/verification/);
-});
+  await page.waitForURL((url) => url.pathname === '/verification', { timeout: 240_000 });
+}, 300_000);
 
 afterAll(async () => {
   await browser?.close();
@@ -35,9 +35,9 @@ afterAll(async () => {
 });
 
 describe('/verification', () => {
-  it('runs every case in the browser and all of them pass', async () => {
+  it('runs every case in the browser and all of them pass', { timeout: 300_000 }, async () => {
     const summary = page.getByTestId('verification-summary');
-    await page.waitForSelector('[data-testid="verification-summary"][data-state="done"]', { timeout: 90_000 });
+    await page.waitForSelector('[data-testid="verification-summary"][data-state="done"]', { timeout: 240_000 });
     const total = Number(await summary.getAttribute('data-total'));
     const passed = Number(await summary.getAttribute('data-passed'));
     const failed = Number(await summary.getAttribute('data-failed'));
@@ -61,17 +61,23 @@ describe('/verification', () => {
     await screenshot(page, 'verification');
   });
 
-  it('a link to one case (as the sizing sheet makes with casesForMethod) lands on its row', async () => {
+  it('a link to one case (as the sizing sheet makes with casesForMethod) lands on its row', { timeout: 300_000 }, async () => {
     const id = 'skin-effect-cu-240-90c-50hz';
-    await page.goto(appUrl(`/verification#case-${id}`));
-    await page.waitForSelector('[data-testid="verification-summary"][data-state="done"]', { timeout: 90_000 });
-    const target = page.locator(`#case-${id}`);
+    const linked = await page.context().newPage();
+    await linked.goto(appUrl(`/verification#case-${id}`));
+    await linked.waitForSelector('[data-testid="verification-summary"][data-state="done"]', { timeout: 240_000 });
+    const target = linked.locator(`#case-${id}`);
     await expect(target.getAttribute('data-case-result')).resolves.toBe('pass');
     await expect(target.textContent()).resolves.toContain('IEC 60287-1-1');
-    await page.waitForFunction((rowId) => {
-      const box = document.getElementById(rowId)?.getBoundingClientRect();
-      return Boolean(box && box.top >= 0 && box.bottom <= window.innerHeight);
-    }, `case-${id}`, { timeout: 10_000 });
+    await linked.waitForFunction(
+      (rowId) => {
+        const box = document.getElementById(rowId)?.getBoundingClientRect();
+        return Boolean(box && box.top >= 0 && box.top < window.innerHeight);
+      },
+      `case-${id}`,
+      { timeout: 10_000 },
+    );
+    await linked.close();
   });
 
   it('downloads the CSV of what ran here: one row per compared value, all passing', async () => {
@@ -86,8 +92,9 @@ describe('/verification', () => {
     expect(rows.every((r) => r[resultColumn] === 'pass')).toBe(true);
   });
 
-  it('the PDF report is served to a signed-in member, not to anonymous callers', async () => {
-    const response = await page.request.get(appUrl('/api/verification/report?format=pdf'));
+  it('the PDF report is served to a signed-in member, not to anonymous callers', { timeout: 240_000 }, async () => {
+    // The server renders the PDF once per process (all cases, then react-pdf): give it time on a busy machine.
+    const response = await page.request.get(appUrl('/api/verification/report?format=pdf'), { timeout: 180_000 });
     expect(response.status()).toBe(200);
     expect(response.headers()['content-type']).toBe('application/pdf');
     const pdf = await response.body();
