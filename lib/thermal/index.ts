@@ -67,3 +67,18 @@ export {
   STANDARD_GRAVITY,
   STEFAN_BOLTZMANN,
 } from './constants';
+
+// Beyond steady state (physics.md §6): runs over time and the bar run along its length.
+export { dailyCycle, faultHeating, overloadTimeToLimit } from './transientRuns';
+export type {
+  DailyCycleInput,
+  DailyCycleResult,
+  FaultHeatingInput,
+  FaultHeatingResult,
+  HotSpotPoint,
+  OverloadInput,
+  OverloadOutcome,
+  OverloadResult,
+} from './transientRuns';
+export { DEFAULT_JOINT_RESISTANCE_MICRO_OHM, solveBarRun } from './barRun';
+export type { BarRunEnd, BarRunInput, BarRunJoint, BarRunResult } from './barRun';

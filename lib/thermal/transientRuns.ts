@@ -1,0 +1,459 @@
+/**
+ * Heat balance over time (physics.md §6): overload time-to-limit, fault heating with heat flowing
+ * into the coverings, and a daily load profile repeated to a periodic steady state.
+ *
+ * Every run marches implicit-Euler steps on the same finite-volume assembly and outer iteration
+ * as `solveSteady`/`solveTransient` (iterate.ts): a_P gains ρcΔV/Δt and b gains ρcΔV/Δt·T_old;
+ * the Joule source is re-evaluated at each step's own temperatures and current (the iteration
+ * converges every step), so R(T) follows the temperature. Implicit Euler is first order in time:
+ * the defaults below choose steps small against the time being resolved, and every result says
+ * which step it used.
+ */
+import { ThermalInputError } from './errors';
+import { createContext, iterate, type SolverContext } from './iterate';
+import { solveSteady } from './solve';
+import type { Layer, ThermalFlag, ThermalProblem } from './types';
+import { requirePositive, requirePositiveInteger, requireRecord, requireTemperature, validateProblem, type NormalizedProblem } from './validate';
+
+/** One point of a hot-spot-versus-time series. */
+export interface HotSpotPoint {
+  /** s from the start of the run (or of the day, for a daily cycle) */
+  timeS: number;
+  /** °C, hottest cell */
+  hotSpotC: number;
+  /** A, the current flowing during the step that ended here */
+  currentA: number;
+}
+
+/** A marcher: implicit-Euler steps of fixed length on one problem, at any current. */
+interface Marcher {
+  ctx: SolverContext;
+  cellCount: number;
+  positions: number[];
+  /** One step from `previous` (°C per cell) at `currentA`; null when the step does not converge. */
+  step(previous: Float64Array, currentA: number): Float64Array<ArrayBufferLike> | null;
+}
+
+function requireHeatCapacity(normalized: NormalizedProblem): void {
+  normalized.geometry.layers.forEach((layer, i) => {
+    if (layer.density === undefined) throw new ThermalInputError(`geometry.layers[${i}].density`, 'is required for a transient run');
+    if (layer.heatCapacity === undefined) throw new ThermalInputError(`geometry.layers[${i}].heatCapacity`, 'is required for a transient run');
+  });
+}
+
+function requireJoule(problem: ThermalProblem): void {
+  if (problem?.source?.kind !== 'joule') throw new ThermalInputError('problem.source.kind', "must be 'joule' (the current changes over time)");
+}
+
+function marcher(problem: ThermalProblem, timeStepS: number): Marcher {
+  const normalized = validateProblem(problem, false);
+  requireHeatCapacity(normalized);
+  // Own storage (not the shared scratch of solve.ts): a run interleaves steps with steady solves.
+  const ctx = createContext(normalized, timeStepS);
+  const n = ctx.mesh.cellCount;
+  return {
+    ctx,
+    cellCount: n,
+    positions: Array.from(ctx.mesh.nodes),
+    step(previous, currentA) {
+      const outcome = iterate(ctx, {
+        start: previous,
+        previous,
+        currentA,
+        surfaceStart: { inner: previous[0], outer: previous[n - 1] },
+      });
+      return outcome.status === 'converged' ? Float64Array.from(outcome.temperatures) : null;
+    },
+  };
+}
+
+function hottest(t: ArrayLike<number>): number {
+  let h = -Infinity;
+  for (let i = 0; i < t.length; i++) if (t[i] > h) h = t[i];
+  return h;
+}
+
+function withCurrent(problem: ThermalProblem, currentA: number): ThermalProblem {
+  requireJoule(problem);
+  return { ...problem, source: { ...(problem.source as Extract<ThermalProblem['source'], { kind: 'joule' }>), current: currentA } };
+}
+
+/** Steady temperatures per cell at `currentA`, or null when there is no steady state. */
+function steadyCells(problem: ThermalProblem, currentA: number): { temperatures: Float64Array; hotSpotC: number } | null {
+  const r = solveSteady(withCurrent(problem, currentA));
+  if (!r.converged) return null;
+  return { temperatures: Float64Array.from(r.temperatures), hotSpotC: hottest(r.temperatures) };
+}
+
+// ─────────────────────────────────── Overload ───────────────────────────────────
+
+export interface OverloadInput {
+  /** The conductor at its starting current (Joule source); layers carry density and heat capacity. */
+  problem: ThermalProblem;
+  /** Current from t = 0, A. */
+  overloadCurrentA: number;
+  /** Hot-spot limit, °C. */
+  limitC: number;
+  /** Longest time looked at, s. */
+  maxTimeS: number;
+  /** Implicit-Euler step, s (default maxTimeS/400, refined when the limit comes early). */
+  timeStepS?: number;
+}
+
+export type OverloadOutcome =
+  /** The hot spot reaches the limit at `timeToLimitS`. */
+  | 'reaches-limit'
+  /** The steady state at the overload would exceed the limit, but not within maxTimeS. */
+  | 'not-within-max-time'
+  /** The overload has a steady state below the limit: it can be carried indefinitely. */
+  | 'steady-below-limit'
+  /** Already at or over the limit at the starting current. */
+  | 'already-over-limit';
+
+export interface OverloadResult {
+  outcome: OverloadOutcome;
+  /** s, linear interpolation between the two steps around the crossing; null unless reached. */
+  timeToLimitS: number | null;
+  limitC: number;
+  startingCurrentA: number;
+  overloadCurrentA: number;
+  /** Steady hot spot at the starting current, °C. */
+  initialHotSpotC: number;
+  /** Steady hot spot at the overload current, °C; null when there is none (runaway). */
+  overloadSteadyHotSpotC: number | null;
+  timeStepS: number;
+  /** Hot spot against time from t = 0 (first point: the starting state). */
+  series: HotSpotPoint[];
+  flags: ThermalFlag[];
+}
+
+/** Steps over the horizon by default, and at least this many before the crossing. */
+const OVERLOAD_STEPS = 400;
+const STEPS_BEFORE_CROSSING = 200;
+
+function marchToLimit(
+  problem: ThermalProblem,
+  start: Float64Array,
+  currentA: number,
+  limitC: number,
+  maxTimeS: number,
+  timeStepS: number,
+): { series: HotSpotPoint[]; crossingS: number | null; stepsToCrossing: number; failedAtS?: number } {
+  const m = marcher(problem, timeStepS);
+  const series: HotSpotPoint[] = [{ timeS: 0, hotSpotC: hottest(start), currentA: 0 }];
+  let t: Float64Array<ArrayBufferLike> = start;
+  const steps = Math.ceil(maxTimeS / timeStepS - 1e-9);
+  for (let k = 1; k <= steps; k++) {
+    const next = m.step(t, currentA);
+    if (!next) return { series, crossingS: null, stepsToCrossing: k, failedAtS: (k - 1) * timeStepS };
+    const before = series[series.length - 1].hotSpotC;
+    const now = hottest(next);
+    series.push({ timeS: k * timeStepS, hotSpotC: now, currentA });
+    if (now >= limitC) {
+      const fraction = now === before ? 1 : (limitC - before) / (now - before);
+      return { series, crossingS: (k - 1 + fraction) * timeStepS, stepsToCrossing: k };
+    }
+    t = next;
+  }
+  return { series, crossingS: null, stepsToCrossing: steps };
+}
+
+/**
+ * How long an overload can flow, starting from the steady state at the problem's current.
+ * Throws ThermalInputError (field named) for invalid input or a starting current without a
+ * steady state.
+ */
+export function overloadTimeToLimit(input: OverloadInput): OverloadResult {
+  const raw = requireRecord(input, 'overload');
+  const problem = raw.problem as ThermalProblem;
+  requireJoule(problem);
+  const startingCurrentA = (problem.source as { current: number }).current;
+  const overloadCurrentA = requirePositive(raw.overloadCurrentA, 'overloadCurrentA');
+  const limitC = requireTemperature(raw.limitC, 'limitC');
+  const maxTimeS = requirePositive(raw.maxTimeS, 'maxTimeS');
+  const given = raw.timeStepS === undefined ? undefined : requirePositive(raw.timeStepS, 'timeStepS');
+
+  const initial = steadyCells(problem, startingCurrentA);
+  if (!initial) throw new ThermalInputError('problem.source.current', 'has no steady state to start the overload from');
+  const overloadSteady = steadyCells(problem, overloadCurrentA);
+  const flags: ThermalFlag[] = [...(problem.assumptions ?? [])];
+  const base = {
+    limitC,
+    startingCurrentA,
+    overloadCurrentA,
+    initialHotSpotC: initial.hotSpotC,
+    overloadSteadyHotSpotC: overloadSteady ? overloadSteady.hotSpotC : null,
+  };
+  if (initial.hotSpotC >= limitC) {
+    return {
+      ...base,
+      outcome: 'already-over-limit',
+      timeToLimitS: 0,
+      timeStepS: given ?? maxTimeS / OVERLOAD_STEPS,
+      series: [{ timeS: 0, hotSpotC: initial.hotSpotC, currentA: startingCurrentA }],
+      flags,
+    };
+  }
+
+  let timeStepS = given ?? maxTimeS / OVERLOAD_STEPS;
+  let run = marchToLimit(problem, initial.temperatures, overloadCurrentA, limitC, maxTimeS, timeStepS);
+  if (given === undefined && run.crossingS !== null && run.stepsToCrossing < STEPS_BEFORE_CROSSING) {
+    // The limit came early: resolve the rise with enough steps (first-order error ∝ Δt).
+    timeStepS = (run.stepsToCrossing * timeStepS) / STEPS_BEFORE_CROSSING;
+    run = marchToLimit(problem, initial.temperatures, overloadCurrentA, limitC, maxTimeS, timeStepS);
+  }
+  run.series[0].currentA = startingCurrentA;
+  if (run.failedAtS !== undefined) {
+    flags.push({
+      code: 'transient-step-not-converged',
+      severity: 'warning',
+      message: `A time step after ${run.failedAtS.toFixed(0)} s did not converge; the series stops there.`,
+    });
+  }
+  let outcome: OverloadOutcome;
+  if (run.crossingS !== null) outcome = 'reaches-limit';
+  else if (overloadSteady && overloadSteady.hotSpotC < limitC) outcome = 'steady-below-limit';
+  else outcome = 'not-within-max-time';
+  return { ...base, outcome, timeToLimitS: run.crossingS, timeStepS, series: run.series, flags };
+}
+
+// ─────────────────────────────────── Fault ───────────────────────────────────
+
+export interface FaultHeatingInput {
+  /** The conductor and its coverings at the pre-fault current (Joule source). */
+  problem: ThermalProblem;
+  faultCurrentA: number;
+  durationS: number;
+  /** Start from the steady state at the pre-fault current (default) or uniformly at this °C. */
+  initialC?: number;
+  /** Implicit-Euler steps over the fault (default 1000). */
+  steps?: number;
+}
+
+export interface FaultHeatingResult {
+  /** Hottest cell at the start, °C. */
+  initialHotSpotC: number;
+  /** Hot spot at the end of the fault with heat flowing into the coverings, °C. */
+  finalHotSpotC: number;
+  /**
+   * Hot spot at the end of the fault when no heat leaves the generating layers (their faces made
+   * adiabatic): the same model's counterpart of the IEC 60949 adiabatic method, °C.
+   */
+  finalAdiabaticC: number;
+  /** Conductor-average temperatures at the end, °C (the quantity the adiabatic method describes). */
+  finalConductorMeanC: number;
+  finalAdiabaticConductorMeanC: number;
+  timeStepS: number;
+  series: { timeS: number; hotSpotC: number; adiabaticC: number }[];
+  flags: ThermalFlag[];
+}
+
+const FAULT_STEPS = 1000;
+
+/** The contiguous generating layers alone, both faces adiabatic (symmetry = zero flux). */
+function adiabaticConductor(problem: ThermalProblem): { problem: ThermalProblem; first: number; cells: number } {
+  const layers = problem.geometry.layers;
+  const first = layers.findIndex((l) => l.generating);
+  if (first < 0) throw new ThermalInputError('problem.geometry.layers', 'has no generating layer');
+  let last = first;
+  while (last + 1 < layers.length && layers[last + 1].generating) last++;
+  let innerRadius = problem.geometry.innerRadius ?? 0;
+  for (let i = 0; i < first; i++) innerRadius += layers[i].thickness;
+  const kept: Layer[] = layers.slice(first, last + 1);
+  return {
+    problem: {
+      ...problem,
+      geometry: { ...problem.geometry, ...(problem.geometry.kind === 'cylinder' ? { innerRadius } : {}), layers: kept },
+      inner: { kind: 'symmetry' },
+      outer: { kind: 'symmetry' },
+    },
+    first: layers.slice(0, first).reduce((s, l) => s + (l.cells ?? 40), 0),
+    cells: kept.reduce((s, l) => s + (l.cells ?? 40), 0),
+  };
+}
+
+function volumeMean(ctx: SolverContext, t: ArrayLike<number>): number {
+  let sum = 0;
+  let volume = 0;
+  for (let i = 0; i < t.length; i++) {
+    if (!ctx.mesh.generating[i]) continue;
+    sum += t[i] * ctx.mesh.volumes[i];
+    volume += ctx.mesh.volumes[i];
+  }
+  return sum / volume;
+}
+
+/** Temperature after a fault, with and without heat flowing into the coverings. */
+export function faultHeating(input: FaultHeatingInput): FaultHeatingResult {
+  const raw = requireRecord(input, 'fault');
+  const problem = raw.problem as ThermalProblem;
+  requireJoule(problem);
+  const faultCurrentA = requirePositive(raw.faultCurrentA, 'faultCurrentA');
+  const durationS = requirePositive(raw.durationS, 'durationS');
+  const steps = raw.steps === undefined ? FAULT_STEPS : requirePositiveInteger(raw.steps, 'steps');
+  const timeStepS = durationS / steps;
+
+  const full = marcher(problem, timeStepS);
+  let start: Float64Array;
+  if (raw.initialC !== undefined) {
+    start = new Float64Array(full.cellCount).fill(requireTemperature(raw.initialC, 'initialC'));
+  } else {
+    const s = steadyCells(problem, (problem.source as { current: number }).current);
+    if (!s) throw new ThermalInputError('problem.source.current', 'has no steady state to start the fault from');
+    start = s.temperatures;
+  }
+  const adiabatic = adiabaticConductor(problem);
+  const alone = marcher(adiabatic.problem, timeStepS);
+  let withCoverings: Float64Array<ArrayBufferLike> = start;
+  let conductorOnly: Float64Array<ArrayBufferLike> = start.slice(adiabatic.first, adiabatic.first + adiabatic.cells);
+  const series: FaultHeatingResult['series'] = [{ timeS: 0, hotSpotC: hottest(withCoverings), adiabaticC: hottest(conductorOnly) }];
+  const every = Math.max(1, Math.floor(steps / 200));
+  for (let k = 1; k <= steps; k++) {
+    const a = full.step(withCoverings, faultCurrentA);
+    const b = alone.step(conductorOnly, faultCurrentA);
+    if (!a || !b) throw new ThermalInputError('faultCurrentA', `heats the conductor beyond the model's temperature limit within ${(k * timeStepS).toPrecision(3)} s`);
+    withCoverings = a;
+    conductorOnly = b;
+    if (k % every === 0 || k === steps) series.push({ timeS: k * timeStepS, hotSpotC: hottest(a), adiabaticC: hottest(b) });
+  }
+  return {
+    initialHotSpotC: hottest(start),
+    finalHotSpotC: hottest(withCoverings),
+    finalAdiabaticC: hottest(conductorOnly),
+    finalConductorMeanC: volumeMean(full.ctx, withCoverings),
+    finalAdiabaticConductorMeanC: volumeMean(alone.ctx, conductorOnly),
+    timeStepS,
+    series,
+    flags: [...(problem.assumptions ?? [])],
+  };
+}
+
+// ─────────────────────────────────── Daily cycle ───────────────────────────────────
+
+export interface DailyCycleInput {
+  /** The conductor (Joule source; its current is not used). */
+  problem: ThermalProblem;
+  /**
+   * Currents over one day in equal intervals from midnight (24 = hourly, 96 = quarter-hourly…),
+   * each held through its interval, A.
+   */
+  currentsA: number[];
+  /** Implicit-Euler step, s (default: the interval split into steps of at most 120 s). */
+  timeStepS?: number;
+  /** Days repeated at most (default 30). */
+  maxDays?: number;
+  /** Successive daily peaks closer than this count as periodic, K (default 0.01). */
+  toleranceK?: number;
+  /** Optional limit, °C, for the report. */
+  limitC?: number;
+}
+
+export interface DailyCycleResult {
+  /** True when successive daily peaks differed by less than the tolerance. */
+  periodic: boolean;
+  days: number;
+  /** Peak hot spot of each simulated day, °C. */
+  dailyPeaksC: number[];
+  /** Peak of the last day, °C, and when it occurs, s after midnight. */
+  peakC: number;
+  peakTimeS: number;
+  /** Lowest hot spot of the last day, °C. */
+  minimumC: number;
+  limitC?: number;
+  exceedsLimit?: boolean;
+  timeStepS: number;
+  /** The last day, from midnight (first point: the state at midnight). */
+  series: HotSpotPoint[];
+  /** Root-mean-square current of the profile, A (the steady start). */
+  rmsCurrentA: number;
+  flags: ThermalFlag[];
+}
+
+const DAY_S = 86400;
+const MAX_DAILY_STEP_S = 120;
+
+export function dailyCycle(input: DailyCycleInput): DailyCycleResult {
+  const raw = requireRecord(input, 'cycle');
+  const problem = raw.problem as ThermalProblem;
+  requireJoule(problem);
+  if (!Array.isArray(raw.currentsA) || raw.currentsA.length < 24) {
+    throw new ThermalInputError('currentsA', 'must list at least 24 currents (hourly) over the day');
+  }
+  const currents = raw.currentsA.map((c, i) => {
+    if (typeof c !== 'number' || !Number.isFinite(c) || c < 0) throw new ThermalInputError(`currentsA[${i}]`, 'must be a finite current ≥ 0 A');
+    return c;
+  });
+  const intervalS = DAY_S / currents.length;
+  let timeStepS: number;
+  if (raw.timeStepS === undefined) {
+    timeStepS = intervalS / Math.ceil(intervalS / MAX_DAILY_STEP_S - 1e-9);
+  } else {
+    timeStepS = requirePositive(raw.timeStepS, 'timeStepS');
+    const ratio = intervalS / timeStepS;
+    if (Math.abs(ratio - Math.round(ratio)) > 1e-9) throw new ThermalInputError('timeStepS', `must divide the profile interval (${intervalS} s)`);
+  }
+  const stepsPerInterval = Math.round(intervalS / timeStepS);
+  const maxDays = raw.maxDays === undefined ? 30 : requirePositiveInteger(raw.maxDays, 'maxDays');
+  const toleranceK = raw.toleranceK === undefined ? 0.01 : requirePositive(raw.toleranceK, 'toleranceK');
+  const limitC = raw.limitC === undefined ? undefined : requireTemperature(raw.limitC, 'limitC');
+
+  // Start from the steady state at the profile's r.m.s. current (same mean Joule heat at 20 °C):
+  // close to the periodic state, so few days are needed.
+  const rmsCurrentA = Math.sqrt(currents.reduce((s, c) => s + c * c, 0) / currents.length);
+  const flags: ThermalFlag[] = [...(problem.assumptions ?? [])];
+  const m = marcher(problem, timeStepS);
+  let state: Float64Array<ArrayBufferLike> | undefined = steadyCells(problem, rmsCurrentA)?.temperatures ?? steadyCells(problem, 0)?.temperatures;
+  if (!state) throw new ThermalInputError('problem', 'has no steady state even without current');
+
+  const dailyPeaksC: number[] = [];
+  let series: HotSpotPoint[] = [];
+  let periodic = false;
+  for (let day = 1; day <= maxDays; day++) {
+    series = [{ timeS: 0, hotSpotC: hottest(state), currentA: currents[currents.length - 1] }];
+    let peak = -Infinity;
+    for (let interval = 0; interval < currents.length; interval++) {
+      for (let s = 1; s <= stepsPerInterval; s++) {
+        const next = m.step(state, currents[interval]);
+        if (!next) {
+          throw new ThermalInputError(`currentsA[${interval}]`, `drives the conductor beyond the model's temperature limit on day ${day}`);
+        }
+        state = next;
+        const h = hottest(state);
+        peak = Math.max(peak, h);
+        series.push({ timeS: (interval * stepsPerInterval + s) * timeStepS, hotSpotC: h, currentA: currents[interval] });
+      }
+    }
+    dailyPeaksC.push(peak);
+    if (day > 1 && Math.abs(peak - dailyPeaksC[day - 2]) < toleranceK) {
+      periodic = true;
+      break;
+    }
+  }
+  if (!periodic) {
+    flags.push({
+      code: 'daily-cycle-not-periodic',
+      severity: 'warning',
+      message: `The daily peak still changed by ${Math.abs(dailyPeaksC[dailyPeaksC.length - 1] - dailyPeaksC[dailyPeaksC.length - 2]).toFixed(3)} K after ${maxDays} days.`,
+    });
+  }
+  let peakIndex = 0;
+  let minimumC = Infinity;
+  for (let i = 0; i < series.length; i++) {
+    if (series[i].hotSpotC > series[peakIndex].hotSpotC) peakIndex = i;
+    minimumC = Math.min(minimumC, series[i].hotSpotC);
+  }
+  const peakC = series[peakIndex].hotSpotC;
+  return {
+    periodic,
+    days: dailyPeaksC.length,
+    dailyPeaksC,
+    peakC,
+    peakTimeS: series[peakIndex].timeS,
+    minimumC,
+    ...(limitC !== undefined ? { limitC, exceedsLimit: peakC > limitC } : {}),
+    timeStepS,
+    series,
+    rmsCurrentA,
+    flags,
+  };
+}
