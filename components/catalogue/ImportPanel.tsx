@@ -10,6 +10,7 @@ import { CATALOGUE_COLUMNS, KIND_LABELS } from '@/lib/catalogue/columns';
 import { MAX_IMPORT_BYTES } from '@/lib/catalogue/limits';
 import type { CatalogueKind } from '@/lib/catalogue/schemas';
 import { ApiFailure, commitPreviewedImport, uploadForPreview, type ImportPreviewAnswer } from './api';
+import { RecentImports, recentImportsQueryKey } from './RecentImports';
 
 const SAMPLE_COLUMNS = 6;
 
@@ -25,7 +26,10 @@ export function ImportPanel({ kind, onClose }: { kind: CatalogueKind; onClose: (
 
   const check = useMutation({
     mutationFn: (chosen: File) => uploadForPreview(kind, chosen),
-    onSuccess: (answer) => setPreview(answer),
+    onSuccess: (answer) => {
+      setPreview(answer);
+      void queryClient.invalidateQueries({ queryKey: recentImportsQueryKey });
+    },
     onError: (error) => setFileError(error instanceof ApiFailure ? error.message : 'The file could not be sent.'),
   });
   const commit = useMutation({
@@ -189,6 +193,7 @@ export function ImportPanel({ kind, onClose }: { kind: CatalogueKind; onClose: (
           )}
         </div>
       ) : null}
+      <RecentImports />
     </section>
   );
 }
