@@ -46,6 +46,9 @@ async function signIn(email: string): Promise<Page> {
 
 const hotSpotText = (page: Page) => page.getByTestId('hot-spot').innerText();
 
+// Generous guards only (this is a loaded 2-core machine running the whole suite); nothing is timed.
+
+
 describe('the sizing sheet in the browser', () => {
   it('a designer creates a sheet, compares three candidates live, saves and submits', async () => {
     const page = await signIn(designerEmail);
@@ -108,7 +111,7 @@ describe('the sizing sheet in the browser', () => {
     await expect(page.getByTestId('input-design-current').isDisabled()).resolves.toBe(true);
     await screenshot(page, 'sheet-05-submitted');
     await page.context().close();
-  });
+  }, 300_000);
 
   it('a reviewer acknowledges each review flag and approves; the author still has no approve button', async () => {
     const page = await signIn(reviewerEmail);
@@ -147,5 +150,5 @@ describe('the sizing sheet in the browser', () => {
     await expect(author.getByTestId('input-design-current').isDisabled()).resolves.toBe(true);
     await screenshot(author, 'sheet-09-author-sees-approved');
     await author.context().close();
-  });
+  }, 300_000);
 });
