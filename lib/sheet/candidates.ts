@@ -22,7 +22,7 @@ const candidateCommon = {
   catalogue: z
     .object({ conductorId: z.string().optional(), coveringIds: z.array(z.string()).optional(), buildId: z.string().optional() })
     .optional(),
-  sourceNotes: z.array(z.string().max(500)).max(20).optional(),
+  sourceNotes: z.array(z.string().max(1000)).max(60).optional(),
   dataFromMemory: z.boolean().optional(),
   costs: z
     .object({
