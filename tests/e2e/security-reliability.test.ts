@@ -64,6 +64,7 @@ describe('CSRF', () => {
     const target = await createTeamApiToken(teamId, admin.id, { name: 'csrf target', scopes: ['calc'] });
     const forged = await callActionFrom(EVIL_ORIGIN, adminClient, ACTIONS_FILE, 'revokeApiTokenAction', [{}, form({ tokenId: target.id })]);
     // Next compares Origin with Host before running any action and refuses the request.
+    console.log(`forged cross-site server action: HTTP ${forged.status}, ${(await forged.clone().text()).slice(0, 120)}`);
     expect(forged.status).toBeGreaterThanOrEqual(400);
     const [afterForged] = await getDb().select({ revokedAt: apiTokens.revokedAt }).from(apiTokens).where(eq(apiTokens.id, target.id));
     expect(afterForged.revokedAt).toBeNull();
