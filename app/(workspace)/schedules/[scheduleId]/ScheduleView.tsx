@@ -117,7 +117,7 @@ function UploadStep({ detail, mayWrite }: { detail: ScheduleDetail; mayWrite: bo
                   </button>
                 ) : (
                   <button type="button" className="btn-quiet" disabled={queue.isPending || schedule.cleanRowCount === 0} onClick={() => queue.mutate(true)}>
-                    {queue.isPending ? 'Queueing…' : `Leave out the ${badRows.length} rows with problems and size the other ${schedule.cleanRowCount}`}
+                    {queue.isPending ? 'Queueing…' : `Leave out the ${badRows.length} ${badRows.length === 1 ? 'row' : 'rows'} with problems and size the other ${schedule.cleanRowCount}`}
                   </button>
                 )}
                 {queue.isError ? <p role="alert" className="field-error">{queue.error.message}</p> : null}
