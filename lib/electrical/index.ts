@@ -36,7 +36,8 @@ export type { LimitEvaluation, LimitRoot } from './sizing/rootFinder';
 
 // ── Sizing (physics.md §5) ──
 export { ampacity, evaluateCandidate, compareCandidates, AMPACITY_TOLERANCE_A, CROSS_CHECK_LIMIT_PERCENT, NEAR_RUNAWAY_RATIO } from './sizing/evaluate';
-export { FLAG_CODES, FLAG_REGISTRY, makeFlag } from './sizing/flags';
+export { BEYOND_STEADY_FLAG_CODES, FLAG_CODES, FLAG_REGISTRY, makeFlag } from './sizing/flags';
+export type { BeyondSteadyFlagCode } from './sizing/flags';
 export type { AssumptionFlag, FlagCode, FlagDefinition, FlagSeverity } from './sizing/flags';
 export {
   DEFAULT_AIR_AMBIENT_BAR_C,
@@ -69,3 +70,5 @@ export type {
   ProfileLayer,
   ShortCircuitCheck,
 } from './sizing/types';
+export { alongRunCheck, overTimeCheck, CONDUCTOR_VOLUMETRIC_HEAT_CAPACITY, COVERING_VOLUMETRIC_HEAT_CAPACITY } from './sizing/beyondSteady';
+export type { AlongRunInputs, AlongRunResult, OverTimeInputs, OverTimeResult } from './sizing/beyondSteady';

@@ -44,9 +44,28 @@ export const FLAG_CODES = [
   'BAR_REACTANCE_ASSUMED',
   'CROSS_CHECK_DIFFERENCE',
   'SHEATH_LOSSES_NOT_INCLUDED',
+  'OVERLOAD_LIMIT_REACHED',
+  'DAILY_PEAK_OVER_LIMIT',
+  'DAILY_CYCLE_NOT_PERIODIC',
+  'HEAT_CAPACITY_ASSUMED',
+  'FAULT_HEAT_INTO_COVERINGS',
+  'RUN_HOT_SPOT_OVER_LIMIT',
+  'JOINT_RESISTANCE_ASSUMED',
 ] as const;
 
 export type FlagCode = (typeof FLAG_CODES)[number];
+
+/** Codes raised only by the optional checks over time and along the run (sizing/beyondSteady.ts), never by evaluateCandidate. */
+export const BEYOND_STEADY_FLAG_CODES = [
+  'OVERLOAD_LIMIT_REACHED',
+  'DAILY_PEAK_OVER_LIMIT',
+  'DAILY_CYCLE_NOT_PERIODIC',
+  'HEAT_CAPACITY_ASSUMED',
+  'FAULT_HEAT_INTO_COVERINGS',
+  'RUN_HOT_SPOT_OVER_LIMIT',
+  'JOINT_RESISTANCE_ASSUMED',
+] as const satisfies readonly FlagCode[];
+export type BeyondSteadyFlagCode = (typeof BEYOND_STEADY_FLAG_CODES)[number];
 
 export interface FlagDefinition {
   severity: FlagSeverity;
@@ -90,6 +109,13 @@ export const FLAG_REGISTRY: Readonly<Record<FlagCode, Readonly<FlagDefinition>>>
   BAR_REACTANCE_ASSUMED: { severity: 'review', title: 'Cable reactance default used for a bus bar', basis: 'IEC 60364-5-52 Annex G (λ is for cables)' },
   CROSS_CHECK_DIFFERENCE: { severity: 'review', title: 'Solver and closed-form ampacity differ', basis: 'physics.md §5 (IEC 60287 cross-check)' },
   SHEATH_LOSSES_NOT_INCLUDED: { severity: 'review', title: 'Losses in metallic screens or armour not included', basis: 'IEC 60287-1-1 §2.3 (λ₁, λ₂ taken as zero)' },
+  OVERLOAD_LIMIT_REACHED: { severity: 'blocker', title: 'Overload reaches the limit too soon', basis: 'physics.md §6 (implicit-Euler heat balance from the steady state at the design current)' },
+  DAILY_PEAK_OVER_LIMIT: { severity: 'blocker', title: 'Daily load cycle peaks above the limit', basis: 'physics.md §6 (daily profile repeated to a periodic state)' },
+  DAILY_CYCLE_NOT_PERIODIC: { severity: 'review', title: 'Daily cycle had not settled', basis: 'physics.md §6 (successive daily peaks within 0.01 K)' },
+  HEAT_CAPACITY_ASSUMED: { severity: 'review', title: 'Heat capacities assumed for the run over time', basis: 'IEC 60949 σ of the metal; polymer coverings from memory; soil stores no heat' },
+  FAULT_HEAT_INTO_COVERINGS: { severity: 'note', title: 'Fault with heat into the coverings shown beside the adiabatic figure', basis: 'physics.md §6; IEC 60949 adiabatic method governs the verdict' },
+  RUN_HOT_SPOT_OVER_LIMIT: { severity: 'blocker', title: 'Hot spot along the run above the limit', basis: 'physics.md §6 (conduction along the bar, joints as point heat)' },
+  JOINT_RESISTANCE_ASSUMED: { severity: 'review', title: 'Joint resistance assumed', basis: 'Common practice: a pessimistic figure for an unmeasured bolted joint' },
 });
 
 export interface AssumptionFlag {
