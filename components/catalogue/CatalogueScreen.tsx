@@ -64,7 +64,7 @@ export function CatalogueScreen({ initialKind, canEdit, units, counts }: Catalog
             onKeyDown={onTabKey}
             className={`-mb-px rounded-t-md border px-3 py-1.5 text-body ${k === kind ? 'border-ink-100 border-b-white bg-white font-semibold text-ink-900' : 'border-transparent text-ink-600 hover:text-ink-900'}`}
           >
-            {KIND_LABELS[k].tab} <span className="num text-caption text-ink-400">{counts[k]}</span>
+            {KIND_LABELS[k].tab} <span className="num text-caption text-ink-500">{counts[k]}</span>
           </button>
         ))}
       </div>

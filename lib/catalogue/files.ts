@@ -58,7 +58,11 @@ export function detectFormat(fileName: string): ImportFormat {
 export function checkFile(fileName: string, bytes: Uint8Array): ImportFormat {
   if (bytes.byteLength === 0) throw new FileRefusal(400, 'empty_file', `"${fileName}" is empty.`);
   if (bytes.byteLength > MAX_IMPORT_BYTES) {
-    throw new FileRefusal(413, 'file_too_large', `"${fileName}" is ${formatBytes(bytes.byteLength)}; the limit is ${formatBytes(MAX_IMPORT_BYTES)}. Split it into smaller files.`);
+    throw new FileRefusal(
+      413,
+      'file_too_large',
+      `"${fileName}" is larger than the ${formatBytes(MAX_IMPORT_BYTES)} limit (${bytes.byteLength.toLocaleString('en')} bytes). Split it into smaller files.`,
+    );
   }
   const format = detectFormat(fileName);
   const isZip = bytes.byteLength >= 4 && bytes[0] === 0x50 && bytes[1] === 0x4b && bytes[2] === 0x03 && bytes[3] === 0x04;

@@ -17,7 +17,7 @@ const MULTIPART_OVERHEAD_BYTES = 64 * 1024;
 export const POST = apiHandler({ permission: 'catalogue:write' }, async (req, { user }) => {
   const declared = Number(req.headers.get('content-length') ?? '0');
   if (declared > MAX_IMPORT_BYTES + MULTIPART_OVERHEAD_BYTES) {
-    throw new ApiError(413, 'file_too_large', `The upload is ${(declared / 1024 / 1024).toFixed(1)} MB; the limit is ${MAX_IMPORT_BYTES / 1024 / 1024} MB. Split the file.`, 'file');
+    throw new ApiError(413, 'file_too_large', `The upload is larger than the ${(MAX_IMPORT_BYTES / 1024 / 1024).toFixed(1)} MB limit (${declared.toLocaleString('en')} bytes). Split the file.`, 'file');
   }
   let form: FormData;
   try {
