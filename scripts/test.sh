@@ -22,6 +22,7 @@ cleanup() {
   for pid in "${PIDS[@]:-}"; do [ -n "$pid" ] && kill -TERM -- "-$pid" 2>/dev/null || true; done
   stop_cluster "$PG_DIR"
   if [ -f "$TMP_DIR/next-env.d.ts.saved" ]; then cp "$TMP_DIR/next-env.d.ts.saved" next-env.d.ts; else rm -f next-env.d.ts; fi
+  [ -f "$TMP_DIR/tsconfig.json.saved" ] && cp "$TMP_DIR/tsconfig.json.saved" tsconfig.json
   rm -rf "$TMP_DIR" "${NEXT_DIST_DIR:-}"
 }
 trap cleanup EXIT
@@ -53,8 +54,10 @@ step "migrations" node --import tsx scripts/migrate.ts
 
 # The production build for the browser tests runs in the background while the library and
 # database tests run.
-# next build rewrites next-env.d.ts to point at its folder: put back the developer's afterwards.
+# next build rewrites next-env.d.ts and tsconfig.json to point at its folder: put back the
+# developer's copies afterwards.
 [ -f next-env.d.ts ] && cp next-env.d.ts "$TMP_DIR/next-env.d.ts.saved"
+cp tsconfig.json "$TMP_DIR/tsconfig.json.saved"
 # A folder per run, so that two runs side by side (or a running `npm start`) never share a build.
 export NEXT_DIST_DIR=.next-test-$$
 ( node_modules/.bin/next build >"$TMP_DIR/build.log" 2>&1; echo $? >"$TMP_DIR/build.rc" ) &

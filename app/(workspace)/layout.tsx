@@ -9,7 +9,7 @@ export default async function WorkspaceLayout({ children }: { children: ReactNod
   const user = await requirePageUser();
   return (
     <div className="min-h-screen">
-      <WorkspaceNav userSlot={<UserMenu name={user.name} teamName={user.teamName} role={user.role} unitSystem={user.unitSystem} />} />
+      <WorkspaceNav isAdmin={user.role === 'admin'} userSlot={<UserMenu name={user.name} teamName={user.teamName} role={user.role} unitSystem={user.unitSystem} />} />
       <main className="mx-auto max-w-sheet px-4 py-6">
         <QueryProvider>{children}</QueryProvider>
       </main>

@@ -8,11 +8,13 @@ export const WORKSPACE_SECTIONS = [
   { href: '/projects', label: 'Projects' },
   { href: '/catalogue', label: 'Catalogue' },
   { href: '/verification', label: 'Verification' },
-  { href: '/admin/members', label: 'Admin' },
+  { href: '/admin/members', label: 'Admin', adminOnly: true },
 ] as const;
 
-export function WorkspaceNav({ userSlot }: { userSlot?: React.ReactNode }) {
+export function WorkspaceNav({ userSlot, isAdmin = false }: { userSlot?: React.ReactNode; isAdmin?: boolean }) {
   const pathname = usePathname();
+  // Only admins can use the admin pages (they answer 403 to others): do not offer them.
+  const sections = WORKSPACE_SECTIONS.filter((section) => isAdmin || !('adminOnly' in section && section.adminOnly));
   return (
     <header className="bg-ink-900 text-paper">
       <nav aria-label="Workspace" className="mx-auto flex h-12 max-w-sheet items-center gap-6 px-4">
@@ -20,7 +22,7 @@ export function WorkspaceNav({ userSlot }: { userSlot?: React.ReactNode }) {
           <Wordmark />
         </Link>
         <ul className="flex items-center gap-1">
-          {WORKSPACE_SECTIONS.map((section) => {
+          {sections.map((section) => {
             const active = pathname === section.href || pathname.startsWith(`${section.href}/`);
             return (
               <li key={section.href}>
