@@ -245,7 +245,14 @@ describe('in Chromium', () => {
     expect(await view.getByTestId('flags-panel').innerText()).toContain('Ambient temperature assumed');
     expect(await view.getByTestId('shared-review-status').innerText()).toContain('Not approved');
     expect(await view.locator('nav').count()).toBe(0);
-    expect(await view.locator('input:not([type=hidden]), textarea, select').count()).toBe(0);
+    // No field of ours to type into (the grid's and the plot's own internal controls aside) and no form.
+    const fields = await view.evaluate(() =>
+      [...document.querySelectorAll('input, textarea, select')]
+        .filter((el) => (el as HTMLInputElement).type !== 'hidden' && !el.closest('.ag-root-wrapper, .js-plotly-plot'))
+        .map((el) => el.outerHTML.slice(0, 120)),
+    );
+    expect(fields).toEqual([]);
+    expect(await view.locator('form').count()).toBe(0);
     await screenshot(view, 'share-page');
 
     // The PDF's first page as an image, where poppler's pdftoppm is installed (the text checks above do not need it).
