@@ -22,6 +22,7 @@ let page: Page;
 let teamId: string;
 let viewerEmail: string;
 let designerEmail: string;
+let adminEmail: string;
 
 async function signIn(target: Page, email: string, path: string) {
   await target.goto(appUrl(path));
@@ -60,6 +61,7 @@ beforeAll(async () => {
   teamId = team.id;
   await copyStandardCatalogueToTeam(teamId);
   const admin = await createTestUser(teamId, 'admin');
+  adminEmail = admin.email;
   viewerEmail = (await createTestUser(teamId, 'viewer')).email;
   designerEmail = (await createTestUser(teamId, 'designer')).email;
   browser = await launchBrowser();
@@ -131,6 +133,34 @@ describe('/catalogue', () => {
     const keys = (await listCoverings(teamId)).map((c) => c.key);
     expect(keys).toEqual(expect.arrayContaining(['silicone-e2e', 'mica-e2e']));
     await screenshot(page, 'catalogue-imported');
+  });
+
+  it('the import endpoint refuses oversize, empty, binary and wrong-column files with a clear message', async () => {
+    const { client } = await signInOverHttp(adminEmail, TEST_PASSWORD);
+    const upload = async (name: string, bytes: Uint8Array) => {
+      const form = new FormData();
+      form.set('kind', 'coverings');
+      form.set('file', new Blob([new Uint8Array(bytes)]), name);
+      const response = await fetch(appUrl('/api/catalogue/imports'), {
+        method: 'POST',
+        body: form,
+        headers: { cookie: client.jar.header(), origin: new URL(appUrl()).origin },
+      });
+      return { status: response.status, body: (await response.json()) as { error: { code: string; message: string } } };
+    };
+    const oversize = await upload('big.csv', new Uint8Array(2 * 1024 * 1024 + 1).fill(65));
+    expect(oversize.status).toBe(413);
+    expect(oversize.body.error.message).toMatch(/larger than the 2\.0 MB limit/);
+    const empty = await upload('empty.csv', new Uint8Array());
+    expect(empty.status).toBe(400);
+    expect(empty.body.error.message).toBe('"empty.csv" is empty.');
+    const binary = await upload('photo.csv', new Uint8Array([0xff, 0xd8, 0xff, 0xe0, 0x00, 0x10, 0x4a, 0x46, 0x49, 0x46]));
+    expect(binary.status).toBe(415);
+    expect(binary.body.error.message).toMatch(/binary data, not text/);
+    const wrong = await upload('metals.csv', new TextEncoder().encode('key,name,colour\ncopper,Copper,red\n'));
+    expect(wrong.status).toBe(400);
+    expect(wrong.body.error.code).toBe('wrong_columns');
+    expect(wrong.body.error.message).toMatch(/missing columns: role, thermal_resistivity_km_per_w/);
   });
 
   it('refuses writes from non-admins with 403, and lets them read', async () => {
