@@ -6,3 +6,4 @@ export * from './toSizing';
 export * from './compute';
 export * from './snapshot';
 export * from './formUnits';
+export * from './beyondSteady';

@@ -8,11 +8,14 @@
  *       `installation` without the enclosure's inner arrangement, no life-cycle cost inputs.
  *   2 — grouped circuit/fault/environment/installation/limits/economics sections, optional
  *       values as null ("not entered", so the library assumes and flags a default).
+ *   3 — optional checks beyond the steady state: `overTime` (overload, daily load, fault with heat
+ *       into the coverings) and `alongRun` (a bar run between terminals with joints); a version-2
+ *       sheet reads with both unchecked.
  */
 import { z } from 'zod';
 import { sheetCandidateSchema } from './candidates';
 
-export const SHEET_SCHEMA_VERSION = 2 as const;
+export const SHEET_SCHEMA_VERSION = 3 as const;
 
 const num = (label: string) => z.number({ error: `${label} must be a number` }).refine(Number.isFinite, `${label} must be a finite number`);
 const optionalNum = (label: string) => num(label).nullable();
@@ -83,6 +86,40 @@ export const economicsSchema = z.object({
   energyPriceGrowthPercent: num('Energy price growth').gt(-100).lt(100, 'Energy price growth must be under 100 %'),
 });
 
+/** Allowed numbers of equal intervals in a day's load profile (hourly or finer, dividing the day). */
+export const DAILY_PROFILE_LENGTHS = [24, 48, 96, 144, 288, 1440] as const;
+
+export const overTimeSchema = z.object({
+  checked: z.boolean(),
+  overloadCurrentA: num('Overload current').gt(0, 'Overload current must be greater than 0 A').max(100000, 'Overload current must be at most 100 kA'),
+  overloadDurationS: num('Overload duration').gt(0, 'Overload duration must be greater than 0').max(7 * 86400, 'Overload duration must be at most a week'),
+  /** Currents per phase over one day in equal intervals from midnight, A; empty = no daily check. */
+  dailyProfileA: z
+    .array(num('Daily load current').min(0, 'Daily load currents must not be negative').max(100000, 'Daily load currents must be at most 100 kA'))
+    .refine((v) => v.length === 0 || (DAILY_PROFILE_LENGTHS as readonly number[]).includes(v.length), `A daily profile has ${DAILY_PROFILE_LENGTHS.join(', ')} values (hourly or finer)`),
+  /** Fault heating with heat into the coverings, beside the adiabatic figure (uses the fault inputs). */
+  faultWithCoverings: z.boolean(),
+});
+
+export const runEndKinds = ['terminal', 'insulated'] as const;
+export const alongRunSchema = z.object({
+  checked: z.boolean(),
+  lengthM: num('Run length').gt(0, 'Run length must be greater than 0 m').max(1000, 'Run length must be at most 1000 m'),
+  startEnd: z.enum(runEndKinds),
+  startTemperatureC: num('Start terminal temperature').min(-60, 'Terminal temperature must be at least −60 °C').max(300, 'Terminal temperature must be at most 300 °C'),
+  endEnd: z.enum(runEndKinds),
+  endTemperatureC: num('End terminal temperature').min(-60, 'Terminal temperature must be at least −60 °C').max(300, 'Terminal temperature must be at most 300 °C'),
+  joints: z
+    .array(
+      z.object({
+        positionM: num('Joint position').min(0, 'Joint position must not be negative'),
+        /** µΩ; null = not entered (a default is assumed and flagged). */
+        resistanceMicroOhm: optionalNum('Joint resistance').refine((v) => v === null || (v >= 0 && v <= 10000), 'Joint resistance must be between 0 and 10 000 µΩ'),
+      }),
+    )
+    .max(50, 'At most 50 joints on one run'),
+});
+
 export const sheetInputsSchema = z
   .object({
     schemaVersion: z.literal(SHEET_SCHEMA_VERSION),
@@ -92,6 +129,8 @@ export const sheetInputsSchema = z
     installation: installationSchema,
     limits: limitsSchema,
     economics: economicsSchema,
+    overTime: overTimeSchema,
+    alongRun: alongRunSchema,
     candidates: z.array(sheetCandidateSchema).max(24, 'At most 24 candidates on one sheet'),
     chosenCandidateId: z.string().nullable(),
     notes: z.string().max(4000),
@@ -108,6 +147,11 @@ export const sheetInputsSchema = z
     if (value.limits.raiseMaterialLimit && value.limits.temperatureLimitC === null) {
       ctx.addIssue({ code: 'custom', path: ['limits', 'temperatureLimitC'], message: 'Enter your own limit to replace the material limits' });
     }
+    value.alongRun.joints.forEach((joint, index) => {
+      if (joint.positionM > value.alongRun.lengthM) {
+        ctx.addIssue({ code: 'custom', path: ['alongRun', 'joints', index, 'positionM'], message: 'Joint position must lie on the run' });
+      }
+    });
     if (value.installation.kind === 'buried' && (value.environment.outdoorSun || value.environment.windSpeedMPerS > 0)) {
       ctx.addIssue({ code: 'custom', path: ['environment', 'outdoorSun'], message: 'A buried cable sees neither sun nor wind' });
     }
@@ -207,6 +251,13 @@ export function readSheetInputs(raw: unknown, storedVersion?: number): SheetInpu
     if (!parsed.success) throw new SheetSchemaError(`Stored sheet inputs do not match version ${version}: ${parsed.error.issues[0]?.message}`, version);
     return parsed.data;
   }
+  if (version === 2) {
+    // Version 3 only added the optional checks beyond the steady state: they start unchecked.
+    const defaults = defaultSheetInputs();
+    const parsed = sheetInputsSchema.safeParse({ ...(raw as object), schemaVersion: SHEET_SCHEMA_VERSION, overTime: defaults.overTime, alongRun: defaults.alongRun });
+    if (!parsed.success) throw new SheetSchemaError(`Stored sheet inputs do not match version 2: ${parsed.error.issues[0]?.message}`, 2);
+    return parsed.data;
+  }
   if (version === 1) {
     const parsed = sheetInputsV1Schema.safeParse(raw);
     if (!parsed.success) throw new SheetSchemaError(`Stored sheet inputs do not match version 1: ${parsed.error.issues[0]?.message}`, 1);
@@ -258,6 +309,8 @@ export function defaultSheetInputs(kind: InstallationKind = 'cable-in-air'): She
       loadGrowthPercent: 0,
       energyPriceGrowthPercent: 0,
     },
+    overTime: { checked: false, overloadCurrentA: 600, overloadDurationS: 3600, dailyProfileA: [], faultWithCoverings: false },
+    alongRun: { checked: false, lengthM: 6, startEnd: 'terminal', startTemperatureC: 70, endEnd: 'terminal', endTemperatureC: 70, joints: [] },
     candidates: [],
     chosenCandidateId: null,
     notes: '',
@@ -286,4 +339,6 @@ export const DEFAULT_SOURCES = {
   energyPricePerKWh: '0.15 per kWh: a placeholder; use the project’s tariff.',
   discountRatePercent: '5 %: a placeholder discount rate; use the client’s.',
   years: '25 years: a usual economic life for a feeder (common practice).',
+  terminalTemperatureC: '70 °C: a placeholder for a device terminal; enter the device maker’s terminal temperature (IEC 61439-1 limits terminal rises to 70 K, from memory).',
+  jointResistanceMicroOhm: 'Left empty: 10 µΩ per joint, a pessimistic figure for an unmeasured bolted joint (common practice, flagged). Enter a measured value when you have one.',
 } as const;

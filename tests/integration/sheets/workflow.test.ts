@@ -19,7 +19,7 @@ import {
   transitionSheet,
 } from '@/db/queries/sheets';
 import { demoSingleCore } from '@/db/seed/sheets';
-import { defaultSheetInputs, type Actor, type SheetInputs } from '@/lib/sheet';
+import { defaultSheetInputs, SHEET_SCHEMA_VERSION, type Actor, type SheetInputs } from '@/lib/sheet';
 import { can, type Role } from '@/server/auth/permissions';
 import { createTestTeam, createTestUser } from '../../helpers/fixtures';
 
@@ -381,7 +381,7 @@ describe('migrate on read', () => {
       .returning({ id: sheets.id });
     const sheet = (await getSheet(team.id, row.id))!;
     expect(sheet.storedSchemaVersion).toBe(1);
-    expect(sheet.inputs.schemaVersion).toBe(2);
+    expect(sheet.inputs.schemaVersion).toBe(SHEET_SCHEMA_VERSION);
     expect(sheet.inputs.circuit).toMatchObject({ designCurrentA: 300, nominalVoltageV: 230, powerFactor: 0.85 });
     expect(sheet.inputs.fault).toEqual({ checked: true, currentA: 10000, durationS: 0.2 });
     expect(sheet.inputs.environment).toMatchObject({ ambientC: 25, outdoorSun: true, irradianceWPerM2: 800 });
@@ -389,6 +389,6 @@ describe('migrate on read', () => {
     // Saving writes the current version.
     await saveSheet(team.id, actor(people.author), row.id, { expectedVersion: sheet.version, inputs: sheet.inputs });
     const [raw] = await getDb().select().from(sheets).where(eq(sheets.id, row.id));
-    expect(raw.schemaVersion).toBe(2);
+    expect(raw.schemaVersion).toBe(SHEET_SCHEMA_VERSION);
   });
 });

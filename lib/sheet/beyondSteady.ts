@@ -1,0 +1,87 @@
+/**
+ * The sheet's optional checks beyond the steady state ("Over time", "Along the run"), computed
+ * for one candidate with lib/electrical (physics.md §6). Same function in the browser and for
+ * the PDF.
+ */
+import { alongRunCheck, overTimeCheck, type AlongRunResult, type OverTimeResult } from '../electrical/sizing/beyondSteady';
+import type { SheetInputs } from './schema';
+import { toCandidates, toConditions } from './toSizing';
+
+export type CheckOutcome<T> = { ok: true; result: T } | { ok: false; message: string; field?: string };
+
+export interface BeyondSteadyResults {
+  candidateId: string;
+  overTime?: CheckOutcome<OverTimeResult>;
+  alongRun?: CheckOutcome<AlongRunResult>;
+}
+
+function failure(error: unknown): { ok: false; message: string; field?: string } {
+  const message = error instanceof Error ? error.message : String(error);
+  const field = error && typeof error === 'object' && 'field' in error ? String((error as { field: unknown }).field) : undefined;
+  return field ? { ok: false, message, field } : { ok: false, message };
+}
+
+/** Runs the checked sections for the candidate `candidateId`; null when the candidate is not on the sheet. */
+export function computeBeyondSteady(inputs: SheetInputs, candidateId: string): BeyondSteadyResults | null {
+  const index = inputs.candidates.findIndex((c) => c.id === candidateId);
+  if (index < 0) return null;
+  const candidate = toCandidates(inputs)[index];
+  const conditions = toConditions(inputs);
+  const out: BeyondSteadyResults = { candidateId };
+  if (inputs.overTime.checked) {
+    try {
+      const t = inputs.overTime;
+      out.overTime = {
+        ok: true,
+        result: overTimeCheck(candidate, conditions, {
+          overload: { currentA: t.overloadCurrentA, durationS: t.overloadDurationS },
+          ...(t.dailyProfileA.length > 0 ? { dailyCurrentsA: t.dailyProfileA } : {}),
+          fault: t.faultWithCoverings && inputs.fault.checked,
+        }),
+      };
+    } catch (error) {
+      out.overTime = failure(error);
+    }
+  }
+  if (inputs.alongRun.checked) {
+    if (candidate.kind !== 'bar') {
+      out.alongRun = { ok: false, message: 'The run along the length is for bars; this candidate is a cable.' };
+    } else {
+      try {
+        const a = inputs.alongRun;
+        const end = (kind: 'terminal' | 'insulated', temperatureC: number) => (kind === 'terminal' ? { kind, temperatureC } : { kind });
+        out.alongRun = {
+          ok: true,
+          result: alongRunCheck(candidate, conditions, {
+            lengthM: a.lengthM,
+            start: end(a.startEnd, a.startTemperatureC),
+            end: end(a.endEnd, a.endTemperatureC),
+            joints: a.joints,
+          }),
+        };
+      } catch (error) {
+        out.alongRun = failure(error);
+      }
+    }
+  }
+  return out;
+}
+
+/** Parses an uploaded or pasted daily profile: one current per line or cell (a header row is skipped). */
+export function profileFromRows(rows: unknown[][]): { currentsA: number[] } | { error: string } {
+  const values: number[] = [];
+  for (let r = 0; r < rows.length; r++) {
+    const cells = rows[r].map((c) => String(c ?? '').trim()).filter((c) => c !== '');
+    if (cells.length === 0) continue;
+    // The current is the last cell of a row ("hour, current" or just "current").
+    const text = cells[cells.length - 1].replace(',', '.');
+    const value = Number(text);
+    if (!Number.isFinite(value)) {
+      if (values.length === 0 && r === 0) continue; // header
+      return { error: `Row ${r + 1}: "${cells[cells.length - 1]}" is not a current in A` };
+    }
+    if (value < 0) return { error: `Row ${r + 1}: a current must not be negative` };
+    values.push(value);
+  }
+  return { currentsA: values };
+}
