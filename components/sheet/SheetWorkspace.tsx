@@ -26,6 +26,7 @@ import { sheetApi, SheetApiError } from './api';
 import { CandidateGrid, candidateRows } from './CandidateGrid';
 import { CandidatePicker } from './CandidatePicker';
 import { ChecksPanel } from './ChecksPanel';
+import { BeyondSteadyPanel } from './BeyondSteadyPanel';
 import { ConflictNotice, type Conflict } from './ConflictNotice';
 import { FlagsPanel } from './FlagsPanel';
 import { HistoryList, type HistoryItem } from './HistoryList';
@@ -373,6 +374,8 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
           ) : null}
 
           {focusedOk ? <ChecksPanel evaluation={focusedOk} units={units} lengthM={values.circuit.lengthM} /> : null}
+
+          {values.candidates.length > 0 ? <BeyondSteadyPanel form={form} editable={editable} candidateId={focusedOk ? focusedOk.id : null} units={units} /> : null}
 
           {values.candidates.length === 0 ? (
             <section className="panel p-4" data-testid="no-candidates">
