@@ -16,6 +16,7 @@ import type { SheetInputs } from '@/lib/sheet/schema';
 import { formatNumber } from '@/lib/units';
 import { PDF_FONT_FAMILY, pdfSafeText as safe } from './fonts';
 import { ProfileChart } from './ProfileChart';
+import { BeyondSteadySection } from './BeyondSteadySection';
 
 /** What the document needs of a sheet (db/queries/sheets SheetRecord fits). */
 export interface PdfSheet {
@@ -296,6 +297,8 @@ export function SizingSheetDocument({ sheet, generatedAt = new Date() }: { sheet
           rows={inputs.map((r) => [r.section, r.label, r.value, r.unit])}
         />
         {sheet.inputs.notes.trim() ? <Text style={{ marginTop: 4 }}>{safe(`Designer's notes: ${sheet.inputs.notes.trim()}`)}</Text> : null}
+
+        <BeyondSteadySection inputs={sheet.inputs} />
 
         <Text style={styles.h2} minPresenceAhead={60}>Method and standards</Text>
         {METHOD_LINES.map((line) => (
