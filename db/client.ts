@@ -26,6 +26,9 @@ export function getPool(): Pool {
     });
     // An idle client losing its server must not crash the process; the next query reconnects.
     holder.ampwardenPool.on('error', () => {});
+    // Same for a checked-out client whose server goes away mid-query: the query itself rejects,
+    // and an unhandled 'error' event must not take the whole process down with it.
+    holder.ampwardenPool.on('connect', (client) => client.on('error', () => {}));
   }
   return holder.ampwardenPool;
 }

@@ -27,7 +27,7 @@ export function isDatabaseUnreachable(error: unknown): boolean {
     if (current instanceof DatabaseConfigError) return true;
     const candidate = current as { code?: unknown; message?: unknown; cause?: unknown; errors?: unknown };
     if (typeof candidate.code === 'string' && UNREACHABLE_CODES.has(candidate.code)) return true;
-    if (typeof candidate.message === 'string' && /connection terminated|timeout exceeded when trying to connect|Connection terminated unexpectedly/i.test(candidate.message)) return true;
+    if (typeof candidate.message === 'string' && /connection terminated|timeout exceeded when trying to connect|Connection terminated unexpectedly|not queryable|connection error/i.test(candidate.message)) return true;
     // AggregateError from net.connect when several addresses fail.
     if (Array.isArray(candidate.errors) && candidate.errors.some(isDatabaseUnreachable)) return true;
     current = candidate.cause;
