@@ -5,7 +5,7 @@
  * leaving the conductor can only lower it). The numbers are inputs, not check values.
  */
 import { describe, expect, it } from 'vitest';
-import { alongRunCheck, BEYOND_STEADY_FLAG_CODES, FLAG_REGISTRY, overTimeCheck, type FlagCode } from '@/lib/electrical';
+import { alongRunCheck, BEYOND_STEADY_FLAG_CODES, CONDUCTOR_VOLUMETRIC_HEAT_CAPACITY, FLAG_REGISTRY, overTimeCheck, type FlagCode } from '@/lib/electrical';
 import { barConditions, cableConditions, copperBar, xlpeCable } from './fixtures';
 
 const hourly = (day: number, night: number) => Array.from({ length: 24 }, (_, h) => (h >= 8 && h < 20 ? day : night));
@@ -36,6 +36,34 @@ describe('over time', () => {
     expect(r.daily!.peakTimeS).toBeGreaterThan(8 * 3600);
     expect(r.daily!.peakTimeS).toBeLessThanOrEqual(20 * 3600);
     raised(r.flags, 'DAILY_PEAK_OVER_LIMIT');
+  });
+
+  it('a daily cycle that cannot settle within the days repeated raises DAILY_CYCLE_NOT_PERIODIC; a quick one settles without it', () => {
+    // Physical reason: the approach to the periodic state goes as e^(−t/τ), τ = ρc·A / (h·P − I²·R₂₀·α₂₀)
+    // for a lumped conductor (lumped-capacitance closed form, e.g. Incropera ch. 5, with the Joule
+    // heat's own rise with temperature, from memory). A 100×10 mm copper bar with an entered
+    // surface coefficient of 0.012 W/(m²·K) (as if wrapped in thick insulation) has ρc·A/(h·P)
+    // ≈ 3.45e6·1e-3/(0.012·0.22) s ≈ 15 days (ρc from IEC 60949, see CONDUCTOR_VOLUMETRIC_HEAT_CAPACITY),
+    // and a day current at 90 % of the runaway current √(h·P/(R₂₀·α₂₀)) leaves little net cooling
+    // per kelvin, stretching τ further: a month of repeated days is not enough.
+    const bar = copperBar(0.1, 0.01);
+    const hWPerM2K = 0.012;
+    const perimeterM = 2 * (0.1 + 0.01);
+    const alpha20PerK = 0.00393; // copper, IEC 60287-1-1 Table 1 (from memory)
+    const runawayA = Math.sqrt((hWPerM2K * perimeterM) / (bar.r20OhmPerM * alpha20PerK));
+    const tauS = (CONDUCTOR_VOLUMETRIC_HEAT_CAPACITY.copper * 0.1 * 0.01) / (hWPerM2K * perimeterM);
+    expect(tauS).toBeGreaterThan(10 * 86400);
+    const slow = overTimeCheck(bar, barConditions({ designCurrentA: 50, surfaceCoefficientWPerM2K: hWPerM2K }), { dailyCurrentsA: hourly(0.9 * runawayA, 0) });
+    expect(slow.daily!.periodic).toBe(false);
+    raised(slow.flags, 'DAILY_CYCLE_NOT_PERIODIC');
+    expect(slow.flags.find((f) => f.code === 'DAILY_CYCLE_NOT_PERIODIC')!.message).toContain(`after ${slow.daily!.days} days`);
+
+    // The same bar and day with the air correlations (h ≈ 10 W/(m²·K), common practice for still
+    // air): τ ≈ ρc·A/(h·P) ≈ 0.4 h, far from runaway, so the cycle repeats within a few days.
+    const quick = overTimeCheck(bar, barConditions({ designCurrentA: 50 }), { dailyCurrentsA: hourly(0.9 * runawayA, 0) });
+    expect(quick.daily!.periodic).toBe(true);
+    expect(quick.daily!.days).toBeLessThan(slow.daily!.days);
+    expect(quick.flags.map((f) => f.code)).not.toContain('DAILY_CYCLE_NOT_PERIODIC');
   });
 
   it('fault heating with heat into the coverings is below the IEC 60949 adiabatic figure', () => {
