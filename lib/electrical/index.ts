@@ -72,3 +72,5 @@ export type {
 } from './sizing/types';
 export { alongRunCheck, overTimeCheck, CONDUCTOR_VOLUMETRIC_HEAT_CAPACITY, COVERING_VOLUMETRIC_HEAT_CAPACITY } from './sizing/beyondSteady';
 export type { AlongRunInputs, AlongRunResult, OverTimeInputs, OverTimeResult } from './sizing/beyondSteady';
+export { enclosureAirCheck, ENCLOSURE_AIR_METHOD } from './sizing/enclosureAir';
+export type { EnclosureAirCheckResult, EnclosureAirInputs } from './sizing/enclosureAir';

@@ -82,3 +82,10 @@ export type {
 } from './transientRuns';
 export { DEFAULT_JOINT_RESISTANCE_MICRO_OHM, solveBarRun } from './barRun';
 export type { BarRunEnd, BarRunInput, BarRunJoint, BarRunResult } from './barRun';
+export {
+  ENCLOSURE_WALL_COEFFICIENTS_W_PER_M2K,
+  SURFACE_FACTORS,
+  effectiveCoolingSurface,
+  enclosureAirTemperature,
+} from './enclosure';
+export type { EnclosureAirInput, EnclosureAirResult, EnclosureFace, EnclosureShape, EnclosureWall } from './enclosure';

@@ -51,11 +51,14 @@ export const FLAG_CODES = [
   'FAULT_HEAT_INTO_COVERINGS',
   'RUN_HOT_SPOT_OVER_LIMIT',
   'JOINT_RESISTANCE_ASSUMED',
+  'ENCLOSURE_AIR_ESTIMATED',
+  'ENCLOSURE_AIR_ABOVE_AMBIENT',
+  'ENCLOSURE_HOT_SPOT_OVER_LIMIT',
 ] as const;
 
 export type FlagCode = (typeof FLAG_CODES)[number];
 
-/** Codes raised only by the optional checks over time and along the run (sizing/beyondSteady.ts), never by evaluateCandidate. */
+/** Codes raised only by the optional checks beyond the steady state (sizing/beyondSteady.ts, sizing/enclosureAir.ts), never by evaluateCandidate. */
 export const BEYOND_STEADY_FLAG_CODES = [
   'OVERLOAD_LIMIT_REACHED',
   'DAILY_PEAK_OVER_LIMIT',
@@ -64,6 +67,9 @@ export const BEYOND_STEADY_FLAG_CODES = [
   'FAULT_HEAT_INTO_COVERINGS',
   'RUN_HOT_SPOT_OVER_LIMIT',
   'JOINT_RESISTANCE_ASSUMED',
+  'ENCLOSURE_AIR_ESTIMATED',
+  'ENCLOSURE_AIR_ABOVE_AMBIENT',
+  'ENCLOSURE_HOT_SPOT_OVER_LIMIT',
 ] as const satisfies readonly FlagCode[];
 export type BeyondSteadyFlagCode = (typeof BEYOND_STEADY_FLAG_CODES)[number];
 
@@ -116,6 +122,9 @@ export const FLAG_REGISTRY: Readonly<Record<FlagCode, Readonly<FlagDefinition>>>
   FAULT_HEAT_INTO_COVERINGS: { severity: 'note', title: 'Fault with heat into the coverings shown beside the adiabatic figure', basis: 'physics.md §6; IEC 60949 adiabatic method governs the verdict' },
   RUN_HOT_SPOT_OVER_LIMIT: { severity: 'blocker', title: 'Hot spot along the run above the limit', basis: 'physics.md §6 (conduction along the bar, joints as point heat)' },
   JOINT_RESISTANCE_ASSUMED: { severity: 'review', title: 'Joint resistance assumed', basis: 'Common practice: a pessimistic figure for an unmeasured bolted joint' },
+  ENCLOSURE_AIR_ESTIMATED: { severity: 'review', title: 'Enclosure air temperature estimated', basis: 'physics.md §6; wall heat transfer with IEC TR 60890 surface factors (common practice, from memory); verify by IEC 61439-1' },
+  ENCLOSURE_AIR_ABOVE_AMBIENT: { severity: 'review', title: 'Air inside the enclosure warmer than the sheet ambient', basis: 'physics.md §6 (enclosure air from the losses inside it)' },
+  ENCLOSURE_HOT_SPOT_OVER_LIMIT: { severity: 'blocker', title: 'Hot spot above the limit in the enclosure air', basis: 'physics.md §6 (air and conductor solved together)' },
 });
 
 export interface AssumptionFlag {
