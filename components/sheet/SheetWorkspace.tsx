@@ -27,6 +27,7 @@ import { CandidateGrid, candidateRows } from './CandidateGrid';
 import { CandidatePicker } from './CandidatePicker';
 import { ChecksPanel } from './ChecksPanel';
 import { BeyondSteadyPanel } from './BeyondSteadyPanel';
+import { EnclosureAirPanel } from './EnclosureAirPanel';
 import { ConflictNotice, type Conflict } from './ConflictNotice';
 import { FlagsPanel } from './FlagsPanel';
 import { HistoryList, type HistoryItem } from './HistoryList';
@@ -376,6 +377,8 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
           {focusedOk ? <ChecksPanel evaluation={focusedOk} units={units} lengthM={values.circuit.lengthM} /> : null}
 
           {values.candidates.length > 0 ? <BeyondSteadyPanel form={form} editable={editable} candidateId={focusedOk ? focusedOk.id : null} units={units} /> : null}
+
+          {values.candidates.length > 0 ? <EnclosureAirPanel form={form} editable={editable} candidateId={focusedOk ? focusedOk.id : null} units={units} /> : null}
 
           {values.candidates.length === 0 ? (
             <section className="panel p-4" data-testid="no-candidates">

@@ -15,7 +15,8 @@ export interface BeyondSteadyResults {
   alongRun?: CheckOutcome<AlongRunResult>;
 }
 
-function failure(error: unknown): { ok: false; message: string; field?: string } {
+/** A check that could not run, with the library's message and the field it names. */
+export function checkFailure(error: unknown): { ok: false; message: string; field?: string } {
   const message = error instanceof Error ? error.message : String(error);
   const field = error && typeof error === 'object' && 'field' in error ? String((error as { field: unknown }).field) : undefined;
   return field ? { ok: false, message, field } : { ok: false, message };
@@ -40,7 +41,7 @@ export function computeBeyondSteady(inputs: SheetInputs, candidateId: string): B
         }),
       };
     } catch (error) {
-      out.overTime = failure(error);
+      out.overTime = checkFailure(error);
     }
   }
   if (inputs.alongRun.checked) {
@@ -60,7 +61,7 @@ export function computeBeyondSteady(inputs: SheetInputs, candidateId: string): B
           }),
         };
       } catch (error) {
-        out.alongRun = failure(error);
+        out.alongRun = checkFailure(error);
       }
     }
   }

@@ -7,3 +7,4 @@ export * from './compute';
 export * from './snapshot';
 export * from './formUnits';
 export * from './beyondSteady';
+export * from './enclosureAir';

@@ -11,11 +11,13 @@
  *   3 — optional checks beyond the steady state: `overTime` (overload, daily load, fault with heat
  *       into the coverings) and `alongRun` (a bar run between terminals with joints); a version-2
  *       sheet reads with both unchecked.
+ *   4 — optional check `enclosureAir` (the air inside an enclosure from the losses in it); a
+ *       version-2 or -3 sheet reads with it unchecked.
  */
 import { z } from 'zod';
 import { sheetCandidateSchema } from './candidates';
 
-export const SHEET_SCHEMA_VERSION = 3 as const;
+export const SHEET_SCHEMA_VERSION = 4 as const;
 
 const num = (label: string) => z.number({ error: `${label} must be a number` }).refine(Number.isFinite, `${label} must be a finite number`);
 const optionalNum = (label: string) => num(label).nullable();
@@ -120,6 +122,22 @@ export const alongRunSchema = z.object({
     .max(50, 'At most 50 joints on one run'),
 });
 
+export const enclosureWalls = ['painted-steel', 'stainless-steel', 'aluminium', 'plastic'] as const;
+const enclosureLength = (label: string) => num(label).gt(0, `${label} must be greater than 0 m`).max(10, `${label} must be at most 10 m`);
+export const enclosureAirSchema = z.object({
+  checked: z.boolean(),
+  heightM: enclosureLength('Enclosure height'),
+  widthM: enclosureLength('Enclosure width'),
+  depthM: enclosureLength('Enclosure depth'),
+  backCovered: z.boolean(),
+  sidesCovered: z.union([z.literal(0), z.literal(1), z.literal(2)], { error: 'Covered sides must be 0, 1 or 2' }),
+  topCovered: z.boolean(),
+  wall: z.enum(enclosureWalls),
+  outsideAirC: num('Air around the enclosure').min(-60, 'Air around the enclosure must be at least −60 °C').max(100, 'Air around the enclosure must be at most 100 °C'),
+  routeLengthInsideM: num('Route length inside').min(0, 'Route length inside must not be negative').max(100, 'Route length inside must be at most 100 m'),
+  otherLossesW: num('Other losses inside').min(0, 'Other losses inside must not be negative').max(100000, 'Other losses inside must be at most 100 kW'),
+});
+
 export const sheetInputsSchema = z
   .object({
     schemaVersion: z.literal(SHEET_SCHEMA_VERSION),
@@ -131,6 +149,7 @@ export const sheetInputsSchema = z
     economics: economicsSchema,
     overTime: overTimeSchema,
     alongRun: alongRunSchema,
+    enclosureAir: enclosureAirSchema,
     candidates: z.array(sheetCandidateSchema).max(24, 'At most 24 candidates on one sheet'),
     chosenCandidateId: z.string().nullable(),
     notes: z.string().max(4000),
@@ -251,11 +270,13 @@ export function readSheetInputs(raw: unknown, storedVersion?: number): SheetInpu
     if (!parsed.success) throw new SheetSchemaError(`Stored sheet inputs do not match version ${version}: ${parsed.error.issues[0]?.message}`, version);
     return parsed.data;
   }
-  if (version === 2) {
-    // Version 3 only added the optional checks beyond the steady state: they start unchecked.
+  if (version === 2 || version === 3) {
+    // Versions 3 and 4 only added optional checks (over time, along the run; the enclosure air):
+    // a sheet stored before them reads with them unchecked.
     const defaults = defaultSheetInputs();
-    const parsed = sheetInputsSchema.safeParse({ ...(raw as object), schemaVersion: SHEET_SCHEMA_VERSION, overTime: defaults.overTime, alongRun: defaults.alongRun });
-    if (!parsed.success) throw new SheetSchemaError(`Stored sheet inputs do not match version 2: ${parsed.error.issues[0]?.message}`, 2);
+    const added = version === 2 ? { overTime: defaults.overTime, alongRun: defaults.alongRun, enclosureAir: defaults.enclosureAir } : { enclosureAir: defaults.enclosureAir };
+    const parsed = sheetInputsSchema.safeParse({ ...(raw as object), schemaVersion: SHEET_SCHEMA_VERSION, ...added });
+    if (!parsed.success) throw new SheetSchemaError(`Stored sheet inputs do not match version ${version}: ${parsed.error.issues[0]?.message}`, version);
     return parsed.data;
   }
   if (version === 1) {
@@ -311,6 +332,19 @@ export function defaultSheetInputs(kind: InstallationKind = 'cable-in-air'): She
     },
     overTime: { checked: false, overloadCurrentA: 600, overloadDurationS: 3600, dailyProfileA: [], faultWithCoverings: false },
     alongRun: { checked: false, lengthM: 6, startEnd: 'terminal', startTemperatureC: 70, endEnd: 'terminal', endTemperatureC: 70, joints: [] },
+    enclosureAir: {
+      checked: false,
+      heightM: 2,
+      widthM: 0.8,
+      depthM: 0.6,
+      backCovered: true,
+      sidesCovered: 0,
+      topCovered: false,
+      wall: 'painted-steel',
+      outsideAirC: 35,
+      routeLengthInsideM: 2,
+      otherLossesW: 0,
+    },
     candidates: [],
     chosenCandidateId: null,
     notes: '',
@@ -340,5 +374,8 @@ export const DEFAULT_SOURCES = {
   discountRatePercent: '5 %: a placeholder discount rate; use the client’s.',
   years: '25 years: a usual economic life for a feeder (common practice).',
   terminalTemperatureC: '70 °C: a placeholder for a device terminal; enter the device maker’s terminal temperature (IEC 61439-1 limits terminal rises to 70 K, from memory).',
+  enclosureOutsideAirC: '35 °C: the highest 24-hour mean of the air around an assembly in IEC 61439-1 normal service conditions (from memory); enter the room’s own value.',
+  enclosureWall: 'Painted sheet steel, k = 5.5 W/(m²·K); stainless steel 3.7, aluminium 12, plastic 3.5 (common-practice wall coefficients, from memory).',
+  enclosureOtherLossesW: 'Left at 0 W: add the declared power losses of every device inside (the maker’s data, as IEC 61439-1 asks for the temperature-rise verification).',
   jointResistanceMicroOhm: 'Left empty: 10 µΩ per joint, a pessimistic figure for an unmeasured bolted joint (common practice, flagged). Enter a measured value when you have one.',
 } as const;
