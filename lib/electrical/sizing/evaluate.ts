@@ -444,11 +444,17 @@ function shortCircuitOf(ctx: Context, hotSpotC: number | null): ShortCircuitChec
     withstands,
   };
   if (scLimit > initialC) {
-    check.kFactor = adiabaticK({ material: cand.material, initial: initialC, final: scLimit });
-    check.minimumSectionMm2 = minimumSection({ material: cand.material, current: fault.currentA, duration: fault.durationS, initial: initialC, final: scLimit });
+    const kFactor = adiabaticK({ material: cand.material, initial: initialC, final: scLimit });
+    const minimumMm2 = minimumSection({ material: cand.material, current: fault.currentA, duration: fault.durationS, initial: initialC, final: scLimit });
+    // A limit a hair above the starting temperature leaves k ≈ 0 and no finite section: say so
+    // in the flag instead of reporting an infinite section.
+    if (kFactor > 0 && Number.isFinite(minimumMm2)) {
+      check.kFactor = kFactor;
+      check.minimumSectionMm2 = minimumMm2;
+    }
   }
   if (!withstands) {
-    flags.add('SHORT_CIRCUIT_EXCEEDED', `A fault of ${fmt(fault.currentA, 4)} A for ${fmt(fault.durationS, 3)} s heats the conductor from ${fmt(initialC, 4)} °C to ${finalC === null ? 'beyond any meaningful temperature' : `${fmt(finalC, 4)} °C`}, above the ${fmt(scLimit, 4)} °C short-circuit limit${check.minimumSectionMm2 !== undefined ? `; at least ${fmt(check.minimumSectionMm2, 4)} mm² per phase is needed` : ''}.`, { finalC: finalC ?? Number.MAX_VALUE, limitC: scLimit });
+    flags.add('SHORT_CIRCUIT_EXCEEDED', `A fault of ${fmt(fault.currentA, 4)} A for ${fmt(fault.durationS, 3)} s heats the conductor from ${fmt(initialC, 4)} °C to ${finalC === null ? 'beyond any meaningful temperature' : `${fmt(finalC, 4)} °C`}, above the ${fmt(scLimit, 4)} °C short-circuit limit${check.minimumSectionMm2 !== undefined ? `; at least ${fmt(check.minimumSectionMm2, 4)} mm² per phase is needed` : `; the limit leaves no room for fault heating above ${fmt(initialC, 4)} °C, so no section suffices`}.`, { finalC: finalC ?? Number.MAX_VALUE, limitC: scLimit });
   }
   return check;
 }

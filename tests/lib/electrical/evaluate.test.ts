@@ -204,3 +204,18 @@ describe('never NaN (property, 25 runs)', () => {
     }
   });
 });
+
+describe('short circuit with no room above the starting temperature', () => {
+  it('reports no minimum section (never Infinity) and says why in the flag', () => {
+    // A short-circuit limit within rounding of the 90 °C start: ln((θf + β)/(θi + β)) is 0 in
+    // double precision, so k = 0 and S = I√t/k has no finite value (IEC 60949 adiabatic form).
+    const cable = xlpeCable(95);
+    cable.layers = cable.layers.map((l) => (l.role === 'insulation' ? { ...l, shortCircuitLimitC: 90 + 2e-14 } : l));
+    const e = ok(evaluateCandidate(cable, cableConditions()));
+    expect(e.shortCircuit.withstands).toBe(false);
+    expect(e.shortCircuit.minimumSectionMm2).toBeUndefined();
+    expect(JSON.stringify(e)).not.toMatch(/Infinity|NaN/);
+    const flag = e.flags.find((f) => f.code === 'SHORT_CIRCUIT_EXCEEDED');
+    expect(flag?.message).toMatch(/no section suffices/);
+  });
+});
