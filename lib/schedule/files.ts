@@ -5,24 +5,21 @@
  */
 import ExcelJS from 'exceljs';
 import Papa from 'papaparse';
+import { columnProblems, FileRefusal, keyRowsByHeader, readSpreadsheet, type UploadRules } from '../files/spreadsheet';
 import { columnByHeader, normaliseHeader, SCHEDULE_COLUMNS } from './columns';
 
 export const MAX_SCHEDULE_BYTES = 4 * 1024 * 1024;
 export const MAX_SCHEDULE_ROWS = 5000;
 
-export type ScheduleFileFormat = 'csv' | 'xlsx';
+/** The refusal of an upload, shared with the catalogue import (lib/files/spreadsheet.ts). */
+export { FileRefusal as ScheduleFileRefusal };
 
-/** A file we will not read; `status` is the HTTP status the API answers with. */
-export class ScheduleFileRefusal extends Error {
-  constructor(
-    readonly status: 400 | 413 | 415,
-    readonly code: 'empty_file' | 'file_too_large' | 'unsupported_type' | 'not_text' | 'wrong_columns' | 'no_rows' | 'too_many_rows' | 'unreadable',
-    message: string,
-  ) {
-    super(message);
-    this.name = 'ScheduleFileRefusal';
-  }
-}
+const SCHEDULE_UPLOAD: UploadRules = {
+  maxBytes: MAX_SCHEDULE_BYTES,
+  what: 'schedule',
+  typeAdvice: 'Download the template to start from.',
+  sizeAdvice: 'Split it into smaller schedules.',
+};
 
 export interface ScheduleRecord {
   /** Spreadsheet row number: the header is row 1. */
@@ -31,116 +28,31 @@ export interface ScheduleRecord {
   values: Record<string, unknown>;
 }
 
-function formatBytes(bytes: number): string {
-  return bytes >= 1024 * 1024 ? `${(bytes / (1024 * 1024)).toFixed(1)} MB` : `${Math.ceil(bytes / 1024)} KB`;
-}
-
-/** Size, name and content checks before any parsing. */
-export function checkScheduleFile(fileName: string, bytes: Uint8Array): ScheduleFileFormat {
-  if (bytes.byteLength === 0) throw new ScheduleFileRefusal(400, 'empty_file', `"${fileName}" is empty.`);
-  if (bytes.byteLength > MAX_SCHEDULE_BYTES) {
-    throw new ScheduleFileRefusal(413, 'file_too_large', `"${fileName}" is ${formatBytes(bytes.byteLength)}; a schedule file may be at most ${formatBytes(MAX_SCHEDULE_BYTES)}. Split it into smaller schedules.`);
-  }
-  const lower = fileName.toLowerCase();
-  const format: ScheduleFileFormat | null = lower.endsWith('.csv') ? 'csv' : lower.endsWith('.xlsx') ? 'xlsx' : null;
-  if (!format) throw new ScheduleFileRefusal(415, 'unsupported_type', `Only CSV (.csv) and Excel workbook (.xlsx) schedules can be read; "${fileName}" is neither. Download the template to start from.`);
-  const isZip = bytes.byteLength >= 4 && bytes[0] === 0x50 && bytes[1] === 0x4b && bytes[2] === 0x03 && bytes[3] === 0x04;
-  if (format === 'xlsx' && !isZip) {
-    throw new ScheduleFileRefusal(415, 'unsupported_type', `"${fileName}" is named .xlsx but is not an Excel workbook. Save it from your spreadsheet as "Excel Workbook (.xlsx)".`);
-  }
-  if (format === 'csv' && (isZip || bytes.includes(0))) {
-    throw new ScheduleFileRefusal(415, 'not_text', `"${fileName}" is named .csv but holds binary data, not text. Save it from your spreadsheet as "CSV UTF-8".`);
-  }
-  return format;
-}
-
-function isBlank(value: unknown): boolean {
-  return value === null || value === undefined || (typeof value === 'string' && value.trim() === '');
-}
-
 function toRecords(fileName: string, headerCells: unknown[], body: Array<{ row: number; cells: unknown[] }>): ScheduleRecord[] {
   const headers = headerCells.map(normaliseHeader);
   while (headers.length > 0 && headers[headers.length - 1] === '') headers.pop();
   if (headers.length === 0) {
-    throw new ScheduleFileRefusal(400, 'no_rows', `"${fileName}" has no header row. The first row must name the columns; download the template.`);
+    throw new FileRefusal(400, 'no_rows', `"${fileName}" has no header row. The first row must name the columns; download the template.`);
   }
-  const missing = SCHEDULE_COLUMNS.filter((c) => c.required && !headers.includes(normaliseHeader(c.header))).map((c) => c.header);
-  const unknown = [...new Set(headers.filter((h) => h !== '' && !columnByHeader(h)))];
-  const duplicated = [...new Set(headers.filter((h, i) => h !== '' && headers.indexOf(h) !== i))];
-  const parts: string[] = [];
-  if (missing.length) parts.push(`missing column${missing.length > 1 ? 's' : ''}: ${missing.join(', ')}`);
-  if (unknown.length) parts.push(`column${unknown.length > 1 ? 's' : ''} not recognised: ${unknown.join(', ')}`);
-  if (duplicated.length) parts.push(`column${duplicated.length > 1 ? 's' : ''} given twice: ${duplicated.join(', ')}`);
-  if (parts.length) throw new ScheduleFileRefusal(400, 'wrong_columns', `"${fileName}" does not have the columns of a schedule: ${parts.join('; ')}. Download the template for the expected columns.`);
+  const parts = columnProblems(
+    headers,
+    SCHEDULE_COLUMNS.filter((c) => c.required).map((c) => ({ name: normaliseHeader(c.header), label: c.header })),
+    (h) => columnByHeader(h) !== undefined,
+  );
+  if (parts.length) throw new FileRefusal(400, 'wrong_columns', `"${fileName}" does not have the columns of a schedule: ${parts.join('; ')}. Download the template for the expected columns.`);
 
-  const records: ScheduleRecord[] = [];
-  for (const { row, cells } of body) {
-    if (cells.every(isBlank)) continue;
-    const values: Record<string, unknown> = {};
-    headers.forEach((name, i) => {
-      if (name !== '') values[name] = cells[i] ?? null;
-    });
-    records.push({ row, values });
-  }
-  if (records.length === 0) throw new ScheduleFileRefusal(400, 'no_rows', `"${fileName}" has a header but no circuits.`);
+  const records: ScheduleRecord[] = keyRowsByHeader(headers, body);
+  if (records.length === 0) throw new FileRefusal(400, 'no_rows', `"${fileName}" has a header but no circuits.`);
   if (records.length > MAX_SCHEDULE_ROWS) {
-    throw new ScheduleFileRefusal(413, 'too_many_rows', `"${fileName}" has ${records.length} circuits; a schedule may hold at most ${MAX_SCHEDULE_ROWS}. Split it into smaller schedules.`);
+    throw new FileRefusal(413, 'too_many_rows', `"${fileName}" has ${records.length} circuits; a schedule may hold at most ${MAX_SCHEDULE_ROWS}. Split it into smaller schedules.`);
   }
   return records;
 }
 
-function readCsv(fileName: string, bytes: Uint8Array): ScheduleRecord[] {
-  let text: string;
-  try {
-    text = new TextDecoder('utf-8', { fatal: true }).decode(bytes).replace(/^\uFEFF/, '');
-  } catch {
-    throw new ScheduleFileRefusal(415, 'not_text', `"${fileName}" is not UTF-8 text. Save it from your spreadsheet as "CSV UTF-8".`);
-  }
-  const parsed = Papa.parse<string[]>(text, { header: false, skipEmptyLines: false });
-  const fatal = parsed.errors.find((e) => e.type === 'Quotes');
-  if (fatal) throw new ScheduleFileRefusal(400, 'unreadable', `"${fileName}" could not be read as CSV: ${fatal.message} (row ${(fatal.row ?? 0) + 1}).`);
-  const [headerRow = [], ...body] = parsed.data;
-  return toRecords(fileName, headerRow, body.map((cells, i) => ({ row: i + 2, cells })));
-}
-
-function cellValue(value: ExcelJS.CellValue): unknown {
-  if (value === null || value === undefined) return null;
-  if (typeof value === 'number' || typeof value === 'string' || typeof value === 'boolean') return value;
-  if (value instanceof Date) return value.toISOString();
-  if (typeof value === 'object') {
-    if ('richText' in value) return value.richText.map((part) => part.text).join('');
-    if ('result' in value) return cellValue((value as ExcelJS.CellFormulaValue).result as ExcelJS.CellValue);
-    if ('text' in value) return (value as ExcelJS.CellHyperlinkValue).text;
-    if ('error' in value) return `#${String((value as ExcelJS.CellErrorValue).error)}`;
-  }
-  return String(value);
-}
-
-async function readXlsx(fileName: string, bytes: Uint8Array): Promise<ScheduleRecord[]> {
-  const workbook = new ExcelJS.Workbook();
-  try {
-    const arrayBuffer = bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength);
-    await workbook.xlsx.load(arrayBuffer as unknown as Parameters<typeof workbook.xlsx.load>[0]);
-  } catch {
-    throw new ScheduleFileRefusal(415, 'unreadable', `"${fileName}" could not be opened as an Excel workbook. Save it again as "Excel Workbook (.xlsx)".`);
-  }
-  const sheet = workbook.worksheets[0];
-  if (!sheet) throw new ScheduleFileRefusal(400, 'no_rows', `"${fileName}" has no worksheet.`);
-  let headers: unknown[] = [];
-  const body: Array<{ row: number; cells: unknown[] }> = [];
-  sheet.eachRow({ includeEmpty: false }, (row, rowNumber) => {
-    const cells: unknown[] = [];
-    for (let c = 1; c <= row.cellCount; c++) cells.push(cellValue(row.getCell(c).value));
-    if (rowNumber === 1) headers = cells;
-    else body.push({ row: rowNumber, cells });
-  });
-  return toRecords(fileName, headers, body);
-}
-
 /** Reads a schedule file into records, or throws ScheduleFileRefusal saying why not. */
 export async function readScheduleFile(fileName: string, bytes: Uint8Array): Promise<ScheduleRecord[]> {
-  const format = checkScheduleFile(fileName, bytes);
-  return format === 'csv' ? readCsv(fileName, bytes) : readXlsx(fileName, bytes);
+  const { headerCells, body } = await readSpreadsheet(fileName, bytes, SCHEDULE_UPLOAD);
+  return toRecords(fileName, headerCells, body);
 }
 
 // ── writing ──

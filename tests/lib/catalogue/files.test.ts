@@ -28,7 +28,7 @@ describe('refused files', () => {
   it('a file over the size limit', async () => {
     const r = await refusal(readCatalogueFile('coverings', 'big.csv', new Uint8Array(MAX_IMPORT_BYTES + 1).fill(65)));
     expect(r.status).toBe(413);
-    expect(r.message).toBe(`"big.csv" is larger than the 2.0 MB limit (2,097,153 bytes). Split it into smaller files.`);
+    expect(r.message).toBe(`"big.csv" is larger than the 2.0 MB limit for a catalogue file (2,097,153 bytes). Split it into smaller files.`);
   });
   it('a binary file named .csv', async () => {
     const r = await refusal(readCatalogueFile('coverings', 'photo.csv', new Uint8Array([0xff, 0xd8, 0xff, 0xe0, 0, 0x10, 0x4a, 0x46])));
