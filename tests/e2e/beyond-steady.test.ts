@@ -144,4 +144,51 @@ describe('over time on the sheet', () => {
     await screenshot(page, 'beyond-04-reloaded');
     await page.context().close();
   }, 300_000);
+
+  it('along the run: a bar sheet with a joint whose resistance is left empty shows the hot spot and where, the assumed-joint flag and the profile along the run', async () => {
+    const page = await signIn(designerEmail);
+    await page.goto(appUrl(`/projects/${projectId}`));
+    await page.fill('#sheet-tag', 'BT-RUN1');
+    await page.fill('#sheet-title', 'Browser test busway along the run');
+    await page.selectOption('#sheet-installation', 'bar-on-edge');
+    await page.click('button:has-text("Create sheet")');
+    await page.waitForURL(/\/sheets\/[0-9a-f-]{36}$/);
+    const sheetId = page.url().split('/').pop()!;
+    await page.getByTestId('input-design-current').fill('1200');
+    await page.getByTestId('no-candidates').getByTestId('add-candidates').click();
+    const picker = page.getByTestId('candidate-picker');
+    await picker.waitFor();
+    await picker.locator('#pick-kind').selectOption('bar');
+    await picker.locator('#pick-material').selectOption('copper');
+    await page.getByTestId('picker-search').fill('100 × 10');
+    await picker.getByRole('button', { name: 'Add 1 × 100 × 10 mm Copper bar', exact: true }).click();
+    await expect.poll(() => page.getByTestId('candidate-grid').innerText(), { timeout: 30_000 }).toContain('100 × 10 mm Copper bar');
+
+    const panel = page.getByTestId('beyond-steady');
+    await panel.getByTestId('along-run-checked').check();
+    await panel.getByTestId('run-length').fill('5');
+    await panel.getByRole('button', { name: 'Add a joint' }).click();
+    await panel.getByTestId('joint-0-position').fill('2');
+    await panel.getByTestId('run-beyond').click();
+    const result = panel.getByTestId('along-run-result');
+    await result.waitFor({ timeout: 60_000 });
+    const resultText = await result.innerText();
+    const flagText = await result.getByTestId('beyond-flags').innerText();
+    const plotText = () => result.locator('.js-plotly-plot').first().textContent();
+    await expect.poll(plotText, { timeout: 30_000 }).toContain('Temperature along the run');
+    await screenshot(page, 'beyond-05-along-the-run');
+
+    await page.getByTestId('save-button').click();
+    await expect.poll(() => page.getByTestId('save-state').innerText(), { timeout: 30_000 }).toBe('All changes saved');
+    const stored = (await getSheet(teamId, sheetId))!.inputs;
+    expect(stored.alongRun).toMatchObject({ checked: true, lengthM: 5, joints: [{ positionM: 2, resistanceMicroOhm: null }] });
+    const expected = computeBeyondSteady(stored, stored.candidates[0].id)!.alongRun!;
+    if (!expected.ok) throw new Error(`expected the run to compute: ${expected.message}`);
+    const { hotSpot, limitC, flags, joints } = expected.result;
+    expect(resultText).toContain(`${formatNumber(hotSpot.temperatureC, 4)} °C at ${formatNumber(hotSpot.positionM, 3)} m of ${formatNumber(limitC, 4)} °C`);
+    expect(joints[0].assumed).toBe(true);
+    expect(flags.map((f) => f.code)).toContain('JOINT_RESISTANCE_ASSUMED');
+    for (const flag of flags) expect(flagText).toContain(`${flag.code} (${flag.severity})`);
+    await page.context().close();
+  }, 300_000);
 });
