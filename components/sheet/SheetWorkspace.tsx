@@ -22,6 +22,7 @@ import { installationSuits } from '@/lib/sheet/toSizing';
 import type { SheetCandidate } from '@/lib/sheet/candidates';
 import { can, type Role } from '@/server/auth/permissions';
 import type { UnitSystem } from '@/lib/units';
+import type { SheetRecord } from '@/db/queries/sheets';
 import { sheetApi, SheetApiError } from './api';
 import { CandidateGrid, candidateRows } from './CandidateGrid';
 import { CandidatePicker } from './CandidatePicker';
@@ -36,29 +37,11 @@ import { ResultStrip } from './ResultStrip';
 import { StatusBadge } from './StatusBadge';
 import { useLiveComputation } from './useLiveComputation';
 
-/** The sheet as the API sends it (dates as ISO strings). */
-export interface ClientSheet {
-  id: string;
-  projectId: string;
-  projectName: string;
-  circuitTag: string;
-  title: string;
-  status: SheetStatus;
-  revision: number;
-  previousRevisionId: string | null;
-  newerRevisionId: string | null;
-  inputs: SheetInputs;
-  storedSchemaVersion: number;
-  result: ResultSnapshot | null;
-  solverVersion: string | null;
-  version: number;
-  authorId: string;
-  authorName: string | null;
-  reviewerName: string | null;
-  approvedAt: string | null;
-  updatedAt: string;
-  acknowledgements: { flagCode: string; comment: string; reviewerName: string | null; createdAt: string }[];
-}
+/** A value as it arrives through JSON: dates become ISO strings, the rest keeps its shape. */
+type ThroughJson<T> = T extends Date ? string : T extends object ? { [K in keyof T]: ThroughJson<T[K]> } : T;
+
+/** The sheet as the page and the API send it: the stored record through JSON, without what the browser does not use. */
+export type ClientSheet = ThroughJson<Omit<SheetRecord, 'teamId' | 'reviewerId' | 'createdAt'>>;
 
 export interface WorkspaceUser {
   id: string;

@@ -24,7 +24,7 @@ import {
   type ScheduleProblem,
   type ScheduleRow,
 } from '../../lib/schedule';
-import { SOLVER_VERSION } from '../../lib/sheet/compute';
+import { SOLVER_VERSION } from '../../lib/electrical/version';
 
 export class ScheduleOperationError extends Error {
   constructor(

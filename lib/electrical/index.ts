@@ -74,3 +74,4 @@ export { alongRunCheck, overTimeCheck, CONDUCTOR_VOLUMETRIC_HEAT_CAPACITY, COVER
 export type { AlongRunInputs, AlongRunResult, OverTimeInputs, OverTimeResult } from './sizing/beyondSteady';
 export { enclosureAirCheck, ENCLOSURE_AIR_METHOD } from './sizing/enclosureAir';
 export type { EnclosureAirCheckResult, EnclosureAirInputs } from './sizing/enclosureAir';
+export { SOLVER_VERSION } from './version';

@@ -8,11 +8,8 @@ import type { CandidateEvaluation, CandidateEvaluationOk, Comparison } from '../
 import type { SheetInputs } from './schema';
 import { toCandidates, toConditions } from './toSizing';
 
-/**
- * Names the method and the code that produced a stored result. Bump it whenever lib/thermal or
- * lib/electrical change numbers, so a reviewer can tell a result from an older engine.
- */
-export const SOLVER_VERSION = 'ampwarden-sizing/0.1.0 (lib/thermal finite-volume 1-D; lib/electrical)';
+// Re-exported: the sheet and the schedules stamp their results with it.
+export { SOLVER_VERSION } from '../electrical/version';
 
 export type SheetComputation =
   | { ok: true; comparison: Comparison }

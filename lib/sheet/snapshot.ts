@@ -5,7 +5,8 @@
  */
 import type { AssumptionFlag } from '../electrical/sizing/flags';
 import type { CandidateEvaluation, CandidateEvaluationOk } from '../electrical/sizing/types';
-import { computeSheet, SOLVER_VERSION } from './compute';
+import { SOLVER_VERSION } from '../electrical/version';
+import { computeSheet } from './compute';
 import type { SheetInputs } from './schema';
 import type { ApprovalReadiness } from './stateMachine';
 
