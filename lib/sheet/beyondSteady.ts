@@ -68,9 +68,15 @@ export function computeBeyondSteady(inputs: SheetInputs, candidateId: string): B
   return out;
 }
 
-/** Parses an uploaded or pasted daily profile: one current per line or cell (a header row is skipped). */
+/**
+ * Parses an uploaded or pasted daily profile: one current per row, the last cell of the row
+ * ("hour, current" or just "current"); a non-numeric first row is a header and is skipped.
+ * A first column of numbers that do not count the intervals is refused: a one-column file written
+ * with decimal commas ("120,5") splits at the comma, and its last cell would read 5 A for 120.5 A.
+ */
 export function profileFromRows(rows: unknown[][]): { currentsA: number[] } | { error: string } {
   const values: number[] = [];
+  const leading: { row: number; first: string; last: string }[] = [];
   for (let r = 0; r < rows.length; r++) {
     const cells = rows[r].map((c) => String(c ?? '').trim()).filter((c) => c !== '');
     if (cells.length === 0) continue;
@@ -83,6 +89,17 @@ export function profileFromRows(rows: unknown[][]): { currentsA: number[] } | { 
     }
     if (value < 0) return { error: `Row ${r + 1}: a current must not be negative` };
     values.push(value);
+    if (cells.length > 1) leading.push({ row: r + 1, first: cells[0], last: cells[cells.length - 1] });
+  }
+  const firsts = leading.map((l) => Number(l.first.replace(',', '.')));
+  // Labels that are not plain numbers (clock times, dates) are fine; numbers must count evenly (0, 1, 2… or minutes).
+  if (leading.length > 1 && firsts.every(Number.isFinite)) {
+    const step = firsts[1] - firsts[0];
+    const counts = step > 0 && firsts.every((f, i) => Math.abs(f - (firsts[0] + i * step)) <= 1e-9 * Math.max(1, Math.abs(f)));
+    if (!counts) {
+      const l = leading[0];
+      return { error: `Row ${l.row}: two numbers, "${l.first}" and "${l.last}", and the first column does not count the intervals — if that is one current with a decimal comma, separate the columns with ";" or use a decimal point` };
+    }
   }
   return { currentsA: values };
 }

@@ -3,7 +3,8 @@
  * (components/sheet/BeyondSteadyPanel.tsx: papaparse with skipEmptyLines, then profileFromRows).
  * What profileFromRows documents: one current per row, the last cell of a row ("hour, current"
  * or just "current"); a non-numeric first row is a header and is skipped; a non-numeric or
- * negative current anywhere else is an error naming the row. The number of values is the sheet
+ * negative current anywhere else is an error naming the row; a first column of numbers that do not
+ * count the intervals is refused (a one-column file with decimal commas splits at the comma). The number of values is the sheet
  * schema's business (overTimeSchema.dailyProfileA: 24, 48, … equal intervals), so the row-count
  * cases check the two together, as the panel does (it sets the field and the form validates it).
  *
@@ -47,6 +48,20 @@ describe('daily profile CSV (profileFromRows after papaparse)', () => {
     expect(read.currentsA).toHaveLength(24);
     expect(read.currentsA[0]).toBe(12.5);
     expect(read.currentsA[23]).toBe(122.25);
+  });
+
+  it('a one-column file with decimal commas is refused, not read as its decimals ("120,5" splits into "120" and "5" at the comma)', () => {
+    const csv = hourlyA.map((a) => `${a},5`).join('\n');
+    const read = readCsv(csv);
+    expect('error' in read).toBe(true);
+    if (!('error' in read)) return;
+    expect(read.error).toMatch(/^Row 1: /);
+    expect(read.error).toContain(`two numbers, "${hourlyA[0]}" and "5"`);
+    // A counting first column in any step (hours 1–24, minutes 0, 60, …) is "hour, current" and is read.
+    expect(readCsv(hourlyA.map((a, i) => `${i + 1},${a}`).join('\n'))).toEqual({ currentsA: hourlyA });
+    expect(readCsv(hourlyA.map((a, i) => `${60 * i},${a}`).join('\n'))).toEqual({ currentsA: hourlyA });
+    // A clock-time first column is not a number and is read as a label.
+    expect(readCsv(hourlyA.map((a, i) => `${String(i).padStart(2, '0')}:00,${a}`).join('\n'))).toEqual({ currentsA: hourlyA });
   });
 
   it('a non-numeric current is an error naming its row (the header counts as row 1) and the cell', () => {
