@@ -6,7 +6,9 @@
 import type { AssumptionFlag } from '../electrical/sizing/flags';
 import type { CandidateEvaluation, CandidateEvaluationOk } from '../electrical/sizing/types';
 import { SOLVER_VERSION } from '../electrical/version';
+import { computeBeyondSteady } from './beyondSteady';
 import { computeSheet } from './compute';
+import { computeEnclosureAir } from './enclosureAir';
 import type { SheetInputs } from './schema';
 import type { ApprovalReadiness } from './stateMachine';
 
@@ -23,9 +25,33 @@ export interface ResultSnapshot {
   smallestPassingId: string | null;
   lowestLifeCycleCostPassingId: string | null;
   chosenCandidateId: string | null;
-  /** The chosen candidate's flags: what the reviewer accepts or rejects. */
+  /**
+   * The chosen candidate's flags: what the reviewer accepts or rejects — its steady evaluation's
+   * and those of the optional checks switched on for it (over time, along the run, enclosure air).
+   */
   chosenFlags: AssumptionFlag[];
+  /** False when the chosen candidate fails its steady evaluation or an optional check. */
   chosenPasses: boolean | null;
+  /** Optional checks switched on that could not be computed for the chosen candidate (absent in older snapshots). */
+  optionalCheckFailures?: { check: string; message: string }[];
+}
+
+/** Flags and failures of the optional checks switched on for one candidate, from the saved inputs. */
+export function optionalCheckOutcome(inputs: SheetInputs, candidateId: string): { flags: AssumptionFlag[]; failures: { check: string; message: string }[] } {
+  const flags: AssumptionFlag[] = [];
+  const failures: { check: string; message: string }[] = [];
+  const beyond = inputs.overTime.checked || inputs.alongRun.checked ? computeBeyondSteady(inputs, candidateId) : null;
+  const outcomes = [
+    ['Over time', beyond?.overTime],
+    ['Along the run', beyond?.alongRun],
+    ['Inside the enclosure', computeEnclosureAir(inputs, candidateId) ?? undefined],
+  ] as const;
+  for (const [check, outcome] of outcomes) {
+    if (!outcome) continue;
+    if (outcome.ok) flags.push(...outcome.result.flags);
+    else failures.push({ check, message: outcome.message });
+  }
+  return { flags, failures };
 }
 
 /** The stored size matters (one row per sheet): the ampacity search's profile duplicates the design one in shape, so it is dropped. */
@@ -40,6 +66,8 @@ export function buildSnapshot(inputs: SheetInputs, now = new Date()): ResultSnap
   const evaluations = computation.ok ? computation.comparison.evaluations.map(slim) : [];
   const idAt = (index: number | null) => (index === null ? null : (evaluations[index]?.id ?? null));
   const chosen = evaluations.find((e) => e.id === inputs.chosenCandidateId) ?? null;
+  const optional = chosen && chosen.ok ? optionalCheckOutcome(inputs, chosen.id) : { flags: [], failures: [] };
+  const chosenFlags = chosen && chosen.ok ? [...chosen.flags, ...optional.flags.filter((f) => !chosen.flags.some((c) => c.code === f.code))] : [];
   return {
     snapshotVersion: SNAPSHOT_VERSION,
     solverVersion: SOLVER_VERSION,
@@ -50,8 +78,9 @@ export function buildSnapshot(inputs: SheetInputs, now = new Date()): ResultSnap
     smallestPassingId: computation.ok ? idAt(computation.comparison.smallestPassingIndex) : null,
     lowestLifeCycleCostPassingId: computation.ok ? idAt(computation.comparison.lowestLifeCycleCostPassingIndex) : null,
     chosenCandidateId: inputs.chosenCandidateId,
-    chosenFlags: chosen && chosen.ok ? chosen.flags : [],
-    chosenPasses: chosen ? chosen.ok && chosen.passes : null,
+    chosenFlags,
+    chosenPasses: chosen ? chosen.ok && chosen.passes && optional.failures.length === 0 && !optional.flags.some((f) => f.severity === 'blocker') : null,
+    optionalCheckFailures: optional.failures,
   };
 }
 
@@ -76,7 +105,9 @@ export function approvalReadiness(snapshot: ResultSnapshot | null, acknowledgedC
   else if (!chosen) blockerCodes.push('CHOSEN_CANDIDATE_MISSING');
   else if (!chosen.ok) blockerCodes.push('EVALUATION_FAILED');
   else {
-    for (const flag of chosen.flags) if (flag.severity === 'blocker') blockerCodes.push(flag.code);
+    // chosenFlags holds the steady evaluation's flags and those of the optional checks.
+    for (const flag of snapshot.chosenFlags) if (flag.severity === 'blocker') blockerCodes.push(flag.code);
+    if ((snapshot.optionalCheckFailures ?? []).length > 0) blockerCodes.push('OPTIONAL_CHECK_NOT_COMPUTED');
     if (!chosen.passes && blockerCodes.length === 0) blockerCodes.push('CANDIDATE_FAILS');
   }
   const acknowledged = new Set(acknowledgedCodes);
