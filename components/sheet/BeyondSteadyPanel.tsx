@@ -108,6 +108,9 @@ export function BeyondSteadyPanel({ form, editable, candidateId, units }: { form
               <label className="block">
                 <span className="field-label">Daily load, A per interval from midnight (24 hourly values or finer; paste or upload CSV)</span>
                 <textarea
+                  // Uncontrolled while typing; remounted whenever the profile changes (an upload, a
+                  // parsed paste) so the box always shows the profile that is computed and saved.
+                  key={t.dailyProfileA.join(',')}
                   className="field-input num h-20"
                   data-testid="daily-profile"
                   disabled={!editable}

@@ -80,10 +80,13 @@ describe('over time on the sheet', () => {
     await panel.getByTestId('over-time-checked').check();
     await panel.getByTestId('overload-current').fill(String(OVERLOAD_A));
     await panel.getByTestId('overload-minutes').fill(String(OVERLOAD_MIN));
+    // A profile typed into the box first, then replaced by the uploaded file.
+    await panel.getByTestId('daily-profile').fill(Array(24).fill(99).join('\n'));
+    await panel.getByTestId('daily-profile').blur();
     const upload = panel.getByLabel('Upload a daily load CSV');
     await upload.setInputFiles(csvFile('feeder-day.csv', ['hour,current_A', ...dailyA.map((a, hour) => `${hour},${a}`)].join('\n')));
     await expect.poll(() => panel.innerText(), { timeout: 30_000 }).toContain('24 values entered.');
-    // The profile box shows what the file held, and leaving it untouched keeps the profile.
+    // The profile box shows what the file held (not the typed values), and passing through it keeps the file's profile.
     await expect(panel.getByTestId('daily-profile').inputValue()).resolves.toBe(dailyA.join('\n'));
     await panel.getByTestId('daily-profile').focus();
     await panel.getByTestId('daily-profile').blur();
