@@ -433,7 +433,10 @@ export function dailyCycle(input: DailyCycleInput): DailyCycleResult {
     flags.push({
       code: 'daily-cycle-not-periodic',
       severity: 'warning',
-      message: `The daily peak still changed by ${Math.abs(dailyPeaksC[dailyPeaksC.length - 1] - dailyPeaksC[dailyPeaksC.length - 2]).toFixed(3)} K after ${maxDays} days.`,
+      message:
+        dailyPeaksC.length < 2
+          ? `One day is not enough to tell whether the daily peak has settled (maxDays = ${maxDays}).`
+          : `The daily peak still changed by ${Math.abs(dailyPeaksC[dailyPeaksC.length - 1] - dailyPeaksC[dailyPeaksC.length - 2]).toFixed(3)} K after ${maxDays} days.`,
     });
   }
   let peakIndex = 0;

@@ -165,9 +165,14 @@ export function overTimeCheck(candidate: Candidate, conditions: Conditions, inpu
       passes: scLimit === null ? null : r.finalHotSpotC <= scLimit,
       series: r.series,
     };
+    const into = problem.geometry.layers.some((l) => !l.generating) ? 'the coverings' : 'the surroundings';
+    const aboveIec = sc.finalC != null && r.finalHotSpotC > sc.finalC;
     flags.add(
       'FAULT_HEAT_INTO_COVERINGS',
-      `With heat flowing into the coverings the fault ends at ${fmt(r.finalHotSpotC)} °C, against ${sc.finalC == null ? 'no' : fmt(sc.finalC)} °C by the IEC 60949 adiabatic method; the withstand verdict stays with the adiabatic figure.`,
+      `With heat flowing into ${into} the fault ends at ${fmt(r.finalHotSpotC)} °C, against ${sc.finalC == null ? 'no' : fmt(sc.finalC)} °C by the IEC 60949 adiabatic method; the withstand verdict stays with the adiabatic figure.` +
+        (aboveIec
+          ? ` The model ends higher: it heats the conductor with the candidate's own AC resistance (its R₂₀ with the skin and proximity effect), which the adiabatic K of IEC 60949 leaves out — with no heat flowing out at all the model reaches ${fmt(r.finalAdiabaticC)} °C. Weigh the higher figure.`
+          : ''),
     );
   }
   result.flags = flags.list();

@@ -105,6 +105,17 @@ describe('lumped body (Incropera §5.2–5.3)', () => {
     expect(r.peakTimeS).toBe(20 * 3600);
     expect(r.exceedsLimit).toBe(false);
   });
+
+  it('one day allowed cannot tell a periodic state, and says so in words (no NaN)', () => {
+    const thick = 0.2;
+    const high = currentForRise(thick, 60);
+    const currents = Array.from({ length: 24 }, (_, hour) => (hour >= 8 && hour < 20 ? high : 0));
+    const r = dailyCycle({ problem: lumpedPlate(thick, 0), currentsA: currents, timeStepS: 60, maxDays: 1 });
+    expect(r.periodic).toBe(false);
+    const flag = r.flags.find((f) => f.code === 'daily-cycle-not-periodic');
+    expect(flag?.message).toMatch(/One day is not enough/);
+    expect(flag?.message).not.toMatch(/NaN/);
+  });
 });
 
 describe('step response converges to the steady state (Incropera §3.5.2)', () => {
