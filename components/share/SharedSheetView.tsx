@@ -14,6 +14,7 @@ import { FlagsPanel } from '@/components/sheet/FlagsPanel';
 import { ResultStrip } from '@/components/sheet/ResultStrip';
 import { useLiveComputation } from '@/components/sheet/useLiveComputation';
 import type { CandidateEvaluationOk } from '@/lib/electrical/sizing/types';
+import type { OptionalCheckReport } from '@/lib/sheet/optionalChecksReport';
 import type { SheetInputs } from '@/lib/sheet/schema';
 import type { ResultSnapshot } from '@/lib/sheet/snapshot';
 import { formatDate, inputRows } from './sheetTables';
@@ -22,6 +23,42 @@ export interface SharedSheet {
   inputs: SheetInputs;
   result: ResultSnapshot | null;
   acknowledgements: { flagCode: string; comment: string; reviewerName: string | null }[];
+  /** The optional checks switched on, for the chosen candidate, in words (lib/sheet/optionalChecksReport.ts). */
+  optionalChecks: OptionalCheckReport[];
+}
+
+function OptionalChecks({ reports }: { reports: OptionalCheckReport[] }) {
+  return (
+    <section aria-labelledby="optional-heading" className="panel p-3" data-testid="shared-optional-checks">
+      <h2 id="optional-heading" className="text-body font-semibold">
+        Optional checks of the chosen candidate
+      </h2>
+      {reports.map((report) => (
+        <div key={report.heading} className="mt-2">
+          <h3 className="font-semibold">{report.heading.replace(' (chosen candidate)', '')}</h3>
+          {report.lines.map((line, i) => (
+            <p key={i} className="text-body">
+              {line}
+            </p>
+          ))}
+          {report.notComputed !== undefined ? (
+            <p className="field-error">Not computed: {report.notComputed}</p>
+          ) : (
+            <>
+              <p className="text-caption text-ink-500">{report.method}</p>
+              <ul className="mt-1 space-y-1 text-caption">
+                {report.flags.map((f) => (
+                  <li key={f.code} className={f.severity === 'blocker' ? 'text-over-dark' : f.severity === 'review' ? 'text-tight-dark' : 'text-ink-600'}>
+                    <span className="font-mono">{f.code}</span> ({f.severity}): {f.message}
+                  </li>
+                ))}
+              </ul>
+            </>
+          )}
+        </div>
+      ))}
+    </section>
+  );
 }
 
 const noop = () => {};
@@ -74,6 +111,7 @@ export function SharedSheetView({ sheet }: { sheet: SharedSheet }) {
           pendingCode={null}
         />
         {focusedOk ? <ChecksPanel evaluation={focusedOk} units="si" lengthM={sheet.inputs.circuit.lengthM} /> : null}
+        {sheet.optionalChecks.length > 0 ? <OptionalChecks reports={sheet.optionalChecks} /> : null}
         {sheet.inputs.candidates.length > 0 ? (
           <div className="grid gap-3 xl:grid-cols-2">
             <section className="panel p-2" aria-label="Heat-balance profile">

@@ -8,3 +8,4 @@ export * from './snapshot';
 export * from './formUnits';
 export * from './beyondSteady';
 export * from './enclosureAir';
+export * from './optionalChecksReport';

@@ -16,8 +16,7 @@ import type { SheetInputs } from '@/lib/sheet/schema';
 import { formatNumber } from '@/lib/units';
 import { PDF_FONT_FAMILY, pdfSafeText as safe } from './fonts';
 import { ProfileChart } from './ProfileChart';
-import { BeyondSteadySection } from './BeyondSteadySection';
-import { EnclosureAirSection } from './EnclosureAirSection';
+import { OptionalChecksSection } from './OptionalChecksSection';
 
 /** What the document needs of a sheet (db/queries/sheets SheetRecord fits). */
 export interface PdfSheet {
@@ -299,8 +298,7 @@ export function SizingSheetDocument({ sheet, generatedAt = new Date() }: { sheet
         />
         {sheet.inputs.notes.trim() ? <Text style={{ marginTop: 4 }}>{safe(`Designer's notes: ${sheet.inputs.notes.trim()}`)}</Text> : null}
 
-        <BeyondSteadySection inputs={sheet.inputs} />
-        <EnclosureAirSection inputs={sheet.inputs} />
+        <OptionalChecksSection inputs={sheet.inputs} />
 
         <Text style={styles.h2} minPresenceAhead={60}>Method and standards</Text>
         {METHOD_LINES.map((line) => (
