@@ -5,7 +5,7 @@
  */
 import { boundaryHalfCellConductance } from './coefficients';
 import type { Mesh } from './mesh';
-import { evaluateSurface, isLinearSurface, linearisationSlope, type SurfaceExchange } from './surface';
+import { evaluateSurface, isLinearSurface, linearisationSlope, surfaceFlux, type SurfaceExchange } from './surface';
 import type { NormalizedBoundary } from './validate';
 
 export interface BoundarySide {
@@ -124,6 +124,6 @@ export function heatLeaving(side: BoundarySide, nodeRise: number, surfaceRise: n
     case 'symmetry':
       return 0;
     case 'surface':
-      return side.exchangeArea * evaluateSurface(spec, reference + surfaceRise, surfaceRise + (reference - spec.ambient)).netFlux;
+      return side.exchangeArea * surfaceFlux(spec, reference + surfaceRise, surfaceRise + (reference - spec.ambient)).netFlux;
   }
 }

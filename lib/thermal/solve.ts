@@ -2,7 +2,7 @@
  * Entry points: steady and transient solves, and the honest packaging of their results.
  */
 import { faceTemperature } from './boundary';
-import { evaluateSurface } from './surface';
+import { surfaceFlux } from './surface';
 import { ThermalInputError } from './errors';
 import {
   conductanceMatrix,
@@ -82,7 +82,7 @@ function describeSurface(
   surfaceC: number,
 ): { diagnostics?: SurfaceDiagnostics; flags: ThermalFlag[] } {
   if (spec.kind !== 'surface') return { flags: [] };
-  const e = evaluateSurface(spec, surfaceC);
+  const e = surfaceFlux(spec, surfaceC);
   const c = e.convection;
   const diagnostics: SurfaceDiagnostics = {
     temperature: surfaceC,

@@ -9,45 +9,60 @@ import { radiationCoefficient } from './radiation';
 import type { ConvectionEvaluation } from './types';
 import type { NormalizedSurface } from './validate';
 
-export interface SurfaceExchange {
+/** The exchange at one surface temperature, without its slope. */
+export interface SurfaceFlux {
   /** °C at which it was evaluated */
   surfaceC: number;
   /** Net heat leaving per m² of surface, W/m². */
   netFlux: number;
-  /** d(netFlux)/dTs, W/(m²·K). */
-  slope: number;
   /** Secant convective coefficient, W/(m²·K). */
   hConv: number;
   /** Secant radiative coefficient, W/(m²·K). */
   hRad: number;
-  convection?: ConvectionEvaluation;
+  convection: ConvectionEvaluation | undefined;
+}
+
+/** The exchange and its slope: what a linearisation about this temperature needs. */
+export interface SurfaceExchange extends SurfaceFlux {
+  /** d(netFlux)/dTs, W/(m²·K). */
+  slope: number;
 }
 
 /** Guards the property table and T⁴ against an absurd intermediate iterate below 0 K. */
 const LOWEST_EVALUATION_C = ABSOLUTE_ZERO_C + 1;
 
-function convectiveFlux(s: NormalizedSurface, surfaceC: number, deltaK: number): { flux: number; evaluation?: ConvectionEvaluation } {
-  if (s.convection) {
-    const evaluation = evaluateConvection(s.convection, surfaceC, s.ambient, deltaK);
-    return { flux: evaluation.h * deltaK, evaluation };
-  }
-  return { flux: s.fixedH * deltaK };
+function convectiveFlux(s: NormalizedSurface, surfaceC: number, deltaK: number): number {
+  return s.convection ? evaluateConvection(s.convection, surfaceC, s.ambient, deltaK).h * deltaK : s.fixedH * deltaK;
 }
 
 /**
  * Exchange at surface temperature `surfaceTemperatureC`. `deltaK` = Ts − T∞ may be passed when
  * the caller knows it more precisely than the difference of two temperatures near 300 would
  * give (the solver works in rises above a reference, so that tiny rises keep their digits).
+ * No slope: the energy balance and the reported diagnostics need only the value, and the slope
+ * costs two more evaluations of the correlation.
  */
+export function surfaceFlux(s: NormalizedSurface, surfaceTemperatureC: number, deltaK?: number): SurfaceFlux {
+  const clamped = surfaceTemperatureC < LOWEST_EVALUATION_C;
+  const surfaceC = clamped ? LOWEST_EVALUATION_C : surfaceTemperatureC;
+  const delta = clamped ? surfaceC - s.ambient : (deltaK ?? surfaceTemperatureC - s.ambient);
+  return fluxAt(s, surfaceC, delta);
+}
+
+function fluxAt(s: NormalizedSurface, surfaceC: number, delta: number): SurfaceFlux {
+  const convection = s.convection ? evaluateConvection(s.convection, surfaceC, s.ambient, delta) : undefined;
+  const hConv = convection ? convection.h : s.fixedH;
+  const hRad = s.emissivity > 0 ? radiationCoefficient({ emissivity: s.emissivity, surfaceC, surroundingsC: s.surroundings }) : 0;
+  const netFlux = hConv * delta + hRad * (delta + (s.ambient - s.surroundings)) - s.absorbedFlux;
+  return { surfaceC, netFlux, hConv, hRad, convection };
+}
+
+/** Exchange and slope at `surfaceTemperatureC` (see surfaceFlux for `deltaK`). */
 export function evaluateSurface(s: NormalizedSurface, surfaceTemperatureC: number, deltaK?: number): SurfaceExchange {
-  let surfaceC = surfaceTemperatureC;
-  let delta = deltaK ?? surfaceTemperatureC - s.ambient;
-  if (surfaceC < LOWEST_EVALUATION_C) {
-    surfaceC = LOWEST_EVALUATION_C;
-    delta = surfaceC - s.ambient;
-  }
-  const conv = convectiveFlux(s, surfaceC, delta);
-  const hConv = conv.evaluation ? conv.evaluation.h : s.fixedH;
+  const clamped = surfaceTemperatureC < LOWEST_EVALUATION_C;
+  const surfaceC = clamped ? LOWEST_EVALUATION_C : surfaceTemperatureC;
+  const delta = clamped ? surfaceC - s.ambient : (deltaK ?? surfaceTemperatureC - s.ambient);
+  const flux = fluxAt(s, surfaceC, delta);
 
   let convSlope = s.fixedH;
   if (s.convection) {
@@ -56,26 +71,22 @@ export function evaluateSurface(s: NormalizedSurface, surfaceTemperatureC: numbe
     // correlations, the slope is that of the nearby curve and not of a chord across zero.
     const step = 1e-4 * Math.abs(delta) + 1e-9;
     const downStep = Math.min(step, surfaceC - LOWEST_EVALUATION_C);
-    const up = convectiveFlux(s, surfaceC + step, delta + step).flux;
-    const down = convectiveFlux(s, surfaceC - downStep, delta - downStep).flux;
+    const up = convectiveFlux(s, surfaceC + step, delta + step);
+    const down = convectiveFlux(s, surfaceC - downStep, delta - downStep);
     convSlope = (up - down) / (step + downStep);
   }
-
-  let hRad = 0;
   let radSlope = 0;
   if (s.emissivity > 0) {
-    hRad = radiationCoefficient({ emissivity: s.emissivity, surfaceC, surroundingsC: s.surroundings });
     const ts = surfaceC + KELVIN_OFFSET;
     radSlope = 4 * s.emissivity * STEFAN_BOLTZMANN * ts * ts * ts;
   }
-  const netFlux = conv.flux + hRad * (delta + (s.ambient - s.surroundings)) - s.absorbedFlux;
   return {
     surfaceC,
-    netFlux,
+    netFlux: flux.netFlux,
+    hConv: flux.hConv,
+    hRad: flux.hRad,
+    convection: flux.convection,
     slope: convSlope + radSlope,
-    hConv,
-    hRad,
-    ...(conv.evaluation ? { convection: conv.evaluation } : {}),
   };
 }
 
