@@ -52,12 +52,14 @@ export function airProperties(temperatureK: number): AirProperties {
   const t = Math.min(Math.max(temperatureK, first), last);
   let i = 0;
   while (i < table.length - 2 && t > table[i + 1][0]) i++;
-  const [t0, k0, nu0, pr0] = table[i];
-  const [t1, k1, nu1, pr1] = table[i + 1];
-  const w = (t - t0) / (t1 - t0);
-  const conductivity = k0 + w * (k1 - k0);
-  const kinematicViscosity = nu0 + w * (nu1 - nu0);
-  const prandtl = pr0 + w * (pr1 - pr0);
+  // Indexed reads, not array destructuring (iterator protocol): this runs on every evaluation
+  // of a convection correlation.
+  const below = table[i];
+  const above = table[i + 1];
+  const w = (t - below[0]) / (above[0] - below[0]);
+  const conductivity = below[1] + w * (above[1] - below[1]);
+  const kinematicViscosity = below[2] + w * (above[2] - below[2]);
+  const prandtl = below[3] + w * (above[3] - below[3]);
   return {
     temperatureK,
     conductivity,
