@@ -21,7 +21,7 @@ export function AuthFrame({ title, intro, children }: { title: string; intro?: R
             <line x1="0" y1="8" x2="240" y2="8" strokeDasharray="4 4" strokeWidth="1" className="stroke-ink-500" />
           </svg>
         </div>
-        <p className="text-caption text-ink-400">An engineering aid: every result is checked by a licensed engineer before use.</p>
+        <p className="text-caption text-ink-300">An engineering aid: every result is checked by a licensed engineer before use.</p>
       </aside>
       <main className="flex items-start justify-center px-6 py-16 md:items-center">
         <div className="w-full max-w-sm">

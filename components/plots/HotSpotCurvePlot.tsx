@@ -45,8 +45,9 @@ export function HotSpotCurvePlot({
       },
     ];
   });
+  // A named figure rather than role="img": an image may not hold controls, and Plotly's mode-bar buttons inside are focusable.
   return (
-    <div data-testid="curve-plot" role="img" aria-label="Hot spot versus current for each candidate">
+    <figure data-testid="curve-plot" aria-label="Hot spot versus current for each candidate">
       <Plot
         data={data}
         layout={{
@@ -68,6 +69,6 @@ export function HotSpotCurvePlot({
         useResizeHandler
         style={{ width: '100%', height: 300 }}
       />
-    </div>
+    </figure>
   );
 }

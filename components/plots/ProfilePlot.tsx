@@ -57,8 +57,9 @@ export function ProfilePlot({ profile, limitC, limitLabel, units, title }: { pro
   const yMin = Math.min(...ts);
   const yMax = Math.max(...ts, toT(limitC));
   const pad = Math.max(1, (yMax - yMin) * 0.08);
+  // A named figure rather than role="img": an image may not hold controls, and Plotly's mode-bar buttons inside are focusable.
   return (
-    <div data-testid="profile-plot" aria-label={`Heat-balance profile: ${title}`} role="img">
+    <figure data-testid="profile-plot" aria-label={`Heat-balance profile: ${title}`}>
       <Plot
         data={[
           {
@@ -98,6 +99,6 @@ export function ProfilePlot({ profile, limitC, limitLabel, units, title }: { pro
         useResizeHandler
         style={{ width: '100%', height: 300 }}
       />
-    </div>
+    </figure>
   );
 }

@@ -16,6 +16,7 @@ export function FieldCasePlots({ result }: { result: CaseResult }) {
   // Guide of slope 2 through the finest point: error ∝ (1/cells)².
   const guide = study.cells.map((n) => finestError * (finest / n) ** 2);
   const xScaleMm = 1000;
+  // Each plot is a named figure rather than role="img": an image may not hold controls, and Plotly's mode-bar buttons are focusable.
   return (
     <figure className="panel p-3" data-testid={`field-plots-${result.id}`} aria-labelledby={`field-caption-${result.id}`}>
       <figcaption id={`field-caption-${result.id}`} className="text-body font-semibold text-ink-900">
@@ -23,7 +24,7 @@ export function FieldCasePlots({ result }: { result: CaseResult }) {
       </figcaption>
       <p className="mt-0.5 text-caption text-ink-500">{result.source.citation}</p>
       <div className="mt-2 grid gap-3 lg:grid-cols-2">
-        <div role="img" aria-label={`Temperature profile of ${result.title}: ${profile.cells} finite-volume cells against the closed form`}>
+        <figure aria-label={`Temperature profile of ${result.title}: ${profile.cells} finite-volume cells against the closed form`}>
           <Plot
             data={[
               {
@@ -55,8 +56,8 @@ export function FieldCasePlots({ result }: { result: CaseResult }) {
             useResizeHandler
             style={{ width: '100%' }}
           />
-        </div>
-        <div role="img" aria-label={`Grid convergence of ${result.title}: measured order ${study.measuredOrder.toFixed(2)}`}>
+        </figure>
+        <figure aria-label={`Grid convergence of ${result.title}: measured order ${study.measuredOrder.toFixed(2)}`}>
           <Plot
             data={[
               {
@@ -89,7 +90,7 @@ export function FieldCasePlots({ result }: { result: CaseResult }) {
             useResizeHandler
             style={{ width: '100%' }}
           />
-        </div>
+        </figure>
       </div>
       <table className="mt-2 text-caption">
         <caption className="sr-only">Largest nodal error for each mesh</caption>
