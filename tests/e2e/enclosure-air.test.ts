@@ -8,6 +8,8 @@ import type { Browser } from 'playwright-core';
 import { closeDb } from '@/db/client';
 import { createProject } from '@/db/queries/projects';
 import { getSheet } from '@/db/queries/sheets';
+import { createShare } from '@/db/queries/shares';
+import { CAUTION_TEXT } from '@/components/shell/CautionNotice';
 import { copyStandardCatalogueToTeam } from '@/db/seed/catalogue';
 import { computeEnclosureAir } from '@/lib/sheet/enclosureAir';
 import { celsiusToFahrenheit, feetToMetres, formatNumber } from '@/lib/units';
@@ -17,6 +19,7 @@ import { createTestTeam, createTestUser, TEST_PASSWORD } from '../helpers/fixtur
 let browser: Browser;
 let teamId: string;
 let designerEmail: string;
+let designerId: string;
 let projectId: string;
 
 beforeAll(async () => {
@@ -25,6 +28,7 @@ beforeAll(async () => {
   await copyStandardCatalogueToTeam(team.id);
   const designer = await createTestUser(team.id, 'designer', { name: 'Tamsin Oriel (test designer)', unitSystem: 'imperial' });
   designerEmail = designer.email;
+  designerId = designer.id;
   projectId = (await createProject(team.id, designer.id, { name: 'Enclosure browser yard', site: 'Test site (invented)' })).id;
   browser = await launchBrowser();
 });
@@ -110,5 +114,15 @@ describe('inside the enclosure on the sheet', () => {
     // The caution stays on the page that shows the result.
     await expect(page.getByRole('note', { name: 'Caution' }).count()).resolves.toBeGreaterThan(0);
     await context.close();
+
+    // A read-only link shows the same check in words for the chosen candidate, with its flags and the caution.
+    const share = await createShare(teamId, designerId, sheetId, { expiresInDays: 7 });
+    const html = await (await fetch(appUrl(`/share/${share!.token}`))).text();
+    const text = html.replace(/<[^>]+>/g, ' ').replace(/&#x27;/g, "'").replace(/&amp;/g, '&').replace(/\s+/g, ' ');
+    expect(text).toContain('Optional checks of the chosen candidate');
+    expect(text).toContain('Inside the enclosure');
+    expect(text).toContain(`mean air inside ${formatNumber(r.insideAirC, 4)} °C`);
+    for (const flag of r.flags) expect(text).toMatch(new RegExp(`${flag.code} \\( ?${flag.severity} ?\\)`));
+    for (const line of CAUTION_TEXT) expect(text).toContain(line);
   }, 300_000);
 });
