@@ -226,10 +226,8 @@ export function iterate(ctx: SolverContext, args: IterateArgs): IterationOutcome
     previousRises = ctx.work.previousRises;
     for (let i = 0; i < n; i++) previousRises[i] = args.previous[i] - reference;
   }
-  const surfaceStartFor = (side: BoundarySide, given: number | undefined): number =>
-    side.spec.kind === 'surface' ? (given ?? side.spec.ambient + STEADY_SURFACE_START_RISE_K) - reference : NaN;
-  let surfaceInner = surfaceStartFor(ctx.inner, args.surfaceStart?.inner);
-  let surfaceOuter = surfaceStartFor(ctx.outer, args.surfaceStart?.outer);
+  let surfaceInner = surfaceStartRise(ctx.inner, args.surfaceStart?.inner, reference);
+  let surfaceOuter = surfaceStartRise(ctx.outer, args.surfaceStart?.outer, reference);
   const linearSurroundings = hasLinearSurroundings(problem);
   const counts = { tangent: 0, lagged: 0 };
   let solves = 0;
@@ -238,22 +236,11 @@ export function iterate(ctx: SolverContext, args: IterateArgs): IterationOutcome
   let previousHottest = -Infinity;
   let aboveLimitStreak = 0;
   const limitRise = options.temperatureLimit - reference;
-
-  const celsius = (): Float64Array => {
-    const t = new Float64Array(n);
-    for (let i = 0; i < n; i++) t[i] = reference + rises[i];
-    return t;
-  };
-  const finish = (status: IterationStatus, iterations: number): IterationOutcome => ({
-    status,
-    temperatures: celsius(),
-    surfaceC: { inner: reference + surfaceInner, outer: reference + surfaceOuter },
-    iterations,
-    tridiagonalSolves: solves,
-    linearisation: lastMode,
-    linearisationCounts: counts,
-    energy: energyBalance(ctx, joule, rises, surfaceInner, surfaceOuter, previousRises),
-  });
+  // One exit below the loop builds the outcome (no per-call closures: under the dev loader each
+  // named closure costs a defineProperty, and a solve is only a few passes long).
+  let status: IterationStatus = 'stalled';
+  let passes = options.maxIterations;
+  let energy: EnergyBalance | undefined;
 
   for (let iteration = 1; iteration <= options.maxIterations; iteration++) {
     const innerTerms = boundaryTerms(ctx.inner, surfaceInner, reference);
@@ -294,7 +281,11 @@ export function iterate(ctx: SolverContext, args: IterateArgs): IterationOutcome
       surfaceOuter = ts;
     }
 
-    if (!Number.isFinite(delta) || !Number.isFinite(hottest)) return finish('diverged', iteration);
+    if (!Number.isFinite(delta) || !Number.isFinite(hottest)) {
+      status = 'diverged';
+      passes = iteration;
+      break;
+    }
     // One pass is the exact answer when nothing is left to re-evaluate: fixed surroundings and a
     // source represented exactly (uniform, or Joule in tangent form with a positive-definite
     // matrix). Such an answer is reported even if very hot: it is the model's steady state.
@@ -306,7 +297,11 @@ export function iterate(ctx: SolverContext, args: IterateArgs): IterationOutcome
     if (!exact && joule && hottest > limitRise && hottest > previousHottest) aboveLimitStreak++;
     else aboveLimitStreak = 0;
     previousHottest = hottest;
-    if (aboveLimitStreak >= DIVERGENCE_STREAK) return finish('diverged', iteration);
+    if (aboveLimitStreak >= DIVERGENCE_STREAK) {
+      status = 'diverged';
+      passes = iteration;
+      break;
+    }
     // Error estimate for a linearly converging iteration: |e| ≈ Δ·r/(1 − r), r = Δ_k/Δ_{k−1};
     // near runaway the lagged form converges slowly and a small Δ alone would overstate accuracy.
     const ratio = delta / previousDelta;
@@ -319,13 +314,41 @@ export function iterate(ctx: SolverContext, args: IterateArgs): IterationOutcome
     const tolerance = Math.max(options.tolerance, ROUND_OFF_RELATIVE * largest);
     const settled = exact || (delta < tolerance && (errorEstimate < tolerance || delta < 1e-3 * tolerance));
     if (settled) {
-      const outcome = finish('converged', iteration);
-      if (outcome.energy.residual <= options.energyTolerance) return outcome;
+      energy = energyBalance(ctx, joule, rises, surfaceInner, surfaceOuter, previousRises);
+      if (energy.residual <= options.energyTolerance) {
+        status = 'converged';
+        passes = iteration;
+        break;
+      }
       // A linear system solved exactly cannot improve by repeating the pass.
-      if (exact) return { ...outcome, status: 'stalled' };
+      if (exact) {
+        passes = iteration;
+        break;
+      }
+      energy = undefined;
     }
   }
-  return finish('stalled', options.maxIterations);
+  return {
+    status,
+    temperatures: celsius(rises, reference),
+    surfaceC: { inner: reference + surfaceInner, outer: reference + surfaceOuter },
+    iterations: passes,
+    tridiagonalSolves: solves,
+    linearisation: lastMode,
+    linearisationCounts: counts,
+    energy: energy ?? energyBalance(ctx, joule, rises, surfaceInner, surfaceOuter, previousRises),
+  };
+}
+
+/** First linearisation point of a surface, as a rise above the reference (NaN: not a surface). */
+function surfaceStartRise(side: BoundarySide, givenC: number | undefined, reference: number): number {
+  return side.spec.kind === 'surface' ? (givenC ?? side.spec.ambient + STEADY_SURFACE_START_RISE_K) - reference : NaN;
+}
+
+function celsius(rises: Float64Array, reference: number): Float64Array {
+  const t = new Float64Array(rises.length);
+  for (let i = 0; i < rises.length; i++) t[i] = reference + rises[i];
+  return t;
 }
 
 /** Assemble K (conduction + linear boundary conductances) for the runaway analysis. */

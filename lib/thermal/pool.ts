@@ -15,15 +15,17 @@ export interface Scratch {
 
 /** A zero-filled store of exactly `size` doubles; call `release` when the solve is done. */
 export function borrowScratch(size: number): Scratch {
-  if (borrowed) return { store: new Float64Array(size), release: () => undefined };
+  if (borrowed) return { store: new Float64Array(size), release: releaseNothing };
   if (shared.length < size) shared = new Float64Array(Math.max(size, 2 * shared.length));
   borrowed = true;
   const store = shared.subarray(0, size);
   store.fill(0);
-  return {
-    store,
-    release: () => {
-      borrowed = false;
-    },
-  };
+  return { store, release: releaseShared };
 }
+
+// Module functions rather than closures made per borrow: nothing to capture, nothing to allocate.
+function releaseShared(): void {
+  borrowed = false;
+}
+
+function releaseNothing(): void {}

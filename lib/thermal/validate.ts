@@ -196,25 +196,27 @@ function validateGeometry(raw: unknown): NormalizedGeometry {
   return { kind, innerRadius, layers };
 }
 
+/** A cylinder correlation's diameter: given, or the outer diameter where there is one. */
+function convectionDiameter(c: Record<string, unknown>, field: string, defaultDiameter: number | undefined): number {
+  if (c.diameter !== undefined) return requirePositive(c.diameter, `${field}.diameter`);
+  if (defaultDiameter === undefined) {
+    throw new ThermalInputError(
+      `${field}.diameter`,
+      'is required here (it defaults to the outer diameter only on the outer face of a cylinder)',
+    );
+  }
+  return defaultDiameter;
+}
+
 function validateConvection(
   raw: unknown,
   field: string,
   defaultDiameter: number | undefined,
 ): NormalizedConvection {
   const c = requireRecord(raw, field);
-  const diameter = (): number => {
-    if (c.diameter !== undefined) return requirePositive(c.diameter, `${field}.diameter`);
-    if (defaultDiameter === undefined) {
-      throw new ThermalInputError(
-        `${field}.diameter`,
-        'is required here (it defaults to the outer diameter only on the outer face of a cylinder)',
-      );
-    }
-    return defaultDiameter;
-  };
   switch (c.kind) {
     case 'horizontal-cylinder':
-      return { kind: 'horizontal-cylinder', diameter: diameter() };
+      return { kind: 'horizontal-cylinder', diameter: convectionDiameter(c, field, defaultDiameter) };
     case 'vertical-plate':
       return { kind: 'vertical-plate', height: requirePositive(c.height, `${field}.height`) };
     case 'horizontal-plate': {
@@ -227,7 +229,7 @@ function validateConvection(
       return {
         kind: 'forced-cylinder',
         velocity: requirePositive(c.velocity, `${field}.velocity`),
-        diameter: diameter(),
+        diameter: convectionDiameter(c, field, defaultDiameter),
       };
     case 'forced-plate':
       return {
@@ -238,7 +240,7 @@ function validateConvection(
     case 'iec-60287-free-air':
       return {
         kind: 'iec-60287-free-air',
-        diameter: diameter(),
+        diameter: convectionDiameter(c, field, defaultDiameter),
         Z: optional(c.Z, (v) => requirePositive(v, `${field}.Z`), IEC_FREE_AIR_SINGLE_CABLE.Z),
         E: optional(c.E, (v) => requireNonNegative(v, `${field}.E`), IEC_FREE_AIR_SINGLE_CABLE.E),
         g: optional(c.g, (v) => requireFinite(v, `${field}.g`), IEC_FREE_AIR_SINGLE_CABLE.g),
