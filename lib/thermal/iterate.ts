@@ -51,6 +51,10 @@ export interface SolverContext {
   mesh: Mesh;
   /** Conductance between cells j and j+1. */
   conductances: Float64Array;
+  /** Σ of the two face conductances per cell: the part of a_P that no pass changes. */
+  conductionDiagonal: Float64Array;
+  /** ΔV of generating cells, 0 elsewhere: where S_u and S_p act. */
+  sourceVolumes: Float64Array;
   inner: BoundarySide;
   outer: BoundarySide;
   /** ρcΔV/Δt per cell (transient only). */
@@ -84,7 +88,7 @@ export function referenceTemperature(problem: NormalizedProblem): number {
  */
 export function contextStoreSize(problem: NormalizedProblem): number {
   const n = cellCount(problem.geometry);
-  return meshStoreSize(n) + 9 * n;
+  return meshStoreSize(n) + 11 * n;
 }
 
 export function createContext(problem: NormalizedProblem, timeStep?: number, scratch?: Float64Array): SolverContext {
@@ -102,25 +106,41 @@ export function createContext(problem: NormalizedProblem, timeStep?: number, scr
     }
   }
   // The conductances and every work array of the passes share the rest of the store.
-  const store = all.subarray(meshSize, meshSize + 9 * n);
+  const store = all.subarray(meshSize, meshSize + 11 * n);
+  const work = {
+    lower: store.subarray(0, n),
+    diagonal: store.subarray(n, 2 * n),
+    upper: store.subarray(2 * n, 3 * n),
+    rhs: store.subarray(3 * n, 4 * n),
+    solution: store.subarray(4 * n, 5 * n),
+    scratch: store.subarray(5 * n, 6 * n),
+    rises: store.subarray(7 * n, 8 * n),
+    previousRises: store.subarray(8 * n, 9 * n),
+  };
+  const conductances = interiorConductances(mesh, store.subarray(6 * n, 7 * n - 1));
+  const conductionDiagonal = store.subarray(9 * n, 10 * n);
+  const sourceVolumes = store.subarray(10 * n, 11 * n);
+  // Conduction and the place of the source are fixed for the solve: set them (and the
+  // off-diagonals, which the Thomas sweep only reads) once, not on every pass.
+  for (let i = 0; i < n; i++) {
+    const gw = i > 0 ? conductances[i - 1] : 0;
+    const ge = i < n - 1 ? conductances[i] : 0;
+    work.lower[i] = -gw;
+    work.upper[i] = -ge;
+    conductionDiagonal[i] = gw + ge;
+    sourceVolumes[i] = mesh.generating[i] ? mesh.volumes[i] : 0;
+  }
   return {
     problem,
     reference: referenceTemperature(problem),
     mesh,
-    conductances: interiorConductances(mesh, store.subarray(6 * n, 7 * n - 1)),
+    conductances,
+    conductionDiagonal,
+    sourceVolumes,
     inner: boundarySide(mesh, problem.inner, 'inner'),
     outer: boundarySide(mesh, problem.outer, 'outer'),
     capacityRate,
-    work: {
-      lower: store.subarray(0, n),
-      diagonal: store.subarray(n, 2 * n),
-      upper: store.subarray(2 * n, 3 * n),
-      rhs: store.subarray(3 * n, 4 * n),
-      solution: store.subarray(4 * n, 5 * n),
-      scratch: store.subarray(5 * n, 6 * n),
-      rises: store.subarray(7 * n, 8 * n),
-      previousRises: store.subarray(8 * n, 9 * n),
-    },
+    work,
   };
 }
 
@@ -135,7 +155,8 @@ export function hasLinearSurroundings(problem: NormalizedProblem): boolean {
 
 /**
  * Fill the tridiagonal system for one pass (unknowns θ) and solve it. Returns the smallest pivot
- * ratio (positive for a positive-definite matrix). Row i: −G_w θ_{i−1} + a_P θ_i − G_e θ_{i+1} = b.
+ * ratio (positive for a positive-definite matrix). Row i: −G_w θ_{i−1} + a_P θ_i − G_e θ_{i+1} = b;
+ * the off-diagonals −G and the conduction part of a_P were set with the context.
  */
 function assembleAndSolve(
   ctx: SolverContext,
@@ -146,7 +167,7 @@ function assembleAndSolve(
   inner: BoundaryTerms,
   outer: BoundaryTerms,
 ): number {
-  const { mesh, conductances: g, capacityRate, reference } = ctx;
+  const { mesh, conductionDiagonal, sourceVolumes, capacityRate, reference } = ctx;
   const { lower, diagonal, upper, rhs, solution, scratch } = ctx.work;
   const n = mesh.cellCount;
   const source = ctx.problem.source;
@@ -157,12 +178,10 @@ function assembleAndSolve(
   const spTangent = joule && mode === 'tangent' ? slope : 0;
   const lagged = joule !== undefined && mode === 'lagged';
   for (let i = 0; i < n; i++) {
-    const gw = i > 0 ? g[i - 1] : 0;
-    const ge = i < n - 1 ? g[i] : 0;
-    let ap = gw + ge;
+    let ap = conductionDiagonal[i];
     let b = 0;
-    if (mesh.generating[i]) {
-      const v = mesh.volumes[i];
+    const v = sourceVolumes[i];
+    if (v !== 0) {
       if (lagged) {
         b += (qRef + slope * rises[i]) * v;
       } else {
@@ -174,8 +193,6 @@ function assembleAndSolve(
       ap += capacityRate[i];
       b += capacityRate[i] * previousRises![i];
     }
-    lower[i] = -gw;
-    upper[i] = -ge;
     diagonal[i] = ap;
     rhs[i] = b;
   }
