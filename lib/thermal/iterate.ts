@@ -70,6 +70,8 @@ export interface SolverContext {
     rises: Float64Array;
     /** Transient: θ at the start of the step. */
     previousRises: Float64Array;
+    /** °C of the last outcome (see IterationOutcome.temperatures). */
+    temperatures: Float64Array;
   };
 }
 
@@ -88,7 +90,7 @@ export function referenceTemperature(problem: NormalizedProblem): number {
  */
 export function contextStoreSize(problem: NormalizedProblem): number {
   const n = cellCount(problem.geometry);
-  return meshStoreSize(n) + 11 * n;
+  return meshStoreSize(n) + 12 * n;
 }
 
 export function createContext(problem: NormalizedProblem, timeStep?: number, scratch?: Float64Array): SolverContext {
@@ -106,7 +108,7 @@ export function createContext(problem: NormalizedProblem, timeStep?: number, scr
     }
   }
   // The conductances and every work array of the passes share the rest of the store.
-  const store = all.subarray(meshSize, meshSize + 11 * n);
+  const store = all.subarray(meshSize, meshSize + 12 * n);
   const work = {
     lower: store.subarray(0, n),
     diagonal: store.subarray(n, 2 * n),
@@ -116,6 +118,7 @@ export function createContext(problem: NormalizedProblem, timeStep?: number, scr
     scratch: store.subarray(5 * n, 6 * n),
     rises: store.subarray(7 * n, 8 * n),
     previousRises: store.subarray(8 * n, 9 * n),
+    temperatures: store.subarray(11 * n, 12 * n),
   };
   const conductances = interiorConductances(mesh, store.subarray(6 * n, 7 * n - 1));
   const conductionDiagonal = store.subarray(9 * n, 10 * n);
@@ -207,7 +210,10 @@ export type IterationStatus = 'converged' | 'diverged' | 'stalled';
 
 export interface IterationOutcome {
   status: IterationStatus;
-  /** °C */
+  /**
+   * °C. A view into the context's work storage (one array fewer to allocate per solve): the next
+   * iterate on the same context overwrites it, so copy what must outlive that.
+   */
   temperatures: Float64Array;
   /** °C (NaN for a side that is not a surface) */
   surfaceC: { inner: number; outer: number };
@@ -280,12 +286,14 @@ export function iterate(ctx: SolverContext, args: IterateArgs): IterationOutcome
     const solution = ctx.work.solution;
     let delta = 0;
     let hottest = -Infinity;
+    let largest = 0;
     for (let i = 0; i < n; i++) {
       const next = rises[i] + omega * (solution[i] - rises[i]);
       const change = Math.abs(next - rises[i]);
       if (change > delta || change !== change) delta = change;
       rises[i] = next;
       if (next > hottest) hottest = next;
+      largest = Math.max(largest, Math.abs(next));
     }
     if (innerTerms.exchange) {
       const ts = linearisedSurfaceRise(ctx.inner, innerTerms, rises[0]);
@@ -326,8 +334,6 @@ export function iterate(ctx: SolverContext, args: IterateArgs): IterationOutcome
     previousDelta = delta;
     // 1e-6 K, or round-off where rises are so large (absurd, but valid input) that 1e-6 K is
     // below the resolution of a double.
-    let largest = 0;
-    for (let i = 0; i < n; i++) largest = Math.max(largest, Math.abs(rises[i]));
     const tolerance = Math.max(options.tolerance, ROUND_OFF_RELATIVE * largest);
     const settled = exact || (delta < tolerance && (errorEstimate < tolerance || delta < 1e-3 * tolerance));
     if (settled) {
@@ -347,7 +353,7 @@ export function iterate(ctx: SolverContext, args: IterateArgs): IterationOutcome
   }
   return {
     status,
-    temperatures: celsius(rises, reference),
+    temperatures: celsius(rises, reference, ctx.work.temperatures),
     surfaceC: { inner: reference + surfaceInner, outer: reference + surfaceOuter },
     iterations: passes,
     tridiagonalSolves: solves,
@@ -362,10 +368,9 @@ function surfaceStartRise(side: BoundarySide, givenC: number | undefined, refere
   return side.spec.kind === 'surface' ? (givenC ?? side.spec.ambient + STEADY_SURFACE_START_RISE_K) - reference : NaN;
 }
 
-function celsius(rises: Float64Array, reference: number): Float64Array {
-  const t = new Float64Array(rises.length);
-  for (let i = 0; i < rises.length; i++) t[i] = reference + rises[i];
-  return t;
+function celsius(rises: Float64Array, reference: number, out: Float64Array): Float64Array {
+  for (let i = 0; i < rises.length; i++) out[i] = reference + rises[i];
+  return out;
 }
 
 /** Assemble K (conduction + linear boundary conductances) for the runaway analysis. */

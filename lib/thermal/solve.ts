@@ -269,8 +269,9 @@ function eigenvalueOnset(ctx: SolverContext): { currentA: number; peakPosition: 
 /** A converged state whose hottest node is within the temperature limit. */
 function boundedBelowLimit(ctx: SolverContext, outcome: IterationOutcome): boolean {
   if (outcome.status !== 'converged') return false;
+  const t = outcome.temperatures;
   let hottest = -Infinity;
-  for (const t of outcome.temperatures) hottest = Math.max(hottest, t);
+  for (let i = 0; i < t.length; i++) hottest = Math.max(hottest, t[i]);
   return hottest <= ctx.problem.options.temperatureLimit;
 }
 
