@@ -116,10 +116,10 @@ function describeSurface(
   return { diagnostics, flags };
 }
 
-/** Plain, packed number[] (JSON-friendly) from a typed array. */
+/** Plain number[] (JSON-friendly) from a typed array; sized once rather than grown by push. */
 function plain(values: Float64Array): number[] {
-  const out: number[] = [];
-  for (let i = 0; i < values.length; i++) out.push(values[i]);
+  const out = new Array<number>(values.length);
+  for (let i = 0; i < values.length; i++) out[i] = values[i];
   return out;
 }
 
