@@ -27,4 +27,5 @@ export const PLOT_LAYOUT_BASE = {
   yaxis: { gridcolor: '#e1e6ec', zerolinecolor: '#c3ccd7' },
 } as const;
 
-export const PLOT_CONFIG = { displaylogo: false, responsive: true, modeBarButtonsToRemove: ['lasso2d', 'select2d'] } as PlotParams['config'];
+// No "Share chart" button: a sheet's figures never go to a third-party cloud (and the CSP would block it).
+export const PLOT_CONFIG = { displaylogo: false, responsive: true, showSendToCloud: false, modeBarButtonsToRemove: ['lasso2d', 'select2d'] } as PlotParams['config'];

@@ -180,7 +180,7 @@ export function SharePanel({ sheetId, canShare, dirty }: { sheetId: string; canS
                     <th className="font-medium">Until</th>
                     <th className="font-medium">Last opened</th>
                     <th className="font-medium">State</th>
-                    <th />
+                    <th><span className="sr-only">Action</span></th>
                   </tr>
                 </thead>
                 <tbody>
