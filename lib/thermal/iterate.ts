@@ -14,6 +14,7 @@ import { boundarySide, boundaryTerms, linearisedSurfaceRise, type BoundarySide, 
 import { interiorConductances } from './coefficients';
 import { energyBalance, type EnergyBalance } from './energy';
 import { buildMesh, cellCount, meshStoreSize, type Mesh } from './mesh';
+import { freshArrays, type ArraySource } from './pool';
 import { jouleCoefficients, type JouleCoefficients } from './source';
 import { isLinearSurface } from './surface';
 import { thomas } from './tridiagonal';
@@ -85,19 +86,16 @@ export function referenceTemperature(problem: NormalizedProblem): number {
 }
 
 /**
- * Mesh, conductances and work arrays for one solve, all views into `scratch` when given
- * (see pool.ts); its size must be at least contextStoreSize(problem).
+ * Mesh, conductances and work arrays for one solve, all taken from `arrays` (a solve's scratch,
+ * see pool.ts, which must have room for contextStoreSize(problem) doubles).
  */
 export function contextStoreSize(problem: NormalizedProblem): number {
   const n = cellCount(problem.geometry);
   return meshStoreSize(n) + 12 * n;
 }
 
-export function createContext(problem: NormalizedProblem, timeStep?: number, scratch?: Float64Array): SolverContext {
-  const cells = cellCount(problem.geometry);
-  const all = scratch ?? new Float64Array(contextStoreSize(problem));
-  const meshSize = meshStoreSize(cells);
-  const mesh = buildMesh(problem.geometry, all.subarray(0, meshSize));
+export function createContext(problem: NormalizedProblem, timeStep?: number, arrays: ArraySource = freshArrays): SolverContext {
+  const mesh = buildMesh(problem.geometry, arrays);
   const n = mesh.cellCount;
   let capacityRate: Float64Array | undefined;
   if (timeStep !== undefined) {
@@ -107,22 +105,20 @@ export function createContext(problem: NormalizedProblem, timeStep?: number, scr
       capacityRate[i] = (layer.density! * layer.heatCapacity! * mesh.volumes[i]) / timeStep;
     }
   }
-  // The conductances and every work array of the passes share the rest of the store.
-  const store = all.subarray(meshSize, meshSize + 12 * n);
   const work = {
-    lower: store.subarray(0, n),
-    diagonal: store.subarray(n, 2 * n),
-    upper: store.subarray(2 * n, 3 * n),
-    rhs: store.subarray(3 * n, 4 * n),
-    solution: store.subarray(4 * n, 5 * n),
-    scratch: store.subarray(5 * n, 6 * n),
-    rises: store.subarray(7 * n, 8 * n),
-    previousRises: store.subarray(8 * n, 9 * n),
-    temperatures: store.subarray(11 * n, 12 * n),
+    lower: arrays.take(n),
+    diagonal: arrays.take(n),
+    upper: arrays.take(n),
+    rhs: arrays.take(n),
+    solution: arrays.take(n),
+    scratch: arrays.take(n),
+    rises: arrays.take(n),
+    previousRises: arrays.take(n),
+    temperatures: arrays.take(n),
   };
-  const conductances = interiorConductances(mesh, store.subarray(6 * n, 7 * n - 1));
-  const conductionDiagonal = store.subarray(9 * n, 10 * n);
-  const sourceVolumes = store.subarray(10 * n, 11 * n);
+  const conductances = interiorConductances(mesh, arrays.take(Math.max(n - 1, 0)));
+  const conductionDiagonal = arrays.take(n);
+  const sourceVolumes = arrays.take(n);
   // Conduction and the place of the source are fixed for the solve: set them (and the
   // off-diagonals, which the Thomas sweep only reads) once, not on every pass.
   for (let i = 0; i < n; i++) {

@@ -3,6 +3,7 @@
  * first, one node inside each cell). Each layer is split into its own number of equal cells so
  * that every material interface is a cell face.
  */
+import { freshArrays, type ArraySource } from './pool';
 import type { GeometryKind, LayerBound } from './types';
 import type { NormalizedGeometry } from './validate';
 
@@ -45,25 +46,25 @@ export function cellCount(geometry: NormalizedGeometry): number {
   return n;
 }
 
-/** Doubles a mesh of n cells needs in its store. */
+/** Doubles a mesh of n cells takes from its ArraySource. */
 export function meshStoreSize(n: number): number {
   return 2 * (n + 1) + 5 * n;
 }
 
 /**
- * Build the mesh; its arrays are views into `store` (length ≥ meshStoreSize(n), zero-filled) when
- * given, so that a solve allocates one buffer instead of a dozen.
+ * Build the mesh; its arrays come from `arrays` (a solve's scratch, see pool.ts, so that a solve
+ * allocates one buffer instead of a dozen).
  */
-export function buildMesh(geometry: NormalizedGeometry, store: Float64Array = new Float64Array(meshStoreSize(cellCount(geometry)))): Mesh {
+export function buildMesh(geometry: NormalizedGeometry, arrays: ArraySource = freshArrays): Mesh {
   const layers = geometry.layers;
   const n = cellCount(geometry);
-  const faces = store.subarray(0, n + 1);
-  const faceAreas = store.subarray(n + 1, 2 * (n + 1));
-  const nodes = store.subarray(2 * (n + 1), 2 * (n + 1) + n);
-  const volumes = store.subarray(2 * (n + 1) + n, 2 * (n + 1) + 2 * n);
-  const conductivity = store.subarray(2 * (n + 1) + 2 * n, 2 * (n + 1) + 3 * n);
-  const generating = store.subarray(2 * (n + 1) + 3 * n, 2 * (n + 1) + 4 * n);
-  const layerOfCell = store.subarray(2 * (n + 1) + 4 * n, 2 * (n + 1) + 5 * n);
+  const faces = arrays.take(n + 1);
+  const faceAreas = arrays.take(n + 1);
+  const nodes = arrays.take(n);
+  const volumes = arrays.take(n);
+  const conductivity = arrays.take(n);
+  const generating = arrays.take(n);
+  const layerOfCell = arrays.take(n);
   const layerBounds: LayerBound[] = [];
   const cylinder = geometry.kind === 'cylinder';
 

@@ -306,7 +306,7 @@ export function solveSteady(problem: ThermalProblem): SteadyResult {
   const normalized = validateProblem(problem, true);
   const scratch = borrowScratch(contextStoreSize(normalized));
   try {
-    return steady(normalized, createContext(normalized, undefined, scratch.store));
+    return steady(normalized, createContext(normalized, undefined, scratch));
   } finally {
     scratch.release();
   }
@@ -416,7 +416,7 @@ export function solveTransient(problem: TransientProblem): TransientResult {
   });
   const scratch = borrowScratch(contextStoreSize(normalized));
   try {
-    return transient(raw, normalized, createContext(normalized, timeStep, scratch.store), timeStep, steps);
+    return transient(raw, normalized, createContext(normalized, timeStep, scratch), timeStep, steps);
   } finally {
     scratch.release();
   }
