@@ -246,7 +246,7 @@ export function BeyondSteadyPanel({ form, editable, candidateId, units }: { form
                 ) : null}
                 {overTime.result.fault ? (
                   <div className="flex justify-between border-b border-ink-50 py-1">
-                    <dt>Fault with heat into the coverings</dt>
+                    <dt>Fault with heat flowing out of the conductor</dt>
                     <dd className="num">
                       {fmtT(overTime.result.fault.finalC)} (adiabatic IEC 60949: {overTime.result.fault.iecAdiabaticC === null ? '—' : fmtT(overTime.result.fault.iecAdiabaticC)})
                     </dd>

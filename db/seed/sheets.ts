@@ -160,8 +160,33 @@ function refrigerationFeeder(): DemoSheet {
   return { circuitTag: 'KY-MSB-RR2', title: 'Refrigeration rack feeder on the roof', inputs, state: 'draft' };
 }
 
+/** A draft that shows the optional checks: a riser in a closed switchboard section, its overload and day, and its joints. */
+function distributionRiser(): DemoSheet {
+  const inputs = defaultSheetInputs('bar-on-edge');
+  inputs.circuit = { ...inputs.circuit, designCurrentA: 1000, lengthM: 4, maxVoltageDropPercent: 1 };
+  inputs.fault = { checked: true, currentA: 35000, durationS: 0.5 };
+  inputs.environment = { ...inputs.environment, ambientC: 40 };
+  inputs.candidates = [copperBar('cu-bar-1x60x10', 60, 10, 1), copperBar('cu-bar-1x80x10', 80, 10, 1)];
+  inputs.chosenCandidateId = 'cu-bar-1x60x10';
+  // Invented operating pattern of the demo building: shops open 08:00–20:00.
+  const dailyProfileA = Array.from({ length: 24 }, (_, hour) => (hour >= 8 && hour < 20 ? 950 : 420));
+  inputs.overTime = { checked: true, overloadCurrentA: 1300, overloadDurationS: 1800, dailyProfileA, faultWithCoverings: true };
+  inputs.alongRun = {
+    checked: true,
+    lengthM: 4,
+    startEnd: 'terminal',
+    startTemperatureC: 70,
+    endEnd: 'terminal',
+    endTemperatureC: 70,
+    joints: [{ positionM: 2, resistanceMicroOhm: null }],
+  };
+  inputs.enclosureAir = { ...inputs.enclosureAir, checked: true, heightM: 2.2, widthM: 0.8, depthM: 0.6, backCovered: true, sidesCovered: 1, outsideAirC: 30, routeLengthInsideM: 4, otherLossesW: 350 };
+  inputs.notes = 'Main switchboard section 3 riser to the distribution bars, in a closed section of the board (demo).';
+  return { circuitTag: 'KY-MSB-DB3', title: 'Switchboard section 3 riser', inputs, state: 'draft' };
+}
+
 export function demoSheets(): DemoSheet[] {
-  return [busBarRun(), chillerFeeder(), evFeeder(), refrigerationFeeder()];
+  return [busBarRun(), chillerFeeder(), evFeeder(), refrigerationFeeder(), distributionRiser()];
 }
 
 function actorOf(user: { id: string; role: Role }): Actor {

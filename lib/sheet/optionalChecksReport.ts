@@ -45,7 +45,8 @@ function overTimeLines(inputs: SheetInputs, t: OverTimeResult): string[] {
   }
   if (t.fault) {
     const f = t.fault;
-    lines.push(`Fault with heat into the coverings: ${c(f.finalC)} at the end, against ${f.iecAdiabaticC === null ? '—' : c(f.iecAdiabaticC)} by the IEC 60949 adiabatic method (which governs the verdict).`);
+    const bare = inputs.candidates.find((x) => x.id === inputs.chosenCandidateId)?.kind === 'bar';
+    lines.push(`Fault with heat flowing into the ${bare ? 'surroundings' : 'coverings'}: ${c(f.finalC)} at the end, against ${f.iecAdiabaticC === null ? '—' : c(f.iecAdiabaticC)} by the IEC 60949 adiabatic method (which governs the verdict).`);
   }
   return lines;
 }
