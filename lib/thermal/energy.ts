@@ -6,7 +6,7 @@
  */
 import { heatLeaving } from './boundary';
 import type { SolverContext } from './iterate';
-import { sourceDensity, type JouleCoefficients } from './source';
+import { generatedHeat, type JouleCoefficients } from './source';
 
 /**
  * Heat flows below 1e-12 W (per metre of cable or per m² of slab) have no physical meaning here;
@@ -33,13 +33,12 @@ export function energyBalance(
   surfaceOuterRise: number,
   previousRises?: Float64Array,
 ): EnergyBalance {
-  const { mesh, problem, capacityRate, reference } = ctx;
+  const { mesh, problem, capacityRate, reference, sourceVolumes } = ctx;
   const n = mesh.cellCount;
-  let generated = 0;
+  const generated = generatedHeat(problem.source, joule, reference, rises, sourceVolumes);
   let stored = 0;
-  for (let i = 0; i < n; i++) {
-    if (mesh.generating[i]) generated += sourceDensity(problem.source, joule, reference + rises[i]) * mesh.volumes[i];
-    if (capacityRate) stored += capacityRate[i] * (rises[i] - previousRises![i]);
+  if (capacityRate) {
+    for (let i = 0; i < n; i++) stored += capacityRate[i] * (rises[i] - previousRises![i]);
   }
   const leavingInner = heatLeaving(ctx.inner, rises[0], surfaceInnerRise, reference);
   const leavingOuter = heatLeaving(ctx.outer, rises[n - 1], surfaceOuterRise, reference);

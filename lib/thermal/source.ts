@@ -48,3 +48,23 @@ export function linearisedSource(
 export function sourceDensity(source: NormalizedSource, joule: JouleCoefficients | undefined, temperatureC: number): number {
   return source.kind === 'uniform' ? source.q : jouleHeatDensity(joule!, temperatureC);
 }
+
+/**
+ * Heat generated over the cells at their temperatures (reference + rise, °C), W per m² of slab or
+ * per metre of cylinder; `sourceVolumes` holds ΔV of generating cells and 0 elsewhere. One call
+ * for the whole sweep, so that the per-cell density is a call within this module.
+ */
+export function generatedHeat(
+  source: NormalizedSource,
+  joule: JouleCoefficients | undefined,
+  reference: number,
+  rises: Float64Array,
+  sourceVolumes: Float64Array,
+): number {
+  let generated = 0;
+  for (let i = 0; i < rises.length; i++) {
+    const v = sourceVolumes[i];
+    if (v !== 0) generated += sourceDensity(source, joule, reference + rises[i]) * v;
+  }
+  return generated;
+}
