@@ -75,13 +75,17 @@ function steadyStart(problem: NormalizedProblem): number {
   return a ?? b ?? 20;
 }
 
-/** Diagnostics and validity flags of one surface at its final temperature (one evaluation). */
+/**
+ * Diagnostics of one surface at its final temperature (one evaluation); its validity flags are
+ * appended to `flags`.
+ */
 function describeSurface(
   side: 'inner' | 'outer',
   spec: NormalizedBoundary,
   surfaceC: number,
-): { diagnostics?: SurfaceDiagnostics; flags: ThermalFlag[] } {
-  if (spec.kind !== 'surface') return { flags: [] };
+  flags: ThermalFlag[],
+): SurfaceDiagnostics | undefined {
+  if (spec.kind !== 'surface') return undefined;
   const e = surfaceFlux(spec, surfaceC);
   const c = e.convection;
   const diagnostics: SurfaceDiagnostics = {
@@ -96,7 +100,6 @@ function describeSurface(
     ...(c?.filmTemperatureK !== undefined ? { filmTemperatureK: c.filmTemperatureK } : {}),
     inRange: c ? c.inRange : true,
   };
-  const flags: ThermalFlag[] = [];
   if (c && !c.inRange) {
     const group =
       c.rayleigh !== undefined ? `Ra = ${c.rayleigh.toPrecision(3)}` : c.reynolds !== undefined ? `Re = ${c.reynolds.toPrecision(3)}` : '';
@@ -113,7 +116,7 @@ function describeSurface(
       message: `${side} surface: film temperature ${c.filmTemperatureK?.toFixed(1)} K is outside the air table (200–1000 K); properties were held at the nearest end.`,
     });
   }
-  return { diagnostics, flags };
+  return diagnostics;
 }
 
 /** Plain number[] (JSON-friendly) from a typed array; sized once rather than grown by push. */
@@ -147,9 +150,9 @@ function convergedResult(ctx: SolverContext, outcome: IterationOutcome, flags: T
   if (problem.inner.kind !== 'symmetry' && faceInner > hotSpot.temperature) hotSpot = { temperature: faceInner, position: ctx.inner.position };
   if (problem.outer.kind !== 'symmetry' && faceOuter > hotSpot.temperature) hotSpot = { temperature: faceOuter, position: ctx.outer.position };
 
-  const innerSurface = describeSurface('inner', problem.inner, outcome.surfaceC.inner);
-  const outerSurface = describeSurface('outer', problem.outer, outcome.surfaceC.outer);
-  const allFlags = flags.concat(innerSurface.flags, outerSurface.flags);
+  const allFlags = flags.slice();
+  const innerSurface = describeSurface('inner', problem.inner, outcome.surfaceC.inner, allFlags);
+  const outerSurface = describeSurface('outer', problem.outer, outcome.surfaceC.outer, allFlags);
   if (hotSpot.temperature > problem.options.temperatureLimit) {
     allFlags.push({
       code: 'above-temperature-limit',
@@ -160,8 +163,8 @@ function convergedResult(ctx: SolverContext, outcome: IterationOutcome, flags: T
   const e = outcome.energy;
   const cylinder = mesh.kind === 'cylinder';
   const surface: SteadyResult['surface'] = {};
-  if (innerSurface.diagnostics) surface.inner = innerSurface.diagnostics;
-  if (outerSurface.diagnostics) surface.outer = outerSurface.diagnostics;
+  if (innerSurface) surface.inner = innerSurface;
+  if (outerSurface) surface.outer = outerSurface;
   // One literal with every field (no spreads): cheaper to build, and the same shape every time.
   const result: SteadyResult = {
     positions: plain(mesh.nodes),
