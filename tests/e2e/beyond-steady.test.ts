@@ -85,9 +85,10 @@ describe('over time on the sheet', () => {
     await panel.getByTestId('daily-profile').blur();
     const upload = panel.getByLabel('Upload a daily load CSV');
     await upload.setInputFiles(csvFile('feeder-day.csv', ['hour,current_A', ...dailyA.map((a, hour) => `${hour},${a}`)].join('\n')));
-    await expect.poll(() => panel.innerText(), { timeout: 30_000 }).toContain('24 values entered.');
-    // The profile box shows what the file held (not the typed values), and passing through it keeps the file's profile.
-    await expect(panel.getByTestId('daily-profile').inputValue()).resolves.toBe(dailyA.join('\n'));
+    // The typed profile also has 24 values, so wait for the box to show what the file held (the
+    // file is read asynchronously), not for the count; then passing through the box keeps it.
+    await expect.poll(() => panel.getByTestId('daily-profile').inputValue(), { timeout: 30_000 }).toBe(dailyA.join('\n'));
+    await expect(panel.innerText()).resolves.toContain('24 values entered.');
     await panel.getByTestId('daily-profile').focus();
     await panel.getByTestId('daily-profile').blur();
     await expect(panel.innerText()).resolves.toContain('24 values entered.');
