@@ -15,7 +15,7 @@
  */
 import { busBarProblem } from './builders';
 import { ThermalInputError } from './errors';
-import { evaluateSurface } from './surface';
+import { surfaceFlux } from './surface';
 import { thomas } from './tridiagonal';
 import type { ThermalFlag, ThermalProblem } from './types';
 import {
@@ -214,7 +214,7 @@ export function solveBarRun(input: BarRunInput): BarRunResult {
   const lossCoefficient = (rise: number): number => {
     let sum = 0;
     for (const f of faces) {
-      const e = evaluateSurface(f, ambientC + rise, rise);
+      const e = surfaceFlux(f, ambientC + rise, rise);
       sum += (e.hConv + e.hRad) * faceAreaPerM;
     }
     return sum;
