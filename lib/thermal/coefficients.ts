@@ -25,39 +25,10 @@ export function interiorConductances(mesh: Mesh, out?: Float64Array): Float64Arr
   const n = mesh.cellCount;
   const g = out ?? new Float64Array(Math.max(n - 1, 0));
   for (let j = 0; j < n - 1; j++) {
-    if (mesh.conductivity[j] === mesh.conductivity[j + 1]) {
-      g[j] = 1 / sameMaterialResistance(mesh, j);
-    } else {
-      const face = mesh.faces[j + 1];
-      g[j] = 1 / (halfCellResistance(mesh, j, face) + halfCellResistance(mesh, j + 1, face));
-    }
+    const face = mesh.faces[j + 1];
+    g[j] = 1 / (halfCellResistance(mesh, j, face) + halfCellResistance(mesh, j + 1, face));
   }
   return g;
-}
-
-/**
- * Node j to node j + 1 in one material: the two half-cells are one slab or one shell,
- * ln(r_E/r_f) + ln(r_f/r_P) = ln(r_E/r_P) — one logarithm per face instead of two (they are most
- * of the cost of setting up a cylinder mesh). Equal to the series sum up to round-off.
- */
-function sameMaterialResistance(mesh: Mesh, j: number): number {
-  const k = mesh.conductivity[j];
-  if (mesh.kind === 'slab') return (mesh.nodes[j + 1] - mesh.nodes[j]) / k;
-  return logRatio(mesh.nodes[j + 1], mesh.nodes[j]) / (2 * Math.PI * k);
-}
-
-/**
- * ln(a/b) for positive a, b. Neighbouring nodes of a fine mesh are close, a/b = 1 + O(1/cells);
- * there ln(a/b) = 2·artanh(u) with u = (a − b)/(a + b), and for |u| < 0.01 the series
- * 2u(1 + u²/3 + u⁴/5 + u⁶/7 + u⁸/9) is exact to round-off (the next term is below 1e-21 of it)
- * at a fraction of the cost of Math.log — and no less accurate: a − b is exact there, where
- * Math.log(a/b) inherits the rounding of the quotient.
- */
-function logRatio(a: number, b: number): number {
-  const u = (a - b) / (a + b);
-  if (!(Math.abs(u) < 0.01)) return Math.log(a / b);
-  const u2 = u * u;
-  return 2 * u * (1 + u2 * (1 / 3 + u2 * (1 / 5 + u2 * (1 / 7 + u2 / 9))));
 }
 
 /** Conductance of the half-cell between the boundary node and the boundary face. */
