@@ -10,6 +10,7 @@ import { ProfilePlot } from '@/components/plots/ProfilePlot';
 import { HotSpotCurvePlot } from '@/components/plots/HotSpotCurvePlot';
 import { CandidateGrid, candidateRows } from '@/components/sheet/CandidateGrid';
 import { ChecksPanel } from '@/components/sheet/ChecksPanel';
+import { CheckFlagList } from '@/components/sheet/checkParts';
 import { FlagsPanel } from '@/components/sheet/FlagsPanel';
 import { ResultStrip } from '@/components/sheet/ResultStrip';
 import { useLiveComputation } from '@/components/sheet/useLiveComputation';
@@ -46,13 +47,7 @@ function OptionalChecks({ reports }: { reports: OptionalCheckReport[] }) {
           ) : (
             <>
               <p className="text-caption text-ink-500">{report.method}</p>
-              <ul className="mt-1 space-y-1 text-caption">
-                {report.flags.map((f) => (
-                  <li key={f.code} className={f.severity === 'blocker' ? 'text-over-dark' : f.severity === 'review' ? 'text-tight-dark' : 'text-ink-600'}>
-                    <span className="font-mono">{f.code}</span> ({f.severity}): {f.message}
-                  </li>
-                ))}
-              </ul>
+              <CheckFlagList flags={report.flags} testId="shared-optional-flags" />
             </>
           )}
         </div>

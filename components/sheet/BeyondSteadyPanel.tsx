@@ -12,40 +12,9 @@ import { Plot, PLOT_CONFIG, PLOT_LAYOUT_BASE } from '@/components/plots/Plot';
 import { computeBeyondSteady, profileFromRows, type BeyondSteadyResults } from '@/lib/sheet/beyondSteady';
 import type { SheetInputs } from '@/lib/sheet/schema';
 import { convertFromSi, formatNumber, unitLabel, type UnitSystem } from '@/lib/units';
-import type { AssumptionFlag } from '@/lib/electrical/sizing/flags';
+import { CheckFlagList, UnitNumberField } from './checkParts';
 
 const LIMIT_COLOUR = '#a8402b';
-
-function FlagList({ flags }: { flags: AssumptionFlag[] }) {
-  if (flags.length === 0) return <p className="text-caption text-ink-500">No flags from this check.</p>;
-  return (
-    <ul className="mt-1 space-y-1 text-caption" data-testid="beyond-flags">
-      {flags.map((f) => (
-        <li key={f.code} className={f.severity === 'blocker' ? 'text-over-dark' : f.severity === 'review' ? 'text-tight-dark' : 'text-ink-600'}>
-          <span className="font-mono">{f.code}</span> ({f.severity}): {f.message}
-        </li>
-      ))}
-    </ul>
-  );
-}
-
-function Num({ label, value, onChange, disabled, unit, testId }: { label: string; value: number; onChange: (v: number) => void; disabled: boolean; unit: string; testId: string }) {
-  return (
-    <label className="block">
-      <span className="field-label">
-        {label} ({unit})
-      </span>
-      <input
-        type="number"
-        className="field-input num"
-        data-testid={testId}
-        value={Number.isFinite(value) ? value : ''}
-        disabled={disabled}
-        onChange={(e) => onChange(e.target.value === '' ? NaN : Number(e.target.value))}
-      />
-    </label>
-  );
-}
 
 export function BeyondSteadyPanel({ form, editable, candidateId, units }: { form: UseFormReturnType<SheetInputs>; editable: boolean; candidateId: string | null; units: UnitSystem }) {
   const values = form.values;
@@ -56,6 +25,8 @@ export function BeyondSteadyPanel({ form, editable, candidateId, units }: { form
   const a = values.alongRun;
   const tUnit = unitLabel('temperature', units);
   const toT = (c: number) => convertFromSi(c, 'temperature', units);
+  const lUnit = unitLabel('lengthM', units);
+  const toL = (m: number) => convertFromSi(m, 'lengthM', units);
   const fmtT = (c: number) => `${formatNumber(toT(c), 4)} ${tUnit}`;
   const errorOf = (path: string) => form.errors[path] as string | undefined;
 
@@ -100,8 +71,8 @@ export function BeyondSteadyPanel({ form, editable, candidateId, units }: { form
           {t.checked ? (
             <>
               <div className="grid grid-cols-2 gap-2">
-                <Num label="Overload current" unit="A" testId="overload-current" value={t.overloadCurrentA} disabled={!editable} onChange={(v) => form.setFieldValue('overTime.overloadCurrentA', v)} />
-                <Num label="It must last" unit="min" testId="overload-minutes" value={t.overloadDurationS / 60} disabled={!editable} onChange={(v) => form.setFieldValue('overTime.overloadDurationS', v * 60)} />
+                <UnitNumberField label="Overload current" quantity={null} fixedUnit="A" units={units} testId="overload-current" siValue={t.overloadCurrentA} disabled={!editable} onChange={(v) => form.setFieldValue('overTime.overloadCurrentA', v)} />
+                <UnitNumberField label="It must last" quantity={null} fixedUnit="min" siPerShown={60} units={units} testId="overload-minutes" siValue={t.overloadDurationS} disabled={!editable} onChange={(v) => form.setFieldValue('overTime.overloadDurationS', v)} />
               </div>
               {errorOf('overTime.overloadCurrentA') ? <p className="field-error">{errorOf('overTime.overloadCurrentA')}</p> : null}
               {errorOf('overTime.overloadDurationS') ? <p className="field-error">{errorOf('overTime.overloadDurationS')}</p> : null}
@@ -147,7 +118,7 @@ export function BeyondSteadyPanel({ form, editable, candidateId, units }: { form
           </label>
           {a.checked ? (
             <>
-              <Num label="Run length" unit="m" testId="run-length" value={a.lengthM} disabled={!editable} onChange={(v) => form.setFieldValue('alongRun.lengthM', v)} />
+              <UnitNumberField label="Run length" quantity="lengthM" units={units} testId="run-length" siValue={a.lengthM} disabled={!editable} onChange={(v) => form.setFieldValue('alongRun.lengthM', v)} />
               {(['start', 'end'] as const).map((side) => (
                 <div key={side} className="grid grid-cols-2 gap-2">
                   <label className="block">
@@ -163,11 +134,12 @@ export function BeyondSteadyPanel({ form, editable, candidateId, units }: { form
                     </select>
                   </label>
                   {(side === 'start' ? a.startEnd : a.endEnd) === 'terminal' ? (
-                    <Num
+                    <UnitNumberField
                       label="Terminal temperature"
-                      unit="°C"
+                      quantity="temperature"
+                      units={units}
                       testId={`${side}-terminal`}
-                      value={side === 'start' ? a.startTemperatureC : a.endTemperatureC}
+                      siValue={side === 'start' ? a.startTemperatureC : a.endTemperatureC}
                       disabled={!editable}
                       onChange={(v) => form.setFieldValue(side === 'start' ? 'alongRun.startTemperatureC' : 'alongRun.endTemperatureC', v)}
                     />
@@ -178,7 +150,7 @@ export function BeyondSteadyPanel({ form, editable, candidateId, units }: { form
                 <span className="field-label">Bolted joints (resistance empty = 10 µΩ assumed and flagged)</span>
                 {a.joints.map((j, i) => (
                   <div key={i} className="mt-1 grid grid-cols-[1fr_1fr_auto] items-end gap-2">
-                    <Num label={`Joint ${i + 1} at`} unit="m" testId={`joint-${i}-position`} value={j.positionM} disabled={!editable} onChange={(v) => form.setFieldValue(`alongRun.joints.${i}.positionM`, v)} />
+                    <UnitNumberField label={`Joint ${i + 1} at`} quantity="lengthM" units={units} testId={`joint-${i}-position`} siValue={j.positionM} disabled={!editable} onChange={(v) => form.setFieldValue(`alongRun.joints.${i}.positionM`, v)} />
                     <label className="block">
                       <span className="field-label">Resistance (µΩ)</span>
                       <input
@@ -253,7 +225,7 @@ export function BeyondSteadyPanel({ form, editable, candidateId, units }: { form
                   </div>
                 ) : null}
               </dl>
-              <FlagList flags={overTime.result.flags} />
+              <CheckFlagList flags={overTime.result.flags} testId="beyond-flags" />
               <Plot
                 data={[
                   ...(overTime.result.overload
@@ -287,17 +259,17 @@ export function BeyondSteadyPanel({ form, editable, candidateId, units }: { form
                 <div className="flex justify-between border-b border-ink-50 py-1">
                   <dt>Hot spot along the run</dt>
                   <dd className="num">
-                    {fmtT(alongRun.result.hotSpot.temperatureC)} at {formatNumber(alongRun.result.hotSpot.positionM, 3)} m of {fmtT(alongRun.result.limitC)}{' '}
+                    {fmtT(alongRun.result.hotSpot.temperatureC)} at {formatNumber(toL(alongRun.result.hotSpot.positionM), 3)} {lUnit} of {fmtT(alongRun.result.limitC)}{' '}
                     {alongRun.result.passes ? <span className="text-within-dark">✔ passes</span> : <span className="font-semibold text-over-dark">✖ fails</span>}
                   </dd>
                 </div>
               </dl>
-              <FlagList flags={alongRun.result.flags} />
+              <CheckFlagList flags={alongRun.result.flags} testId="beyond-flags" />
               <Plot
                 data={[
-                  { x: alongRun.result.positionsM, y: alongRun.result.temperaturesC.map(toT), type: 'scatter', mode: 'lines', name: 'bar', line: { color: '#b8703d' } },
+                  { x: alongRun.result.positionsM.map(toL), y: alongRun.result.temperaturesC.map(toT), type: 'scatter', mode: 'lines', name: 'bar', line: { color: '#b8703d' } },
                   {
-                    x: alongRun.result.joints.map((j) => j.positionM),
+                    x: alongRun.result.joints.map((j) => toL(j.positionM)),
                     y: alongRun.result.joints.map((j) => toT(j.temperatureC)),
                     type: 'scatter',
                     mode: 'markers',
@@ -309,7 +281,7 @@ export function BeyondSteadyPanel({ form, editable, candidateId, units }: { form
                   ...PLOT_LAYOUT_BASE,
                   title: { text: 'Temperature along the run' },
                   height: 280,
-                  xaxis: { ...PLOT_LAYOUT_BASE.xaxis, title: { text: 'position (m)' } },
+                  xaxis: { ...PLOT_LAYOUT_BASE.xaxis, title: { text: `position (${lUnit})` } },
                   yaxis: { ...PLOT_LAYOUT_BASE.yaxis, title: { text: `temperature (${tUnit})` } },
                   shapes: [{ type: 'line', xref: 'paper', x0: 0, x1: 1, y0: toT(alongRun.result.limitC), y1: toT(alongRun.result.limitC), line: { color: LIMIT_COLOUR, dash: 'dash', width: 1.5 } }],
                 }}

@@ -5,15 +5,15 @@
  * candidate in focus in that air (physics.md §6). Inputs are part of the sheet inputs; results are
  * computed on request because the air and the conductor are solved together (a few steady solves).
  */
-import { useEffect, useId, useState } from 'react';
+import { useState } from 'react';
 import type { UseFormReturnType } from '@mantine/form';
 import { Plot, PLOT_CONFIG, PLOT_LAYOUT_BASE } from '@/components/plots/Plot';
 import type { EnclosureAirCheckResult } from '@/lib/electrical/sizing/enclosureAir';
-import type { AssumptionFlag } from '@/lib/electrical/sizing/flags';
 import type { CheckOutcome } from '@/lib/sheet/beyondSteady';
 import { computeEnclosureAir } from '@/lib/sheet/enclosureAir';
 import { DEFAULT_SOURCES, enclosureWalls, type SheetInputs } from '@/lib/sheet/schema';
-import { convertFromSi, convertToSi, formatNumber, unitLabel, type Quantity, type UnitSystem } from '@/lib/units';
+import { convertFromSi, formatNumber, unitLabel, type UnitSystem } from '@/lib/units';
+import { CheckFlagList, UnitNumberField } from './checkParts';
 
 const WALL_LABELS: Record<(typeof enclosureWalls)[number], string> = {
   'painted-steel': 'painted sheet steel (k 5.5)',
@@ -23,86 +23,6 @@ const WALL_LABELS: Record<(typeof enclosureWalls)[number], string> = {
 };
 
 type Field = 'heightM' | 'widthM' | 'depthM' | 'outsideAirC' | 'routeLengthInsideM' | 'otherLossesW';
-
-/** A number field shown in the user's units; the text is kept while typing so "1." is not rewritten. */
-function UnitNumber({
-  label,
-  siValue,
-  quantity,
-  fixedUnit,
-  units,
-  disabled,
-  error,
-  testId,
-  help,
-  onChange,
-}: {
-  label: string;
-  siValue: number;
-  quantity: Quantity | null;
-  fixedUnit?: string;
-  units: UnitSystem;
-  disabled: boolean;
-  error?: string;
-  testId: string;
-  help?: string;
-  onChange: (siValue: number) => void;
-}) {
-  const id = useId();
-  const shown = (v: number) => (Number.isFinite(v) ? formatNumber(quantity ? convertFromSi(v, quantity, units) : v, 5) : '');
-  const [text, setText] = useState(shown(siValue));
-  const [focused, setFocused] = useState(false);
-  useEffect(() => {
-    if (!focused) setText(shown(siValue));
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [siValue, units, focused]);
-  return (
-    <div>
-      <label htmlFor={id} className="field-label">
-        {label} ({quantity ? unitLabel(quantity, units) : fixedUnit})
-      </label>
-      <input
-        id={id}
-        type="number"
-        step="any"
-        className="field-input num"
-        data-testid={testId}
-        value={text}
-        disabled={disabled}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={error || help ? `${id}-note` : undefined}
-        onFocus={() => setFocused(true)}
-        onBlur={() => setFocused(false)}
-        onChange={(e) => {
-          setText(e.target.value);
-          const n = e.target.value === '' ? NaN : Number(e.target.value);
-          onChange(quantity && Number.isFinite(n) ? convertToSi(n, quantity, units) : n);
-        }}
-      />
-      {error ? (
-        <p id={`${id}-note`} className="field-error">
-          {error}
-        </p>
-      ) : help ? (
-        <p id={`${id}-note`} className="text-caption text-ink-500">
-          {help}
-        </p>
-      ) : null}
-    </div>
-  );
-}
-
-function Flags({ flags }: { flags: AssumptionFlag[] }) {
-  return (
-    <ul className="mt-1 space-y-1 text-caption" data-testid="enclosure-flags">
-      {flags.map((f) => (
-        <li key={f.code} className={f.severity === 'blocker' ? 'text-over-dark' : f.severity === 'review' ? 'text-tight-dark' : 'text-ink-600'}>
-          <span className="font-mono">{f.code}</span> ({f.severity}): {f.message}
-        </li>
-      ))}
-    </ul>
-  );
-}
 
 function TemperatureLadder({ result, units }: { result: EnclosureAirCheckResult; units: UnitSystem }) {
   const t = (c: number) => convertFromSi(c, 'temperature', units);
@@ -189,10 +109,10 @@ export function EnclosureAirPanel({ form, editable, candidateId, units }: { form
         <fieldset className="mt-2 space-y-2">
           <legend className="sr-only">Enclosure inputs</legend>
           <div className="grid grid-cols-2 gap-2 md:grid-cols-3">
-            <UnitNumber label="Height" quantity="lengthM" units={units} siValue={e.heightM} disabled={!editable} error={errorOf('heightM')} testId="enclosure-height" onChange={set('heightM')} />
-            <UnitNumber label="Width" quantity="lengthM" units={units} siValue={e.widthM} disabled={!editable} error={errorOf('widthM')} testId="enclosure-width" onChange={set('widthM')} />
-            <UnitNumber label="Depth" quantity="lengthM" units={units} siValue={e.depthM} disabled={!editable} error={errorOf('depthM')} testId="enclosure-depth" onChange={set('depthM')} />
-            <UnitNumber
+            <UnitNumberField label="Height" quantity="lengthM" units={units} siValue={e.heightM} disabled={!editable} error={errorOf('heightM')} testId="enclosure-height" onChange={set('heightM')} />
+            <UnitNumberField label="Width" quantity="lengthM" units={units} siValue={e.widthM} disabled={!editable} error={errorOf('widthM')} testId="enclosure-width" onChange={set('widthM')} />
+            <UnitNumberField label="Depth" quantity="lengthM" units={units} siValue={e.depthM} disabled={!editable} error={errorOf('depthM')} testId="enclosure-depth" onChange={set('depthM')} />
+            <UnitNumberField
               label="Air around it"
               quantity="temperature"
               units={units}
@@ -203,7 +123,7 @@ export function EnclosureAirPanel({ form, editable, candidateId, units }: { form
               testId="enclosure-outside-air"
               onChange={set('outsideAirC')}
             />
-            <UnitNumber
+            <UnitNumberField
               label="Route length inside"
               quantity="lengthM"
               units={units}
@@ -213,7 +133,7 @@ export function EnclosureAirPanel({ form, editable, candidateId, units }: { form
               testId="enclosure-route-inside"
               onChange={set('routeLengthInsideM')}
             />
-            <UnitNumber
+            <UnitNumberField
               label="Other losses inside"
               quantity={null}
               fixedUnit="W"
@@ -297,7 +217,7 @@ export function EnclosureAirPanel({ form, editable, candidateId, units }: { form
                   </dd>
                 </div>
               </dl>
-              <Flags flags={result.result.flags} />
+              <CheckFlagList flags={result.result.flags} testId="enclosure-flags" />
               <p className="mt-1 text-caption text-ink-500">Method: {result.result.method}.</p>
             </div>
             <TemperatureLadder result={result.result} units={units} />
