@@ -81,6 +81,14 @@ describe('inside the enclosure on the sheet', () => {
     await panel.getByTestId('enclosure-other-losses').fill('450');
     await panel.getByTestId('enclosure-sides').selectOption('1');
     await screenshot(page, 'enclosure-01-inputs');
+    // The other optional checks follow the same switch: the run's length in ft, terminals in °F.
+    const beyond = page.getByTestId('beyond-steady');
+    await beyond.getByTestId('along-run-checked').check();
+    await expect.poll(() => beyond.textContent(), { timeout: 30_000 }).toContain('Run length (ft)');
+    await expect(beyond.textContent()).resolves.toContain('Terminal temperature (°F)');
+    // 70 °C stored is shown as 158 °F.
+    await expect(beyond.getByTestId('start-terminal').inputValue()).resolves.toBe('158');
+    await beyond.getByTestId('along-run-checked').uncheck();
     await panel.getByTestId('run-enclosure').click();
     const result = panel.getByTestId('enclosure-result');
     await result.waitFor({ timeout: 60_000 });
