@@ -5,11 +5,10 @@
  * that runs them (they take a second or two, so they do not run on every keystroke), the
  * results with their own flags, and the plots.
  */
-import Papa from 'papaparse';
 import { useState } from 'react';
 import type { UseFormReturnType } from '@mantine/form';
 import { Plot, PLOT_CONFIG, PLOT_LAYOUT_BASE } from '@/components/plots/Plot';
-import { computeBeyondSteady, profileFromRows, type BeyondSteadyResults } from '@/lib/sheet/beyondSteady';
+import { computeBeyondSteady, readDailyProfileText, type BeyondSteadyResults } from '@/lib/sheet/beyondSteady';
 import type { SheetInputs } from '@/lib/sheet/schema';
 import { convertFromSi, formatNumber, unitLabel, type UnitSystem } from '@/lib/units';
 import { CheckFlagList, UnitNumberField } from './checkParts';
@@ -44,8 +43,7 @@ export function BeyondSteadyPanel({ form, editable, candidateId, units }: { form
   };
 
   const readProfile = (text: string) => {
-    const parsed = Papa.parse<unknown[]>(text.trim(), { skipEmptyLines: true });
-    const read = profileFromRows(parsed.data);
+    const read = readDailyProfileText(text);
     if ('error' in read) {
       setProfileError(read.error);
       return;

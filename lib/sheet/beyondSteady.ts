@@ -3,6 +3,7 @@
  * for one candidate with lib/electrical (physics.md §6). Same function in the browser and for
  * the PDF.
  */
+import Papa from 'papaparse';
 import { alongRunCheck, overTimeCheck, type AlongRunResult, type OverTimeResult } from '../electrical/sizing/beyondSteady';
 import type { SheetInputs } from './schema';
 import { toCandidates, toConditions } from './toSizing';
@@ -77,14 +78,17 @@ export function computeBeyondSteady(inputs: SheetInputs, candidateId: string): B
 export function profileFromRows(rows: unknown[][]): { currentsA: number[] } | { error: string } {
   const values: number[] = [];
   const leading: { row: number; first: string; last: string }[] = [];
+  let seenRow = false;
   for (let r = 0; r < rows.length; r++) {
     const cells = rows[r].map((c) => String(c ?? '').trim()).filter((c) => c !== '');
     if (cells.length === 0) continue;
+    const firstRow = !seenRow;
+    seenRow = true;
     // The current is the last cell of a row ("hour, current" or just "current").
     const text = cells[cells.length - 1].replace(',', '.');
     const value = Number(text);
     if (!Number.isFinite(value)) {
-      if (values.length === 0 && r === 0) continue; // header
+      if (firstRow) continue; // header
       return { error: `Row ${r + 1}: "${cells[cells.length - 1]}" is not a current in A` };
     }
     if (value < 0) return { error: `Row ${r + 1}: a current must not be negative` };
@@ -102,4 +106,13 @@ export function profileFromRows(rows: unknown[][]): { currentsA: number[] } | { 
     }
   }
   return { currentsA: values };
+}
+
+/**
+ * Reads a pasted or uploaded daily-profile file (CSV, delimiter detected) with profileFromRows.
+ * Blank lines are kept while parsing so that "Row N" in a message is line N of the file.
+ */
+export function readDailyProfileText(text: string): { currentsA: number[] } | { error: string } {
+  const parsed = Papa.parse<unknown[]>(text, { skipEmptyLines: false });
+  return profileFromRows(parsed.data);
 }

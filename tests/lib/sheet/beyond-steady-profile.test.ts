@@ -1,6 +1,6 @@
 /**
  * The daily-load CSV of the "Over time" check, read as the sheet panel reads it
- * (components/sheet/BeyondSteadyPanel.tsx: papaparse with skipEmptyLines, then profileFromRows).
+ * (lib/sheet/beyondSteady.ts readDailyProfileText: papaparse keeping blank lines, then profileFromRows).
  * What profileFromRows documents: one current per row, the last cell of a row ("hour, current"
  * or just "current"); a non-numeric first row is a header and is skipped; a non-numeric or
  * negative current anywhere else is an error naming the row; a first column of numbers that do not
@@ -10,16 +10,11 @@
  *
  * The check values are the CSV texts themselves: what is written in the file must come back.
  */
-import Papa from 'papaparse';
 import { describe, expect, it } from 'vitest';
-import { profileFromRows } from '@/lib/sheet/beyondSteady';
+import { readDailyProfileText } from '@/lib/sheet/beyondSteady';
 import { DAILY_PROFILE_LENGTHS, overTimeSchema } from '@/lib/sheet/schema';
 
-/** As the panel: trim, parse (delimiter detected), skip empty lines. */
-function readCsv(text: string) {
-  const parsed = Papa.parse<unknown[]>(text.trim(), { skipEmptyLines: true });
-  return profileFromRows(parsed.data);
-}
+const readCsv = readDailyProfileText;
 
 /** An invented office-like day, A per hour from midnight (input only). */
 const hourlyA = Array.from({ length: 24 }, (_, hour) => (hour >= 8 && hour < 18 ? 420 + 5 * hour : 150 + hour));
@@ -95,5 +90,10 @@ describe('daily profile CSV (profileFromRows after papaparse)', () => {
     // Quarter-hourly (96) is one of the allowed finer profiles.
     const quarterHourly = Array.from({ length: 96 }, (_, i) => hourlyA[Math.floor(i / 4)]);
     expect(overTimeSchema.safeParse(overTimeWith(quarterHourly)).success).toBe(true);
+  });
+
+  it('names the line of the file in "Row N", blank lines included, and takes a header after leading blank lines', () => {
+    const csv = ['', 'current_A', '100', '', '', '120', 'n/a'].join('\n');
+    expect(readCsv(csv)).toEqual({ error: 'Row 7: "n/a" is not a current in A' });
   });
 });
