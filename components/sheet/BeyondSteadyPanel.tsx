@@ -25,6 +25,7 @@ export function BeyondSteadyPanel({ form, editable, candidateId, units }: { form
   const tUnit = unitLabel('temperature', units);
   const toT = (c: number) => convertFromSi(c, 'temperature', units);
   const lUnit = unitLabel('lengthM', units);
+  const focusedIsBar = values.candidates.find((c) => c.id === candidateId)?.kind === 'bar';
   const toL = (m: number) => convertFromSi(m, 'lengthM', units);
   const fmtT = (c: number) => `${formatNumber(toT(c), 4)} ${tUnit}`;
   const errorOf = (path: string) => form.errors[path] as string | undefined;
@@ -102,7 +103,7 @@ export function BeyondSteadyPanel({ form, editable, candidateId, units }: { form
               <p className="text-caption text-ink-500">{t.dailyProfileA.length > 0 ? `${t.dailyProfileA.length} values entered.` : 'No daily load: that part is not checked.'}</p>
               <label className="flex items-center gap-2">
                 <input type="checkbox" checked={t.faultWithCoverings} disabled={!editable} onChange={(e) => form.setFieldValue('overTime.faultWithCoverings', e.target.checked)} />
-                Fault with heat flowing into the coverings (beside the adiabatic figure)
+                Fault with heat flowing out of the conductor into {focusedIsBar ? 'the surroundings' : 'its coverings'} (beside the adiabatic figure)
               </label>
             </>
           ) : null}

@@ -119,7 +119,7 @@ export const FLAG_REGISTRY: Readonly<Record<FlagCode, Readonly<FlagDefinition>>>
   DAILY_PEAK_OVER_LIMIT: { severity: 'blocker', title: 'Daily load cycle peaks above the limit', basis: 'physics.md §6 (daily profile repeated to a periodic state)' },
   DAILY_CYCLE_NOT_PERIODIC: { severity: 'review', title: 'Daily cycle had not settled', basis: 'physics.md §6 (successive daily peaks within 0.01 K)' },
   HEAT_CAPACITY_ASSUMED: { severity: 'review', title: 'Heat capacities assumed for the run over time', basis: 'IEC 60949 σ of the metal; polymer coverings from memory; soil stores no heat' },
-  FAULT_HEAT_INTO_COVERINGS: { severity: 'note', title: 'Fault with heat into the coverings shown beside the adiabatic figure', basis: 'physics.md §6; IEC 60949 adiabatic method governs the verdict' },
+  FAULT_HEAT_INTO_COVERINGS: { severity: 'note', title: 'Fault with heat flowing out of the conductor, beside the adiabatic figure', basis: 'physics.md §6; IEC 60949 adiabatic method governs the verdict' },
   RUN_HOT_SPOT_OVER_LIMIT: { severity: 'blocker', title: 'Hot spot along the run above the limit', basis: 'physics.md §6 (conduction along the bar, joints as point heat)' },
   JOINT_RESISTANCE_ASSUMED: { severity: 'review', title: 'Joint resistance assumed', basis: 'Common practice: a pessimistic figure for an unmeasured bolted joint' },
   ENCLOSURE_AIR_ESTIMATED: { severity: 'review', title: 'Enclosure air temperature estimated', basis: 'physics.md §6; wall heat transfer with IEC TR 60890 surface factors (common practice, from memory); verify by IEC 61439-1' },
