@@ -12,6 +12,8 @@ import { computeEnclosureAir } from './enclosureAir';
 import type { SheetInputs } from './schema';
 
 export interface OptionalCheckReport {
+  /** Which check: 'Over time', 'Along the run', 'Inside the enclosure'. */
+  check: string;
   heading: string;
   /** Result sentences; empty when the check could not be computed. */
   lines: string[];
@@ -61,6 +63,7 @@ export function optionalChecksReport(inputs: SheetInputs): OptionalCheckReport[]
   if (beyond?.overTime) {
     const t = beyond.overTime;
     reports.push({
+      check: 'Over time',
       heading: 'Over time (chosen candidate)',
       lines: t.ok ? overTimeLines(inputs, t.result) : [],
       method: 'Implicit-Euler heat balance on the same finite-volume model as the steady result (physics.md §6).',
@@ -72,6 +75,7 @@ export function optionalChecksReport(inputs: SheetInputs): OptionalCheckReport[]
   if (beyond?.alongRun) {
     const a = beyond.alongRun;
     reports.push({
+      check: 'Along the run',
       heading: 'Along the run (chosen candidate)',
       lines: a.ok
         ? [
@@ -93,6 +97,7 @@ export function optionalChecksReport(inputs: SheetInputs): OptionalCheckReport[]
     const described = `Closed enclosure ${formatNumber(e.heightM, 4)} × ${formatNumber(e.widthM, 4)} × ${formatNumber(e.depthM, 4)} m (H × W × D), ${e.wall.replace('-', ' ')} walls, back ${e.backCovered ? 'against a wall' : 'free'}, sides covered: ${SIDES[e.sidesCovered]}, roof ${e.topCovered ? 'covered' : 'free'}; air around it ${c(e.outsideAirC)}; ${formatNumber(e.routeLengthInsideM, 4)} m of the route inside.`;
     const r = enclosure.ok ? enclosure.result : null;
     reports.push({
+      check: 'Inside the enclosure',
       heading: 'Inside the enclosure (chosen candidate)',
       lines: r
         ? [

@@ -6,9 +6,8 @@
 import type { AssumptionFlag } from '../electrical/sizing/flags';
 import type { CandidateEvaluation, CandidateEvaluationOk } from '../electrical/sizing/types';
 import { SOLVER_VERSION } from '../electrical/version';
-import { computeBeyondSteady } from './beyondSteady';
 import { computeSheet } from './compute';
-import { computeEnclosureAir } from './enclosureAir';
+import { optionalChecksReport } from './optionalChecksReport';
 import type { SheetInputs } from './schema';
 import type { ApprovalReadiness } from './stateMachine';
 
@@ -36,22 +35,13 @@ export interface ResultSnapshot {
   optionalCheckFailures?: { check: string; message: string }[];
 }
 
-/** Flags and failures of the optional checks switched on for one candidate, from the saved inputs. */
-export function optionalCheckOutcome(inputs: SheetInputs, candidateId: string): { flags: AssumptionFlag[]; failures: { check: string; message: string }[] } {
-  const flags: AssumptionFlag[] = [];
-  const failures: { check: string; message: string }[] = [];
-  const beyond = inputs.overTime.checked || inputs.alongRun.checked ? computeBeyondSteady(inputs, candidateId) : null;
-  const outcomes = [
-    ['Over time', beyond?.overTime],
-    ['Along the run', beyond?.alongRun],
-    ['Inside the enclosure', computeEnclosureAir(inputs, candidateId) ?? undefined],
-  ] as const;
-  for (const [check, outcome] of outcomes) {
-    if (!outcome) continue;
-    if (outcome.ok) flags.push(...outcome.result.flags);
-    else failures.push({ check, message: outcome.message });
-  }
-  return { flags, failures };
+/** Flags and failures of the optional checks switched on for the chosen candidate, from the saved inputs. */
+export function optionalCheckOutcome(inputs: SheetInputs): { flags: AssumptionFlag[]; failures: { check: string; message: string }[] } {
+  const reports = optionalChecksReport(inputs);
+  return {
+    flags: reports.flatMap((r) => r.flags),
+    failures: reports.filter((r) => r.notComputed !== undefined).map((r) => ({ check: r.check, message: r.notComputed! })),
+  };
 }
 
 /** The stored size matters (one row per sheet): the ampacity search's profile duplicates the design one in shape, so it is dropped. */
@@ -66,7 +56,7 @@ export function buildSnapshot(inputs: SheetInputs, now = new Date()): ResultSnap
   const evaluations = computation.ok ? computation.comparison.evaluations.map(slim) : [];
   const idAt = (index: number | null) => (index === null ? null : (evaluations[index]?.id ?? null));
   const chosen = evaluations.find((e) => e.id === inputs.chosenCandidateId) ?? null;
-  const optional = chosen && chosen.ok ? optionalCheckOutcome(inputs, chosen.id) : { flags: [], failures: [] };
+  const optional = chosen && chosen.ok ? optionalCheckOutcome(inputs) : { flags: [], failures: [] };
   const chosenFlags = chosen && chosen.ok ? [...chosen.flags, ...optional.flags.filter((f) => !chosen.flags.some((c) => c.code === f.code))] : [];
   return {
     snapshotVersion: SNAPSHOT_VERSION,
