@@ -110,7 +110,14 @@ describe('random valid problems', () => {
           // Something heats the body unless it is a Joule source at 0 A with no sun and no flux in.
           const absorbed = [problem.inner, problem.outer].some((b) => b.kind === 'surface' && (b.absorbedFlux ?? 0) > 0);
           const heats = problem.source.kind === 'uniform' || problem.source.current > 0 || absorbed || problem.inner.kind === 'flux';
-          if (heats) expect(r.hotSpot.temperature).toBeGreaterThan(ambient);
+          if (heats) {
+            expect(r.hotSpot.temperature).toBeGreaterThanOrEqual(ambient);
+            // A rise can only fail to show when it is below a double's resolution at this
+            // temperature (ulp ≈ 7e-15 K at 50 °C): a Joule source of next to nothing and no other heat in.
+            const generated = r.heatGeneratedWPerM2 ?? r.heatGeneratedWPerM ?? 0;
+            const onlyJoule = problem.source.kind === 'joule' && !absorbed && problem.inner.kind !== 'flux';
+            if (r.hotSpot.temperature === ambient) expect(onlyJoule && generated < 1e-9).toBe(true);
+          }
           else expect(Math.abs(r.hotSpot.temperature - ambient)).toBeLessThan(1e-9);
           expect(r.runaway).toBeUndefined();
         } else {
