@@ -10,7 +10,8 @@
  */
 export type FlagSeverity = 'note' | 'review' | 'blocker';
 
-export const FLAG_CODES = [
+/** Codes the steady evaluation (evaluateCandidate) raises. */
+const STEADY_FLAG_CODES = [
   'AMBIENT_ASSUMED',
   'GROUPING_DERATING_ENTERED',
   'ENCLOSURE_DERATING_ENTERED',
@@ -44,19 +45,7 @@ export const FLAG_CODES = [
   'BAR_REACTANCE_ASSUMED',
   'CROSS_CHECK_DIFFERENCE',
   'SHEATH_LOSSES_NOT_INCLUDED',
-  'OVERLOAD_LIMIT_REACHED',
-  'DAILY_PEAK_OVER_LIMIT',
-  'DAILY_CYCLE_NOT_PERIODIC',
-  'HEAT_CAPACITY_ASSUMED',
-  'FAULT_HEAT_INTO_COVERINGS',
-  'RUN_HOT_SPOT_OVER_LIMIT',
-  'JOINT_RESISTANCE_ASSUMED',
-  'ENCLOSURE_AIR_ESTIMATED',
-  'ENCLOSURE_AIR_ABOVE_AMBIENT',
-  'ENCLOSURE_HOT_SPOT_OVER_LIMIT',
 ] as const;
-
-export type FlagCode = (typeof FLAG_CODES)[number];
 
 /** Codes raised only by the optional checks beyond the steady state (sizing/beyondSteady.ts, sizing/enclosureAir.ts), never by evaluateCandidate. */
 export const BEYOND_STEADY_FLAG_CODES = [
@@ -70,7 +59,11 @@ export const BEYOND_STEADY_FLAG_CODES = [
   'ENCLOSURE_AIR_ESTIMATED',
   'ENCLOSURE_AIR_ABOVE_AMBIENT',
   'ENCLOSURE_HOT_SPOT_OVER_LIMIT',
-] as const satisfies readonly FlagCode[];
+] as const;
+
+export const FLAG_CODES = [...STEADY_FLAG_CODES, ...BEYOND_STEADY_FLAG_CODES] as const;
+
+export type FlagCode = (typeof FLAG_CODES)[number];
 export type BeyondSteadyFlagCode = (typeof BEYOND_STEADY_FLAG_CODES)[number];
 
 export interface FlagDefinition {
