@@ -12,8 +12,9 @@ import { getSheet } from '@/db/queries/sheets';
 import { copyStandardCatalogueToTeam } from '@/db/seed/catalogue';
 import { computeBeyondSteady } from '@/lib/sheet/beyondSteady';
 import { formatNumber } from '@/lib/units';
-import { appUrl, launchBrowser, screenshot } from '../helpers/browser';
-import { createTestTeam, createTestUser, TEST_PASSWORD } from '../helpers/fixtures';
+import { addCatalogueCopperBar, createSheetFromProject, signInInBrowser } from './sheet-steps';
+import { launchBrowser, screenshot } from '../helpers/browser';
+import { createTestTeam, createTestUser } from '../helpers/fixtures';
 
 let browser: Browser;
 let teamId: string;
@@ -40,16 +41,7 @@ afterAll(async () => {
   await closeDb();
 });
 
-async function signIn(email: string): Promise<Page> {
-  const context = await browser.newContext({ viewport: { width: 1440, height: 900 } });
-  const page = await context.newPage();
-  await page.goto(appUrl('/sign-in'));
-  await page.fill('#email', email);
-  await page.fill('#password', TEST_PASSWORD);
-  await page.click('button[type=submit]');
-  await page.waitForURL(/\/projects/);
-  return page;
-}
+const signIn = (email: string): Promise<Page> => signInInBrowser(browser, email);
 
 const csvFile = (name: string, text: string) => ({ name, mimeType: 'text/csv', buffer: Buffer.from(text, 'utf8') });
 
@@ -57,13 +49,7 @@ describe('over time on the sheet', () => {
   it('a designer switches the checks on, uploads a daily load, computes, sees results, flags and plot; a bad file is refused; the inputs survive save and reload', async () => {
     const page = await signIn(designerEmail);
     // A new cable sheet with one catalogue candidate, made through the screens (as sheet-workflow does).
-    await page.goto(appUrl(`/projects/${projectId}`));
-    await page.fill('#sheet-tag', 'BT-OT1');
-    await page.fill('#sheet-title', 'Browser test feeder over time');
-    await page.selectOption('#sheet-installation', 'cable-in-air');
-    await page.click('button:has-text("Create sheet")');
-    await page.waitForURL(/\/sheets\/[0-9a-f-]{36}$/);
-    const sheetId = page.url().split('/').pop()!;
+    const sheetId = await createSheetFromProject(page, projectId, { tag: 'BT-OT1', title: 'Browser test feeder over time', installation: 'cable-in-air' });
     await page.getByTestId('input-design-current').fill('250');
     await page.getByTestId('no-candidates').getByTestId('add-candidates').click();
     await page.getByTestId('candidate-picker').waitFor();
@@ -151,22 +137,9 @@ describe('over time on the sheet', () => {
 
   it('along the run: a bar sheet with a joint whose resistance is left empty shows the hot spot and where, the assumed-joint flag and the profile along the run', async () => {
     const page = await signIn(designerEmail);
-    await page.goto(appUrl(`/projects/${projectId}`));
-    await page.fill('#sheet-tag', 'BT-RUN1');
-    await page.fill('#sheet-title', 'Browser test busway along the run');
-    await page.selectOption('#sheet-installation', 'bar-on-edge');
-    await page.click('button:has-text("Create sheet")');
-    await page.waitForURL(/\/sheets\/[0-9a-f-]{36}$/);
-    const sheetId = page.url().split('/').pop()!;
+    const sheetId = await createSheetFromProject(page, projectId, { tag: 'BT-RUN1', title: 'Browser test busway along the run', installation: 'bar-on-edge' });
     await page.getByTestId('input-design-current').fill('1200');
-    await page.getByTestId('no-candidates').getByTestId('add-candidates').click();
-    const picker = page.getByTestId('candidate-picker');
-    await picker.waitFor();
-    await picker.locator('#pick-kind').selectOption('bar');
-    await picker.locator('#pick-material').selectOption('copper');
-    await page.getByTestId('picker-search').fill('100 × 10');
-    await picker.getByRole('button', { name: 'Add 1 × 100 × 10 mm Copper bar', exact: true }).click();
-    await expect.poll(() => page.getByTestId('candidate-grid').innerText(), { timeout: 30_000 }).toContain('100 × 10 mm Copper bar');
+    await addCatalogueCopperBar(page, '100 × 10');
 
     const panel = page.getByTestId('beyond-steady');
     await panel.getByTestId('along-run-checked').check();

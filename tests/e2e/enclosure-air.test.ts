@@ -13,8 +13,9 @@ import { CAUTION_TEXT } from '@/components/shell/CautionNotice';
 import { copyStandardCatalogueToTeam } from '@/db/seed/catalogue';
 import { computeEnclosureAir } from '@/lib/sheet/enclosureAir';
 import { celsiusToFahrenheit, feetToMetres, formatNumber } from '@/lib/units';
+import { addCatalogueCopperBar, createSheetFromProject, signInInBrowser } from './sheet-steps';
 import { appUrl, launchBrowser, screenshot } from '../helpers/browser';
-import { createTestTeam, createTestUser, TEST_PASSWORD } from '../helpers/fixtures';
+import { createTestTeam, createTestUser } from '../helpers/fixtures';
 
 let browser: Browser;
 let teamId: string;
@@ -40,30 +41,11 @@ afterAll(async () => {
 
 describe('inside the enclosure on the sheet', () => {
   it('a designer in imperial units enters the enclosure in feet, computes, and sees the air inside, the hot spot, the flags and the plot', async () => {
-    const context = await browser.newContext({ viewport: { width: 1440, height: 900 } });
-    const page = await context.newPage();
-    await page.goto(appUrl('/sign-in'));
-    await page.fill('#email', designerEmail);
-    await page.fill('#password', TEST_PASSWORD);
-    await page.click('button[type=submit]');
-    await page.waitForURL(/\/projects/);
-
-    await page.goto(appUrl(`/projects/${projectId}`));
-    await page.fill('#sheet-tag', 'BT-ENC1');
-    await page.fill('#sheet-title', 'Browser test panel board riser');
-    await page.selectOption('#sheet-installation', 'bar-on-edge');
-    await page.click('button:has-text("Create sheet")');
-    await page.waitForURL(/\/sheets\/[0-9a-f-]{36}$/);
-    const sheetId = page.url().split('/').pop()!;
+    const page = await signInInBrowser(browser, designerEmail);
+    const context = page.context();
+    const sheetId = await createSheetFromProject(page, projectId, { tag: 'BT-ENC1', title: 'Browser test panel board riser', installation: 'bar-on-edge' });
     await page.getByTestId('input-design-current').fill('1000');
-    await page.getByTestId('no-candidates').getByTestId('add-candidates').click();
-    const picker = page.getByTestId('candidate-picker');
-    await picker.waitFor();
-    await picker.locator('#pick-kind').selectOption('bar');
-    await picker.locator('#pick-material').selectOption('copper');
-    await page.getByTestId('picker-search').fill('60 × 10');
-    await picker.getByRole('button', { name: 'Add 1 × 60 × 10 mm Copper bar', exact: true }).click();
-    await expect.poll(() => page.getByTestId('candidate-grid').innerText(), { timeout: 30_000 }).toContain('60 × 10 mm Copper bar');
+    await addCatalogueCopperBar(page, '60 × 10');
 
     const panel = page.getByTestId('enclosure-air');
     await panel.waitFor({ timeout: 30_000 });

@@ -16,6 +16,7 @@ import { extractText, getDocumentProxy } from 'unpdf';
 import { closeDb } from '@/db/client';
 import { createShare } from '@/db/queries/shares';
 import { CAUTION_TEXT } from '@/components/shell/CautionNotice';
+import { signInInBrowser } from './sheet-steps';
 import { appUrl, launchBrowser, screenshot } from '../helpers/browser';
 import { createTestTeam, createTestUser, TEST_PASSWORD } from '../helpers/fixtures';
 import { makeSharedSheet } from '../integration/share/shareFixtures';
@@ -218,13 +219,8 @@ describe('candidate exports over HTTP', () => {
 
 describe('in Chromium', () => {
   it('the designer makes a link in the share panel; a stranger opens it and sees the sheet read-only with its plots', async () => {
-    const context = await browser.newContext({ viewport: { width: 1440, height: 900 } });
-    const page = await context.newPage();
-    await page.goto(appUrl('/sign-in'));
-    await page.fill('#email', designerEmail);
-    await page.fill('#password', TEST_PASSWORD);
-    await page.click('button[type=submit]');
-    await page.waitForURL(/\/projects/);
+    const page = await signInInBrowser(browser, designerEmail);
+    const context = page.context();
     await page.goto(appUrl(`/sheets/${sheetA.sheetId}`));
     await page.getByTestId('share-panel').waitFor();
     await page.getByTestId('make-link').click();

@@ -8,8 +8,9 @@ import type { Browser, Page } from 'playwright-core';
 import { closeDb } from '@/db/client';
 import { createProject } from '@/db/queries/projects';
 import { copyStandardCatalogueToTeam } from '@/db/seed/catalogue';
-import { appUrl, launchBrowser, screenshot } from '../helpers/browser';
-import { createTestTeam, createTestUser, TEST_PASSWORD } from '../helpers/fixtures';
+import { createSheetFromProject, signInInBrowser } from './sheet-steps';
+import { launchBrowser, screenshot } from '../helpers/browser';
+import { createTestTeam, createTestUser } from '../helpers/fixtures';
 
 let browser: Browser;
 let designerEmail: string;
@@ -33,16 +34,7 @@ afterAll(async () => {
   await closeDb();
 });
 
-async function signIn(email: string): Promise<Page> {
-  const context = await browser.newContext({ viewport: { width: 1440, height: 900 } });
-  const page = await context.newPage();
-  await page.goto(appUrl('/sign-in'));
-  await page.fill('#email', email);
-  await page.fill('#password', TEST_PASSWORD);
-  await page.click('button[type=submit]');
-  await page.waitForURL(/\/projects/);
-  return page;
-}
+const signIn = (email: string): Promise<Page> => signInInBrowser(browser, email);
 
 const hotSpotText = (page: Page) => page.getByTestId('hot-spot').innerText();
 
@@ -52,12 +44,7 @@ const hotSpotText = (page: Page) => page.getByTestId('hot-spot').innerText();
 describe('the sizing sheet in the browser', () => {
   it('a designer creates a sheet, compares three candidates live, saves and submits', async () => {
     const page = await signIn(designerEmail);
-    await page.goto(appUrl(`/projects/${projectId}`));
-    await page.fill('#sheet-tag', 'BT-CH1');
-    await page.fill('#sheet-title', 'Browser test chiller feeder');
-    await page.selectOption('#sheet-installation', 'cable-in-air');
-    await page.click('button:has-text("Create sheet")');
-    await page.waitForURL(/\/sheets\/[0-9a-f-]{36}$/);
+    await createSheetFromProject(page, projectId, { tag: 'BT-CH1', title: 'Browser test chiller feeder', installation: 'cable-in-air' });
     sheetUrl = page.url();
     // The empty state teaches what a candidate is; the caution is on the page.
     await page.getByTestId('no-candidates').waitFor();

@@ -12,11 +12,12 @@ import { createProject } from '@/db/queries/projects';
 import { createSheet, getSheet, type SheetRecord } from '@/db/queries/sheets';
 import { CAUTION_TEXT } from '@/components/shell/CautionNotice';
 import { pdfSafeText } from '@/components/verification/pdfText';
-import { defaultSheetInputs, type SheetCandidate, type SheetInputs } from '@/lib/sheet';
+import { defaultSheetInputs, type SheetInputs } from '@/lib/sheet';
 import { computeBeyondSteady } from '@/lib/sheet/beyondSteady';
 import { formatNumber } from '@/lib/units';
 import { renderSheetPdf } from '@/server/pdf/renderSheetPdf';
 import { createTestTeam, createTestUser } from '../../helpers/fixtures';
+import { testCopperBar } from '../../helpers/sheetCandidates';
 import { actorOf } from './shareFixtures';
 
 afterAll(() => closeDb());
@@ -24,25 +25,8 @@ afterAll(() => closeDb());
 const OVER_TIME_HEADING = 'Over time (chosen candidate)';
 const ALONG_RUN_HEADING = 'Along the run (chosen candidate)';
 
-/**
- * 2 × 100 × 10 mm copper bars per phase (invented test candidate): R20 from the IEC 60028 copper
- * resistivity 1/58 Ω·mm²/m; joints held to 105 °C (common practice), 200 °C short-circuit limit.
- */
-const bar: SheetCandidate = {
-  id: 'cu-bar-2x100x10',
-  label: '2 × 100 × 10 mm copper bar (test)',
-  kind: 'bar',
-  material: 'copper',
-  r20OhmPerM: 1 / 58e6 / (100e-3 * 10e-3),
-  parallel: 1,
-  widthM: 0.1,
-  thicknessM: 0.01,
-  barsPerPhase: 2,
-  barGapM: 0.01,
-  terminalLimitC: 105,
-  shortCircuitLimitC: 200,
-  sourceNotes: ['Resistance from the IEC 60028 copper resistivity 1/58 Ω·mm²/m (test data).'],
-};
+/** 2 × 100 × 10 mm copper bars per phase (test input). */
+const bar = testCopperBar(100, 10, { barsPerPhase: 2 });
 
 function barInputs(checksOn: boolean): SheetInputs {
   const inputs = defaultSheetInputs('bar-on-edge');

@@ -10,33 +10,19 @@ import { createProject } from '@/db/queries/projects';
 import { createSheet, getSheet, type SheetRecord } from '@/db/queries/sheets';
 import { CAUTION_TEXT } from '@/components/shell/CautionNotice';
 import { pdfSafeText } from '@/components/verification/pdfText';
-import { defaultSheetInputs, type SheetCandidate, type SheetInputs } from '@/lib/sheet';
+import { defaultSheetInputs, type SheetInputs } from '@/lib/sheet';
 import { computeEnclosureAir } from '@/lib/sheet/enclosureAir';
 import { formatNumber } from '@/lib/units';
 import { renderSheetPdf } from '@/server/pdf/renderSheetPdf';
 import { createTestTeam, createTestUser } from '../../helpers/fixtures';
+import { testCopperBar } from '../../helpers/sheetCandidates';
 import { actorOf } from './shareFixtures';
 
 afterAll(() => closeDb());
 
 const HEADING = 'Inside the enclosure (chosen candidate)';
 
-/** 60 × 10 mm copper bar (invented test candidate): R20 from the IEC 60028 resistivity 1/58 Ω·mm²/m. */
-const bar: SheetCandidate = {
-  id: 'cu-bar-60x10',
-  label: '60 × 10 mm copper bar (test)',
-  kind: 'bar',
-  material: 'copper',
-  r20OhmPerM: 1 / 58e6 / (60e-3 * 10e-3),
-  parallel: 1,
-  widthM: 0.06,
-  thicknessM: 0.01,
-  barsPerPhase: 1,
-  barGapM: 0.01,
-  terminalLimitC: 105,
-  shortCircuitLimitC: 200,
-  sourceNotes: ['Resistance from the IEC 60028 copper resistivity 1/58 Ω·mm²/m (test data).'],
-};
+const bar = testCopperBar(60, 10);
 
 function inputs(checked: boolean): SheetInputs {
   const i = defaultSheetInputs('bar-on-edge');

@@ -11,44 +11,12 @@
  */
 import { describe, expect, it } from 'vitest';
 import { computeBeyondSteady } from '@/lib/sheet/beyondSteady';
-import { defaultSheetInputs, type SheetCandidate, type SheetInputs } from '@/lib/sheet';
+import { defaultSheetInputs, type SheetInputs } from '@/lib/sheet';
+import { testCable240, testCopperBar } from '../../helpers/sheetCandidates';
 
-/** 100 × 10 mm copper bar, R20 from the IEC 60028 resistivity 1/58 Ω·mm²/m (test input). */
-const bar: SheetCandidate = {
-  id: 'cu-bar-100x10',
-  label: '100 × 10 mm copper bar (test)',
-  kind: 'bar',
-  material: 'copper',
-  r20OhmPerM: 1 / 58e6 / (100e-3 * 10e-3),
-  parallel: 1,
-  widthM: 0.1,
-  thicknessM: 0.01,
-  barsPerPhase: 1,
-  barGapM: 0.01,
-  terminalLimitC: 105,
-  shortCircuitLimitC: 200,
-  emissivity: 0.4,
-};
+const bar = testCopperBar(100, 10, { emissivity: 0.4 });
 
-/**
- * Copper XLPE/PVC single core 240 mm² (test input; the demo cable of the share tests): R20 the
- * IEC 60228 class 2 maximum 0.0754 Ω/km, XLPE 1.7 mm ρ_T 3.5 and PVC 1.9 mm ρ_T 5.0 K·m/W
- * (IEC 60287-2-1 Table 1), XLPE 90 °C / 250 °C (common practice), all from memory.
- */
-const cable240: SheetCandidate = {
-  id: 'cu-xlpe-240',
-  label: '240 mm² Cu XLPE single-core (test)',
-  kind: 'cable',
-  material: 'copper',
-  r20OhmPerM: 0.0754e-3,
-  sectionMm2: 240,
-  conductorDiameterM: 0.018,
-  parallel: 1,
-  layers: [
-    { name: 'XLPE insulation', role: 'insulation', thicknessM: 1.7e-3, thermalResistivityKmPerW: 3.5, continuousLimitC: 90, shortCircuitLimitC: 250 },
-    { name: 'PVC sheath', role: 'sheath', thicknessM: 1.9e-3, thermalResistivityKmPerW: 5.0 },
-  ],
-};
+const cable240 = testCable240;
 
 const hourly = (day: number, night: number) => Array.from({ length: 24 }, (_, h) => (h >= 8 && h < 20 ? day : night));
 

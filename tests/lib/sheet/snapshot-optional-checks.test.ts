@@ -5,25 +5,10 @@
  * The physics behind the flags is tested in tests/lib/electrical; here the check is the wiring.
  */
 import { describe, expect, it } from 'vitest';
-import { approvalReadiness, buildSnapshot, defaultSheetInputs, type SheetCandidate, type SheetInputs } from '@/lib/sheet';
+import { approvalReadiness, buildSnapshot, defaultSheetInputs, type SheetInputs } from '@/lib/sheet';
+import { testCable240, testCopperBar } from '../../helpers/sheetCandidates';
 
-/** 60 × 10 mm copper bar (test candidate): R20 from the IEC 60028 resistivity 1/58 Ω·mm²/m. */
-const bar: SheetCandidate = {
-  id: 'cu-bar-60x10',
-  label: '60 × 10 mm copper bar (test)',
-  kind: 'bar',
-  material: 'copper',
-  r20OhmPerM: 1 / 58e6 / (60e-3 * 10e-3),
-  parallel: 1,
-  widthM: 0.06,
-  thicknessM: 0.01,
-  barsPerPhase: 1,
-  barGapM: 0.01,
-  terminalLimitC: 105,
-  shortCircuitLimitC: 200,
-  emissivity: 0.9,
-  sourceNotes: ['Resistance from the IEC 60028 copper resistivity (test data).'],
-};
+const bar = testCopperBar(60, 10, { emissivity: 0.9 });
 
 function sheet(enclosure: Partial<SheetInputs['enclosureAir']>): SheetInputs {
   const inputs = defaultSheetInputs('bar-on-edge');
@@ -66,21 +51,7 @@ describe('optional checks in the saved snapshot', () => {
   it('a check switched on that cannot be computed is a blocker of its own, with the reason kept', () => {
     // The run along the length is for bars: on a cable it cannot be computed.
     const inputs = defaultSheetInputs('cable-in-air');
-    const cable: SheetCandidate = {
-      id: 'cu-xlpe-240',
-      label: 'Cu/XLPE/PVC 1×240 mm² (test)',
-      kind: 'cable',
-      material: 'copper',
-      // IEC 60228 class 2 copper 240 mm²: 0.0754 Ω/km (references.md).
-      r20OhmPerM: 0.0754e-3,
-      sectionMm2: 240,
-      conductorDiameterM: 0.018,
-      parallel: 1,
-      layers: [
-        { name: 'XLPE insulation', role: 'insulation', thicknessM: 1.7e-3, thermalResistivityKmPerW: 3.5, continuousLimitC: 90, shortCircuitLimitC: 250 },
-        { name: 'PVC sheath', role: 'sheath', thicknessM: 1.9e-3, thermalResistivityKmPerW: 5.0 },
-      ],
-    };
+    const cable = testCable240;
     inputs.candidates = [cable];
     inputs.chosenCandidateId = cable.id;
     inputs.alongRun = { ...inputs.alongRun, checked: true };
