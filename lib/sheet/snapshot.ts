@@ -7,7 +7,7 @@ import type { AssumptionFlag } from '../electrical/sizing/flags';
 import type { CandidateEvaluation, CandidateEvaluationOk } from '../electrical/sizing/types';
 import { SOLVER_VERSION } from '../electrical/version';
 import { computeSheet } from './compute';
-import { optionalChecksReport } from './optionalChecksReport';
+import { optionalChecksReport, type OptionalCheckReport } from './optionalChecksReport';
 import type { SheetInputs } from './schema';
 import type { ApprovalReadiness } from './stateMachine';
 
@@ -33,11 +33,17 @@ export interface ResultSnapshot {
   chosenPasses: boolean | null;
   /** Optional checks switched on that could not be computed for the chosen candidate (absent in older snapshots). */
   optionalCheckFailures?: { check: string; message: string }[];
+  /** The optional checks of the chosen candidate in words, as the PDF and the share link print them (absent in older snapshots). */
+  optionalChecks?: OptionalCheckReport[];
 }
 
-/** Flags and failures of the optional checks switched on for the chosen candidate, from the saved inputs. */
-export function optionalCheckOutcome(inputs: SheetInputs): { flags: AssumptionFlag[]; failures: { check: string; message: string }[] } {
-  const reports = optionalChecksReport(inputs);
+/** The optional checks in words: from the snapshot when it has them, else computed from the saved inputs (older snapshots). */
+export function savedOptionalChecks(snapshot: ResultSnapshot | null, inputs: SheetInputs): OptionalCheckReport[] {
+  return snapshot?.optionalChecks ?? optionalChecksReport(inputs);
+}
+
+/** Flags and failures of the optional checks, from their reports. */
+function optionalCheckOutcome(reports: OptionalCheckReport[]): { flags: AssumptionFlag[]; failures: { check: string; message: string }[] } {
   return {
     flags: reports.flatMap((r) => r.flags),
     failures: reports.filter((r) => r.notComputed !== undefined).map((r) => ({ check: r.check, message: r.notComputed! })),
@@ -56,7 +62,8 @@ export function buildSnapshot(inputs: SheetInputs, now = new Date()): ResultSnap
   const evaluations = computation.ok ? computation.comparison.evaluations.map(slim) : [];
   const idAt = (index: number | null) => (index === null ? null : (evaluations[index]?.id ?? null));
   const chosen = evaluations.find((e) => e.id === inputs.chosenCandidateId) ?? null;
-  const optional = chosen && chosen.ok ? optionalCheckOutcome(inputs) : { flags: [], failures: [] };
+  const optionalChecks = optionalChecksReport(inputs);
+  const optional = chosen && chosen.ok ? optionalCheckOutcome(optionalChecks) : { flags: [], failures: [] };
   const chosenFlags = chosen && chosen.ok ? [...chosen.flags, ...optional.flags.filter((f) => !chosen.flags.some((c) => c.code === f.code))] : [];
   return {
     snapshotVersion: SNAPSHOT_VERSION,
@@ -71,6 +78,7 @@ export function buildSnapshot(inputs: SheetInputs, now = new Date()): ResultSnap
     chosenFlags,
     chosenPasses: chosen ? chosen.ok && chosen.passes && optional.failures.length === 0 && !optional.flags.some((f) => f.severity === 'blocker') : null,
     optionalCheckFailures: optional.failures,
+    optionalChecks,
   };
 }
 

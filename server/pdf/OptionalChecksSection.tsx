@@ -1,17 +1,17 @@
 /**
  * The PDF's short sections for the optional checks of the chosen candidate (over time, along the
- * run, inside the enclosure — physics.md §6), in the wording of lib/sheet/optionalChecksReport.ts
- * that the share link uses too, each with its own flags.
+ * run, inside the enclosure — physics.md §6) as the saved snapshot holds them (the wording of
+ * lib/sheet/optionalChecksReport.ts, which the share link prints too), each with its own flags.
  */
 import { Text, View } from '@react-pdf/renderer';
-import { optionalChecksReport } from '@/lib/sheet/optionalChecksReport';
 import type { SheetInputs } from '@/lib/sheet/schema';
+import { savedOptionalChecks, type ResultSnapshot } from '@/lib/sheet/snapshot';
 import { pdfSafeText as safe } from './fonts';
 
 const h2 = { marginTop: 12, marginBottom: 3, fontSize: 11, fontWeight: 600, borderBottomWidth: 1, borderBottomColor: '#c3ccd7', paddingBottom: 2 } as const;
 
-export function OptionalChecksSection({ inputs }: { inputs: SheetInputs }) {
-  const reports = optionalChecksReport(inputs);
+export function OptionalChecksSection({ inputs, snapshot }: { inputs: SheetInputs; snapshot: ResultSnapshot | null }) {
+  const reports = savedOptionalChecks(snapshot, inputs);
   if (reports.length === 0) return null;
   return (
     <View>

@@ -298,7 +298,7 @@ export function SizingSheetDocument({ sheet, generatedAt = new Date() }: { sheet
         />
         {sheet.inputs.notes.trim() ? <Text style={{ marginTop: 4 }}>{safe(`Designer's notes: ${sheet.inputs.notes.trim()}`)}</Text> : null}
 
-        <OptionalChecksSection inputs={sheet.inputs} />
+        <OptionalChecksSection inputs={sheet.inputs} snapshot={snapshot} />
 
         <Text style={styles.h2} minPresenceAhead={60}>Method and standards</Text>
         {METHOD_LINES.map((line) => (

@@ -15,7 +15,7 @@ import { SharedSheetView, type SharedSheet } from '@/components/share/SharedShee
 import { formatDate } from '@/components/share/sheetTables';
 import { openShare } from '@/db/queries/shares';
 import type { SheetRecord } from '@/db/queries/sheets';
-import { optionalChecksReport } from '@/lib/sheet/optionalChecksReport';
+import { savedOptionalChecks } from '@/lib/sheet/snapshot';
 
 export const dynamic = 'force-dynamic';
 
@@ -50,8 +50,8 @@ export default async function SharedSheetPage({ params }: { params: Promise<{ to
     inputs: sheet.inputs,
     result: sheet.result,
     acknowledgements: sheet.acknowledgements.map((a) => ({ flagCode: a.flagCode, comment: a.comment, reviewerName: a.reviewerName })),
-    // Computed here from the saved inputs (a second or two for runs over time), not in the reader's browser.
-    optionalChecks: optionalChecksReport(sheet.inputs),
+    // As saved with the result (older snapshots: computed here from the saved inputs, not in the reader's browser).
+    optionalChecks: savedOptionalChecks(sheet.result, sheet.inputs),
   };
   const approved = sheet.status === 'approved';
   return (
