@@ -47,8 +47,7 @@ function overTimeLines(inputs: SheetInputs, t: OverTimeResult): string[] {
   }
   if (t.fault) {
     const f = t.fault;
-    const bare = inputs.candidates.find((x) => x.id === inputs.chosenCandidateId)?.kind === 'bar';
-    lines.push(`Fault with heat flowing into the ${bare ? 'surroundings' : 'coverings'}: ${c(f.finalC)} at the end, against ${f.iecAdiabaticC === null ? '—' : c(f.iecAdiabaticC)} by the IEC 60949 adiabatic method (which governs the verdict).`);
+    lines.push(`Fault with heat flowing into the ${f.heatFlowsInto}: ${c(f.finalC)} at the end, against ${f.iecAdiabaticC === null ? '—' : c(f.iecAdiabaticC)} by the IEC 60949 adiabatic method (which governs the verdict).`);
   }
   return lines;
 }

@@ -62,6 +62,8 @@ export interface OverTimeResult {
     series: HotSpotPoint[];
   };
   fault?: {
+    /** Where the fault's heat flows out of the conductor: a cable's coverings, or a bare bar's surroundings. */
+    heatFlowsInto: 'coverings' | 'surroundings';
     initialC: number;
     finalC: number;
     adiabaticModelC: number;
@@ -156,7 +158,9 @@ export function overTimeCheck(candidate: Candidate, conditions: Conditions, inpu
     const initialC = sc.initialC ?? limitC;
     const r = faultHeating({ problem: withCurrent(problem, toModel(conditions.designCurrentA)), faultCurrentA: toModel(conditions.fault.currentA), durationS: conditions.fault.durationS, initialC, steps: 400 });
     const scLimit = sc.limitC ?? null;
+    const heatFlowsInto = problem.geometry.layers.some((l) => !l.generating) ? 'coverings' : 'surroundings';
     result.fault = {
+      heatFlowsInto,
       initialC,
       finalC: r.finalHotSpotC,
       adiabaticModelC: r.finalAdiabaticC,
@@ -165,11 +169,10 @@ export function overTimeCheck(candidate: Candidate, conditions: Conditions, inpu
       passes: scLimit === null ? null : r.finalHotSpotC <= scLimit,
       series: r.series,
     };
-    const into = problem.geometry.layers.some((l) => !l.generating) ? 'the coverings' : 'the surroundings';
     const aboveIec = sc.finalC != null && r.finalHotSpotC > sc.finalC;
     flags.add(
       'FAULT_HEAT_INTO_COVERINGS',
-      `With heat flowing into ${into} the fault ends at ${fmt(r.finalHotSpotC)} °C, against ${sc.finalC == null ? 'no' : fmt(sc.finalC)} °C by the IEC 60949 adiabatic method; the withstand verdict stays with the adiabatic figure.` +
+      `With heat flowing into the ${heatFlowsInto} the fault ends at ${fmt(r.finalHotSpotC)} °C, against ${sc.finalC == null ? 'no' : fmt(sc.finalC)} °C by the IEC 60949 adiabatic method; the withstand verdict stays with the adiabatic figure.` +
         (aboveIec
           ? ` The model ends higher: it heats the conductor with the candidate's own AC resistance (its R₂₀ with the skin and proximity effect), which the adiabatic K of IEC 60949 leaves out — with no heat flowing out at all the model reaches ${fmt(r.finalAdiabaticC)} °C. Weigh the higher figure.`
           : ''),
