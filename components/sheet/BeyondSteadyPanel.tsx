@@ -11,7 +11,8 @@ import { Plot, PLOT_CONFIG, PLOT_LAYOUT_BASE } from '@/components/plots/Plot';
 import { computeBeyondSteady, readDailyProfileText, type BeyondSteadyResults } from '@/lib/sheet/beyondSteady';
 import type { SheetInputs } from '@/lib/sheet/schema';
 import { convertFromSi, formatNumber, unitLabel, type UnitSystem } from '@/lib/units';
-import { CheckFlagList, UnitNumberField } from './checkParts';
+import { CheckFlagList } from './checkParts';
+import { NumberField } from './NumberField';
 
 const LIMIT_COLOUR = '#a8402b';
 
@@ -70,8 +71,8 @@ export function BeyondSteadyPanel({ form, editable, candidateId, units }: { form
           {t.checked ? (
             <>
               <div className="grid grid-cols-2 gap-2">
-                <UnitNumberField label="Overload current" quantity={null} fixedUnit="A" units={units} testId="overload-current" siValue={t.overloadCurrentA} disabled={!editable} onChange={(v) => form.setFieldValue('overTime.overloadCurrentA', v)} />
-                <UnitNumberField label="It must last" quantity={null} fixedUnit="min" siPerShown={60} units={units} testId="overload-minutes" siValue={t.overloadDurationS} disabled={!editable} onChange={(v) => form.setFieldValue('overTime.overloadDurationS', v)} />
+                <NumberField field="overTime.overloadCurrentA" label="Overload current" units={units} testId="overload-current" value={t.overloadCurrentA} disabled={!editable} onChange={(v) => form.setFieldValue('overTime.overloadCurrentA', v as number)} />
+                <NumberField field="overTime.overloadDurationS" label="It must last" units={units} testId="overload-minutes" value={t.overloadDurationS} disabled={!editable} onChange={(v) => form.setFieldValue('overTime.overloadDurationS', v as number)} />
               </div>
               {errorOf('overTime.overloadCurrentA') ? <p className="field-error">{errorOf('overTime.overloadCurrentA')}</p> : null}
               {errorOf('overTime.overloadDurationS') ? <p className="field-error">{errorOf('overTime.overloadDurationS')}</p> : null}
@@ -117,7 +118,7 @@ export function BeyondSteadyPanel({ form, editable, candidateId, units }: { form
           </label>
           {a.checked ? (
             <>
-              <UnitNumberField label="Run length" quantity="lengthM" units={units} testId="run-length" siValue={a.lengthM} disabled={!editable} onChange={(v) => form.setFieldValue('alongRun.lengthM', v)} />
+              <NumberField field="alongRun.lengthM" label="Run length" units={units} testId="run-length" value={a.lengthM} disabled={!editable} onChange={(v) => form.setFieldValue('alongRun.lengthM', v as number)} />
               {(['start', 'end'] as const).map((side) => (
                 <div key={side} className="grid grid-cols-2 gap-2">
                   <label className="block">
@@ -133,14 +134,14 @@ export function BeyondSteadyPanel({ form, editable, candidateId, units }: { form
                     </select>
                   </label>
                   {(side === 'start' ? a.startEnd : a.endEnd) === 'terminal' ? (
-                    <UnitNumberField
+                    <NumberField
+                      field="alongRun.terminalTemperatureC"
                       label="Terminal temperature"
-                      quantity="temperature"
                       units={units}
                       testId={`${side}-terminal`}
-                      siValue={side === 'start' ? a.startTemperatureC : a.endTemperatureC}
+                      value={side === 'start' ? a.startTemperatureC : a.endTemperatureC}
                       disabled={!editable}
-                      onChange={(v) => form.setFieldValue(side === 'start' ? 'alongRun.startTemperatureC' : 'alongRun.endTemperatureC', v)}
+                      onChange={(v) => form.setFieldValue(side === 'start' ? 'alongRun.startTemperatureC' : 'alongRun.endTemperatureC', v as number)}
                     />
                   ) : null}
                 </div>
@@ -149,7 +150,7 @@ export function BeyondSteadyPanel({ form, editable, candidateId, units }: { form
                 <span className="field-label">Bolted joints (resistance empty = 10 µΩ assumed and flagged)</span>
                 {a.joints.map((j, i) => (
                   <div key={i} className="mt-1 grid grid-cols-[1fr_1fr_auto] items-end gap-2">
-                    <UnitNumberField label={`Joint ${i + 1} at`} quantity="lengthM" units={units} testId={`joint-${i}-position`} siValue={j.positionM} disabled={!editable} onChange={(v) => form.setFieldValue(`alongRun.joints.${i}.positionM`, v)} />
+                    <NumberField field="alongRun.jointPositionM" label={`Joint ${i + 1} at`} units={units} testId={`joint-${i}-position`} value={j.positionM} disabled={!editable} onChange={(v) => form.setFieldValue(`alongRun.joints.${i}.positionM`, v as number)} />
                     <label className="block">
                       <span className="field-label">Resistance (µΩ)</span>
                       <input

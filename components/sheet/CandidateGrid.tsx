@@ -2,7 +2,7 @@
 import { useMemo } from 'react';
 import { AgGridReact } from 'ag-grid-react';
 import { AllCommunityModule, ModuleRegistry, themeQuartz, type ColDef, type ICellRendererParams } from 'ag-grid-community';
-import type { CandidateEvaluation, CandidateEvaluationOk } from '@/lib/electrical/sizing/types';
+import type { CandidateEvaluation } from '@/lib/electrical/sizing/types';
 import type { SheetCandidate } from '@/lib/sheet/candidates';
 import { describeArrangement, sectionPerPhaseMm2 } from '@/lib/sheet/candidates';
 import { convertFromSi, formatNumber, unitLabel, type UnitSystem } from '@/lib/units';

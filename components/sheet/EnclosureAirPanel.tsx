@@ -13,7 +13,8 @@ import type { CheckOutcome } from '@/lib/sheet/beyondSteady';
 import { computeEnclosureAir } from '@/lib/sheet/enclosureAir';
 import { DEFAULT_SOURCES, enclosureWalls, type SheetInputs } from '@/lib/sheet/schema';
 import { convertFromSi, formatNumber, unitLabel, type UnitSystem } from '@/lib/units';
-import { CheckFlagList, UnitNumberField } from './checkParts';
+import { CheckFlagList } from './checkParts';
+import { NumberField } from './NumberField';
 
 const WALL_LABELS: Record<(typeof enclosureWalls)[number], string> = {
   'painted-steel': 'painted sheet steel (k 5.5)',
@@ -71,7 +72,19 @@ export function EnclosureAirPanel({ form, editable, candidateId, units }: { form
   const [outcome, setOutcome] = useState<{ candidateId: string; outcome: CheckOutcome<EnclosureAirCheckResult> | null } | null>(null);
   const [running, setRunning] = useState(false);
   const errorOf = (field: string) => form.errors[`enclosureAir.${field}`] as string | undefined;
-  const set = (field: Field) => (v: number) => form.setFieldValue(`enclosureAir.${field}`, v);
+  const num = (key: Field, label: string, testId: string, help?: string) => (
+    <NumberField
+      field={`enclosureAir.${key}`}
+      label={label}
+      units={units}
+      value={e[key]}
+      disabled={!editable}
+      error={errorOf(key)}
+      help={help}
+      testId={testId}
+      onChange={(v) => form.setFieldValue(`enclosureAir.${key}`, v as number)}
+    />
+  );
   const tUnit = unitLabel('temperature', units);
   const fmtT = (c: number) => `${formatNumber(convertFromSi(c, 'temperature', units), 4)} ${tUnit}`;
 
@@ -109,42 +122,12 @@ export function EnclosureAirPanel({ form, editable, candidateId, units }: { form
         <fieldset className="mt-2 space-y-2">
           <legend className="sr-only">Enclosure inputs</legend>
           <div className="grid grid-cols-2 gap-2 md:grid-cols-3">
-            <UnitNumberField label="Height" quantity="lengthM" units={units} siValue={e.heightM} disabled={!editable} error={errorOf('heightM')} testId="enclosure-height" onChange={set('heightM')} />
-            <UnitNumberField label="Width" quantity="lengthM" units={units} siValue={e.widthM} disabled={!editable} error={errorOf('widthM')} testId="enclosure-width" onChange={set('widthM')} />
-            <UnitNumberField label="Depth" quantity="lengthM" units={units} siValue={e.depthM} disabled={!editable} error={errorOf('depthM')} testId="enclosure-depth" onChange={set('depthM')} />
-            <UnitNumberField
-              label="Air around it"
-              quantity="temperature"
-              units={units}
-              siValue={e.outsideAirC}
-              disabled={!editable}
-              error={errorOf('outsideAirC')}
-              help={DEFAULT_SOURCES.enclosureOutsideAirC}
-              testId="enclosure-outside-air"
-              onChange={set('outsideAirC')}
-            />
-            <UnitNumberField
-              label="Route length inside"
-              quantity="lengthM"
-              units={units}
-              siValue={e.routeLengthInsideM}
-              disabled={!editable}
-              error={errorOf('routeLengthInsideM')}
-              testId="enclosure-route-inside"
-              onChange={set('routeLengthInsideM')}
-            />
-            <UnitNumberField
-              label="Other losses inside"
-              quantity={null}
-              fixedUnit="W"
-              units={units}
-              siValue={e.otherLossesW}
-              disabled={!editable}
-              error={errorOf('otherLossesW')}
-              help={DEFAULT_SOURCES.enclosureOtherLossesW}
-              testId="enclosure-other-losses"
-              onChange={set('otherLossesW')}
-            />
+            {num('heightM', 'Height', 'enclosure-height')}
+            {num('widthM', 'Width', 'enclosure-width')}
+            {num('depthM', 'Depth', 'enclosure-depth')}
+            {num('outsideAirC', 'Air around it', 'enclosure-outside-air', DEFAULT_SOURCES.enclosureOutsideAirC)}
+            {num('routeLengthInsideM', 'Route length inside', 'enclosure-route-inside')}
+            {num('otherLossesW', 'Other losses inside', 'enclosure-other-losses', DEFAULT_SOURCES.enclosureOtherLossesW)}
           </div>
           <div className="grid grid-cols-2 gap-2 md:grid-cols-4">
             <label className="block">

@@ -47,7 +47,8 @@ export function NumberField({
     <div>
       <label htmlFor={id} className="field-label">
         {label}
-        {unit ? <span className="ml-1 normal-case tracking-normal text-ink-400">({unit})</span> : null}
+        {/* The space is text, so the label reads "Height (ft)" to assistive technology too. */}
+        {unit ? <span className="normal-case tracking-normal text-ink-400"> ({unit})</span> : null}
       </label>
       <input
         id={id}

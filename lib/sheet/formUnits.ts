@@ -51,6 +51,18 @@ export const SHEET_FIELD_UNITS = {
   'economics.years': { quantity: 'none', fixedUnit: 'years' },
   'economics.loadGrowthPercent': { quantity: 'none', fixedUnit: '% / year' },
   'economics.energyPriceGrowthPercent': { quantity: 'none', fixedUnit: '% / year' },
+  // Optional checks (lib/sheet/schema.ts overTime, alongRun, enclosureAir).
+  'overTime.overloadCurrentA': { quantity: 'none', fixedUnit: 'A' },
+  'overTime.overloadDurationS': { quantity: 'none', fixedUnit: 'min' },
+  'alongRun.lengthM': { quantity: 'lengthM' },
+  'alongRun.terminalTemperatureC': { quantity: 'temperature' },
+  'alongRun.jointPositionM': { quantity: 'lengthM' },
+  'enclosureAir.heightM': { quantity: 'lengthM' },
+  'enclosureAir.widthM': { quantity: 'lengthM' },
+  'enclosureAir.depthM': { quantity: 'lengthM' },
+  'enclosureAir.outsideAirC': { quantity: 'temperature' },
+  'enclosureAir.routeLengthInsideM': { quantity: 'lengthM' },
+  'enclosureAir.otherLossesW': { quantity: 'none', fixedUnit: 'W' },
 } as const satisfies Record<string, FieldUnit>;
 
 export type SheetNumericField = keyof typeof SHEET_FIELD_UNITS;
@@ -63,6 +75,8 @@ export type SheetNumericField = keyof typeof SHEET_FIELD_UNITS;
 const STORED_TO_QUANTITY_SCALE: Partial<Record<SheetNumericField, number>> = {
   'installation.spacingM': 1000,
   'circuit.reactanceOhmPerM': 1000,
+  // Stored in seconds, shown in minutes.
+  'overTime.overloadDurationS': 1 / 60,
 };
 
 export function toDisplay(field: SheetNumericField, storedValue: number, system: UnitSystem): number {
