@@ -2,7 +2,10 @@
  * Benchmark of the sizing layer (`npm run bench:sizing`), issue 4:
  *   1. heat-balance solves per ampacity (target ≤ 30),
  *   2. median time of one ampacity,
- *   3. time to size 1,000 circuits × 12 candidates (compareCandidates).
+ *   3. time to size 1,000 circuits × 12 candidates (compareCandidates),
+ *   4. edit-to-result of a 6-candidate sizing sheet with its hot-spot curves (issue 16): the
+ *      prepared pipeline (one ampacity search per candidate, curve points solved on the prepared
+ *      model) beside the former path (a full evaluation, ampacity search included, per curve point).
  * Inputs are invented benchmark data (IEC 60228 resistances from memory); deterministic.
  */
 import { loadavg } from 'node:os';
@@ -13,7 +16,13 @@ import {
   type CableCandidate,
   type Candidate,
   type Conditions,
+  evaluateCandidate,
 } from '../lib/electrical';
+import { demoSheets } from '../db/seed/sheets';
+import { computeSheetWithCurves } from '../lib/sheet/compute';
+import { toConditions } from '../lib/sheet/toSizing';
+import { toLibraryCandidate } from '../lib/sheet/candidates';
+import type { SheetInputs } from '../lib/sheet/schema';
 
 // IEC 60228 Table 2, class 2 copper, Ω/km at 20 °C (from memory, references.md).
 const CU: Record<number, number> = {
@@ -178,4 +187,61 @@ function main(): void {
   console.log(`  ${withPassing} circuits with at least one passing candidate`);
 }
 
+/** The chiller-feeder demo sheet with three more cables: six candidates, as a designer compares them. */
+function sixCandidateSheet(): SheetInputs {
+  const demo = demoSheets().find((d) => d.inputs.installation.kind === 'cable-in-air' && d.inputs.candidates.length === 3);
+  if (!demo) throw new Error('no three-candidate demo sheet in air');
+  const extra = demoSheets().flatMap((d) => d.inputs.candidates).filter((c) => c.kind === 'cable' && !demo.inputs.candidates.some((x) => x.id === c.id));
+  const inputs: SheetInputs = { ...demo.inputs, candidates: [...demo.inputs.candidates, ...extra].slice(0, 6) };
+  if (inputs.candidates.length !== 6) throw new Error(`expected 6 candidates, got ${inputs.candidates.length}`);
+  return inputs;
+}
+
+/** The former edit path: compare, then one full evaluation (with its ampacity search) per curve point. */
+function formerEditToResult(inputs: SheetInputs): number {
+  const { computation } = computeSheetWithCurves(inputs, false);
+  let points = 0;
+  if (!computation.ok) return points;
+  for (const e of computation.comparison.evaluations) {
+    if (!e.ok || !(e.ampacityA > 0)) continue;
+    const candidate = toLibraryCandidate(inputs.candidates.find((c) => c.id === e.id)!);
+    const top = Math.max(e.ampacityA * 1.15, inputs.circuit.designCurrentA * 1.1);
+    const currents = new Set<number>();
+    for (let i = 1; i <= 8; i += 1) currents.add(Math.round((top * i) / 8));
+    currents.add(Math.round(e.ampacityA));
+    currents.add(inputs.circuit.designCurrentA);
+    for (const currentA of [...currents].sort((a, b) => a - b)) {
+      const r = evaluateCandidate(candidate, toConditions(inputs, currentA));
+      points++;
+      if (!r.ok || r.hotSpotC === null) break;
+    }
+  }
+  return points;
+}
+
+function editToResult(): void {
+  const inputs = sixCandidateSheet();
+  const time = (fn: () => void, runs: number) => {
+    for (let i = 0; i < 3; i++) fn(); // warm-up
+    const ms: number[] = [];
+    for (let i = 0; i < runs; i++) {
+      const t0 = performance.now();
+      fn();
+      ms.push(performance.now() - t0);
+    }
+    return median(ms);
+  };
+  let points = 0;
+  const now = time(() => {
+    const r = computeSheetWithCurves(inputs, true);
+    points = r.curves.reduce((n, c) => n + c.points.length, 0);
+  }, 30);
+  const before = time(() => formerEditToResult(inputs), 10);
+  console.log('Edit-to-result of a 6-candidate sizing sheet with its hot-spot curves (one thread)');
+  console.log(`  prepared pipeline: median ${now.toFixed(1)} ms (${points} curve points on the prepared models)`);
+  console.log(`  former path (a full evaluation per curve point): median ${before.toFixed(1)} ms`);
+  console.log(`  ratio ${(before / now).toFixed(1)}× (target ≥ 5×)`);
+}
+
 main();
+editToResult();

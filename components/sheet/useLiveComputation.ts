@@ -1,13 +1,17 @@
 'use client';
 /**
- * Re-computes the sheet in the browser whenever its inputs change (debounced), with the same
- * lib/sheet → lib/electrical → lib/thermal code the server runs on save. The work runs in a Web
- * Worker; where one cannot start, it runs on the main thread instead.
+ * Re-computes the sheet in the browser on every edit, with the same lib/sheet → lib/electrical →
+ * lib/thermal code the server runs on save. The work runs in a Web Worker (where one cannot start,
+ * on the main thread). There is no debounce: an edit is sent at once when the worker is idle;
+ * while it is busy only the NEWEST edit waits (edits in between are superseded, never computed),
+ * and a result that belongs to superseded inputs is dropped instead of shown.
+ *
+ * Each result is marked with `performance.mark('ampwarden:result')` (and the edit that caused it
+ * with 'ampwarden:edit') so that a browser test can measure edit-to-result time.
  */
 import { useEffect, useRef, useState } from 'react';
-import { computeSheet, hotSpotCurve, type HotSpotCurve, type SheetComputation } from '@/lib/sheet/compute';
+import { computeSheetWithCurves, type HotSpotCurve, type SheetComputation } from '@/lib/sheet/compute';
 import { sheetInputsSchema, type SheetInputs } from '@/lib/sheet/schema';
-import type { CandidateEvaluationOk } from '@/lib/electrical/sizing/types';
 
 export interface LiveResult {
   computation: SheetComputation | null;
@@ -22,32 +26,93 @@ export interface LiveResult {
   engine: 'worker' | 'page' | null;
 }
 
-const DEBOUNCE_MS = 200;
+interface Payload {
+  computation: SheetComputation;
+  curves: HotSpotCurve[];
+  elapsedMs: number;
+}
 
-function computeHere(inputs: SheetInputs, withCurves: boolean) {
+interface Request {
+  id: number;
+  key: string;
+  inputs: SheetInputs;
+  withCurves: boolean;
+}
+
+function computeHere(inputs: SheetInputs, withCurves: boolean): Payload {
   const started = performance.now();
-  const computation = computeSheet(inputs);
-  const curves = withCurves && computation.ok
-    ? computation.comparison.evaluations.filter((e): e is CandidateEvaluationOk => e.ok).map((e) => hotSpotCurve(inputs, e))
-    : [];
+  const { computation, curves } = computeSheetWithCurves(inputs, withCurves);
   return { computation, curves, elapsedMs: performance.now() - started };
+}
+
+function mark(name: string, key: string) {
+  try {
+    performance.mark(name, { detail: { key } });
+  } catch {
+    // marks are a measuring aid only
+  }
 }
 
 export function useLiveComputation(inputs: SheetInputs, options: { enabled: boolean; withCurves: boolean }): LiveResult {
   const [result, setResult] = useState<LiveResult>({ computation: null, curves: [], inputsKey: null, computing: false, elapsedMs: null, invalid: false, engine: null });
   const workerRef = useRef<Worker | null>(null);
-  const requestRef = useRef(0);
+  const latestIdRef = useRef(0);
+  const inFlightRef = useRef<Request | null>(null);
+  const pendingRef = useRef<Request | null>(null);
   const key = JSON.stringify(inputs);
 
-  useEffect(() => {
-    try {
-      workerRef.current = new Worker(new URL('./compute.worker.ts', import.meta.url), { type: 'module' });
-    } catch {
-      workerRef.current = null;
+  // Shows a result unless a newer edit superseded it; then sends the newest waiting edit.
+  const finishRef = useRef<(request: Request, payload: Payload, engine: 'worker' | 'page') => void>(() => {});
+  const sendRef = useRef<(request: Request) => void>(() => {});
+
+  finishRef.current = (request, payload, engine) => {
+    inFlightRef.current = null;
+    if (request.id === latestIdRef.current) {
+      mark('ampwarden:result', request.key);
+      setResult({ computation: payload.computation, curves: payload.curves, elapsedMs: payload.elapsedMs, inputsKey: request.key, computing: false, invalid: false, engine });
     }
+    const next = pendingRef.current;
+    pendingRef.current = null;
+    if (next) sendRef.current(next);
+  };
+
+  sendRef.current = (request) => {
+    inFlightRef.current = request;
+    const worker = workerRef.current;
+    if (worker) {
+      worker.postMessage({ id: request.id, inputs: request.inputs, withCurves: request.withCurves });
+      return;
+    }
+    // No worker: compute on the page after the browser has painted the keystroke.
+    setTimeout(() => finishRef.current(request, computeHere(request.inputs, request.withCurves), 'page'), 0);
+  };
+
+  useEffect(() => {
+    let worker: Worker | null = null;
+    try {
+      worker = new Worker(new URL('./compute.worker.ts', import.meta.url), { type: 'module' });
+    } catch {
+      worker = null;
+    }
+    if (worker) {
+      worker.addEventListener('message', (event: MessageEvent) => {
+        const request = inFlightRef.current;
+        if (request && event.data?.id === request.id) finishRef.current(request, event.data as Payload, 'worker');
+      });
+      worker.addEventListener('error', () => {
+        // The worker failed: compute the request in hand on the page, and every later one too.
+        workerRef.current?.terminate();
+        workerRef.current = null;
+        const request = inFlightRef.current;
+        if (request) finishRef.current(request, computeHere(request.inputs, request.withCurves), 'page');
+      });
+    }
+    workerRef.current = worker;
     return () => {
-      workerRef.current?.terminate();
+      worker?.terminate();
       workerRef.current = null;
+      // A request the terminated worker held will never answer: let the next edit go straight out.
+      inFlightRef.current = null;
     };
   }, []);
 
@@ -58,33 +123,11 @@ export function useLiveComputation(inputs: SheetInputs, options: { enabled: bool
       setResult((r) => ({ ...r, invalid: true, computing: false }));
       return;
     }
+    mark('ampwarden:edit', key);
     setResult((r) => ({ ...r, invalid: false, computing: true }));
-    const timer = setTimeout(() => {
-      const id = ++requestRef.current;
-      const worker = workerRef.current;
-      const finish = (payload: { computation: SheetComputation; curves: HotSpotCurve[]; elapsedMs: number }, engine: 'worker' | 'page') => {
-        if (id !== requestRef.current) return; // a newer edit superseded this one
-        setResult({ computation: payload.computation, curves: payload.curves, elapsedMs: payload.elapsedMs, inputsKey: key, computing: false, invalid: false, engine });
-      };
-      if (worker) {
-        const onMessage = (event: MessageEvent) => {
-          if (event.data?.id !== id) return;
-          worker.removeEventListener('message', onMessage);
-          finish(event.data, 'worker');
-        };
-        const onError = () => {
-          worker.removeEventListener('error', onError);
-          workerRef.current = null;
-          finish(computeHere(parsed.data, options.withCurves), 'page');
-        };
-        worker.addEventListener('message', onMessage);
-        worker.addEventListener('error', onError);
-        worker.postMessage({ id, inputs: parsed.data, withCurves: options.withCurves });
-      } else {
-        finish(computeHere(parsed.data, options.withCurves), 'page');
-      }
-    }, DEBOUNCE_MS);
-    return () => clearTimeout(timer);
+    const request: Request = { id: ++latestIdRef.current, key, inputs: parsed.data, withCurves: options.withCurves };
+    if (inFlightRef.current) pendingRef.current = request; // supersedes any edit still waiting
+    else sendRef.current(request);
     // eslint-disable-next-line react-hooks/exhaustive-deps -- `key` stands for the inputs
   }, [key, options.enabled, options.withCurves]);
 

@@ -46,7 +46,7 @@ export {
   DEFAULT_SOIL_RESISTIVITY_KM_PER_W,
   DEFAULT_SOLAR_ABSORPTIVITY,
   ADIABATIC_MAX_DURATION_S,
-} from './sizing/prepare';
+} from './sizing/prepareConditions';
 export type {
   AmpacityResult,
   BarCandidate,

@@ -2,9 +2,10 @@
  * One computation of a sizing sheet with the sizing library — the same function in the browser
  * (live result while typing) and on the server (the snapshot stored on save).
  */
-import { compareCandidates, evaluateCandidate } from '../electrical/sizing/evaluate';
+import { compareCandidatesPrepared, hotSpotAtCurrent } from '../electrical/sizing/evaluate';
+import type { SizingContext } from '../electrical/sizing/context';
 import type { AssumptionFlag } from '../electrical/sizing/flags';
-import type { CandidateEvaluation, CandidateEvaluationOk, Comparison } from '../electrical/sizing/types';
+import type { CandidateEvaluationOk, Comparison } from '../electrical/sizing/types';
 import type { SheetInputs } from './schema';
 import { toCandidates, toConditions } from './toSizing';
 
@@ -15,14 +16,14 @@ export type SheetComputation =
   | { ok: true; comparison: Comparison }
   | { ok: false; error: { message: string; field?: string } };
 
+function errorOf(error: unknown): { message: string; field?: string } {
+  const message = error instanceof Error ? error.message : String(error);
+  const field = error && typeof error === 'object' && 'field' in error ? String((error as { field: unknown }).field) : undefined;
+  return field ? { message, field } : { message };
+}
+
 export function computeSheet(inputs: SheetInputs): SheetComputation {
-  try {
-    return { ok: true, comparison: compareCandidates(toCandidates(inputs), toConditions(inputs)) };
-  } catch (error) {
-    const message = error instanceof Error ? error.message : String(error);
-    const field = error && typeof error === 'object' && 'field' in error ? String((error as { field: unknown }).field) : undefined;
-    return { ok: false, error: field ? { message, field } : { message } };
-  }
+  return computeSheetWithCurves(inputs, false).computation;
 }
 
 export interface CurvePoint {
@@ -37,26 +38,51 @@ export interface HotSpotCurve {
 }
 
 /**
- * Hot spot versus current for the plot: the candidate evaluated at fractions of its ampacity
- * (and at the design current), so the curve always shows where the limit is reached. A point
- * past runaway has hotSpotC null and ends the curve.
+ * Hot spot versus current for the plot: the candidate solved at fractions of its ampacity (and at
+ * the design current) on the model prepared for its evaluation — no new ampacity search — so the
+ * curve always shows where the limit is reached. A point past runaway has hotSpotC null and ends
+ * the curve.
  */
-export function hotSpotCurve(inputs: SheetInputs, evaluation: CandidateEvaluationOk, steps = 8): HotSpotCurve {
-  const candidate = inputs.candidates.find((c) => c.id === evaluation.id);
+function hotSpotCurveOf(context: SizingContext, evaluation: CandidateEvaluationOk, designCurrentA: number, steps = 8): HotSpotCurve {
   const curve: HotSpotCurve = { candidateId: evaluation.id, label: evaluation.label, ampacityA: evaluation.ampacityA, points: [] };
-  if (!candidate || !(evaluation.ampacityA > 0)) return curve;
-  const top = Math.max(evaluation.ampacityA * 1.15, inputs.circuit.designCurrentA * 1.1);
+  if (!(evaluation.ampacityA > 0)) return curve;
+  const top = Math.max(evaluation.ampacityA * 1.15, designCurrentA * 1.1);
   const currents = new Set<number>();
   for (let i = 1; i <= steps; i += 1) currents.add(Math.round((top * i) / steps));
   currents.add(Math.round(evaluation.ampacityA));
-  currents.add(inputs.circuit.designCurrentA);
+  currents.add(designCurrentA);
   for (const currentA of [...currents].sort((a, b) => a - b)) {
-    const result: CandidateEvaluation = evaluateCandidate(candidate, toConditions(inputs, currentA));
-    if (!result.ok) break;
-    curve.points.push({ currentA, hotSpotC: result.hotSpotC });
-    if (result.hotSpotC === null) break;
+    let hotSpotC: number | null;
+    try {
+      hotSpotC = hotSpotAtCurrent(context, evaluation, currentA);
+    } catch {
+      break; // the solver gave no honest answer at this current: the curve ends here
+    }
+    curve.points.push({ currentA, hotSpotC });
+    if (hotSpotC === null) break;
   }
   return curve;
+}
+
+/**
+ * The sheet's comparison and, when asked, the hot-spot curve of every candidate that could be
+ * evaluated — one computation for the browser (live result) and the server (snapshot).
+ */
+export function computeSheetWithCurves(inputs: SheetInputs, withCurves: boolean): { computation: SheetComputation; curves: HotSpotCurve[] } {
+  let prepared: ReturnType<typeof compareCandidatesPrepared>;
+  try {
+    prepared = compareCandidatesPrepared(toCandidates(inputs), toConditions(inputs));
+  } catch (error) {
+    return { computation: { ok: false, error: errorOf(error) }, curves: [] };
+  }
+  const curves: HotSpotCurve[] = [];
+  if (withCurves) {
+    for (const e of prepared.comparison.evaluations) {
+      const context = e.ok ? prepared.contexts.get(e.index) : undefined;
+      if (e.ok && context) curves.push(hotSpotCurveOf(context, e, inputs.circuit.designCurrentA));
+    }
+  }
+  return { computation: { ok: true, comparison: prepared.comparison }, curves };
 }
 
 /** The flags of one evaluation grouped by severity, blockers first. */

@@ -19,11 +19,10 @@ import {
   type ThermalProblem,
 } from '../../thermal';
 import { ElectricalInputError } from '../errors';
-import { acFactorFunction } from './acFactor';
+import { sizingContext, toModelCurrent } from './context';
 import { evaluateCandidate } from './evaluate';
 import { FlagSet, fmt, type AssumptionFlag } from './flags';
-import { buildThermalModel } from './model';
-import { prepareCandidate, prepareConditions } from './prepare';
+import { prepareConditions } from './prepareConditions';
 import type { Candidate, Conditions, CandidateEvaluationOk } from './types';
 
 /**
@@ -83,10 +82,9 @@ function evaluated(candidate: Candidate, conditions: Conditions): CandidateEvalu
 
 /** The candidate's thermal model with heat capacities, and the model current of a circuit current. */
 function transientModel(candidate: Candidate, conditions: Conditions, evaluation: CandidateEvaluationOk, flags: FlagSet) {
-  const cond = prepareConditions(conditions);
-  const cand = prepareCandidate(candidate, 0, cond);
-  const model = buildThermalModel(cand, cond);
-  const acFactor = acFactorFunction(cand, cond)(evaluation.limit.temperatureC).factor;
+  const ctx = sizingContext(candidate, prepareConditions(conditions), 0);
+  const { cand, cond, model } = ctx;
+  const acFactor = ctx.acFn(evaluation.limit.temperatureC).factor;
   const base = model.problem(0, acFactor, 'coarse');
   const metal = CONDUCTOR_VOLUMETRIC_HEAT_CAPACITY[cand.material];
   const density = cand.constants.densityKgPerM3;
@@ -105,8 +103,7 @@ function transientModel(candidate: Candidate, conditions: Conditions, evaluation
   if (cond.placement === 'buried') {
     flags.add('HEAT_CAPACITY_ASSUMED', 'The soil is taken as a steady thermal resistance: it stores no heat, so the cable heats faster than in real ground (cautious).');
   }
-  const derating = cond.groupingFactor * cond.enclosureFactor;
-  const toModel = (circuitA: number) => (circuitA / cand.conductorsPerPhase / derating) * model.currentScale;
+  const toModel = (circuitA: number) => toModelCurrent(ctx, circuitA);
   return { problem, toModel };
 }
 
@@ -212,18 +209,18 @@ export interface AlongRunResult {
 export function alongRunCheck(candidate: Candidate, conditions: Conditions, inputs: AlongRunInputs): AlongRunResult {
   if (candidate.kind !== 'bar') throw new ElectricalInputError('candidate.kind', 'the run along the length is for bars');
   const evaluation = evaluated(candidate, conditions);
-  const cond = prepareConditions(conditions);
-  const cand = prepareCandidate(candidate, 0, cond);
+  const ctx = sizingContext(candidate, prepareConditions(conditions), 0);
+  const { cand, cond } = ctx;
   const flags = new FlagSet();
   const limitC = evaluation.limit.temperatureC;
-  if (cond.placement !== 'bar-on-edge' && cond.placement !== 'bar-flat') {
+  if (cand.kind !== 'bar' || (cond.placement !== 'bar-on-edge' && cond.placement !== 'bar-flat')) {
     throw new ElectricalInputError('conditions.installation', 'the run along the length needs a bar on edge or laid flat');
   }
-  const acFactor = acFactorFunction(cand, cond)(limitC).factor;
+  const acFactor = ctx.acFn(limitC).factor;
   const r = solveBarRun({
     lengthM: inputs.lengthM,
-    widthM: cand.widthM!,
-    thicknessM: cand.thicknessM!,
+    widthM: cand.widthM,
+    thicknessM: cand.thicknessM,
     barsPerPhase: cand.barsPerPhase,
     // One pack per parallel run; derating as in the steady model.
     currentA: conditions.designCurrentA / cand.parallel / (cond.groupingFactor * cond.enclosureFactor),

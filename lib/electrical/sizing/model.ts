@@ -17,13 +17,14 @@ import {
   busBarProblem,
   buriedExternalThermalResistance,
   cableProblem,
+  solveSteady,
   type Boundary,
   type SteadyResult,
   type SurfaceBoundary,
   type SurfaceDiagnostics,
   type ThermalProblem,
 } from '../../thermal';
-import type { PreparedCandidate, PreparedConditions } from './prepare';
+import type { PreparedBar, PreparedCable, PreparedCandidate, PreparedConditions } from './prepared';
 import type { GoverningLimit, HeatProfile, ProfileLayer } from './types';
 
 /** Cells per layer while searching for the ampacity. Coverings carry no source, so the
@@ -71,10 +72,33 @@ export interface ThermalModel {
   buriedT4?: number;
   /** The problem at a model current and AC factor. */
   problem(modelCurrentA: number, acFactor: number, mesh: Mesh): ThermalProblem;
+  /** The problem on a mesh, prepared once, solved at any model current and AC factor. */
+  solver(mesh: Mesh): PreparedSolve;
+}
+
+/** A thermal problem whose geometry and surroundings are fixed, solved at many currents. */
+export interface PreparedSolve {
+  at(modelCurrentA: number, acFactor: number): SteadyResult;
+}
+
+function preparedSolve(problem: ThermalProblem): PreparedSolve {
+  return { at: (current, acFactor) => solveSteady(withCurrent(problem, current, acFactor)) };
 }
 
 export function buildThermalModel(c: PreparedCandidate, k: PreparedConditions): ThermalModel {
   return c.kind === 'cable' ? cableModel(c, k) : barModel(c, k);
+}
+
+/** Prepared solves of the two meshes, each made on first use. */
+function solversOf(coarse: ThermalProblem, fine: ThermalProblem): (mesh: Mesh) => PreparedSolve {
+  let coarseSolve: PreparedSolve | undefined;
+  let fineSolve: PreparedSolve | undefined;
+  return (mesh) => (mesh === 'coarse' ? (coarseSolve ??= preparedSolve(coarse)) : (fineSolve ??= preparedSolve(fine)));
+}
+
+function jouleSourceOf(problem: ThermalProblem): { area: number; rho20: number } {
+  if (problem.source.kind !== 'joule') throw new Error('the conductor model must carry a Joule source');
+  return problem.source;
 }
 
 /** A problem with the same geometry and surroundings at another current and AC factor. */
@@ -88,10 +112,10 @@ function withCurrent(base: ThermalProblem, current: number, acFactor: number): T
  * cable enters as its equivalent conductor: diameter d_c·√n, carrying n·I with R₂₀/n, so that
  * J and the heat per metre n·I²R are those of the n loaded cores (flagged by the caller).
  */
-function cableModel(c: PreparedCandidate, k: PreparedConditions): ThermalModel {
+function cableModel(c: PreparedCable, k: PreparedConditions): ThermalModel {
   const n = c.loadedCores;
-  const dEq = (c.conductorDiameterM as number) * Math.sqrt(n);
-  const De = c.outerDiameterM as number;
+  const dEq = c.conductorDiameterM * Math.sqrt(n);
+  const De = c.outerDiameterM;
   const solarFlux = k.solar ? (k.solar.absorptivity * k.solar.irradianceWPerM2) / Math.PI : 0;
   const build = (mesh: Mesh): ThermalProblem => {
     const cells = mesh === 'coarse' ? COARSE_CELLS : FINE_CELLS;
@@ -131,7 +155,7 @@ function cableModel(c: PreparedCandidate, k: PreparedConditions): ThermalModel {
   };
   const coarse = build('coarse');
   const fine = build('fine');
-  const source = coarse.source as { area: number; rho20: number };
+  const source = jouleSourceOf(coarse);
   const layers: ModelLayer[] = [
     { name: 'conductor', thicknessM: dEq / 2, conductivity: c.constants.thermalConductivityWPerMK, generating: true },
     ...c.layers.map((l) => ({ name: l.name, thicknessM: l.thicknessM, conductivity: l.conductivityWPerMK, generating: false, limitC: l.limitC })),
@@ -157,6 +181,7 @@ function cableModel(c: PreparedCandidate, k: PreparedConditions): ThermalModel {
     faces: [{ side: 'outer', exchangeAreaPerM: Math.PI * De, coveringConductance: 1 / coveringResistance, absorbedFlux: k.placement === 'buried' ? 0 : solarFlux }],
     buriedT4,
     problem: (current, acFactor, mesh) => withCurrent(mesh === 'coarse' ? coarse : fine, current, acFactor),
+    solver: solversOf(coarse, fine),
   };
 }
 
@@ -167,9 +192,9 @@ function cableModel(c: PreparedCandidate, k: PreparedConditions): ThermalModel {
  * is added as an absorbed flux: the projected width w per metre, on the upper face of a flat bar
  * or shared by the two faces of a bar on edge.
  */
-function barModel(c: PreparedCandidate, k: PreparedConditions): ThermalModel {
-  const w = c.widthM as number;
-  const t = c.thicknessM as number;
+function barModel(c: PreparedBar, k: PreparedConditions): ThermalModel {
+  const w = c.widthM;
+  const t = c.thicknessM;
   const coating = c.layers[0];
   const build = (mesh: Mesh): ThermalProblem => {
     const cells = mesh === 'coarse' ? COARSE_CELLS : FINE_CELLS;
@@ -211,7 +236,7 @@ function barModel(c: PreparedCandidate, k: PreparedConditions): ThermalModel {
   const areaFactor = (coarse.outer as SurfaceBoundary).areaFactor ?? 1;
   const fluxOf = (b: Boundary) => (b.kind === 'surface' ? b.absorbedFlux ?? 0 : 0);
   const coveringConductance = coating ? (coating.conductivityWPerMK * w) / coating.thicknessM : Number.POSITIVE_INFINITY;
-  const source = coarse.source as { area: number; rho20: number };
+  const source = jouleSourceOf(coarse);
   const bar: ModelLayer = { name: 'bar', thicknessM: t, conductivity: c.constants.thermalConductivityWPerMK, generating: true };
   const layers: ModelLayer[] = coating
     ? [
@@ -234,6 +259,7 @@ function barModel(c: PreparedCandidate, k: PreparedConditions): ThermalModel {
       { side: 'outer', exchangeAreaPerM: w * areaFactor, coveringConductance, absorbedFlux: fluxOf(coarse.outer) },
     ],
     problem: (current, acFactor, mesh) => withCurrent(mesh === 'coarse' ? coarse : fine, current, acFactor),
+    solver: solversOf(coarse, fine),
   };
 }
 

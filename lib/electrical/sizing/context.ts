@@ -1,0 +1,96 @@
+/**
+ * One candidate ready to be solved: its prepared inputs, its thermal model, its AC-factor
+ * function and its flags. Built once per candidate per comparison; every check (ampacity, design
+ * point, hot spot at another current) solves through `solveAt` without re-validating anything.
+ */
+import { solveSteady, type Boundary, type SteadyResult, type ThermalProblem } from '../../thermal';
+import { ElectricalInputError, SizingError } from '../errors';
+import { acFactorFunction, type AcFactorFunction } from './acFactor';
+import { FlagSet, fmt } from './flags';
+import { buildThermalModel, type Mesh, type ThermalModel } from './model';
+import { prepareCandidate } from './prepareCandidate';
+import { conditionFlags } from './prepareConditions';
+import type { PreparedCandidate, PreparedConditions } from './prepared';
+import type { Candidate } from './types';
+
+export interface SizingContext {
+  cand: PreparedCandidate;
+  cond: PreparedConditions;
+  model: ThermalModel;
+  acFn: AcFactorFunction;
+  flags: FlagSet;
+  /** Heat-balance solves so far (reported with the result). */
+  solves: number;
+}
+
+/** Prepares one candidate under conditions prepared once for the whole comparison. */
+export function sizingContext(candidate: Candidate, cond: PreparedConditions, index: number, flags = new FlagSet()): SizingContext {
+  conditionFlags(cond, flags);
+  const cand = prepareCandidate(candidate, index, cond, flags);
+  return { cand, cond, model: buildThermalModel(cand, cond), acFn: acFactorFunction(cand, cond), flags, solves: 0 };
+}
+
+/** The user-entered factors scale the current a conductor may carry (both flagged). */
+function deratingOf(ctx: SizingContext): number {
+  return ctx.cond.groupingFactor * ctx.cond.enclosureFactor;
+}
+
+/** Circuit current per phase → current in the thermal model's conductor (after derating). */
+export function toModelCurrent(ctx: SizingContext, circuitA: number): number {
+  return (circuitA / ctx.cand.conductorsPerPhase / deratingOf(ctx)) * ctx.model.currentScale;
+}
+
+/** Model current → circuit current per phase. */
+export function fromModelCurrent(ctx: SizingContext, modelA: number): number {
+  return (modelA / ctx.model.currentScale) * ctx.cand.conductorsPerPhase * deratingOf(ctx);
+}
+
+/** Model current → the real current in one conductor (core or bar). */
+export function modelToConductorCurrent(ctx: SizingContext, modelA: number): number {
+  return modelA / ctx.model.currentScale / deratingOf(ctx);
+}
+
+/**
+ * Without current and without sun there is no heat flow at all: the exact steady state is the
+ * surroundings' temperature everywhere, whatever the surface law. A linear surface gives it in
+ * one exact pass, where a convection correlation (h → 0 as ΔT → 0) leaves the solver nothing to
+ * iterate on.
+ */
+function zeroFlowProblem(problem: ThermalProblem): ThermalProblem {
+  const still = (b: Boundary): Boundary =>
+    b.kind === 'surface' && !(b.absorbedFlux && b.absorbedFlux > 0)
+      ? { kind: 'surface', ambient: b.ambient, h: 1, emissivity: 0, ...(b.areaFactor !== undefined ? { areaFactor: b.areaFactor } : {}) }
+      : b;
+  return { ...problem, inner: still(problem.inner), outer: still(problem.outer) };
+}
+
+/** One heat-balance solve of the candidate's model. */
+export function solveAt(ctx: SizingContext, modelCurrentA: number, acFactor: number, mesh: Mesh): SteadyResult {
+  ctx.solves++;
+  try {
+    const result =
+      modelCurrentA === 0 ? solveSteady(zeroFlowProblem(ctx.model.problem(0, acFactor, mesh))) : ctx.model.solver(mesh).at(modelCurrentA, acFactor);
+    if (!result.converged && result.runaway && !(result.runaway.current !== undefined && result.runaway.current > 0)) {
+      // "No steady state even at 0 A" is impossible physically (with no current the conductor
+      // settles at the surroundings' temperature, or above it in the sun): this is the solver
+      // failing to settle, not a runaway. Say so rather than report a runaway.
+      throw new SizingError(
+        'SOLVER_NOT_CONVERGED',
+        `the heat-balance solver could not settle at ${fmt(modelCurrentA)} A (it reports no steady state even at 0 A, which cannot be true); no temperature is reported`,
+      );
+    }
+    return result;
+  } catch (e) {
+    if (e instanceof Error && e.name === 'ThermalInputError') {
+      const field = (e as Error & { field?: string }).field;
+      throw new ElectricalInputError(`thermal.${field ?? 'problem'}`, e.message);
+    }
+    throw e;
+  }
+}
+
+/** AC resistance of the MODEL conductor per metre at a temperature (for the closed form). */
+export function modelResistance(ctx: SizingContext, temperatureC: number): number {
+  const { model, cand } = ctx;
+  return ((model.rho20 * (1 + cand.alpha20 * (temperatureC - 20))) / model.areaM2) * ctx.acFn(temperatureC).factor;
+}

@@ -1,0 +1,89 @@
+/**
+ * Every sentence the steady sizing raises as an assumption flag, in one place: a reviewer reads
+ * these words, so they are written once and kept consistent. Each function takes the numbers
+ * the sentence needs and returns the message; `flags.ts` holds the codes, severities and titles.
+ */
+import { fmt } from './flags';
+
+export const DEFAULT_TEXT = {
+  groundAmbient: (c: number) =>
+    `No ground temperature was entered; ${c} °C (the IEC 60364-5-52 reference ground temperature, from memory) was assumed.`,
+  airAmbient: (c: number, basis: string) => `No ambient temperature was entered; ${c} °C (${basis}, from memory) was assumed.`,
+  soil: (parts: string[]) =>
+    `Not entered, so assumed: ${parts.join(' and ')} (IEC 60364-5-52 reference conditions, from memory); site values may be worse.`,
+  cableEmissivity: (e: number) => `The cable surface emissivity was not given; ${e} (common for PVC and PE jackets) was assumed.`,
+  coatingEmissivity: (e: number) => `The coating's emissivity was not given; ${e} (common for paints) was assumed.`,
+  bareBarEmissivity: (e: number) => `The bar's emissivity was not given; ${e} (bright metal, the cautious end) was assumed.`,
+  solarAbsorptivity: (a: number) =>
+    `The surface's solar absorptivity was not given; ${a} (the highest value in IEC 60287-2-1 Table 4, from memory) was assumed.`,
+  proximitySpacing: (spacingM: number) =>
+    `No cable spacing was entered; for the proximity effect the cables are taken as touching (axis spacing ${fmt(spacingM)} m), the cautious case.`,
+  reactance: () => 'The voltage drop uses the Annex G default reactance of 0.08 mΩ/m per run.',
+  barReactance: () =>
+    "The voltage drop uses Annex G's cable reactance of 0.08 mΩ/m; a bus bar's reactance depends on its phase spacing and is often higher — enter the maker's value.",
+} as const;
+
+export const ENTERED_TEXT = {
+  grouping: (factor: number) =>
+    `A grouping derating factor of ${fmt(factor)} was entered by the user and applied to the rating; its source must be checked.`,
+  enclosure: (factor: number) =>
+    `An enclosure derating factor of ${fmt(factor)} was entered by the user and applied to the rating; the heating of the enclosure air is not computed.`,
+  surfaceCoefficient: (h: number) =>
+    `A fixed surface heat-transfer coefficient of ${fmt(h)} W/(m²·K) (convection and radiation together) was entered instead of the correlations.`,
+  wind: (speed: number) => `Cooling by an air speed of ${fmt(speed)} m/s is credited; in still air the conductor runs hotter.`,
+  userLimitAboveRating: (userC: number, ratingC: number, what: string) =>
+    `The user raised the temperature limit to ${fmt(userC)} °C, above the ${fmt(ratingC)} °C rating of ${what}; the raised rating needs the maker's evidence.`,
+  dataFromMemory: (label: string) =>
+    `Some data of ${label} were entered from memory rather than read from a datasheet or standard; check them against the source.`,
+  barAcRatio: (ratio: number) => `R_ac/R_dc = ${fmt(ratio, 4)} was entered from the bar maker's data.`,
+} as const;
+
+export const MODEL_TEXT = {
+  multicore: (cores: number, loadedCores: number) =>
+    `This ${cores}-core cable is modelled as one round conductor of the ${loadedCores} loaded cores' total section inside the listed coverings; the real heat path between cores differs (IEC 60287-2-1 uses a geometric factor).`,
+  sheathLosses: () =>
+    'The cable has a metallic screen or armour; currents induced in it (IEC 60287-1-1 loss factors λ₁, λ₂) are not included, which is optimistic for single-core cables bonded at both ends.',
+  cableParallelSharing: (parallel: number) =>
+    `The current is assumed to divide equally between the ${parallel} parallel cables of each phase; this needs equal lengths and a symmetrical layout.`,
+  barParallelSharing: (parallel: number) =>
+    `The current is assumed to divide equally between the ${parallel} parallel runs of each phase; this needs equal impedances.`,
+  mutualHeating: (cables: number, spacingM: number | undefined) =>
+    `The ${cables} cables of this circuit lie ${spacingM === undefined ? 'touching (no spacing entered)' : `${fmt(spacingM)} m apart (axis to axis), closer than two diameters`}, but each is modelled alone and no grouping factor was entered; they heat one another.`,
+  barEdges: (factor: number) =>
+    `The heat leaving the bar's narrow edges is lumped onto its wide faces by scaling their area by (w + t)/w = ${fmt(factor, 4)}.`,
+  multiBarInnerFaces: (barsPerPhase: number) =>
+    `Each of the ${barsPerPhase} bars per phase is modelled with both faces free, and the current is assumed to divide equally; inner faces of a pack lose less heat and AC current crowds into the outer bars, so the real pack runs hotter.`,
+  barAcLowerBound: (ratio: number) =>
+    `R_ac/R_dc = ${fmt(ratio, 4)} comes from the plane-conductor skin-effect formula, which ignores current crowding at the bar edges and the proximity of other bars and phases, so the true ratio is higher; enter the bar maker's ratio or accept this lower bound.`,
+  acFormulaRange: (xs: number, xp: number | null) =>
+    `x_s = ${fmt(xs)}${xp === null ? '' : `, x_p = ${fmt(xp)}`}: beyond 2.8 the IEC 60287-1-1 skin-effect expression switches to its large-conductor forms and the proximity expression is outside its stated range; for such large conductors use the maker's AC resistance.`,
+  correlationRange: (correlation: string, group: string, side: string, where: string) =>
+    `The ${correlation} correlation was used outside its stated range (${group}) at the ${side} surface ${where}; the surface heat transfer there is an extrapolation.`,
+  crossCheck: (solverA: number, closedFormA: number, differencePercent: number, limitPercent: number) =>
+    `The solver's ampacity (${fmt(solverA, 4)} A) differs from the IEC 60287-style closed form (${fmt(closedFormA, 4)} A) by ${fmt(differencePercent, 2)} %, more than ${limitPercent} %; the closed form takes the conductor as isothermal and its coverings as ideal cylinders, so a large difference means the heat path deserves a second look.`,
+} as const;
+
+export const RESULT_TEXT = {
+  overLimit: (currentA: number, what: string, limitC: number, temperatureC: number) =>
+    `At ${fmt(currentA, 4)} A the ${what} limit of ${fmt(limitC, 4)} °C is exceeded: ${fmt(temperatureC, 4)} °C.`,
+  marginUnder10: (marginK: number, marginPercent: number, allowedK: number) =>
+    `The margin is ${fmt(marginK, 3)} K, ${fmt(marginPercent, 2)} % of the allowed rise of ${fmt(allowedK, 3)} K — under 10 %, so errors in the inputs could take it over the limit.`,
+  nearRunaway: (ratio: number) =>
+    `The design current is ${fmt(100 * ratio, 3)} % of the current at which no steady state exists; the rise of resistance with temperature has at least doubled the heating, so small changes in the inputs move the temperature a lot.`,
+  runaway: (currentA: number, onsetA: number | undefined) =>
+    `At ${fmt(currentA, 4)} A there is no steady state: the conductor heats without bound${onsetA !== undefined ? ` (onset near ${fmt(onsetA, 4)} A)` : ''}.`,
+  soilDrying: (surfaceC: number, thresholdC: number) =>
+    `The cable surface reaches ${fmt(surfaceC, 3)} °C; above about ${thresholdC} °C moist soil can dry out and its thermal resistivity rise (IEC 60287 two-zone practice, from memory), which is not modelled.`,
+  voltageDropExceeded: (percent: number, allowedPercent: number) =>
+    `The voltage drop is ${fmt(percent, 3)} % of U₀, above the allowed ${fmt(allowedPercent, 3)} %.`,
+} as const;
+
+export const SHORT_CIRCUIT_TEXT = {
+  notChecked: () => 'No prospective fault current and clearing time were entered, so the short-circuit withstand was not checked.',
+  noLimit: (kind: 'cable' | 'bar') =>
+    `No short-circuit temperature limit is known for ${kind === 'cable' ? 'the insulation' : 'the bar, its coating or supports'}, so the fault withstand was not checked.`,
+  longDuration: (durationS: number, maxS: number) =>
+    `The fault lasts ${fmt(durationS)} s, beyond the ${maxS} s range of the adiabatic method; the computed final temperature over-estimates the real one (cautious).`,
+  exceeded: (a: { currentA: number; durationS: number; initialC: number; finalC: number | null; limitC: number; minimumSectionMm2?: number }) =>
+    `A fault of ${fmt(a.currentA, 4)} A for ${fmt(a.durationS, 3)} s heats the conductor from ${fmt(a.initialC, 4)} °C to ${a.finalC === null ? 'beyond any meaningful temperature' : `${fmt(a.finalC, 4)} °C`}, above the ${fmt(a.limitC, 4)} °C short-circuit limit${a.minimumSectionMm2 !== undefined ? `; at least ${fmt(a.minimumSectionMm2, 4)} mm² per phase is needed` : `; the limit leaves no room for fault heating above ${fmt(a.initialC, 4)} °C, so no section suffices`}.`,
+} as const;

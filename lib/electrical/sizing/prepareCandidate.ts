@@ -1,0 +1,279 @@
+/**
+ * Validation and normalisation of one candidate under prepared conditions, and the assumption
+ * flags that follow from the inputs alone (no solve needed). Every refusal names the field.
+ * The result is a discriminated union (PreparedCable | PreparedBar): nothing after this casts.
+ */
+import { ElectricalInputError, requireInteger, requireNonNegative, requireRange } from '../errors';
+import { materialConstants, type ConductorMaterialConstants } from '../materials';
+import { toMoney } from '../economics';
+import { DEFAULT_TEXT, ENTERED_TEXT, MODEL_TEXT } from './flagText';
+import { FlagSet, fmt } from './flags';
+import type { PreparedBar, PreparedCable, PreparedCandidate, PreparedConditions, PreparedLayer } from './prepared';
+import type { BarCandidate, CableCandidate, Candidate, GoverningLimit, LimitSource } from './types';
+
+/** Jacket emissivity when none is given (PVC/PE, common practice ~0.9). */
+export const DEFAULT_CABLE_EMISSIVITY = 0.9;
+/** Bare bright metal: low emissivity is the cautious guess (less radiation, hotter bar). */
+export const DEFAULT_BARE_BAR_EMISSIVITY = 0.1;
+/** Painted or coated bar surface without a stated emissivity (common practice ~0.9). */
+export const DEFAULT_COATED_BAR_EMISSIVITY = 0.9;
+
+interface Rating {
+  c: number;
+  source: LimitSource;
+  layer?: string;
+}
+
+/**
+ * The user's own limit applied to a list of material ratings — the one place the rule lives:
+ * the user's limit caps every rating; when it is RAISED it replaces the coverings' ratings (not a
+ * terminal's), flagged against the lowest rating it exceeds. Returns the ratings still in force
+ * (the user's own limit among them).
+ */
+function underUserLimit(ratings: Rating[], conditions: PreparedConditions, flags: FlagSet | undefined): Rating[] {
+  const user = conditions.userLimitC;
+  if (user === undefined) return ratings;
+  if (!conditions.raiseMaterialLimit) return [...ratings, { c: user, source: 'user' }];
+  const replaced = ratings.filter((r) => r.source !== 'terminal');
+  const exceeded = replaced.filter((r) => r.c < user);
+  if (exceeded.length > 0 && flags) {
+    const worst = exceeded.reduce((a, b) => (a.c < b.c ? a : b));
+    flags.add('USER_LIMIT_ABOVE_RATING', ENTERED_TEXT.userLimitAboveRating(user, worst.c, worst.layer ?? worst.source), { userLimitC: user, ratingC: worst.c });
+  }
+  return [...ratings.filter((r) => r.source === 'terminal'), { c: user, source: 'user' }];
+}
+
+function lowestRating(ratings: Rating[], field: string): GoverningLimit {
+  if (ratings.length === 0) throw new ElectricalInputError(field, 'no temperature limit is known: give the covering or terminal limit, or a user limit');
+  const min = ratings.reduce((a, b) => (b.c < a.c ? b : a));
+  return min.layer === undefined ? { temperatureC: min.c, source: min.source } : { temperatureC: min.c, source: min.source, layer: min.layer };
+}
+
+function limitOf(value: unknown, field: string): number | undefined {
+  return value === undefined || value === null ? undefined : requireRange(value, field, -50, 1000);
+}
+
+interface CommonPrep {
+  index: number;
+  id: string;
+  label: string;
+  constants: Readonly<ConductorMaterialConstants>;
+  alpha20: number;
+  r20: number;
+  parallel: number;
+  f: (name: string) => string;
+  conditions: PreparedConditions;
+  flags?: FlagSet;
+}
+
+export function prepareCandidate(candidate: Candidate, index: number, conditions: PreparedConditions, flags?: FlagSet): PreparedCandidate {
+  const base = `candidates[${index}]`;
+  const f = (name: string) => `${base}.${name}`;
+  if (candidate === null || typeof candidate !== 'object') throw new ElectricalInputError(base, 'must be an object');
+  const constants = materialConstants(candidate.material, f('material'));
+  const alpha20 = candidate.alpha20PerK === undefined ? constants.alpha20PerK : requireRange(candidate.alpha20PerK, f('alpha20PerK'), 0, 0.01);
+  const r20 = requireRange(candidate.r20OhmPerM, f('r20OhmPerM'), 0, 1, { minExclusive: true });
+  const parallel = candidate.parallel === undefined ? 1 : requireInteger(candidate.parallel, f('parallel'), 1, 100);
+  const id = candidate.id ?? `candidate-${index + 1}`;
+  if (candidate.costs !== undefined) {
+    if (candidate.costs.conductorPricePerKg !== undefined) toMoney(candidate.costs.conductorPricePerKg, f('costs.conductorPricePerKg'));
+    if (candidate.costs.pricePerM !== undefined) toMoney(candidate.costs.pricePerM, f('costs.pricePerM'));
+    if (candidate.costs.densityKgPerM3 !== undefined) requireRange(candidate.costs.densityKgPerM3, f('costs.densityKgPerM3'), 100, 25_000);
+  }
+  const memory = candidate.dataFromMemory === true || (candidate.sourceNotes ?? []).some((n) => /from memory/i.test(String(n)));
+  if (memory && flags) flags.add('DATA_FROM_MEMORY', ENTERED_TEXT.dataFromMemory(candidate.label ?? id));
+
+  const common: CommonPrep = { index, id, label: candidate.label ?? id, constants, alpha20, r20, parallel, f, conditions, flags };
+  if (candidate.kind === 'cable') return prepareCable(candidate, common);
+  if (candidate.kind === 'bar') return prepareBar(candidate, common);
+  throw new ElectricalInputError(f('kind'), `must be 'cable' or 'bar' (got ${String((candidate as { kind?: unknown }).kind)})`);
+}
+
+function prepareCable(cand: CableCandidate, p: CommonPrep): PreparedCable {
+  const { f, conditions, flags } = p;
+  if (conditions.placement === 'bar-on-edge' || conditions.placement === 'bar-flat') {
+    throw new ElectricalInputError('conditions.installation.kind', `a cable cannot be installed as '${conditions.placement}'`);
+  }
+  const sectionMm2 = requireRange(cand.sectionMm2, f('sectionMm2'), 0, 5000, { minExclusive: true });
+  const dc = requireRange(cand.conductorDiameterM, f('conductorDiameterM'), 0, 0.2, { minExclusive: true });
+  const cores = cand.cores === undefined ? 1 : requireInteger(cand.cores, f('cores'), 1, 5);
+  if (!Array.isArray(cand.layers) || cand.layers.length === 0) {
+    throw new ElectricalInputError(f('layers'), 'a cable needs at least its insulation layer');
+  }
+  const emissivityAssumed = cand.emissivity === undefined;
+  const emissivity = emissivityAssumed ? DEFAULT_CABLE_EMISSIVITY : requireRange(cand.emissivity, f('emissivity'), 0, 1);
+  const ks = cand.ks === undefined ? undefined : requireRange(cand.ks, f('ks'), 0, 1.5, { minExclusive: true });
+  const kp = cand.kp === undefined ? undefined : requireRange(cand.kp, f('kp'), 0, 1.5, { minExclusive: true });
+
+  const layers: PreparedLayer[] = [];
+  const shortCircuitLimits: (number | undefined)[] = [];
+  let hasMetallicLayer = false;
+  cand.layers.forEach((l, k) => {
+    const lf = (n: string) => f(`layers[${k}].${n}`);
+    if (l === null || typeof l !== 'object') throw new ElectricalInputError(f(`layers[${k}]`), 'must be an object');
+    const thicknessM = requireRange(l.thicknessM, lf('thicknessM'), 0, 0.5, { minExclusive: true });
+    const rhoT = requireRange(l.thermalResistivityKmPerW, lf('thermalResistivityKmPerW'), 0, 1e4, { minExclusive: true });
+    const limit = limitOf(l.continuousLimitC, lf('continuousLimitC'));
+    shortCircuitLimits.push(limitOf(l.shortCircuitLimitC, lf('shortCircuitLimitC')));
+    if (l.role === 'screen' || l.role === 'armour') hasMetallicLayer = true;
+    layers.push({
+      name: typeof l.name === 'string' && l.name.trim() ? l.name : `layer ${k + 1}`,
+      role: l.role ?? (k === 0 ? 'insulation' : 'other'),
+      thicknessM,
+      conductivityWPerMK: 1 / rhoT,
+      limitC: limit,
+      contact: k === 0,
+    });
+  });
+  // A conductor-screen layer without a limit passes "contact" to the next layer with one; the
+  // fault limit is the first layer's, else that contact layer's.
+  const contactIndex = layers.findIndex((l) => l.limitC !== undefined);
+  const contactRatings: Rating[] = [];
+  if (contactIndex >= 0) {
+    contactRatings.push({ c: layers[contactIndex].limitC as number, source: 'insulation', layer: layers[contactIndex].name });
+    for (let k = 0; k <= contactIndex; k++) layers[k].contact = true;
+  }
+  const shortCircuitLimitC = shortCircuitLimits[0] ?? (contactIndex >= 0 ? shortCircuitLimits[contactIndex] : undefined);
+  const contactLimit = lowestRating(underUserLimit(contactRatings, conditions, flags), f('layers[0].continuousLimitC'));
+  // Outer layers keep their own limits, under the same user rule.
+  for (const l of layers) {
+    if (l.contact || l.limitC === undefined) {
+      l.limitC = undefined;
+      continue;
+    }
+    const inForce = underUserLimit([{ c: l.limitC, source: 'layer', layer: l.name }], conditions, flags);
+    // A raised user limit replaces the covering's rating: the layer keeps no limit of its own.
+    l.limitC = conditions.raiseMaterialLimit ? undefined : Math.min(...inForce.map((r) => r.c));
+  }
+
+  const loadedCores = cores === 1 ? 1 : Math.min(cores, conditions.phases === 3 ? 3 : 2);
+  const equivalentDiameter = dc * Math.sqrt(loadedCores);
+  const outerDiameterM = equivalentDiameter + 2 * layers.reduce((s, l) => s + l.thicknessM, 0);
+  if (conditions.buried && conditions.buried.depthM <= outerDiameterM / 2) {
+    throw new ElectricalInputError('conditions.installation.depthM', `the cable axis must be deeper than its radius (${fmt(outerDiameterM / 2)} m)`);
+  }
+
+  if (flags) {
+    if (emissivityAssumed && conditions.surfaceCoefficientWPerM2K === undefined && conditions.placement !== 'buried') {
+      flags.add('EMISSIVITY_ASSUMED', DEFAULT_TEXT.cableEmissivity(DEFAULT_CABLE_EMISSIVITY));
+    }
+    if (cores > 1) flags.add('MULTICORE_APPROXIMATION', MODEL_TEXT.multicore(cores, loadedCores), { cores, loadedCores });
+    if (hasMetallicLayer && conditions.frequencyHz > 0) flags.add('SHEATH_LOSSES_NOT_INCLUDED', MODEL_TEXT.sheathLosses());
+    if (p.parallel > 1) flags.add('PARALLEL_SHARING_ASSUMED', MODEL_TEXT.cableParallelSharing(p.parallel), { parallel: p.parallel });
+    const cablesNear = (cores === 1 ? (conditions.phases === 3 ? 3 : 2) : 1) * p.parallel;
+    if (cablesNear > 1 && conditions.groupingFactor === 1 && conditions.enclosureFactor === 1) {
+      const spacing = conditions.spacingM;
+      if (spacing === undefined || spacing < 2 * outerDiameterM) {
+        flags.add('MUTUAL_HEATING_NOT_MODELLED', MODEL_TEXT.mutualHeating(cablesNear, spacing), { cables: cablesNear });
+      }
+    }
+  }
+
+  return {
+    kind: 'cable',
+    index: p.index,
+    id: p.id,
+    label: p.label,
+    source: cand,
+    material: cand.material,
+    constants: p.constants,
+    alpha20: p.alpha20,
+    r20: p.r20,
+    conductorsPerPhase: p.parallel,
+    parallel: p.parallel,
+    sectionPerConductorMm2: sectionMm2,
+    sectionPerPhaseMm2: sectionMm2 * p.parallel,
+    contactLimit,
+    layers,
+    emissivity,
+    shortCircuitLimitC,
+    costs: cand.costs,
+    cores,
+    loadedCores,
+    conductorDiameterM: dc,
+    outerDiameterM,
+    ...(ks !== undefined ? { ks } : {}),
+    ...(kp !== undefined ? { kp } : {}),
+    hasMetallicLayer,
+  };
+}
+
+function prepareBar(cand: BarCandidate, p: CommonPrep): PreparedBar {
+  const { f, conditions, flags } = p;
+  if (conditions.placement === 'buried' || conditions.placement === 'cable-in-air') {
+    throw new ElectricalInputError('conditions.installation.kind', `a bus bar cannot be installed as '${conditions.placement}'`);
+  }
+  const widthM = requireRange(cand.widthM, f('widthM'), 0, 1, { minExclusive: true });
+  const thicknessM = requireRange(cand.thicknessM, f('thicknessM'), 0, 0.2, { minExclusive: true });
+  const barsPerPhase = cand.barsPerPhase === undefined ? 1 : requireInteger(cand.barsPerPhase, f('barsPerPhase'), 1, 20);
+  if (cand.barGapM !== undefined) requireNonNegative(cand.barGapM, f('barGapM'));
+  const acResistanceRatio = cand.acResistanceRatio === undefined ? undefined : requireRange(cand.acResistanceRatio, f('acResistanceRatio'), 1, 10);
+  const terminal = limitOf(cand.terminalLimitC, f('terminalLimitC'));
+  const ratings: Rating[] = [];
+  const layers: PreparedLayer[] = [];
+  let emissivity: number;
+  let emissivityAssumed: boolean;
+  let shortCircuitLimitC = limitOf(cand.shortCircuitLimitC, f('shortCircuitLimitC'));
+  if (cand.coating !== undefined) {
+    const c = cand.coating;
+    const cf = (n: string) => f(`coating.${n}`);
+    const name = c.name && c.name.trim() ? c.name : 'coating';
+    const coatingLimit = limitOf(c.continuousLimitC, cf('continuousLimitC'));
+    const coatingSc = limitOf(c.shortCircuitLimitC, cf('shortCircuitLimitC'));
+    if (coatingSc !== undefined) shortCircuitLimitC = shortCircuitLimitC === undefined ? coatingSc : Math.min(shortCircuitLimitC, coatingSc);
+    layers.push({
+      name,
+      role: 'coating',
+      thicknessM: requireRange(c.thicknessM, cf('thicknessM'), 0, 0.05, { minExclusive: true }),
+      conductivityWPerMK: 1 / requireRange(c.thermalResistivityKmPerW, cf('thermalResistivityKmPerW'), 0, 1e4, { minExclusive: true }),
+      contact: true,
+    });
+    if (coatingLimit !== undefined) ratings.push({ c: coatingLimit, source: 'coating', layer: name });
+    emissivityAssumed = c.emissivity === undefined;
+    emissivity = emissivityAssumed ? DEFAULT_COATED_BAR_EMISSIVITY : requireRange(c.emissivity, cf('emissivity'), 0, 1);
+  } else {
+    emissivityAssumed = cand.emissivity === undefined;
+    emissivity = emissivityAssumed ? DEFAULT_BARE_BAR_EMISSIVITY : requireRange(cand.emissivity, f('emissivity'), 0, 1);
+  }
+  if (terminal !== undefined) ratings.push({ c: terminal, source: 'terminal' });
+  const contactLimit = lowestRating(underUserLimit(ratings, conditions, flags), f('terminalLimitC'));
+
+  if (flags) {
+    if (emissivityAssumed && conditions.surfaceCoefficientWPerM2K === undefined) {
+      flags.add('EMISSIVITY_ASSUMED', cand.coating ? DEFAULT_TEXT.coatingEmissivity(DEFAULT_COATED_BAR_EMISSIVITY) : DEFAULT_TEXT.bareBarEmissivity(DEFAULT_BARE_BAR_EMISSIVITY));
+    }
+    flags.add('BAR_EDGES_LUMPED', MODEL_TEXT.barEdges((widthM + thicknessM) / widthM));
+    if (barsPerPhase > 1) flags.add('MULTI_BAR_INNER_FACES', MODEL_TEXT.multiBarInnerFaces(barsPerPhase), { barsPerPhase });
+    if (p.parallel > 1) flags.add('PARALLEL_SHARING_ASSUMED', MODEL_TEXT.barParallelSharing(p.parallel), { parallel: p.parallel });
+    if (acResistanceRatio !== undefined && conditions.frequencyHz > 0) {
+      flags.add('AC_FACTOR_USER_ENTERED', ENTERED_TEXT.barAcRatio(acResistanceRatio), { ratio: acResistanceRatio });
+    }
+    if (conditions.reactanceOhmPerM === undefined) flags.add('BAR_REACTANCE_ASSUMED', DEFAULT_TEXT.barReactance());
+  }
+  const sectionMm2 = widthM * thicknessM * 1e6;
+  const conductorsPerPhase = p.parallel * barsPerPhase;
+  return {
+    kind: 'bar',
+    index: p.index,
+    id: p.id,
+    label: p.label,
+    source: cand,
+    material: cand.material,
+    constants: p.constants,
+    alpha20: p.alpha20,
+    r20: p.r20,
+    conductorsPerPhase,
+    parallel: p.parallel,
+    sectionPerConductorMm2: sectionMm2,
+    sectionPerPhaseMm2: sectionMm2 * conductorsPerPhase,
+    contactLimit,
+    layers,
+    emissivity,
+    shortCircuitLimitC,
+    costs: cand.costs,
+    widthM,
+    thicknessM,
+    barsPerPhase,
+    ...(acResistanceRatio !== undefined ? { acResistanceRatio } : {}),
+  };
+}

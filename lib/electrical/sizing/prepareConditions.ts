@@ -1,0 +1,219 @@
+/**
+ * Validation and normalisation of the conditions of a comparison, done once per comparison, and
+ * the assumption flags that follow from them alone (no solve needed). Every refusal names the field.
+ */
+import {
+  ElectricalInputError,
+  requireInteger,
+  requireNonNegative,
+  requirePositive,
+  requireRange,
+  requireTemperature,
+} from '../errors';
+import { toMoney } from '../economics';
+import { DEFAULT_TEXT, ENTERED_TEXT, SHORT_CIRCUIT_TEXT } from './flagText';
+import { FlagSet } from './flags';
+import type { PreparedConditions } from './prepared';
+import type { Conditions, EconomicsInputs } from './types';
+
+/** Reference ambients when none is entered (flagged AMBIENT_ASSUMED). */
+export const DEFAULT_AIR_AMBIENT_CABLE_C = 30; // IEC 60364-5-52 reference ambient for air (from memory)
+export const DEFAULT_AIR_AMBIENT_BAR_C = 40; // IEC 61439-1 upper ambient for indoor assemblies (from memory)
+export const DEFAULT_GROUND_C = 20; // IEC 60364-5-52 reference ground temperature (from memory)
+export const DEFAULT_SOIL_RESISTIVITY_KM_PER_W = 2.5; // IEC 60364-5-52 tables for buried cables (from memory)
+/** Solar absorption when none is given: IEC 60287-2-1 Table 4's highest listed value (0.8, from memory). */
+export const DEFAULT_SOLAR_ABSORPTIVITY = 0.8;
+/** Adiabatic short-circuit method range (IEC 60364-4-43, from memory). */
+export const ADIABATIC_MAX_DURATION_S = 5;
+
+function optional<T>(value: T | undefined | null, check: (v: T) => number): number | undefined {
+  return value === undefined || value === null ? undefined : check(value);
+}
+
+// ───────────────────────────── Conditions ─────────────────────────────
+
+export function prepareConditions(c: Conditions): PreparedConditions {
+  if (c === null || typeof c !== 'object') throw new ElectricalInputError('conditions', 'must be an object');
+  const f = (name: string) => `conditions.${name}`;
+  const designCurrentA = requireNonNegative(c.designCurrentA, f('designCurrentA'));
+  const frequencyHz = requireRange(c.frequencyHz, f('frequencyHz'), 0, 1000);
+  if (c.phases !== 1 && c.phases !== 3) throw new ElectricalInputError(f('phases'), `must be 1 or 3 (got ${String(c.phases)})`);
+  const nominalVoltageV = requirePositive(c.nominalVoltageV, f('nominalVoltageV'));
+  const lengthM = requireNonNegative(c.lengthM, f('lengthM'));
+  const powerFactor = requireRange(c.powerFactor, f('powerFactor'), 0, 1);
+  const reactanceOhmPerM = optional(c.reactanceOhmPerM, (v) => requireNonNegative(v, f('reactanceOhmPerM')));
+  const maxVoltageDropPercent = optional(c.maxVoltageDropPercent, (v) => requireRange(v, f('maxVoltageDropPercent'), 0, 100, { minExclusive: true }));
+  const windSpeedMPerS = c.windSpeedMPerS === undefined ? 0 : requireRange(c.windSpeedMPerS, f('windSpeedMPerS'), 0, 60);
+  const groupingFactor =
+    c.groupingFactor === undefined ? 1 : requireRange(c.groupingFactor, f('groupingFactor'), 0, 1, { minExclusive: true });
+  const userLimitC = optional(c.temperatureLimitC, (v) => requireRange(v, f('temperatureLimitC'), -50, 1000));
+  const surfaceCoefficientWPerM2K = optional(c.surfaceCoefficientWPerM2K, (v) =>
+    requireRange(v, f('surfaceCoefficientWPerM2K'), 0, 1e5, { minExclusive: true }),
+  );
+
+  const inst = c.installation as Conditions['installation'] | undefined;
+  if (!inst || typeof inst !== 'object') throw new ElectricalInputError(f('installation'), 'is required');
+  let placement: PreparedConditions['placement'];
+  let enclosureFactor = 1;
+  let buried: PreparedConditions['buried'];
+  switch (inst.kind) {
+    case 'cable-in-air':
+    case 'bar-on-edge':
+    case 'bar-flat':
+      placement = inst.kind;
+      break;
+    case 'buried': {
+      placement = 'buried';
+      const depthM = requirePositive(inst.depthM, f('installation.depthM'));
+      const soilAssumed = inst.soilResistivityKmPerW === undefined;
+      const soilResistivityKmPerW = soilAssumed
+        ? DEFAULT_SOIL_RESISTIVITY_KM_PER_W
+        : requireRange(inst.soilResistivityKmPerW, f('installation.soilResistivityKmPerW'), 0.1, 20);
+      buried = { depthM, soilResistivityKmPerW, soilAssumed, groundAssumed: inst.groundC === undefined };
+      break;
+    }
+    case 'enclosure':
+      if (inst.inside !== 'cable-in-air' && inst.inside !== 'bar-on-edge' && inst.inside !== 'bar-flat') {
+        throw new ElectricalInputError(f('installation.inside'), `must be 'cable-in-air', 'bar-on-edge' or 'bar-flat'`);
+      }
+      placement = inst.inside;
+      enclosureFactor = requireRange(inst.deratingFactor, f('installation.deratingFactor'), 0, 1, { minExclusive: true });
+      break;
+    default:
+      throw new ElectricalInputError(
+        f('installation.kind'),
+        `must be 'cable-in-air', 'bar-on-edge', 'bar-flat', 'buried' or 'enclosure' (got ${String((inst as { kind?: unknown }).kind)})`,
+      );
+  }
+  const arrangement = inst as { formation?: unknown; spacingM?: unknown };
+  const formation = arrangement.formation === undefined ? 'trefoil' : arrangement.formation;
+  if (formation !== 'trefoil' && formation !== 'flat') {
+    throw new ElectricalInputError(f('installation.formation'), `must be 'trefoil' or 'flat'`);
+  }
+  const spacingM = optional(arrangement.spacingM as number | undefined, (v) => requirePositive(v, f('installation.spacingM')));
+
+  // Ambient: ground temperature for buried cables, air otherwise.
+  let ambientC: number;
+  let ambientAssumed = false;
+  if (placement === 'buried') {
+    const g = (inst as { groundC?: number }).groundC;
+    if (g === undefined) {
+      ambientC = DEFAULT_GROUND_C;
+      ambientAssumed = true;
+    } else ambientC = requireTemperature(g, f('installation.groundC'));
+  } else if (c.ambientC === undefined) {
+    ambientC = placement === 'cable-in-air' ? DEFAULT_AIR_AMBIENT_CABLE_C : DEFAULT_AIR_AMBIENT_BAR_C;
+    ambientAssumed = true;
+  } else {
+    ambientC = requireRange(c.ambientC, f('ambientC'), -60, 200);
+  }
+
+  let solar: PreparedConditions['solar'];
+  if (c.solar !== undefined) {
+    const irradianceWPerM2 = requireRange(c.solar.irradianceWPerM2, f('solar.irradianceWPerM2'), 0, 1500);
+    const absorptivityAssumed = c.solar.absorptivity === undefined;
+    const absorptivity = absorptivityAssumed ? DEFAULT_SOLAR_ABSORPTIVITY : requireRange(c.solar.absorptivity, f('solar.absorptivity'), 0, 1);
+    if (irradianceWPerM2 > 0) solar = { irradianceWPerM2, absorptivity, absorptivityAssumed };
+  }
+  if (solar && placement === 'buried') throw new ElectricalInputError(f('solar'), 'a buried cable receives no sun');
+  if (windSpeedMPerS > 0 && placement === 'buried') throw new ElectricalInputError(f('windSpeedMPerS'), 'a buried cable is not cooled by wind');
+
+  let fault: PreparedConditions['fault'];
+  if (c.fault !== undefined) {
+    const initialFrom = c.fault.initialFrom ?? 'limit';
+    if (initialFrom !== 'limit' && initialFrom !== 'operating') {
+      throw new ElectricalInputError(f('fault.initialFrom'), `must be 'limit' or 'operating'`);
+    }
+    fault = {
+      currentA: requirePositive(c.fault.currentA, f('fault.currentA')),
+      durationS: requireRange(c.fault.durationS, f('fault.durationS'), 0, 60, { minExclusive: true }),
+      initialFrom,
+    };
+  }
+  if (c.raiseMaterialLimit && userLimitC === undefined) {
+    throw new ElectricalInputError(f('temperatureLimitC'), 'is required when raiseMaterialLimit is set');
+  }
+
+  let economics: EconomicsInputs | undefined;
+  if (c.economics !== undefined) {
+    const e = c.economics;
+    requireRange(e.lossLoadFactor, f('economics.lossLoadFactor'), 0, 1);
+    if (e.hoursPerYear !== undefined) requireRange(e.hoursPerYear, f('economics.hoursPerYear'), 0, 8784);
+    toMoney(e.energyPricePerKWh, f('economics.energyPricePerKWh'));
+    if (e.demandChargePerKWYear !== undefined) toMoney(e.demandChargePerKWYear, f('economics.demandChargePerKWYear'));
+    if (e.loadGrowthPercent !== undefined) requireRange(e.loadGrowthPercent, f('economics.loadGrowthPercent'), -100, 100, { minExclusive: true });
+    if (e.energyPriceGrowthPercent !== undefined) {
+      requireRange(e.energyPriceGrowthPercent, f('economics.energyPriceGrowthPercent'), -100, 100, { minExclusive: true });
+    }
+    requireRange(e.discountRatePercent, f('economics.discountRatePercent'), -100, 100, { minExclusive: true });
+    requireInteger(e.years, f('economics.years'), 0, 200);
+    economics = e;
+  }
+
+  const prepared: PreparedConditions = {
+    source: c,
+    designCurrentA,
+    frequencyHz,
+    phases: c.phases,
+    nominalVoltageV,
+    lengthM,
+    powerFactor,
+    reactanceOhmPerM,
+    maxVoltageDropPercent,
+    ambientC,
+    ambientAssumed,
+    placement,
+    enclosureFactor,
+    groupingFactor,
+    formation,
+    spacingM,
+    buried,
+    windSpeedMPerS,
+    solar,
+    fault,
+    userLimitC,
+    raiseMaterialLimit: c.raiseMaterialLimit === true,
+    surfaceCoefficientWPerM2K,
+    economics,
+  };
+  return prepared;
+}
+
+/** The flags the conditions alone raise, added to one candidate's flag set. */
+export function conditionFlags(c: PreparedConditions, flags: FlagSet): void {
+  if (c.ambientAssumed) {
+    if (c.placement === 'buried') {
+      flags.add('AMBIENT_ASSUMED', DEFAULT_TEXT.groundAmbient(c.ambientC), { ambientC: c.ambientC });
+    } else {
+      const basis = c.placement === 'cable-in-air' ? 'the IEC 60364-5-52 reference air temperature' : 'the IEC 61439-1 upper ambient for indoor assemblies';
+      flags.add('AMBIENT_ASSUMED', DEFAULT_TEXT.airAmbient(c.ambientC, basis), { ambientC: c.ambientC });
+    }
+  }
+  if (c.groupingFactor < 1) {
+    flags.add('GROUPING_DERATING_ENTERED', ENTERED_TEXT.grouping(c.groupingFactor), { factor: c.groupingFactor });
+  }
+  if (c.enclosureFactor < 1) {
+    flags.add('ENCLOSURE_DERATING_ENTERED', ENTERED_TEXT.enclosure(c.enclosureFactor), { factor: c.enclosureFactor });
+  }
+  if (c.surfaceCoefficientWPerM2K !== undefined) {
+    flags.add('SURFACE_COEFFICIENT_ENTERED', ENTERED_TEXT.surfaceCoefficient(c.surfaceCoefficientWPerM2K), { h: c.surfaceCoefficientWPerM2K });
+  }
+  if (c.windSpeedMPerS > 0) {
+    flags.add('WIND_COOLING_CREDITED', ENTERED_TEXT.wind(c.windSpeedMPerS), { windSpeedMPerS: c.windSpeedMPerS });
+  }
+  if (c.solar?.absorptivityAssumed) {
+    flags.add('SOLAR_ABSORPTIVITY_ASSUMED', DEFAULT_TEXT.solarAbsorptivity(DEFAULT_SOLAR_ABSORPTIVITY));
+  }
+  if (c.buried && (c.buried.soilAssumed || c.buried.groundAssumed)) {
+    const parts: string[] = [];
+    if (c.buried.soilAssumed) parts.push(`a soil thermal resistivity of ${DEFAULT_SOIL_RESISTIVITY_KM_PER_W} K·m/W`);
+    if (c.buried.groundAssumed) parts.push(`a ground temperature of ${DEFAULT_GROUND_C} °C`);
+    flags.add('BURIED_SOIL_ASSUMED', DEFAULT_TEXT.soil(parts));
+  }
+  if (c.fault === undefined) {
+    flags.add('SHORT_CIRCUIT_NOT_CHECKED', SHORT_CIRCUIT_TEXT.notChecked());
+  } else if (c.fault.durationS > ADIABATIC_MAX_DURATION_S) {
+    flags.add('SHORT_CIRCUIT_LONG_DURATION', SHORT_CIRCUIT_TEXT.longDuration(c.fault.durationS, ADIABATIC_MAX_DURATION_S));
+  }
+}
+
