@@ -26,12 +26,19 @@ export function resistanceAt(args: { r20: number; alpha20: number; temperature: 
   const r20 = requirePositive(args?.r20, 'r20');
   const alpha20 = requireRange(args?.alpha20, 'alpha20', 0, 0.01);
   const temperature = requireTemperature(args?.temperature, 'temperature');
-  const factor = 1 + alpha20 * (temperature - 20);
-  if (factor <= 0) {
+  if (1 + alpha20 * (temperature - 20) <= 0) {
     // Below −1/α + 20 the linear law gives a non-physical resistance; refuse rather than invent.
     throw new ElectricalInputError('temperature', `is below the range of the linear resistance law (${temperature} °C)`);
   }
-  return r20 * factor;
+  return dcResistance(r20, alpha20, temperature);
+}
+
+/**
+ * The formulas of this module without input checks, for callers whose inputs were validated
+ * once where they entered the library (the sizing layer's prepare step): R' = R₂₀[1 + α₂₀(θ − 20)].
+ */
+export function dcResistance(r20OhmPerM: number, alpha20PerK: number, temperatureC: number): number {
+  return r20OhmPerM * (1 + alpha20PerK * (temperatureC - 20));
 }
 
 // ───────────────────────────── Skin effect (round) ─────────────────────────────
@@ -65,7 +72,12 @@ export function skinEffect(args: { resistance: number; frequency: number; ks?: n
   const resistance = requirePositive(args?.resistance, 'resistance');
   const frequency = checkFrequency(args?.frequency);
   const ks = args?.ks === undefined ? 1 : requireRange(args.ks, 'ks', 0, 1.5, { minExclusive: true });
-  const xs2 = (8 * Math.PI * frequency * 1e-7 * ks) / resistance;
+  return skinEffectOf(resistance, frequency, ks);
+}
+
+/** `skinEffect` without input checks (validated inputs only). */
+export function skinEffectOf(resistanceOhmPerM: number, frequencyHz: number, ks: number): SkinEffectDetail {
+  const xs2 = (8 * Math.PI * frequencyHz * 1e-7 * ks) / resistanceOhmPerM;
   const xs = Math.sqrt(xs2);
   if (xs <= 2.8) {
     const xs4 = xs2 * xs2;
@@ -114,10 +126,15 @@ export function proximityEffect(args: {
   const kp = args?.kp === undefined ? 1 : requireRange(args.kp, 'kp', 0, 1.5, { minExclusive: true });
   const cables = args?.cables ?? 3;
   if (cables !== 2 && cables !== 3) throw new ElectricalInputError('cables', `must be 2 or 3 (got ${String(cables)})`);
-  const xp2 = (8 * Math.PI * frequency * 1e-7 * kp) / resistance;
+  return proximityEffectOf(resistance, frequency, dc, s, kp, cables);
+}
+
+/** `proximityEffect` without input checks (validated inputs only). */
+export function proximityEffectOf(resistanceOhmPerM: number, frequencyHz: number, conductorDiameterM: number, spacingM: number, kp: number, cables: 2 | 3): ProximityEffectDetail {
+  const xp2 = (8 * Math.PI * frequencyHz * 1e-7 * kp) / resistanceOhmPerM;
   const xp4 = xp2 * xp2;
   const f = xp4 / (192 + 0.8 * xp4);
-  const ratio2 = (dc / s) ** 2;
+  const ratio2 = (conductorDiameterM / spacingM) ** 2;
   const yp = cables === 3 ? f * ratio2 * (0.312 * ratio2 + 1.18 / (f + 0.27)) : f * ratio2 * 2.9;
   const xp = Math.sqrt(xp2);
   return { xp, yp, inRange: xp <= 2.8 };
@@ -162,19 +179,39 @@ export function acResistance(args: {
 }): AcResistanceResult {
   const rdc = resistanceAt({ r20: args?.r20, alpha20: args?.alpha20, temperature: args?.temperature });
   const frequency = checkFrequency(args.frequency);
-  const skin = skinEffect({ resistance: rdc, frequency, ks: args.ks });
+  const ks = args.ks === undefined ? 1 : requireRange(args.ks, 'ks', 0, 1.5, { minExclusive: true });
+  if (args.proximity) {
+    // Checked by proximityEffect's own rules (diameter, spacing ≥ diameter, k_p, cables).
+    proximityEffect({ resistance: rdc, frequency, conductorDiameter: args.proximity.conductorDiameter, spacing: args.proximity.spacing, kp: args.kp, cables: args.proximity.cables });
+  }
+  return acResistanceOf({
+    r20OhmPerM: args.r20,
+    alpha20PerK: args.alpha20,
+    temperatureC: args.temperature,
+    frequencyHz: frequency,
+    ks,
+    kp: args.kp ?? 1,
+    ...(args.proximity ? { proximity: { conductorDiameterM: args.proximity.conductorDiameter, spacingM: args.proximity.spacing, cables: args.proximity.cables ?? 3 } } : {}),
+  });
+}
+
+/** `acResistance` without input checks (validated inputs only). */
+export function acResistanceOf(a: {
+  r20OhmPerM: number;
+  alpha20PerK: number;
+  temperatureC: number;
+  frequencyHz: number;
+  ks: number;
+  kp: number;
+  proximity?: { conductorDiameterM: number; spacingM: number; cables: 2 | 3 };
+}): AcResistanceResult {
+  const rdc = dcResistance(a.r20OhmPerM, a.alpha20PerK, a.temperatureC);
+  const skin = skinEffectOf(rdc, a.frequencyHz, a.ks);
   let xp: number | null = null;
   let yp = 0;
   let proximityInRange = true;
-  if (args.proximity) {
-    const p = proximityEffect({
-      resistance: rdc,
-      frequency,
-      conductorDiameter: args.proximity.conductorDiameter,
-      spacing: args.proximity.spacing,
-      kp: args.kp,
-      cables: args.proximity.cables,
-    });
+  if (a.proximity) {
+    const p = proximityEffectOf(rdc, a.frequencyHz, a.proximity.conductorDiameterM, a.proximity.spacingM, a.kp, a.proximity.cables);
     xp = p.xp;
     yp = p.yp;
     proximityInRange = p.inRange;
@@ -223,18 +260,26 @@ export function barAcResistanceRatio(args: {
   const width = requirePositive(args?.width, 'width');
   const thickness = requirePositive(args?.thickness, 'thickness');
   const frequency = checkFrequency(args?.frequency);
-  if (frequency === 0) {
+  return barAcResistanceRatioOf(resistance, width, thickness, frequency);
+}
+
+/** `barAcResistanceRatio` without input checks (validated inputs only). */
+export function barAcResistanceRatioOf(resistanceOhmPerM: number, widthM: number, thicknessM: number, frequencyHz: number): BarAcRatioResult {
+  if (frequencyHz === 0) {
     return { ratio: 1, skinDepthM: Number.POSITIVE_INFINITY, xi: 0, method: BAR_SKIN_METHOD, lowerBound: true };
   }
-  const rho = resistance * width * thickness;
-  const delta = Math.sqrt(rho / (Math.PI * frequency * MU0));
-  const xi = thickness / delta;
-  return { ratio: planeConductorRatio(xi), skinDepthM: delta, xi, method: BAR_SKIN_METHOD, lowerBound: true };
+  const rho = resistanceOhmPerM * widthM * thicknessM;
+  const delta = Math.sqrt(rho / (Math.PI * frequencyHz * MU0));
+  const xi = thicknessM / delta;
+  return { ratio: planeConductorRatioOf(xi), skinDepthM: delta, xi, method: BAR_SKIN_METHOD, lowerBound: true };
 }
 
 /** (ξ/2)(sinh ξ + sin ξ)/(cosh ξ − cos ξ), evaluated without cancellation or overflow. */
 export function planeConductorRatio(xi: number): number {
-  requireNonNegative(xi, 'xi');
+  return planeConductorRatioOf(requireNonNegative(xi, 'xi'));
+}
+
+function planeConductorRatioOf(xi: number): number {
   // Series 1 + ξ⁴/180 + O(ξ⁸) where cosh − cos loses digits; its next term is below 1e-13 here.
   if (xi < 0.02) return 1 + xi ** 4 / 180;
   // For large ξ the hyperbolic terms dominate: ratio → ξ/2 (two skin depths carry the current).

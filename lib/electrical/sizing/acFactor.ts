@@ -3,7 +3,7 @@
  * Cables: IEC 60287-1-1 §2.1 skin and proximity. Bars: the maker's ratio, or the plane-conductor
  * solution (a lower bound, flagged).
  */
-import { acResistance, barAcResistanceRatio, resistanceAt } from '../resistance';
+import { acResistanceOf, barAcResistanceRatioOf, dcResistance } from '../resistance';
 import { DEFAULT_TEXT, MODEL_TEXT } from './flagText';
 import { FlagSet } from './flags';
 import type { PreparedCandidate, PreparedConditions } from './prepared';
@@ -30,8 +30,7 @@ export function acFactorFunction(c: PreparedCandidate, k: PreparedConditions): A
     const w = c.widthM;
     const t = c.thicknessM;
     return (temperatureC, flags) => {
-      const resistance = resistanceAt({ r20: c.r20, alpha20: c.alpha20, temperature: temperatureC });
-      const r = barAcResistanceRatio({ resistance, width: w, thickness: t, frequency: k.frequencyHz });
+      const r = barAcResistanceRatioOf(dcResistance(c.r20, c.alpha20, temperatureC), w, t, k.frequencyHz);
       flags?.add('AC_FACTOR_LOWER_BOUND', MODEL_TEXT.barAcLowerBound(r.ratio), { ratio: r.ratio });
       return { factor: r.ratio, method: r.method, skinDepthM: r.skinDepthM };
     };
@@ -55,15 +54,15 @@ export function acFactorFunction(c: PreparedCandidate, k: PreparedConditions): A
     }
   }
   return (temperatureC, flags) => {
-    const r = acResistance({
-      r20: c.r20,
-      alpha20: c.alpha20,
-      temperature: temperatureC,
-      frequency: k.frequencyHz,
-      ks: c.ks,
-      kp: c.kp,
-      // Every circuit has at least two current-carrying conductors near each other.
-      proximity: { conductorDiameter: dc, spacing, cables },
+    const r = acResistanceOf({
+      r20OhmPerM: c.r20,
+      alpha20PerK: c.alpha20,
+      temperatureC,
+      frequencyHz: k.frequencyHz,
+      ks: c.ks ?? 1,
+      kp: c.kp ?? 1,
+      // Every circuit has at least two current-carrying conductors near each other (spacing ≥ d_c by construction).
+      proximity: { conductorDiameterM: dc, spacingM: spacing, cables },
     });
     if (flags) {
       if (spacingAssumed) {

@@ -3,7 +3,7 @@
  * conductor, and the flags of the thermal result (over limit, margin under 10 %, near runaway,
  * soil drying, correlations out of range).
  */
-import { resistanceAt } from '../../resistance';
+import { dcResistance } from '../../resistance';
 import { fromModelCurrent, solveAt, toModelCurrent, type SizingContext } from '../context';
 import { RESULT_TEXT } from '../flagText';
 import { heatPerMetre, readLimits } from '../model';
@@ -95,7 +95,7 @@ export function thermalAtDesign(ctx: SizingContext, design: DesignPoint, amp: Am
   const marginK = -limits.excessK;
   const allowedK = limits.governing.temperatureC - model.referenceC;
   const marginPercent = allowedK > 0 ? (100 * marginK) / allowedK : marginK >= 0 ? 0 : -100;
-  const resistanceOhmPerM = resistanceAt({ r20: cand.r20, alpha20: cand.alpha20, temperature: limits.conductorC }) * design.acFactor;
+  const resistanceOhmPerM = dcResistance(cand.r20, cand.alpha20, limits.conductorC) * design.acFactor;
   const designConductorA = cond.designCurrentA / cand.conductorsPerPhase;
 
   if (limits.excessK > 0) {
