@@ -11,7 +11,7 @@
  */
 import { ENCLOSURE_WALL_COEFFICIENTS_W_PER_M2K, enclosureAirTemperature, type EnclosureFace, type EnclosureShape, type EnclosureWall } from '../../thermal';
 import { ElectricalInputError } from '../errors';
-import { evaluateCandidate } from './evaluate';
+import { designPointOnly, evaluateCandidate } from './evaluate';
 import { FlagSet, fmt, type AssumptionFlag } from './flags';
 import type { Candidate, Conditions } from './types';
 
@@ -88,11 +88,11 @@ export function enclosureAirCheck(candidate: Candidate, conditions: Conditions, 
       break;
     }
     iterations++;
-    const evaluation = evaluateCandidate(candidate, { ...conditions, ambientC: insideAirC });
-    if (!evaluation.ok) throw new ElectricalInputError(evaluation.error.field ?? 'candidate', evaluation.error.message);
-    hotSpotC = evaluation.hotSpotC;
-    if (evaluation.lossWPerM === null || hotSpotC === null) break; // no steady state at this air temperature
-    conductorLossesW = evaluation.lossWPerM * inputs.routeLengthInsideM;
+    // Only the design point at this air temperature: the ampacity is not needed inside the loop.
+    const point = designPointOnly(candidate, { ...conditions, ambientC: insideAirC });
+    hotSpotC = point.hotSpotC;
+    if (point.lossWPerM === null || hotSpotC === null) break; // no steady state at this air temperature
+    conductorLossesW = point.lossWPerM * inputs.routeLengthInsideM;
     const next = air(conductorLossesW + inputs.otherLossesW).insideAirC;
     const change = next - insideAirC;
     insideAirC = next;
@@ -103,8 +103,7 @@ export function enclosureAirCheck(candidate: Candidate, conditions: Conditions, 
   }
   if (converged) {
     // The hot spot at the final air temperature, not the one before it.
-    const final = evaluateCandidate(candidate, { ...conditions, ambientC: insideAirC });
-    hotSpotC = final.ok ? final.hotSpotC : null;
+    hotSpotC = designPointOnly(candidate, { ...conditions, ambientC: insideAirC }).hotSpotC;
   }
 
   const result = air(conductorLossesW + inputs.otherLossesW);

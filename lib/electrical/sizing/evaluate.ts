@@ -7,6 +7,7 @@
  */
 import { ElectricalInputError, SizingError } from '../errors';
 import { Money } from '../economics';
+import { dcResistance } from '../resistance';
 import { ampacityCheck, AMPACITY_TOLERANCE_A, CROSS_CHECK_LIMIT_PERCENT } from './checks/ampacity';
 import { costsCheck } from './checks/costs';
 import { designPointCheck, NEAR_RUNAWAY_RATIO, SOIL_DRYING_SURFACE_C, solveAtCircuitCurrent, thermalAtDesign } from './checks/designPoint';
@@ -137,6 +138,22 @@ export function hotSpotAtCurrent(ctx: SizingContext, evaluation: CandidateEvalua
   const startC = ctx.model.referenceC + (limitC - ctx.model.referenceC) * share;
   const solved = solveAtCircuitCurrent(ctx, circuitA, Number.isFinite(startC) ? startC : limitC, 'coarse');
   return solved.point ? solved.point.result.hotSpot.temperature : null;
+}
+
+/**
+ * The hot spot and the circuit's loss per metre at the design current only — no ampacity search —
+ * for checks that iterate on the surroundings (the air inside an enclosure). Throws
+ * ElectricalInputError for bad input; `hotSpotC` null on runaway.
+ */
+export function designPointOnly(candidate: Candidate, conditions: Conditions): { hotSpotC: number | null; lossWPerM: number | null; limitC: number } {
+  const ctx = sizingContext(candidate, prepareConditions(conditions), 0);
+  const limitC = ctx.cand.contactLimit.temperatureC;
+  const design = solveAtCircuitCurrent(ctx, ctx.cond.designCurrentA, limitC);
+  if (!design.point) return { hotSpotC: null, lossWPerM: null, limitC };
+  const { limits, result } = design.point;
+  const conductorA = ctx.cond.designCurrentA / ctx.cand.conductorsPerPhase;
+  const lossPerConductor = conductorA * conductorA * dcResistance(ctx.cand.r20, ctx.cand.alpha20, limits.conductorC) * design.acFactor;
+  return { hotSpotC: result.hotSpot.temperature, lossWPerM: costsCheck(ctx, lossPerConductor).lossWPerM, limitC };
 }
 
 /** Marks the smallest passing candidate and the lowest life-cycle-cost passing one. */
