@@ -26,7 +26,7 @@ function envNumber(name: string, fallback: number): number {
 
 export const queueSettings = () => ({
   /** Rows per job: small enough that a crash loses little work, large enough to amortise the round trips. */
-  batchRows: Math.floor(envNumber('SCHEDULE_BATCH_ROWS', 20)),
+  batchRows: Math.floor(envNumber('SCHEDULE_BATCH_ROWS', 50)),
   /** A batch still active after this is taken as abandoned (its worker died) and retried. */
   expireInSeconds: Math.floor(envNumber('SCHEDULE_JOB_EXPIRE_SECONDS', 300)),
   /** How often a worker runs pg-boss maintenance (expiry of abandoned jobs). */

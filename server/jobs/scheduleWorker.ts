@@ -17,6 +17,9 @@ export interface BatchReport {
   skipped: number;
   solverMs: number;
   totalMs: number;
+  /** Wall-clock start and end of the batch, ms since the epoch (benchmarks read the worker's busy window). */
+  startedAtMs: number;
+  endedAtMs: number;
   completed: boolean;
 }
 
@@ -28,6 +31,7 @@ const familiesCache = new Map<string, Awaited<ReturnType<typeof loadScheduleForW
 /** Sizes and stores one batch; safe to run again for the same batch (already stored rows are skipped). */
 export async function processScheduleBatch(job: ScheduleBatchJob, workerId: string): Promise<BatchReport> {
   const started = performance.now();
+  const startedAtMs = Date.now();
   let schedule = familiesCache.get(job.scheduleId);
   if (!schedule) {
     schedule = await loadScheduleForWorker(job.scheduleId);
@@ -40,7 +44,7 @@ export async function processScheduleBatch(job: ScheduleBatchJob, workerId: stri
   }
   if (!schedule || schedule.teamId !== job.teamId) {
     // The schedule was deleted (or the job is not what it claims): nothing to size.
-    return { scheduleId: job.scheduleId, stored: [], skipped: job.rowNumbers.length, solverMs: 0, totalMs: performance.now() - started, completed: false };
+    return { scheduleId: job.scheduleId, stored: [], skipped: job.rowNumbers.length, solverMs: 0, totalMs: performance.now() - started, startedAtMs, endedAtMs: Date.now(), completed: false };
   }
   const rows = await pendingRows(job.scheduleId, job.rowNumbers);
   const stored: number[] = [];
@@ -64,7 +68,7 @@ export async function processScheduleBatch(job: ScheduleBatchJob, workerId: stri
   }
   stored.push(...(await storeRowResults(writes)));
   const completed = stored.length > 0 || rows.length === 0 ? await completeScheduleIfDone(job.scheduleId) : false;
-  return { scheduleId: job.scheduleId, stored, skipped: job.rowNumbers.length - stored.length, solverMs, totalMs: performance.now() - started, completed };
+  return { scheduleId: job.scheduleId, stored, skipped: job.rowNumbers.length - stored.length, solverMs, totalMs: performance.now() - started, startedAtMs, endedAtMs: Date.now(), completed };
 }
 
 export interface RunningWorker {
@@ -83,11 +87,15 @@ export async function startScheduleWorker(options: { workerId?: string; onBatch?
   boss.on('error', (error) => console.error(`[worker ${workerId}] pg-boss: ${error.message}`));
   await boss.start();
   await ensureScheduleQueue(boss);
-  // Two fetch loops per process: while one waits out its polling delay, the other already holds
-  // the next batch, so the CPU (sizing is synchronous) is not left idle between batches.
-  const loops = Math.max(1, Math.floor(Number(process.env.SCHEDULE_LOOPS_PER_WORKER ?? 2)) || 1);
+  // Three fetch loops per process: while one sizes (synchronously), the others fetch, store and
+  // complete their batches, so the CPU is not left idle waiting on the database.
+  const loops = Math.max(1, Math.floor(Number(process.env.SCHEDULE_LOOPS_PER_WORKER ?? 3)) || 1);
+  // pg-boss waits its polling interval after every fetch, even one that found work; a loop that
+  // just finished a batch asks for the next one at once instead (notifyWorker), so a queue with
+  // work is drained back to back and the polling delay is only paid when the queue is empty.
   for (let i = 0; i < loops; i++) {
-    await boss.work<ScheduleBatchJob>(
+    let loopId: string | null = null;
+    loopId = await boss.work<ScheduleBatchJob>(
       SCHEDULE_QUEUE,
       { batchSize: 1, pollingIntervalSeconds: queueSettings().pollingIntervalSeconds },
       async (jobs) => {
@@ -95,6 +103,7 @@ export async function startScheduleWorker(options: { workerId?: string; onBatch?
           const report = await processScheduleBatch(job.data, workerId);
           options.onBatch?.(report);
         }
+        if (jobs.length > 0 && loopId) boss.notifyWorker(loopId);
       },
     );
   }
