@@ -79,7 +79,7 @@ export const arrangementSchema = z
   .superRefine((value, ctx) => {
     for (const issue of arrangementGeometryIssues(value)) ctx.addIssue({ code: 'custom', path: issue.path, message: issue.message });
   })
-  .meta({ id: 'CableArrangement' });
+  .meta({ id: 'CircuitCrossSection' });
 
 export type ArrangementInput = z.input<typeof arrangementSchema>;
 
