@@ -139,7 +139,7 @@ export function cableThermalResistances(cable: SingleCoreCable, voltageU0V: numb
   const rhoI = cable.insulation.thermalResistivityKmPerW ?? insulationThermalResistivity(cable.insulation.material, voltageU0V);
   const T1 = (rhoI / (2 * Math.PI)) * Math.log(1 + (2 * cable.insulation.thicknessM) / cable.conductor.diameterM);
   const underJacket = cable.externalDiameterM - 2 * cable.jacket.thicknessM;
-  const T3 = (cable.jacket.thermalResistivityKmPerW / (2 * Math.PI)) * Math.log(1 + (2 * cable.jacket.thicknessM) / underJacket);
+  const T3 = cable.jacket.thicknessM === 0 ? 0 : (cable.jacket.thermalResistivityKmPerW / (2 * Math.PI)) * Math.log(1 + (2 * cable.jacket.thicknessM) / underJacket);
   return { T1, T2: cable.beddingThermalResistanceKmPerW ?? 0, T3, insulationResistivityKmPerW: rhoI };
 }
 
@@ -150,8 +150,9 @@ export function validateCable(cable: SingleCoreCable, field = 'cable'): void {
   const dc = requirePositive(cable.conductor.diameterM, `${field}.conductor.diameterM`);
   const t1 = requirePositive(cable.insulation?.thicknessM, `${field}.insulation.thicknessM`);
   if (cable.insulation.thermalResistivityKmPerW !== undefined) requireRange(cable.insulation.thermalResistivityKmPerW, `${field}.insulation.thermalResistivityKmPerW`, 0.1, 20);
-  const t3 = requirePositive(cable.jacket?.thicknessM, `${field}.jacket.thicknessM`);
-  requireRange(cable.jacket.thermalResistivityKmPerW, `${field}.jacket.thermalResistivityKmPerW`, 0.1, 20);
+  // A cable may have no covering outside its insulation (t₃ = 0, T₃ = 0).
+  const t3 = requireNonNegative(cable.jacket?.thicknessM, `${field}.jacket.thicknessM`);
+  if (t3 > 0) requireRange(cable.jacket.thermalResistivityKmPerW, `${field}.jacket.thermalResistivityKmPerW`, 0.1, 20);
   const de = requirePositive(cable.externalDiameterM, `${field}.externalDiameterM`);
   if (de - 2 * t3 < dc + 2 * t1 - 1e-12) {
     throw new ElectricalInputError(`${field}.externalDiameterM`, 'is smaller than conductor, insulation and jacket together');
@@ -205,6 +206,7 @@ export function screenLossFactorAt(args: {
 }): ScreenLossResult {
   const screen = args.cable.screen;
   if (!screen) return { lambda1: 0, circulating: 0, eddy: 0, screenResistanceOhmPerM: null, basis: 'no metallic screen' };
+  if (args.frequencyHz === 0) return { lambda1: 0, circulating: 0, eddy: 0, screenResistanceOhmPerM: null, basis: 'direct current: no currents induced in the screen' };
   const Rs = screenResistance({ material: screen.material, sectionMm2: screen.sectionMm2, r20OhmPerM: screen.r20OhmPerM, temperatureC: args.screenTemperatureC });
   const s = args.circuit.axisSpacingM;
   if (args.position === 'alone' || s === null) {
@@ -416,6 +418,12 @@ export interface GroupCircuitData {
   cable: SingleCoreCable;
   voltageU0V: number;
   conductorMaxC: number;
+  /**
+   * A circuit with a given current whose cable is known only by its diameter and the heat one of
+   * its cables gives off, W/m (entered from that circuit's own rating): used instead of the heat
+   * at its conductor limit.
+   */
+  fixedHeatWPerM?: number;
 }
 
 export interface BuriedCableRating {
@@ -478,7 +486,8 @@ export function rateBuriedArrangement(args: {
   if (placement.kind === 'air') throw new ElectricalInputError('arrangement.placement.kind', 'this rates cables in the ground; use rateArrangementInAir');
   const rhoSoil = requireRange(args.soilResistivityKmPerW, 'soilResistivityKmPerW', 0.1, 20);
   const ground = requireTemperature(args.groundC, 'groundC');
-  const frequencyHz = requireRange(args.frequencyHz, 'frequencyHz', 0, 1000, { minExclusive: true });
+  // 0 Hz: direct current (no skin, proximity, screen or dielectric losses).
+  const frequencyHz = requireRange(args.frequencyHz, 'frequencyHz', 0, 1000);
   const method = args.ownCircuitMethod ?? 'closed-form';
   const data = Array.isArray(args.circuits) ? args.circuits : arrangement.circuits.map(() => args.circuits as GroupCircuitData);
   if (data.length !== arrangement.circuits.length) throw new ElectricalInputError('circuits', `give one cable per circuit (${arrangement.circuits.length})`);
@@ -561,6 +570,7 @@ export function rateBuriedArrangement(args: {
     }).lambda1;
   const fixedHeat = (j: number, lambda1: number) => {
     const c = cables[j].circuit;
+    if (data[c].fixedHeatWPerM !== undefined) return requireNonNegative(data[c].fixedHeatWPerM, `circuits.${c}.fixedHeatWPerM`);
     const I = arrangement.circuits[c].currentA!;
     const e = electrical[c];
     return I * I * e.ac.rac * (1 + lambda1 + (data[c].cable.armourLossFactor ?? 0)) + e.dielectric.lossWPerM;

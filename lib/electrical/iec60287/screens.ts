@@ -219,7 +219,8 @@ export function dielectricLoss(args: {
   tanDelta?: number;
 }): DielectricLossResult {
   const U0 = requireNonNegative(args?.voltageU0V, 'voltageU0V');
-  const omega = omegaOf(args.frequencyHz);
+  // Direct current: no alternating field, no dielectric loss.
+  const omega = args.frequencyHz === 0 ? 0 : omegaOf(args.frequencyHz);
   const dc = requirePositive(args.conductorDiameterM, 'conductorDiameterM');
   const Di = requirePositive(args.insulationDiameterM, 'insulationDiameterM');
   if (!(Di > dc)) throw new ElectricalInputError('insulationDiameterM', 'must exceed the conductor diameter');

@@ -3,10 +3,13 @@
  * function and its flags. Built once per candidate per comparison; every check (ampacity, design
  * point, hot spot at another current) solves through `solveAt` without re-validating anything.
  */
-import { solveSteady, type Boundary, type SteadyResult, type ThermalProblem } from '../../thermal';
+import { solveSteady, type Boundary, type ThermalProblem } from '../../thermal';
 import { ElectricalInputError, SizingError } from '../errors';
 import { acFactorFunction, type AcFactorFunction } from './acFactor';
 import { FlagSet, fmt } from './flags';
+import { GROUP_TEXT, MODEL_TEXT } from './flagText';
+import { cableGroupOf, type CableGroup } from './cableGroup';
+import { solveBuriedGroup, type GroupSteadyResult } from './groupSolve';
 import { buildThermalModel, type Mesh, type ThermalModel } from './model';
 import { prepareCandidate } from './prepareCandidate';
 import { conditionFlags } from './prepareConditions';
@@ -16,6 +19,8 @@ import type { Candidate } from './types';
 export interface SizingContext {
   cand: PreparedCandidate;
   cond: PreparedConditions;
+  /** The cross-section of a cable circuit (its runs, the circuits beside it); bars have none. */
+  group?: CableGroup;
   model: ThermalModel;
   acFn: AcFactorFunction;
   flags: FlagSet;
@@ -25,9 +30,33 @@ export interface SizingContext {
 
 /** Prepares one candidate under conditions prepared once for the whole comparison. */
 export function sizingContext(candidate: Candidate, cond: PreparedConditions, index: number, flags = new FlagSet()): SizingContext {
-  conditionFlags(cond, flags);
   const cand = prepareCandidate(candidate, index, cond, flags);
-  return { cand, cond, model: buildThermalModel(cand, cond), acFn: acFactorFunction(cand, cond), flags, solves: 0 };
+  const group = cand.kind === 'cable' ? cableGroupOf(cand, cond) : undefined;
+  const groupLawInAir = group?.model.kind === 'air' && group.model.constants !== null && cond.surfaceCoefficientWPerM2K === undefined;
+  conditionFlags(cond, flags, { windCredited: !groupLawInAir });
+  if (group) groupFlags(group, cond, flags);
+  return { cand, cond, ...(group ? { group } : {}), model: buildThermalModel(cand, cond, group), acFn: acFactorFunction(cand, cond), flags, solves: 0 };
+}
+
+/** What the reviewer must know of how the group was rated. */
+function groupFlags(group: CableGroup, cond: PreparedConditions, flags: FlagSet): void {
+  const model = group.model;
+  if (group.isolated) return;
+  if (model.kind === 'air') {
+    if (cond.surfaceCoefficientWPerM2K !== undefined) return; // the user's coefficient replaces every law
+    flags.add('CABLE_GROUP_RATED', GROUP_TEXT.air(model.rowText, model.notes), { row: model.row });
+    if (model.conservativeRow) flags.add('GROUP_ROW_CONSERVATIVE', MODEL_TEXT.groupRowConservative(model.conservativeRow));
+    if (cond.windSpeedMPerS > 0) flags.add('WIND_NOT_CREDITED_TO_GROUP', MODEL_TEXT.windNotCreditedToGroup(cond.windSpeedMPerS));
+    if (model.uncoveredNeighbours > 0) {
+      flags.add('MUTUAL_HEATING_NOT_MODELLED', MODEL_TEXT.mutualHeating(model.uncoveredNeighbours), { circuits: model.uncoveredNeighbours });
+      // The user's grouping factor stands for the other circuits; without it the number is unsafe.
+      if (cond.groupingFactor === 1) flags.add('OTHER_CIRCUITS_NOT_COVERED', MODEL_TEXT.otherCircuitsNotCovered(model.uncoveredNeighbours), { circuits: model.uncoveredNeighbours });
+    }
+    return;
+  }
+  flags.add('CABLE_GROUP_RATED', GROUP_TEXT.buried(group.cables.length, model.notes), { cables: group.cables.length });
+  const entered = cond.otherCircuits.filter((o) => o.cable !== undefined).length;
+  if (entered > 0) flags.add('OTHER_CIRCUIT_HEAT_ENTERED', MODEL_TEXT.otherCircuitHeatEntered(entered), { circuits: entered });
 }
 
 /** The user-entered factors scale the current a conductor may carry (both flagged). */
@@ -64,12 +93,17 @@ function zeroFlowProblem(problem: ThermalProblem): ThermalProblem {
   return { ...problem, inner: still(problem.inner), outer: still(problem.outer) };
 }
 
-/** One heat-balance solve of the candidate's model. */
-export function solveAt(ctx: SizingContext, modelCurrentA: number, acFactor: number, mesh: Mesh): SteadyResult {
+/** One heat-balance solve of the candidate's model (of every solved cable of a buried group). */
+export function solveAt(ctx: SizingContext, modelCurrentA: number, acFactor: number, mesh: Mesh): GroupSteadyResult {
   ctx.solves++;
   try {
+    const group = ctx.group;
     const result =
-      modelCurrentA === 0 ? solveSteady(zeroFlowProblem(ctx.model.problem(0, acFactor, mesh))) : ctx.model.solver(mesh).at(modelCurrentA, acFactor);
+      group && group.model.kind === 'buried' && !group.isolated
+        ? solveBuriedGroup(ctx, group, group.model, modelCurrentA, acFactor, mesh)
+        : modelCurrentA === 0
+          ? solveSteady(zeroFlowProblem(ctx.model.problem(0, acFactor, mesh)))
+          : ctx.model.solver(mesh).at(modelCurrentA, acFactor);
     if (!result.converged && result.runaway && !(result.runaway.current !== undefined && result.runaway.current > 0)) {
       // "No steady state even at 0 A" is impossible physically (with no current the conductor
       // settles at the surroundings' temperature, or above it in the sun): this is the solver

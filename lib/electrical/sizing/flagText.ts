@@ -47,8 +47,16 @@ export const MODEL_TEXT = {
     `The current is assumed to divide equally between the ${parallel} parallel cables of each phase; this needs equal lengths and a symmetrical layout.`,
   barParallelSharing: (parallel: number) =>
     `The current is assumed to divide equally between the ${parallel} parallel runs of each phase; this needs equal impedances.`,
-  mutualHeating: (cables: number, spacingM: number | undefined) =>
-    `The ${cables} cables of this circuit lie ${spacingM === undefined ? 'touching (no spacing entered)' : `${fmt(spacingM)} m apart (axis to axis), closer than two diameters`}, but each is modelled alone and no grouping factor was entered; they heat one another.`,
+  mutualHeating: (circuits: number) =>
+    `${circuits} other circuit${circuits > 1 ? 's' : ''} or run${circuits > 1 ? 's' : ''} in air lie${circuits > 1 ? '' : 's'} closer than two cable diameters to this one; IEC 60287-2-1 Table 2 covers one group only, so ${circuits > 1 ? 'their' : 'its'} heating is not computed here.`,
+  otherCircuitsNotCovered: (circuits: number) =>
+    `${circuits} other circuit${circuits > 1 ? 's' : ''} or run${circuits > 1 ? 's' : ''} in air heat${circuits > 1 ? '' : 's'} this one and no method here covers it: enter a grouping factor for the other circuits (for example from the IEC 60364-5-52 Annex B tables for the installation method) or space them at least two diameters apart.`,
+  groupRated: (method: string) => `${method}.`,
+  groupRowConservative: (reason: string) => `${reason}.`,
+  windNotCreditedToGroup: (speed: number) =>
+    `An air speed of ${fmt(speed)} m/s was entered, but the free-air law of a group of cables is for still air, so the wind is not credited (cautious).`,
+  otherCircuitHeatEntered: (count: number) =>
+    `The heat of ${count} other circuit${count > 1 ? 's' : ''} was entered per cable rather than computed here; check it against that circuit's own rating at its current.`,
   barEdges: (factor: number) =>
     `The heat leaving the bar's narrow edges is lumped onto its wide faces by scaling their area by (w + t)/w = ${fmt(factor, 4)}.`,
   multiBarInnerFaces: (barsPerPhase: number) =>
@@ -86,4 +94,11 @@ export const SHORT_CIRCUIT_TEXT = {
     `The fault lasts ${fmt(durationS)} s, beyond the ${maxS} s range of the adiabatic method; the computed final temperature over-estimates the real one (cautious).`,
   exceeded: (a: { currentA: number; durationS: number; initialC: number; finalC: number | null; limitC: number; minimumSectionMm2?: number }) =>
     `A fault of ${fmt(a.currentA, 4)} A for ${fmt(a.durationS, 3)} s heats the conductor from ${fmt(a.initialC, 4)} °C to ${a.finalC === null ? 'beyond any meaningful temperature' : `${fmt(a.finalC, 4)} °C`}, above the ${fmt(a.limitC, 4)} °C short-circuit limit${a.minimumSectionMm2 !== undefined ? `; at least ${fmt(a.minimumSectionMm2, 4)} mm² per phase is needed` : `; the limit leaves no room for fault heating above ${fmt(a.initialC, 4)} °C, so no section suffices`}.`,
+} as const;
+
+export const GROUP_TEXT = {
+  air: (rowText: string, notes: string[]) =>
+    `The cables are rated as a group in free air by the IEC 60287-2-1 §4.2.1 surface law for ${rowText}, which stands for convection and radiation together.${notes.length ? ` ${notes.join('; ')}.` : ''}`,
+  buried: (cables: number, notes: string[]) =>
+    `The ${cables} cables in the ground heat one another: each is rated with the others' heat by superposition with images (IEC 60287-2-1 §4.2.3), every cable's heat at its own temperature, the hottest cable governing.${notes.length ? ` ${notes.join('; ')}.` : ''}`,
 } as const;

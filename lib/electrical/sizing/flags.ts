@@ -45,6 +45,11 @@ const STEADY_FLAG_CODES = [
   'BAR_REACTANCE_ASSUMED',
   'CROSS_CHECK_DIFFERENCE',
   'SHEATH_LOSSES_NOT_INCLUDED',
+  'CABLE_GROUP_RATED',
+  'OTHER_CIRCUITS_NOT_COVERED',
+  'GROUP_ROW_CONSERVATIVE',
+  'WIND_NOT_CREDITED_TO_GROUP',
+  'OTHER_CIRCUIT_HEAT_ENTERED',
 ] as const;
 
 /** Codes raised only by the optional checks beyond the steady state (sizing/beyondSteady.ts, sizing/enclosureAir.ts), never by evaluateCandidate. */
@@ -78,7 +83,7 @@ export const FLAG_REGISTRY: Readonly<Record<FlagCode, Readonly<FlagDefinition>>>
   AMBIENT_ASSUMED: { severity: 'review', title: 'Ambient temperature assumed', basis: 'physics.md §5 (ambient); IEC 60364-5-52 reference ambients 30 °C air, 20 °C ground (from memory)' },
   GROUPING_DERATING_ENTERED: { severity: 'review', title: 'Grouping derating factor entered', basis: 'physics.md §3 (grouping is a user-entered factor)' },
   ENCLOSURE_DERATING_ENTERED: { severity: 'review', title: 'Enclosure derating factor entered', basis: 'physics.md §3 (enclosures are a user-entered factor)' },
-  MUTUAL_HEATING_NOT_MODELLED: { severity: 'review', title: 'Heating by the other cables of the circuit not modelled', basis: 'physics.md §3 (one-dimensional model of one cable)' },
+  MUTUAL_HEATING_NOT_MODELLED: { severity: 'review', title: 'Heating by nearby cables outside the methods here', basis: 'IEC 60287-2-1 §4.2.1 covers one group in air; other arrangements need a grouping factor' },
   CORRELATION_OUT_OF_RANGE: { severity: 'review', title: 'Convection correlation used outside its stated range', basis: 'physics.md §2' },
   SURFACE_COEFFICIENT_ENTERED: { severity: 'review', title: 'Surface heat-transfer coefficient entered by the user', basis: 'physics.md §2' },
   WIND_COOLING_CREDITED: { severity: 'review', title: 'Cooling by wind or fan credited', basis: 'physics.md §2 (forced convection)' },
@@ -108,6 +113,12 @@ export const FLAG_REGISTRY: Readonly<Record<FlagCode, Readonly<FlagDefinition>>>
   BAR_REACTANCE_ASSUMED: { severity: 'review', title: 'Cable reactance default used for a bus bar', basis: 'IEC 60364-5-52 Annex G (λ is for cables)' },
   CROSS_CHECK_DIFFERENCE: { severity: 'review', title: 'Solver and closed-form ampacity differ', basis: 'physics.md §5 (IEC 60287 cross-check)' },
   SHEATH_LOSSES_NOT_INCLUDED: { severity: 'review', title: 'Losses in metallic screens or armour not included', basis: 'IEC 60287-1-1 §2.3 (λ₁, λ₂ taken as zero)' },
+  CABLE_GROUP_RATED: { severity: 'note', title: 'Cables rated as the group they lie in', basis: 'IEC 60287-2-1 §4.2.1 (free air, Table 2) and §4.2.2–4.2.7 (buried: images, closed forms, ducts, backfill); constants from memory' },
+  OTHER_CIRCUITS_NOT_COVERED: { severity: 'blocker', title: 'Nearby circuits in air not rated', basis: 'IEC 60287-2-1 Table 2 covers one group; IEC 60364-5-52 Annex B grouping factors (from memory)' },
+  GROUP_ROW_CONSERVATIVE: { severity: 'review', title: 'Cable spacing not tabulated: rated as touching', basis: 'IEC 60287-2-1 Table 2 (touching and the tabulated clearances only)' },
+  WIND_NOT_CREDITED_TO_GROUP: { severity: 'note', title: 'Wind not credited to a group of cables', basis: 'IEC 60287-2-1 §4.2.1 free-air law is for still air' },
+  OTHER_CIRCUIT_HEAT_ENTERED: { severity: 'review', title: 'Heat of another circuit entered by the user', basis: 'IEC 60287-2-1 §4.2.3 (superposition of the entered heat)' },
+
   OVERLOAD_LIMIT_REACHED: { severity: 'blocker', title: 'Overload reaches the limit too soon', basis: 'physics.md §6 (implicit-Euler heat balance from the steady state at the design current)' },
   DAILY_PEAK_OVER_LIMIT: { severity: 'blocker', title: 'Daily load cycle peaks above the limit', basis: 'physics.md §6 (daily profile repeated to a periodic state)' },
   DAILY_CYCLE_NOT_PERIODIC: { severity: 'review', title: 'Daily cycle had not settled', basis: 'physics.md §6 (successive daily peaks within 0.01 K)' },

@@ -24,6 +24,7 @@ import {
   type SurfaceDiagnostics,
   type ThermalProblem,
 } from '../../thermal';
+import type { CableGroup } from './cableGroup';
 import type { PreparedBar, PreparedCable, PreparedCandidate, PreparedConditions } from './prepared';
 import type { GoverningLimit, HeatProfile, ProfileLayer } from './types';
 
@@ -74,6 +75,12 @@ export interface ThermalModel {
   problem(modelCurrentA: number, acFactor: number, mesh: Mesh): ThermalProblem;
   /** The problem on a mesh, prepared once, solved at any model current and AC factor. */
   solver(mesh: Mesh): PreparedSolve;
+  /**
+   * The same conductor and coverings with a linear outer surface of its own: a buried cable of a
+   * group, whose external resistance T₄ gives h = 1/(T₄·π·D_e) and whose ground is raised by its
+   * neighbours' heat.
+   */
+  solveWithOuter(mesh: Mesh, modelCurrentA: number, acFactor: number, outer: { hWPerM2K: number; ambientC: number }): SteadyResult;
 }
 
 /** A thermal problem whose geometry and surroundings are fixed, solved at many currents. */
@@ -85,8 +92,8 @@ function preparedSolve(problem: ThermalProblem): PreparedSolve {
   return { at: (current, acFactor) => solveSteady(withCurrent(problem, current, acFactor)) };
 }
 
-export function buildThermalModel(c: PreparedCandidate, k: PreparedConditions): ThermalModel {
-  return c.kind === 'cable' ? cableModel(c, k) : barModel(c, k);
+export function buildThermalModel(c: PreparedCandidate, k: PreparedConditions, group?: CableGroup): ThermalModel {
+  return c.kind === 'cable' ? cableModel(c, k, group) : barModel(c, k);
 }
 
 /** Prepared solves of the two meshes, each made on first use. */
@@ -112,7 +119,8 @@ function withCurrent(base: ThermalProblem, current: number, acFactor: number): T
  * cable enters as its equivalent conductor: diameter d_c·√n, carrying n·I with R₂₀/n, so that
  * J and the heat per metre n·I²R are those of the n loaded cores (flagged by the caller).
  */
-function cableModel(c: PreparedCable, k: PreparedConditions): ThermalModel {
+function cableModel(c: PreparedCable, k: PreparedConditions, group?: CableGroup): ThermalModel {
+  const airLaw = group?.model.kind === 'air' ? group.model.constants : null;
   const n = c.loadedCores;
   const dEq = c.conductorDiameterM * Math.sqrt(n);
   const De = c.outerDiameterM;
@@ -151,6 +159,13 @@ function cableModel(c: PreparedCable, k: PreparedConditions): ThermalModel {
       if (solarFlux > 0) fixed.absorbedFlux = solarFlux;
       return { ...problem, outer: fixed };
     }
+    if (airLaw) {
+      // A group in air: the IEC 60287-2-1 free-air law of its arrangement stands for each cable's
+      // convection and radiation together (still air: wind is not credited to a group).
+      const law: SurfaceBoundary = { kind: 'surface', ambient: k.ambientC, emissivity: 0, convection: { kind: 'iec-60287-free-air', diameter: De, Z: airLaw.Z, E: airLaw.E, g: airLaw.g } };
+      if (solarFlux > 0) law.absorbedFlux = solarFlux;
+      return { ...problem, outer: law };
+    }
     return problem;
   };
   const coarse = build('coarse');
@@ -182,6 +197,8 @@ function cableModel(c: PreparedCable, k: PreparedConditions): ThermalModel {
     buriedT4,
     problem: (current, acFactor, mesh) => withCurrent(mesh === 'coarse' ? coarse : fine, current, acFactor),
     solver: solversOf(coarse, fine),
+    solveWithOuter: (mesh, current, acFactor, outer) =>
+      solveSteady({ ...withCurrent(mesh === 'coarse' ? coarse : fine, current, acFactor), outer: { kind: 'surface', ambient: outer.ambientC, h: outer.hWPerM2K, emissivity: 0 } }),
   };
 }
 
@@ -260,6 +277,9 @@ function barModel(c: PreparedBar, k: PreparedConditions): ThermalModel {
     ],
     problem: (current, acFactor, mesh) => withCurrent(mesh === 'coarse' ? coarse : fine, current, acFactor),
     solver: solversOf(coarse, fine),
+    solveWithOuter: () => {
+      throw new Error('a bar has no buried group surface');
+    },
   };
 }
 

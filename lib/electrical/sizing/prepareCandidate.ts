@@ -9,7 +9,7 @@ import { toMoney } from '../economics';
 import { DEFAULT_TEXT, ENTERED_TEXT, MODEL_TEXT } from './flagText';
 import { FlagSet, fmt } from './flags';
 import type { PreparedBar, PreparedCable, PreparedCandidate, PreparedConditions, PreparedLayer } from './prepared';
-import type { BarCandidate, CableCandidate, Candidate, GoverningLimit, LimitSource } from './types';
+import type { BarCandidate, CableCandidate, CableScreen, Candidate, GoverningLimit, LimitSource } from './types';
 
 /** Jacket emissivity when none is given (PVC/PE, common practice ~0.9). */
 export const DEFAULT_CABLE_EMISSIVITY = 0.9;
@@ -146,6 +146,19 @@ function prepareCable(cand: CableCandidate, p: CommonPrep): PreparedCable {
     l.limitC = conditions.raiseMaterialLimit ? undefined : Math.min(...inForce.map((r) => r.c));
   }
 
+  const screenLayerIndex = layers.findIndex((l) => l.role === 'screen');
+  let screen: CableScreen | undefined;
+  if (cand.screen !== undefined) {
+    const sf = (n: string) => f(`screen.${n}`);
+    if (cand.screen === null || typeof cand.screen !== 'object') throw new ElectricalInputError(f('screen'), 'must be an object');
+    if (cores > 1) throw new ElectricalInputError(f('screen'), 'screen losses are computed for single-core cables');
+    if (screenLayerIndex < 0) throw new ElectricalInputError(f('screen'), "give the screen's place among the layers (a layer with role 'screen')");
+    if (!['copper', 'aluminium', 'lead'].includes(cand.screen.material)) throw new ElectricalInputError(sf('material'), "must be 'copper', 'aluminium' or 'lead'");
+    if (!['solid', 'single-point', 'cross-bonded'].includes(cand.screen.bonding)) throw new ElectricalInputError(sf('bonding'), "must be 'solid', 'single-point' or 'cross-bonded'");
+    if (cand.screen.r20OhmPerM === undefined) requireRange(cand.screen.sectionMm2, sf('sectionMm2'), 0, 5000, { minExclusive: true });
+    else requireRange(cand.screen.r20OhmPerM, sf('r20OhmPerM'), 0, 1, { minExclusive: true });
+    screen = cand.screen;
+  }
   const loadedCores = cores === 1 ? 1 : Math.min(cores, conditions.phases === 3 ? 3 : 2);
   const equivalentDiameter = dc * Math.sqrt(loadedCores);
   const outerDiameterM = equivalentDiameter + 2 * layers.reduce((s, l) => s + l.thicknessM, 0);
@@ -158,15 +171,8 @@ function prepareCable(cand: CableCandidate, p: CommonPrep): PreparedCable {
       flags.add('EMISSIVITY_ASSUMED', DEFAULT_TEXT.cableEmissivity(DEFAULT_CABLE_EMISSIVITY));
     }
     if (cores > 1) flags.add('MULTICORE_APPROXIMATION', MODEL_TEXT.multicore(cores, loadedCores), { cores, loadedCores });
-    if (hasMetallicLayer && conditions.frequencyHz > 0) flags.add('SHEATH_LOSSES_NOT_INCLUDED', MODEL_TEXT.sheathLosses());
+    if (hasMetallicLayer && conditions.frequencyHz > 0 && screen === undefined) flags.add('SHEATH_LOSSES_NOT_INCLUDED', MODEL_TEXT.sheathLosses());
     if (p.parallel > 1) flags.add('PARALLEL_SHARING_ASSUMED', MODEL_TEXT.cableParallelSharing(p.parallel), { parallel: p.parallel });
-    const cablesNear = (cores === 1 ? (conditions.phases === 3 ? 3 : 2) : 1) * p.parallel;
-    if (cablesNear > 1 && conditions.groupingFactor === 1 && conditions.enclosureFactor === 1) {
-      const spacing = conditions.spacingM;
-      if (spacing === undefined || spacing < 2 * outerDiameterM) {
-        flags.add('MUTUAL_HEATING_NOT_MODELLED', MODEL_TEXT.mutualHeating(cablesNear, spacing), { cables: cablesNear });
-      }
-    }
   }
 
   return {
@@ -195,6 +201,8 @@ function prepareCable(cand: CableCandidate, p: CommonPrep): PreparedCable {
     ...(ks !== undefined ? { ks } : {}),
     ...(kp !== undefined ? { kp } : {}),
     hasMetallicLayer,
+    ...(screen ? { screen } : {}),
+    ...(screenLayerIndex >= 0 ? { screenLayerIndex } : {}),
   };
 }
 

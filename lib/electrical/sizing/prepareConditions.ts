@@ -14,7 +14,7 @@ import { toMoney } from '../economics';
 import { DEFAULT_TEXT, ENTERED_TEXT, SHORT_CIRCUIT_TEXT } from './flagText';
 import { FlagSet } from './flags';
 import type { PreparedConditions } from './prepared';
-import type { Conditions, EconomicsInputs } from './types';
+import type { BuriedSurroundings, CableArrangement, Conditions, EconomicsInputs, OtherCircuit } from './types';
 
 /** Reference ambients when none is entered (flagged AMBIENT_ASSUMED). */
 export const DEFAULT_AIR_AMBIENT_CABLE_C = 30; // IEC 60364-5-52 reference ambient for air (from memory)
@@ -85,13 +85,33 @@ export function prepareConditions(c: Conditions): PreparedConditions {
         `must be 'cable-in-air', 'bar-on-edge', 'bar-flat', 'buried' or 'enclosure' (got ${String((inst as { kind?: unknown }).kind)})`,
       );
   }
-  const arrangement = inst as { formation?: unknown; spacingM?: unknown };
+  const arrangement = inst as CableArrangement & BuriedSurroundings;
   const formation = arrangement.formation === undefined ? 'trefoil' : arrangement.formation;
-  if (formation !== 'trefoil' && formation !== 'flat') {
-    throw new ElectricalInputError(f('installation.formation'), `must be 'trefoil' or 'flat'`);
+  if (formation !== 'trefoil' && formation !== 'flat' && formation !== 'flat-vertical') {
+    throw new ElectricalInputError(f('installation.formation'), `must be 'trefoil', 'flat' or 'flat-vertical'`);
   }
   const spacingM = optional(arrangement.spacingM as number | undefined, (v) => requirePositive(v, f('installation.spacingM')));
-
+  const circuitSpacingM = optional(arrangement.circuitSpacingM, (v) => requireRange(v, f('installation.circuitSpacingM'), 0, 50, { minExclusive: true }));
+  const circuitRow = arrangement.circuitRow ?? 'horizontal';
+  if (circuitRow !== 'horizontal' && circuitRow !== 'vertical') throw new ElectricalInputError(f('installation.circuitRow'), `must be 'horizontal' or 'vertical'`);
+  const others = arrangement.otherCircuits ?? [];
+  if (!Array.isArray(others) || others.length > 23) throw new ElectricalInputError(f('installation.otherCircuits'), 'must be a list of at most 23 circuits');
+  const otherCircuits: OtherCircuit[] = others.map((o, i) => {
+    const of = (n: string) => f(`installation.otherCircuits[${i}].${n}`);
+    if (o === null || typeof o !== 'object') throw new ElectricalInputError(f(`installation.otherCircuits[${i}]`), 'must be an object');
+    const currentA = requireRange(o.currentA, of('currentA'), 0, 20000);
+    if (o.cable === undefined) return { currentA };
+    return {
+      currentA,
+      cable: {
+        externalDiameterM: requireRange(o.cable.externalDiameterM, of('cable.externalDiameterM'), 0, 0.3, { minExclusive: true }),
+        lossWPerM: requireRange(o.cable.lossWPerM, of('cable.lossWPerM'), 0, 1000),
+      },
+    };
+  });
+  if (placement !== 'buried' && (arrangement.duct !== undefined || arrangement.backfill !== undefined)) {
+    throw new ElectricalInputError(f(arrangement.duct !== undefined ? 'installation.duct' : 'installation.backfill'), 'ducts and backfill are for buried cables');
+  }
   // Ambient: ground temperature for buried cables, air otherwise.
   let ambientC: number;
   let ambientAssumed = false;
@@ -167,6 +187,13 @@ export function prepareConditions(c: Conditions): PreparedConditions {
     groupingFactor,
     formation,
     spacingM,
+    circuitSpacingM,
+    circuitRow,
+    otherCircuits,
+    transposed: arrangement.transposed === true,
+    // Ducts and backfill are checked with the whole cross-section, where the cable's size is known.
+    duct: arrangement.duct,
+    backfill: arrangement.backfill,
     buried,
     windSpeedMPerS,
     solar,
@@ -180,7 +207,7 @@ export function prepareConditions(c: Conditions): PreparedConditions {
 }
 
 /** The flags the conditions alone raise, added to one candidate's flag set. */
-export function conditionFlags(c: PreparedConditions, flags: FlagSet): void {
+export function conditionFlags(c: PreparedConditions, flags: FlagSet, model: { windCredited: boolean } = { windCredited: true }): void {
   if (c.ambientAssumed) {
     if (c.placement === 'buried') {
       flags.add('AMBIENT_ASSUMED', DEFAULT_TEXT.groundAmbient(c.ambientC), { ambientC: c.ambientC });
@@ -198,7 +225,7 @@ export function conditionFlags(c: PreparedConditions, flags: FlagSet): void {
   if (c.surfaceCoefficientWPerM2K !== undefined) {
     flags.add('SURFACE_COEFFICIENT_ENTERED', ENTERED_TEXT.surfaceCoefficient(c.surfaceCoefficientWPerM2K), { h: c.surfaceCoefficientWPerM2K });
   }
-  if (c.windSpeedMPerS > 0) {
+  if (c.windSpeedMPerS > 0 && model.windCredited) {
     flags.add('WIND_COOLING_CREDITED', ENTERED_TEXT.wind(c.windSpeedMPerS), { windSpeedMPerS: c.windSpeedMPerS });
   }
   if (c.solar?.absorptivityAssumed) {

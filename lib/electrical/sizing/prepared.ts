@@ -4,7 +4,7 @@
  * validates nothing again.
  */
 import type { ConductorMaterial, ConductorMaterialConstants } from '../materials';
-import type { BarCandidate, CableCandidate, Conditions, EconomicsInputs, GoverningLimit } from './types';
+import type { BarCandidate, BuriedSurroundings, CableCandidate, CableScreen, Conditions, EconomicsInputs, GoverningLimit, OtherCircuit } from './types';
 
 export type Placement = 'cable-in-air' | 'bar-on-edge' | 'bar-flat' | 'buried';
 
@@ -25,8 +25,15 @@ export interface PreparedConditions {
   enclosureFactor: number;
   /** User-entered factor for OTHER circuits (never the circuit's own cables). */
   groupingFactor: number;
-  formation: 'trefoil' | 'flat';
+  formation: 'trefoil' | 'flat' | 'flat-vertical';
   spacingM?: number;
+  /** Parallel runs and other circuits, in one row beside the circuit. */
+  circuitSpacingM?: number;
+  circuitRow: 'horizontal' | 'vertical';
+  otherCircuits: OtherCircuit[];
+  transposed: boolean;
+  duct?: NonNullable<BuriedSurroundings['duct']>;
+  backfill?: NonNullable<BuriedSurroundings['backfill']>;
   buried?: { depthM: number; soilResistivityKmPerW: number; soilAssumed: boolean; groundAssumed: boolean };
   windSpeedMPerS: number;
   solar?: { irradianceWPerM2: number; absorptivity: number; absorptivityAssumed: boolean };
@@ -84,6 +91,10 @@ export interface PreparedCable extends PreparedCommon {
   kp?: number;
   /** Metallic screen or armour present. */
   hasMetallicLayer: boolean;
+  /** The screen's electrical data (single-core cables), when given. */
+  screen?: CableScreen;
+  /** Index in `layers` of the layer with role 'screen' (where the screen loss is released). */
+  screenLayerIndex?: number;
 }
 
 export interface PreparedBar extends PreparedCommon {

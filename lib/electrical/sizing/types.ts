@@ -66,6 +66,21 @@ export interface CableCandidate extends CandidateCommon {
   /** IEC 60287-1-1 Table 2 factors (default 1 and 1: round conductor, extruded insulation). */
   ks?: number;
   kp?: number;
+  /**
+   * The electrical data of a single-core cable's metallic screen or sheath (the layer with role
+   * 'screen' gives its place and thickness): with them the screen losses λ₁ of IEC 60287-1-1 §2.3
+   * are computed for the circuit's bonding and formation; without them they are left out (flagged).
+   */
+  screen?: CableScreen;
+}
+
+export interface CableScreen {
+  material: 'copper' | 'aluminium' | 'lead';
+  /** Metallic cross-section, mm² (or the maker's r20OhmPerM). */
+  sectionMm2?: number;
+  r20OhmPerM?: number;
+  /** Bonded at both ends (circulating currents), at one point, or cross-bonded (eddy currents only). */
+  bonding: 'solid' | 'single-point' | 'cross-bonded';
 }
 
 export interface BarCoating {
@@ -100,11 +115,41 @@ export type Candidate = CableCandidate | BarCandidate;
 
 // ───────────────────────────── Conditions ─────────────────────────────
 
+/** Another circuit lying beside the one being sized (same route, trench or tray row). */
+export interface OtherCircuit {
+  /** Its current per phase, A. */
+  currentA: number;
+  /**
+   * Its cable when it is not the candidate's own: the overall diameter and the heat ONE of its
+   * cables gives off at that current, W/m (from that circuit's own rating; flagged as entered).
+   * Absent: the same cable as the candidate, solved at its own current.
+   */
+  cable?: { externalDiameterM: number; lossWPerM: number };
+}
+
 export interface CableArrangement {
-  /** How the circuit's single-core cables lie (default trefoil). */
-  formation?: 'trefoil' | 'flat';
+  /** How the circuit's single-core cables lie (default trefoil); 'flat' is a horizontal row. */
+  formation?: 'trefoil' | 'flat' | 'flat-vertical';
   /** Axis-to-axis spacing between the circuit's cables, m (default touching: the cable diameter). */
   spacingM?: number;
+  /**
+   * Centre-to-centre distance between the circuit's parallel runs and the other circuits, which
+   * lie in one row beside it, m (default: touching).
+   */
+  circuitSpacingM?: number;
+  /** Direction of that row (default horizontal). */
+  circuitRow?: 'horizontal' | 'vertical';
+  otherCircuits?: OtherCircuit[];
+  /** Flat formation: phases transposed along the route (screen losses). */
+  transposed?: boolean;
+}
+
+/** Ducts and backfill of a buried circuit (IEC 60287-2-1 §4.2.7). */
+export interface BuriedSurroundings {
+  /** Every cable in its own duct. */
+  duct?: { material: 'pvc' | 'pe' | 'earthenware' | 'fibre-in-air' | 'fibre-in-concrete' | 'metallic'; innerDiameterM: number; outerDiameterM: number };
+  /** A rectangular backfill or concrete bank of its own resistivity, centred on the cables. */
+  backfill?: { widthM: number; heightM: number; centreDepthM: number; resistivityKmPerW: number };
 }
 
 export type Installation =
@@ -119,7 +164,8 @@ export type Installation =
       soilResistivityKmPerW?: number;
       /** Undisturbed ground temperature at depth, °C (default 20, flagged; replaces ambientC). */
       groundC?: number;
-    } & CableArrangement)
+    } & CableArrangement &
+      BuriedSurroundings)
   | ({
       kind: 'enclosure';
       /** User-entered derating for the enclosure, 0 < f ≤ 1 (flagged). */
@@ -168,7 +214,11 @@ export interface Conditions {
   temperatureLimitC?: number;
   /** When true, `temperatureLimitC` REPLACES the material limits even if higher (flagged). */
   raiseMaterialLimit?: boolean;
-  /** User-entered grouping derating factor 0 < f ≤ 1 (flagged). */
+  /**
+   * User-entered derating 0 < f ≤ 1 for heating by OTHER circuits that no method here covers
+   * (cables in air near other circuits, trays). It never stands for the circuit's own cables, whose
+   * mutual heating is always computed (flagged).
+   */
   groupingFactor?: number;
   /** A fixed combined (convection + radiation) surface coefficient, W/(m²·K), replacing the correlations (flagged). */
   surfaceCoefficientWPerM2K?: number;

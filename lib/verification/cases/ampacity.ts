@@ -55,28 +55,34 @@ const baseConditions: Omit<Conditions, 'installation' | 'frequencyHz'> = {
 };
 
 // ── Buried, direct current: R_ac = R_dc, T₄ from the soil ─────────────────────────────────────
-const buried = { depthM: 0.8, soilRhoT: 1.5, groundC: 20 };
+// A two-wire DC circuit, its cables side by side 0.3 m apart at the same depth: each cable's T₄
+// is its own ρ/(2π)·ln(u + √(u² − 1)) plus the other's equal heat through ρ/(2π)·ln(d′/d),
+// d = 0.3 m, d′ = √(0.3² + (2L)²) (IEC 60287-2-1 §4.2.3, equally loaded group).
+const buried = { depthM: 0.8, soilRhoT: 1.5, groundC: 20, spacingM: 0.3 };
 const u = (2 * buried.depthM) / overSheathM;
-const t4Buried = (buried.soilRhoT / (2 * Math.PI)) * Math.log(u + Math.sqrt(u * u - 1));
+const t4Own = (buried.soilRhoT / (2 * Math.PI)) * Math.log(u + Math.sqrt(u * u - 1));
+const t4Mutual = (buried.soilRhoT / (2 * Math.PI)) * Math.log(Math.hypot(buried.spacingM, 2 * buried.depthM) / buried.spacingM);
+const t4Buried = t4Own + t4Mutual;
 const buriedReference = Math.sqrt((limitC - buried.groundC) / (rAt90 * (t1 + t3 + t4Buried)));
 
 const buriedCase: VerificationCase = {
   id: 'ampacity-buried-dc',
-  title: 'Ampacity of a buried single-core cable (DC): solver against the IEC 60287 closed form',
+  title: 'Ampacity of a buried two-wire DC circuit of single-core cables: solver against the IEC 60287 closed form',
   area: 'ampacity',
   source: {
     kind: 'standard',
-    citation: 'IEC 60287-1-1 eq. (1) with W_d = 0, λ = 0; T₁, T₃ and buried T₄ = ρ/(2π)·ln(u + √(u² − 1)) of IEC 60287-2-1 (single isolated cable)',
+    citation: 'IEC 60287-1-1 eq. (1) with W_d = 0, λ = 0; T₁, T₃ and T₄ = ρ/(2π)·[ln(u + √(u² − 1)) + ln(d′/d)] of IEC 60287-2-1 §4.2.3 (two equally loaded cables)',
   },
   inputs: [
     ...cableInputs,
     { name: 'depth of the axis L', value: buried.depthM, unit: 'm' },
     { name: 'soil ρ_T', value: buried.soilRhoT, unit: 'K·m/W' },
     { name: 'ground', value: buried.groundC, unit: '°C' },
+    { name: 'axis spacing of the two cables d', value: buried.spacingM, unit: 'm' },
     { name: 'frequency', value: 0, unit: 'Hz' },
   ],
   notes:
-    `T₁ = ${t1.toPrecision(6)}, T₃ = ${t3.toPrecision(6)}, u = 2L/D_e = ${u.toPrecision(6)}, T₄ = ${t4Buried.toPrecision(6)} K·m/W; ` +
+    `T₁ = ${t1.toPrecision(6)}, T₃ = ${t3.toPrecision(6)}, u = 2L/D_e = ${u.toPrecision(6)}, T₄ = ${t4Own.toPrecision(6)} + ${t4Mutual.toPrecision(6)} (the other cable) = ${t4Buried.toPrecision(6)} K·m/W; ` +
     `R(90 °C) = ${rAt90.toPrecision(6)} Ω/m; I = √(70/(R·ΣT)) = ${buriedReference.toPrecision(6)} A. ` +
     'The solver takes the conductor as a conducting cylinder (not isothermal) and finds the current to 0.1 A from below; 0.1 % allows for both.',
   quantities: [{ key: 'current', label: 'ampacity', unit: 'A', reference: buriedReference, tolerance: { kind: 'relative', value: 0.001 } }],
@@ -84,7 +90,8 @@ const buriedCase: VerificationCase = {
     const r = lib.ampacity(cable, {
       ...baseConditions,
       frequencyHz: 0,
-      installation: { kind: 'buried', depthM: buried.depthM, soilResistivityKmPerW: buried.soilRhoT, groundC: buried.groundC, formation: 'trefoil', spacingM: 0.2 },
+      phases: 1,
+      installation: { kind: 'buried', depthM: buried.depthM, soilResistivityKmPerW: buried.soilRhoT, groundC: buried.groundC, formation: 'flat', spacingM: buried.spacingM },
     });
     return {
       values: { current: r.current },

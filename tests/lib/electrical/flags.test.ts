@@ -32,7 +32,8 @@ const cases: Record<Exclude<FlagCode, BeyondSteadyFlagCode>, () => { candidate: 
     candidate: xlpeCable(95),
     conditions: cableConditions({ installation: { kind: 'enclosure', deratingFactor: 0.85, inside: 'cable-in-air', spacingM: 0.1 } }),
   }),
-  MUTUAL_HEATING_NOT_MODELLED: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ installation: { kind: 'cable-in-air' } }) }),
+  // Two runs of trefoils touching side by side in air: IEC 60287-2-1 Table 2 covers one group.
+  MUTUAL_HEATING_NOT_MODELLED: () => ({ candidate: xlpeCable(95, { parallel: 2 }), conditions: cableConditions({ installation: { kind: 'cable-in-air' } }) }),
   // A 20 mm bar laid flat: L = w/2 = 10 mm puts Ra below the 1e4 where the horizontal-plate
   // correlations start (Incropera ch. 9).
   CORRELATION_OUT_OF_RANGE: () => ({
@@ -40,7 +41,8 @@ const cases: Record<Exclude<FlagCode, BeyondSteadyFlagCode>, () => { candidate: 
     conditions: barConditions({ designCurrentA: 100, installation: { kind: 'bar-flat' } }),
   }),
   SURFACE_COEFFICIENT_ENTERED: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ surfaceCoefficientWPerM2K: 9 }) }),
-  WIND_COOLING_CREDITED: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ windSpeedMPerS: 2 }) }),
+  // Wind cools a cable that lies alone (a three-core cable); a group's free-air law is for still air.
+  WIND_COOLING_CREDITED: () => ({ candidate: xlpeCable(95, { cores: 3 }), conditions: cableConditions({ windSpeedMPerS: 2 }) }),
   EMISSIVITY_ASSUMED: () => ({ candidate: xlpeCable(95, { emissivity: undefined }), conditions: cableConditions() }),
   SOLAR_ABSORPTIVITY_ASSUMED: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ solar: { irradianceWPerM2: 1000 } }) }),
   AC_FACTOR_LOWER_BOUND: () => ({ candidate: copperBar(0.1, 0.01), conditions: barConditions() }),
@@ -95,6 +97,19 @@ const cases: Record<Exclude<FlagCode, BeyondSteadyFlagCode>, () => { candidate: 
   CROSS_CHECK_DIFFERENCE: () => ({
     candidate: { kind: 'bar', material: 'aluminium', widthM: 0.1, thicknessM: 0.06, r20OhmPerM: 2.8264e-8 / 6e-3, terminalLimitC: 90, acResistanceRatio: 1 },
     conditions: barConditions({ surfaceCoefficientWPerM2K: 2000 }),
+  }),
+  CABLE_GROUP_RATED: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ installation: { kind: 'cable-in-air' } }) }),
+  OTHER_CIRCUITS_NOT_COVERED: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ installation: { kind: 'cable-in-air', otherCircuits: [{ currentA: 150 }] } }) }),
+  // A trefoil with a 5 mm clearance is not tabulated (touching is): rated as touching.
+  GROUP_ROW_CONSERVATIVE: () => {
+    const c = xlpeCable(95);
+    const de = c.conductorDiameterM + 2 * (1.7e-3 + 1.8e-3);
+    return { candidate: c, conditions: cableConditions({ installation: { kind: 'cable-in-air', spacingM: de + 0.005 } }) };
+  },
+  WIND_NOT_CREDITED_TO_GROUP: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ windSpeedMPerS: 2 }) }),
+  OTHER_CIRCUIT_HEAT_ENTERED: () => ({
+    candidate: xlpeCable(95),
+    conditions: cableConditions({ installation: { kind: 'buried', depthM: 0.8, otherCircuits: [{ currentA: 200, cable: { externalDiameterM: 0.03, lossWPerM: 20 } }], circuitSpacingM: 0.3 } }),
   }),
   SHEATH_LOSSES_NOT_INCLUDED: () => {
     const c = xlpeCable(95);

@@ -8,7 +8,8 @@ import { SizingError } from '../../errors';
 import { fromModelCurrent, modelResistance, modelToConductorCurrent, solveAt, toModelCurrent, type SizingContext } from '../context';
 import { MODEL_TEXT } from '../flagText';
 import { FlagSet, fmt } from '../flags';
-import { closedFormCurrent, CLOSED_FORM_METHOD_BAR, CLOSED_FORM_METHOD_CABLE, profileOf, readLimits, type LimitReading } from '../model';
+import { cableClosedForm } from '../closedForm';
+import { closedFormCurrent, CLOSED_FORM_METHOD_BAR, profileOf, readLimits, type LimitReading } from '../model';
 import { findLimitCurrent, type LimitEvaluation } from '../rootFinder';
 import type { AmpacityResult } from '../types';
 
@@ -60,8 +61,20 @@ function firstGuess(ctx: SizingContext): number {
   return Number.isFinite(i) && i > 0 ? i : 1;
 }
 
-function closedFormCheck(ctx: SizingContext, point: SolvedPoint, currentA: number): AmpacityResult['closedForm'] {
+/** The closed form beside the solver: a cable's is independent (IEC 60287, closedForm.ts); a bar's uses the solver's surface state (model.ts). */
+function closedFormOf(ctx: SizingContext, point: SolvedPoint): { modelCurrentA: number; method: string; externalResistanceKmPerW: number; internalResistanceKmPerW: number } | null {
+  const { cand, cond, group } = ctx;
+  if (cand.kind === 'cable' && group) {
+    const perModelConductor = (t: number) => modelResistance(ctx, t);
+    const cf = cableClosedForm(cand, cond, group, point.limits.governing, perModelConductor);
+    return cf ? { modelCurrentA: cf.conductorCurrentA, method: cf.method, externalResistanceKmPerW: cf.externalResistanceKmPerW, internalResistanceKmPerW: cf.internalResistanceKmPerW } : null;
+  }
   const cf = closedFormCurrent(ctx.model, point.result, point.limits.governing, (t) => modelResistance(ctx, t));
+  return cf ? { ...cf, method: CLOSED_FORM_METHOD_BAR } : null;
+}
+
+function closedFormCheck(ctx: SizingContext, point: SolvedPoint, currentA: number): AmpacityResult['closedForm'] {
+  const cf = closedFormOf(ctx, point);
   if (!cf || !(cf.modelCurrentA > 0)) return null;
   const cfCurrent = fromModelCurrent(ctx, cf.modelCurrentA);
   const differencePercent = (100 * (currentA - cfCurrent)) / cfCurrent;
@@ -70,7 +83,7 @@ function closedFormCheck(ctx: SizingContext, point: SolvedPoint, currentA: numbe
   }
   return {
     currentA: cfCurrent,
-    method: ctx.cand.kind === 'cable' ? CLOSED_FORM_METHOD_CABLE : CLOSED_FORM_METHOD_BAR,
+    method: cf.method,
     differencePercent,
     externalResistanceKmPerW: cf.externalResistanceKmPerW,
     internalResistanceKmPerW: cf.internalResistanceKmPerW,
