@@ -34,9 +34,10 @@ type Layer = (typeof LAYERS)[number];
 /**
  * npm packages `lib/` may import. Each runs in the browser as well as in Node.js: zod and decimal.js
  * are plain JavaScript; papaparse reads text in either; exceljs ships a browser build (its
- * package.json "browser" field) that bundlers pick for the client.
+ * package.json "browser" field) that bundlers pick for the client; @noble/hashes is SHA-256 in plain
+ * JavaScript (lib/auth/linkTokens.ts).
  */
-const LIB_PACKAGES = new Set(['zod', 'decimal.js', 'papaparse', 'exceljs']);
+const LIB_PACKAGES = new Set(['zod', 'decimal.js', 'papaparse', 'exceljs', '@noble/hashes']);
 
 /** Node.js's own modules, with and without the `node:` prefix (fs, path, crypto, os…). */
 const NODE_BUILTINS = new Set(builtinModules.flatMap((name) => [name, `node:${name}`, name.split('/')[0]]));
