@@ -56,6 +56,13 @@ export const INPUT_BOUNDS = {
     max: MAX_CIRCUIT_CURRENT_A,
     basis: 'I_B per phase, r.m.s.; the one current cap MAX_CIRCUIT_CURRENT_A (see there).',
   },
+  currentA: {
+    label: 'Current',
+    unit: 'A',
+    min: 0,
+    max: MAX_CIRCUIT_CURRENT_A,
+    basis: 'Any circuit current the library is asked to solve at, 0 A included (the ampacity alone needs no design current); the one current cap.',
+  },
   nominalVoltageV: {
     label: 'Voltage U₀',
     unit: 'V',

@@ -237,7 +237,7 @@ export const conditionsSchema = z.strictObject(conditionsShape).superRefine(cond
 
 /** For the ampacity alone the design current does not matter: it may be left out. */
 export const ampacityConditionsSchema = z
-  .strictObject({ ...conditionsShape, designCurrentA: conditionsShape.designCurrentA.optional() })
+  .strictObject({ ...conditionsShape, designCurrentA: bounded('currentA', 'Design current').optional().meta({ description: 'Not needed for the ampacity; 0 A is accepted.' }) })
   .superRefine(conditionRules)
   .meta({ id: 'AmpacityConditions' });
 

@@ -4,7 +4,7 @@
 // and the decision recorded in the table (one 100 kA current cap, issue 16); every edge is probed
 // just inside and just outside each end of each range, so an edge with a number of its own fails.
 import { describe, expect, it } from 'vitest';
-import { conditionsSchema, EXAMPLE_EVALUATE_REQUEST } from '@/lib/api';
+import { ampacityConditionsSchema, conditionsSchema, EXAMPLE_EVALUATE_REQUEST } from '@/lib/api';
 import { conductorRowSchema, coveringRowSchema } from '@/lib/catalogue';
 import { STANDARD_CONDUCTORS, STANDARD_COVERINGS } from '@/lib/catalogue/standardData';
 import { ElectricalInputError } from '@/lib/electrical/errors';
@@ -171,6 +171,14 @@ describe('every edge reads the same ranges', () => {
       const row = { ...good, faultCurrentKA: String(v / 1000), clearingTimeS: '0.2' };
       expect(issuesAt(scheduleRowSchema.safeParse(row), 'faultCurrentKA') === 0, `${v} A`).toBe(withinBound(bound, v));
     }
+  });
+
+  it('API: the ampacity endpoint takes any current from 0 A up to the cap (the design current does not enter it)', () => {
+    for (const v of probes(INPUT_BOUNDS.currentA)) {
+      const body = { ...api, designCurrentA: v };
+      expect(issuesAt(ampacityConditionsSchema.safeParse(body), 'designCurrentA') === 0, `designCurrentA = ${v}`).toBe(withinBound(INPUT_BOUNDS.currentA, v));
+    }
+    expect(ampacityConditionsSchema.safeParse({ ...api, designCurrentA: undefined }).success).toBe(true);
   });
 
   it('catalogue: resistance, diameter, width and covering limits never exceed what the library takes (Ω/km and mm are ×1000 of SI)', () => {
