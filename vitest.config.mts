@@ -1,8 +1,9 @@
 import { defineConfig } from 'vitest/config';
 import path from 'node:path';
 
-// Three projects: `unit` runs pure library tests (no database); `integration` runs against the real
-// PostgreSQL server started by scripts/test.sh (DATABASE_URL points at a throw-away database).
+// Three projects: `unit` runs pure library tests and the layer rule's import scan (no database);
+// `integration` runs against the real PostgreSQL server started by scripts/test.sh (DATABASE_URL
+// points at a throw-away database); `e2e` against the production build.
 export default defineConfig({
   resolve: { alias: { '@': path.resolve(import.meta.dirname) } },
   test: {
@@ -11,7 +12,7 @@ export default defineConfig({
         extends: true,
         test: {
           name: 'unit',
-          include: ['tests/lib/**/*.test.ts', 'tests/unit/**/*.test.ts'],
+          include: ['tests/lib/**/*.test.ts', 'tests/architecture/**/*.test.ts'],
           environment: 'node',
           // Property tests run thousands of solves; a loaded 2-core machine must not turn them into timeouts.
           testTimeout: 120_000,

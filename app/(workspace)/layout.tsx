@@ -2,6 +2,7 @@ import type { ReactNode } from 'react';
 import { WorkspaceNav } from '@/components/shell/WorkspaceNav';
 import { QueryProvider } from '@/components/providers/QueryProvider';
 import { UserMenu } from '@/components/auth/UserMenu';
+import { setUnitSystemAction } from '@/server/auth/preferenceActions';
 import { requirePageUser } from '@/server/auth/session';
 
 export default async function WorkspaceLayout({ children }: { children: ReactNode }) {
@@ -9,7 +10,7 @@ export default async function WorkspaceLayout({ children }: { children: ReactNod
   const user = await requirePageUser();
   return (
     <div className="min-h-screen">
-      <WorkspaceNav isAdmin={user.role === 'admin'} userSlot={<UserMenu name={user.name} teamName={user.teamName} role={user.role} unitSystem={user.unitSystem} />} />
+      <WorkspaceNav isAdmin={user.role === 'admin'} userSlot={<UserMenu name={user.name} teamName={user.teamName} role={user.role} unitSystem={user.unitSystem} onUnitSystemChange={setUnitSystemAction} />} />
       <main className="mx-auto max-w-sheet px-4 py-6">
         <QueryProvider>{children}</QueryProvider>
       </main>

@@ -1,5 +1,5 @@
 import Link from 'next/link';
-import type { LinkState } from '@/server/auth/members';
+import type { LinkState } from '@/lib/auth/linkTokens';
 import { FormMessage } from './AuthFrame';
 
 /** What a visitor sees for a link that no longer works; says how to get a working one. */

@@ -1,11 +1,28 @@
 'use client';
 
 import { useState, useTransition } from 'react';
-import { setUnitSystemAction } from '@/server/auth/preferenceActions';
 import { SignOutButton } from './SignOutButton';
 
-/** Who is signed in, in which team and role; the units switch; sign out. */
-export function UserMenu({ name, teamName, role, unitSystem }: { name: string; teamName: string; role: string; unitSystem: 'si' | 'imperial' }) {
+type UnitSystemChoice = 'si' | 'imperial';
+
+/**
+ * Who is signed in, in which team and role; the units switch; sign out. The switch stores the
+ * choice through `onUnitSystemChange`, the server action the workspace layout passes in
+ * (server/auth/preferenceActions): components do not import server code (DEVELOPERS.md, layers).
+ */
+export function UserMenu({
+  name,
+  teamName,
+  role,
+  unitSystem,
+  onUnitSystemChange,
+}: {
+  name: string;
+  teamName: string;
+  role: string;
+  unitSystem: UnitSystemChoice;
+  onUnitSystemChange: (unitSystem: UnitSystemChoice) => Promise<unknown>;
+}) {
   const [units, setUnits] = useState(unitSystem);
   const [pending, startTransition] = useTransition();
   const [open, setOpen] = useState(false);
@@ -37,7 +54,7 @@ export function UserMenu({ name, teamName, role, unitSystem }: { name: string; t
                       setUnits(choice);
                       startTransition(async () => {
                         try {
-                          await setUnitSystemAction(choice);
+                          await onUnitSystemChange(choice);
                         } catch {
                           setUnits(unitSystem);
                         }

@@ -18,7 +18,7 @@ import type { CandidateEvaluationOk } from '@/lib/electrical/sizing/types';
 import type { OptionalCheckReport } from '@/lib/sheet/optionalChecksReport';
 import type { SheetInputs } from '@/lib/sheet/schema';
 import type { ResultSnapshot } from '@/lib/sheet/snapshot';
-import { formatDate, inputRows } from './sheetTables';
+import { formatDate, inputRows } from '@/lib/sheet/sheetTables';
 
 export interface SharedSheet {
   inputs: SheetInputs;

@@ -4,9 +4,9 @@ import { AgGridReact } from 'ag-grid-react';
 import { AllCommunityModule, ModuleRegistry, themeQuartz, type ColDef, type ICellRendererParams } from 'ag-grid-community';
 import type { CandidateEvaluation } from '@/lib/electrical/sizing/types';
 import type { SheetCandidate } from '@/lib/sheet/candidates';
-import { describeArrangement, sectionPerPhaseMm2 } from '@/lib/sheet/candidates';
+import { candidateRecords } from '@/lib/sheet/sheetTables';
 import { convertFromSi, formatNumber, unitLabel, type UnitSystem } from '@/lib/units';
-import { failureWords, RESULT_STATES, thermalState } from './resultState';
+import { RESULT_STATES } from './resultState';
 
 ModuleRegistry.registerModules([AllCommunityModule]);
 
@@ -24,7 +24,8 @@ const gridTheme = themeQuartz.withParams({
   backgroundColor: '#ffffff',
 });
 
-export interface CandidateRow {
+/** A row of the grid: the candidate's record (lib/sheet candidateRecords → candidateRow) in the user's units. */
+export interface CandidateGridRow {
   id: string;
   label: string;
   section: number;
@@ -32,7 +33,9 @@ export interface CandidateRow {
   hotSpot: number | null;
   marginPercent: number | null;
   ampacity: number | null;
+  /** Per cent; null when not evaluated or when no current is allowed (utilisationText then says so). */
   utilisation: number | null;
+  utilisationText: string;
   lossWPerM: number | null;
   voltageDropPercent: number | null;
   shortCircuit: string;
@@ -48,50 +51,42 @@ export interface CandidateRow {
   error: string | null;
 }
 
-export function candidateRows(candidates: SheetCandidate[], evaluations: CandidateEvaluation[] | null, chosenId: string | null, units: UnitSystem): CandidateRow[] {
-  return candidates.map((candidate) => {
-    const e = evaluations?.find((x) => x.id === candidate.id);
-    const base = {
-      id: candidate.id,
-      label: candidate.label,
-      section: convertFromSi(sectionPerPhaseMm2(candidate), 'areaMm2', units),
-      arrangement: describeArrangement(candidate),
-      chosen: candidate.id === chosenId,
-    };
-    if (!e || !e.ok) {
-      return { ...base, hotSpot: null, marginPercent: null, ampacity: null, utilisation: null, lossWPerM: null, voltageDropPercent: null, shortCircuit: '—', massKg: null, cost: null, lifeCycleCost: null, flags: '', state: e ? 'Not evaluated' : 'Computing…', stateKey: 'error' as const, passes: false, marks: [], error: e && !e.ok ? e.error.message : null };
-    }
-    const counts = { blocker: 0, review: 0, note: 0 };
-    for (const f of e.flags) counts[f.severity] += 1;
-    const { state, word } = thermalState(e);
-    const marks: string[] = [];
-    if (e.isSmallestPassing) marks.push('Smallest passing');
-    if (e.isLowestLifeCycleCostPassing) marks.push('Lowest cost passing');
+const SHORT_CIRCUIT_CELL: Record<string, string> = { passes: '✔ passes', fails: '✖ fails', 'not checked': 'not checked', '': '—' };
+
+export function candidateRows(candidates: SheetCandidate[], evaluations: CandidateEvaluation[] | null, chosenId: string | null, units: UnitSystem): CandidateGridRow[] {
+  const records = candidateRecords(candidates, { evaluations: evaluations ?? [], chosenCandidateId: chosenId }, 'Computing…');
+  return records.map((r) => {
+    const counts = r.flagCounts;
     return {
-      ...base,
-      hotSpot: e.hotSpotC === null ? null : convertFromSi(e.hotSpotC, 'temperature', units),
-      marginPercent: e.marginPercent,
-      ampacity: e.ampacityA,
-      utilisation: e.utilisation === null ? null : e.utilisation * 100,
-      lossWPerM: e.lossWPerM === null ? null : convertFromSi(e.lossWPerM, 'powerWPerM', units),
-      voltageDropPercent: e.voltageDrop.percent,
-      shortCircuit: !e.shortCircuit.checked ? 'not checked' : e.shortCircuit.withstands ? '✔ passes' : '✖ fails',
-      massKg: e.massKg,
-      cost: e.materialCost,
-      lifeCycleCost: e.lifeCycleCost,
+      id: r.id,
+      label: r.label,
+      section: convertFromSi(r.sectionPerPhaseMm2, 'areaMm2', units),
+      arrangement: r.arrangement,
+      hotSpot: r.hotSpotC === null ? null : convertFromSi(r.hotSpotC, 'temperature', units),
+      marginPercent: r.marginPercent,
+      ampacity: r.ampacityA,
+      utilisation: r.utilisationPercent,
+      utilisationText: r.utilisationText,
+      lossWPerM: r.lossWPerM === null ? null : convertFromSi(r.lossWPerM, 'powerWPerM', units),
+      voltageDropPercent: r.voltageDropPercent,
+      shortCircuit: SHORT_CIRCUIT_CELL[r.shortCircuit] ?? r.shortCircuit,
+      massKg: r.massKg,
+      cost: r.materialCost,
+      lifeCycleCost: r.lifeCycleCost,
       flags: `${counts.blocker ? `${counts.blocker} ✖ ` : ''}${counts.review ? `${counts.review} ▲ ` : ''}${counts.note ? `${counts.note} i` : ''}`.trim(),
-      state: e.passes ? word : failureWords(e),
-      stateKey: e.passes ? state : 'over',
-      passes: e.passes,
-      marks,
-      error: null,
+      state: r.state,
+      stateKey: r.stateKey,
+      passes: r.passes === true,
+      marks: r.marks,
+      chosen: r.chosen,
+      error: r.error,
     };
   });
 }
 
 const num = (digits: number) => (p: { value: number | null }) => (p.value === null || p.value === undefined ? '—' : formatNumber(p.value, digits));
 
-function StateCell(p: ICellRendererParams<CandidateRow>) {
+function StateCell(p: ICellRendererParams<CandidateGridRow>) {
   const row = p.data!;
   if (row.stateKey === 'error') return <span className="text-over-dark" title={row.error ?? undefined}>✖ {row.state}</span>;
   const look = RESULT_STATES[row.stateKey];
@@ -112,7 +107,7 @@ export function CandidateGrid({
   onRemove,
   editable,
 }: {
-  rows: CandidateRow[];
+  rows: CandidateGridRow[];
   units: UnitSystem;
   focusedId: string | null;
   onFocus: (id: string) => void;
@@ -120,7 +115,7 @@ export function CandidateGrid({
   onRemove: (id: string) => void;
   editable: boolean;
 }) {
-  const columns = useMemo<ColDef<CandidateRow>[]>(() => {
+  const columns = useMemo<ColDef<CandidateGridRow>[]>(() => {
     const t = unitLabel('temperature', units);
     return [
       {
@@ -128,7 +123,7 @@ export function CandidateGrid({
         width: 96,
         pinned: 'left',
         sortable: false,
-        cellRenderer: (p: ICellRendererParams<CandidateRow>) =>
+        cellRenderer: (p: ICellRendererParams<CandidateGridRow>) =>
           p.data!.chosen ? (
             <span className="font-semibold text-copper-700" data-testid={`chosen-${p.data!.id}`}>● Chosen</span>
           ) : editable ? (
@@ -146,7 +141,14 @@ export function CandidateGrid({
       { headerName: `Hot spot (${t})`, field: 'hotSpot', width: 104, type: 'numericColumn', valueFormatter: num(4) },
       { headerName: 'Margin (%)', field: 'marginPercent', width: 92, type: 'numericColumn', valueFormatter: num(3) },
       { headerName: 'Ampacity (A)', field: 'ampacity', width: 106, type: 'numericColumn', valueFormatter: num(4) },
-      { headerName: 'Utilisation (%)', field: 'utilisation', width: 112, type: 'numericColumn', valueFormatter: num(3) },
+      {
+        headerName: 'Utilisation (%)',
+        field: 'utilisation',
+        width: 132,
+        type: 'numericColumn',
+        // A candidate that may carry no current has no utilisation figure: say so, as the PDF does.
+        valueFormatter: (p) => (p.data?.utilisation === null && p.data.utilisationText ? p.data.utilisationText : num(3)(p)),
+      },
       { headerName: `Loss (${unitLabel('powerWPerM', units)})`, field: 'lossWPerM', width: 96, type: 'numericColumn', valueFormatter: num(3) },
       { headerName: 'Voltage drop (%)', field: 'voltageDropPercent', width: 118, type: 'numericColumn', valueFormatter: num(3) },
       { headerName: 'Short circuit', field: 'shortCircuit', width: 108 },
@@ -161,12 +163,12 @@ export function CandidateGrid({
               headerName: '',
               width: 84,
               sortable: false,
-              cellRenderer: (p: ICellRendererParams<CandidateRow>) => (
+              cellRenderer: (p: ICellRendererParams<CandidateGridRow>) => (
                 <button type="button" className="text-caption text-ink-500 hover:text-over" aria-label={`Remove ${p.data!.label}`} onClick={(e) => { e.stopPropagation(); onRemove(p.data!.id); }}>
                   Remove
                 </button>
               ),
-            } satisfies ColDef<CandidateRow>,
+            } satisfies ColDef<CandidateGridRow>,
           ]
         : []),
     ];
@@ -174,7 +176,7 @@ export function CandidateGrid({
 
   return (
     <div className="w-full [&_.ag-center-cols-container]:!min-h-0 [&_.ag-center-cols-viewport]:!min-h-0" data-testid="candidate-grid">
-      <AgGridReact<CandidateRow>
+      <AgGridReact<CandidateGridRow>
         theme={gridTheme}
         rowData={rows}
         columnDefs={columns}

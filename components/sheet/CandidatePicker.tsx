@@ -11,6 +11,7 @@ import Decimal from 'decimal.js';
 import { barToCandidate, buildLayers, cableBuildToCandidate, type StoredRow } from '@/lib/catalogue';
 import { sheetCandidateSchema, type SheetCandidate } from '@/lib/sheet/candidates';
 import { formatQuantity, type UnitSystem } from '@/lib/units';
+import { INPUT_BOUNDS } from '@/lib/inputBounds';
 
 interface Option {
   key: string;
@@ -146,7 +147,7 @@ export function CandidatePicker({
         </div>
         <div>
           <label htmlFor="pick-n" className="field-label">{kind === 'bar' ? 'Bars per phase' : 'Cables per phase'}</label>
-          <input id="pick-n" data-testid="picker-per-phase" type="number" min={1} max={kind === 'bar' ? 12 : 20} className="field-input num py-1" value={perPhase} onChange={(e) => setPerPhase(Math.max(1, Math.round(Number(e.target.value) || 1)))} />
+          <input id="pick-n" data-testid="picker-per-phase" type="number" min={1} max={kind === 'bar' ? INPUT_BOUNDS.barsPerPhase.max : INPUT_BOUNDS.parallel.max} className="field-input num py-1" value={perPhase} onChange={(e) => setPerPhase(Math.max(1, Math.round(Number(e.target.value) || 1)))} />
         </div>
       </div>
       {kind === 'bar' ? (

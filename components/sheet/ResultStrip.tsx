@@ -1,7 +1,8 @@
 'use client';
 import type { CandidateEvaluation } from '@/lib/electrical/sizing/types';
 import { formatNumber, formatQuantity, type UnitSystem } from '@/lib/units';
-import { failureWords, RESULT_STATES, thermalState } from './resultState';
+import { failureWords, thermalState } from '@/lib/sheet/candidateRow';
+import { RESULT_STATES } from './resultState';
 
 const LIMIT_SOURCES: Record<string, string> = { insulation: 'insulation', coating: 'coating', terminal: 'joints and terminals', user: 'your own limit', layer: 'covering' };
 

@@ -1,5 +1,5 @@
 import Link from 'next/link';
-import type { SheetListItem } from '@/db/queries/sheets';
+import type { SheetListItem } from '@/lib/sheet/records';
 
 /** Sheets waiting for this reviewer (their own are left out: nobody reviews their own sheet). */
 export function ReviewQueue({ sheets, className = '' }: { sheets: SheetListItem[]; className?: string }) {

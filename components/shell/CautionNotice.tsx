@@ -1,13 +1,6 @@
-/**
- * The standing caution (../shared/design/product.md, "Cautions"). Shown on every sheet, print and
- * share view; the wording is ours and must not be shortened away.
- */
-export const CAUTION_TEXT = [
-  'Ampwarden is an engineering aid. Its results depend on the assumptions listed with them.',
-  'The installation must comply with the applicable wiring rules and standards (IEC 60364 and national codes) and with local authority requirements.',
-  'A qualified, licensed engineer must check and sign this sizing sheet before it is used for construction.',
-] as const;
+import { CAUTION_TEXT } from '@/lib/caution';
 
+/** The standing caution as a note (its words: lib/caution.ts); on every sheet, print and share view. */
 export function CautionNotice({ compact = false }: { compact?: boolean }) {
   return (
     <aside

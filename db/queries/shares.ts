@@ -9,7 +9,7 @@ import { getDb, type Executor } from '../client';
 import { sheetShares, users } from '../schema';
 import { recordAudit } from './audit';
 import { getSheet, isUuid, type SheetRecord } from './sheets';
-import { hashLinkToken, looksLikeLinkToken, newLinkToken } from '../../server/auth/tokens';
+import { hashLinkToken, looksLikeLinkToken, newLinkToken } from '../../lib/auth/linkTokens';
 
 export const SHARE_MIN_DAYS = 1;
 export const SHARE_MAX_DAYS = 90;

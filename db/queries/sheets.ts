@@ -19,10 +19,12 @@ import {
   SHEET_SCHEMA_VERSION,
   TRANSITIONS,
   type Actor,
-  type ResultSnapshot,
   type SheetInputs,
   type SheetStatus,
 } from '../../lib/sheet';
+import type { SheetListItem, SheetRecord } from '../../lib/sheet/records';
+
+export type { SheetListItem, SheetRecord };
 
 export class SheetOperationError extends Error {
   constructor(
@@ -65,32 +67,6 @@ const sheetColumns = {
   newerRevisionId: sql<string | null>`(select n.id from ${sheets} n where n.previous_revision_id = ${sheets.id} limit 1)`,
 };
 
-export interface SheetRecord {
-  id: string;
-  teamId: string;
-  projectId: string;
-  projectName: string;
-  circuitTag: string;
-  title: string;
-  status: SheetStatus;
-  revision: number;
-  previousRevisionId: string | null;
-  newerRevisionId: string | null;
-  inputs: SheetInputs;
-  /** The stored inputs' schema version before migrate-on-read. */
-  storedSchemaVersion: number;
-  result: ResultSnapshot | null;
-  solverVersion: string | null;
-  version: number;
-  authorId: string;
-  authorName: string | null;
-  reviewerId: string | null;
-  reviewerName: string | null;
-  approvedAt: Date | null;
-  createdAt: Date;
-  updatedAt: Date;
-  acknowledgements: { flagCode: string; comment: string; reviewerName: string | null; createdAt: Date }[];
-}
 
 async function loadSheetRow(teamId: string, sheetId: string, tx: Executor) {
   if (!isUuid(sheetId)) return null;
@@ -137,21 +113,6 @@ export function isUuid(value: string): boolean {
   return UUID_PATTERN.test(value);
 }
 
-export interface SheetListItem {
-  id: string;
-  projectId: string;
-  projectName: string;
-  circuitTag: string;
-  title: string;
-  status: SheetStatus;
-  revision: number;
-  authorId: string;
-  authorName: string | null;
-  updatedAt: Date;
-  newerRevisionId: string | null;
-  chosenLabel: string | null;
-  chosenPasses: boolean | null;
-}
 
 function listItem(row: {
   id: string;

@@ -11,9 +11,14 @@ import {
   uniqueIndex,
   uuid,
 } from 'drizzle-orm/pg-core';
+import { ROLES } from '../../lib/auth/permissions';
 
-/** Roles and what they may do: ../shared/design/product.md, "People and roles". */
-export const roleEnum = pgEnum('role', ['admin', 'designer', 'reviewer', 'viewer']);
+/**
+ * Roles and what they may do: ../shared/design/product.md, "People and roles". The list is
+ * lib/auth/permissions' ROLES, so the database enum and the rights table cannot drift apart; a new
+ * role there needs a migration (`npm run db:generate`).
+ */
+export const roleEnum = pgEnum('role', ROLES);
 export const sheetStatusEnum = pgEnum('sheet_status', ['draft', 'in_review', 'approved', 'returned']);
 export const unitSystemEnum = pgEnum('unit_system', ['si', 'imperial']);
 

@@ -1,5 +1,5 @@
 /**
- * Seeds the standard catalogue (db/seed/catalogue-data.ts) into a team. A new team gets its own
+ * Seeds the standard catalogue (lib/catalogue/standardData.ts) into a team. A new team gets its own
  * copy so that its edits never touch another team's rows. Idempotent: keys the team already has
  * are left as they are.
  */
@@ -8,7 +8,7 @@ import { getDb, type Db, type Executor } from '../client';
 import { copyCatalogueRowsToTeam } from '../queries/catalogue';
 import { teams } from '../schema';
 import { DEMO_TEAM } from './demo';
-import { STANDARD_BUILDS, STANDARD_CONDUCTORS, STANDARD_COVERINGS, STANDARD_MATERIALS } from './catalogue-data';
+import { STANDARD_BUILDS, STANDARD_CONDUCTORS, STANDARD_COVERINGS, STANDARD_MATERIALS } from '../../lib/catalogue/standardData';
 
 export const STANDARD_CATALOGUE = {
   materials: STANDARD_MATERIALS,

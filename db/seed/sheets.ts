@@ -18,7 +18,7 @@ import {
   transitionSheet,
 } from '../queries/sheets';
 import { defaultSheetInputs, type Actor, type SheetCandidate, type SheetInputs } from '../../lib/sheet';
-import { can, type Role } from '../../server/auth/permissions';
+import { can, type Role } from '../../lib/auth/permissions';
 import { DEMO_PROJECT, DEMO_TEAM, DEMO_USERS } from './demo';
 
 const MEMORY_NOTE = 'Typical values from memory (IEC 60228, IEC 60502-1, IEC 60287-2-1 Table 1); check against the maker’s data sheet.';

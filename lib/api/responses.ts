@@ -97,7 +97,7 @@ export const evaluationOkSchema = z
     marginK: finite.nullable(),
     marginPercent: finite.nullable(),
     ampacityA: finite,
-    utilisation: finite.nullable().meta({ description: "Design current / ampacity; null when the ampacity is zero and current flows." }),
+    utilisation: finite.nullable().meta({ description: 'Design current / ampacity. When the ampacity is zero (no current allowed) and current is asked for: 1.7976931348623157e308 (the largest double), with the OVER_LIMIT flag.' }),
     acFactor: finite,
     conductorC: finite.nullable(),
     resistanceOhmPerM: finite.nullable(),

@@ -1,8 +1,8 @@
 /**
  * Request bodies of the calculation API (v1), as zod schemas. They describe exactly the inputs of
  * `lib/electrical` (Candidate, Conditions — the type checks at the bottom keep them in step) in SI
- * units, with the same ranges the library enforces, so that nearly every bad value is refused here
- * with its field path before any computation. Objects are strict: an unknown key is an error,
+ * units, with the ranges of lib/inputBounds (the one table the library and every other edge read),
+ * so that nearly every bad value is refused here with its field path before any computation. Objects are strict: an unknown key is an error,
  * because a misspelt optional field (say `ambientc`) would otherwise be dropped silently and the
  * result computed with an assumed default.
  *
@@ -11,6 +11,7 @@
  */
 import { z } from 'zod';
 import type { Candidate, Conditions } from '../electrical/sizing/types';
+import { INPUT_BOUNDS, zodBound, type BoundName } from '../inputBounds';
 import {
   MAX_CANDIDATES_PER_REQUEST,
   MAX_ID_CHARS,
@@ -29,17 +30,14 @@ function num(label: string) {
   });
 }
 
-function range(label: string, unit: string, min: number, max: number, opts: { minExclusive?: boolean } = {}) {
-  const suffix = unit ? ` ${unit}` : '';
-  const base = num(label);
-  const low = opts.minExclusive
-    ? base.gt(min, `${label} must be greater than ${min}${suffix}`)
-    : base.min(min, `${label} must be at least ${min}${suffix}`);
-  return low.max(max, `${label} must be at most ${max}${suffix}`);
+/** A number inside its bound of lib/inputBounds, named as the API documents it. */
+function bounded(name: BoundName, label: string = INPUT_BOUNDS[name].label) {
+  return zodBound(num(label), INPUT_BOUNDS[name], label);
 }
 
-function temperatureLimit(label: string) {
-  return range(label, '°C', -50, 1000);
+/** A whole number inside its bound, with the message the API has always given for a non-integer. */
+function wholeNumber(name: BoundName, label: string = INPUT_BOUNDS[name].label) {
+  return zodBound(z.number({ error: `${label} must be a whole number` }), INPUT_BOUNDS[name], label);
 }
 
 const money = z
@@ -62,7 +60,7 @@ const costsSchema = z
   .strictObject({
     conductorPricePerKg: money.optional(),
     pricePerM: money.optional(),
-    densityKgPerM3: range('Density', 'kg/m³', 100, 25_000).optional(),
+    densityKgPerM3: bounded('densityKgPerM3').optional(),
   })
   .meta({ description: 'Prices for the life-cycle cost: metal price per kg, or a price per metre of one conductor.' });
 
@@ -70,15 +68,11 @@ const candidateCommon = {
   id: shortText('Candidate id', MAX_ID_CHARS).optional().meta({ description: 'Your identifier, echoed in the results (default candidate-N).' }),
   label: shortText('Label', MAX_LABEL_CHARS).optional(),
   material: z.enum(['copper', 'aluminium'], { error: "Material must be 'copper' or 'aluminium'" }),
-  r20OhmPerM: range('Resistance at 20 °C', 'Ω/m', 0, 1, { minExclusive: true }).meta({
+  r20OhmPerM: bounded('r20OhmPerM').meta({
     description: 'DC resistance at 20 °C of ONE conductor (one core or one bar), Ω/m, from the datasheet or IEC 60228.',
   }),
-  alpha20PerK: range('Temperature coefficient', '1/K', 0, 0.01).optional(),
-  parallel: z
-    .number({ error: 'Parallel runs must be a whole number' })
-    .int('Parallel runs must be a whole number')
-    .min(1, 'Parallel runs must be at least 1')
-    .max(100, 'Parallel runs must be at most 100')
+  alpha20PerK: bounded('alpha20PerK').optional(),
+  parallel: wholeNumber('parallel')
     .optional()
     .meta({ description: 'Identical runs per phase sharing the current (default 1).' }),
   catalogue: z
@@ -101,51 +95,51 @@ const layerRoles = ['insulation', 'semiconductor', 'screen', 'bedding', 'armour'
 export const cableLayerSchema = z.strictObject({
   name: shortText('Layer name', MAX_LABEL_CHARS),
   role: z.enum(layerRoles).optional(),
-  thicknessM: range('Layer thickness', 'm', 0, 0.5, { minExclusive: true }),
-  thermalResistivityKmPerW: range('Thermal resistivity', 'K·m/W', 0, 1e4, { minExclusive: true }),
-  continuousLimitC: temperatureLimit('Continuous limit').optional(),
-  shortCircuitLimitC: temperatureLimit('Short-circuit limit').optional(),
+  thicknessM: bounded('layerThicknessM'),
+  thermalResistivityKmPerW: bounded('thermalResistivityKmPerW'),
+  continuousLimitC: bounded('continuousLimitC').optional(),
+  shortCircuitLimitC: bounded('shortCircuitLimitC').optional(),
 });
 
 export const cableCandidateSchema = z
   .strictObject({
     ...candidateCommon,
     kind: z.literal('cable'),
-    sectionMm2: range('Section', 'mm²', 0, 5000, { minExclusive: true }),
-    conductorDiameterM: range('Conductor diameter', 'm', 0, 0.2, { minExclusive: true }),
-    cores: z.number({ error: 'Cores must be a whole number' }).int('Cores must be a whole number').min(1).max(5).optional(),
+    sectionMm2: bounded('sectionMm2'),
+    conductorDiameterM: bounded('conductorDiameterM'),
+    cores: wholeNumber('cores').optional(),
     layers: z
       .array(cableLayerSchema)
       .min(1, 'A cable needs at least its insulation layer')
       .max(MAX_LAYERS_PER_CABLE, `At most ${MAX_LAYERS_PER_CABLE} layers`),
-    emissivity: range('Emissivity', '', 0, 1).optional(),
-    ks: range('ks', '', 0, 1.5, { minExclusive: true }).optional(),
-    kp: range('kp', '', 0, 1.5, { minExclusive: true }).optional(),
+    emissivity: bounded('emissivity').optional(),
+    ks: bounded('ks').optional(),
+    kp: bounded('kp').optional(),
   })
   .meta({ id: 'CableCandidate', description: 'A cable: one conductor and its coverings listed from the conductor outwards.' });
 
 export const barCoatingSchema = z.strictObject({
   name: shortText('Coating name', MAX_LABEL_CHARS).optional(),
-  thicknessM: range('Coating thickness', 'm', 0, 0.05, { minExclusive: true }),
-  thermalResistivityKmPerW: range('Coating thermal resistivity', 'K·m/W', 0, 1e4, { minExclusive: true }),
-  emissivity: range('Coating emissivity', '', 0, 1).optional(),
-  continuousLimitC: temperatureLimit('Coating continuous limit').optional(),
-  shortCircuitLimitC: temperatureLimit('Coating short-circuit limit').optional(),
+  thicknessM: bounded('coatingThicknessM'),
+  thermalResistivityKmPerW: bounded('thermalResistivityKmPerW', 'Coating thermal resistivity'),
+  emissivity: bounded('emissivity', 'Coating emissivity').optional(),
+  continuousLimitC: bounded('continuousLimitC', 'Coating continuous limit').optional(),
+  shortCircuitLimitC: bounded('shortCircuitLimitC', 'Coating short-circuit limit').optional(),
 });
 
 export const barCandidateSchema = z
   .strictObject({
     ...candidateCommon,
     kind: z.literal('bar'),
-    widthM: range('Bar width', 'm', 0, 1, { minExclusive: true }),
-    thicknessM: range('Bar thickness', 'm', 0, 0.2, { minExclusive: true }),
-    barsPerPhase: z.number({ error: 'Bars per phase must be a whole number' }).int('Bars per phase must be a whole number').min(1).max(20).optional(),
-    barGapM: range('Gap between bars', 'm', 0, 1).optional(),
+    widthM: bounded('barWidthM'),
+    thicknessM: bounded('barThicknessM'),
+    barsPerPhase: wholeNumber('barsPerPhase').optional(),
+    barGapM: bounded('barGapM').optional(),
     coating: barCoatingSchema.optional(),
-    emissivity: range('Emissivity', '', 0, 1).optional(),
-    acResistanceRatio: range('AC/DC resistance ratio', '', 1, 10).optional(),
-    terminalLimitC: temperatureLimit('Terminal limit').optional(),
-    shortCircuitLimitC: temperatureLimit('Short-circuit limit').optional(),
+    emissivity: bounded('emissivity').optional(),
+    acResistanceRatio: bounded('acResistanceRatio').optional(),
+    terminalLimitC: bounded('terminalLimitC').optional(),
+    shortCircuitLimitC: bounded('shortCircuitLimitC').optional(),
   })
   .meta({ id: 'BarCandidate', description: 'A rectangular bus bar (or a pack of bars per phase).' });
 
@@ -157,7 +151,7 @@ export const candidateSchema = z
 
 const arrangement = {
   formation: z.enum(['trefoil', 'flat'], { error: "Formation must be 'trefoil' or 'flat'" }).optional(),
-  spacingM: range('Cable spacing', 'm', 0, 100, { minExclusive: true }).optional(),
+  spacingM: bounded('spacingM').optional(),
 };
 
 export const installationSchema = z
@@ -169,14 +163,14 @@ export const installationSchema = z
       z.strictObject({ kind: z.literal('bar-flat') }),
       z.strictObject({
         kind: z.literal('buried'),
-        depthM: range('Depth', 'm', 0, 20, { minExclusive: true }),
-        soilResistivityKmPerW: range('Soil thermal resistivity', 'K·m/W', 0.1, 20).optional(),
-        groundC: range('Ground temperature', '°C', -60, 200).optional(),
+        depthM: bounded('depthM'),
+        soilResistivityKmPerW: bounded('soilResistivityKmPerW').optional(),
+        groundC: bounded('groundC').optional(),
         ...arrangement,
       }),
       z.strictObject({
         kind: z.literal('enclosure'),
-        deratingFactor: range('Enclosure derating', '', 0, 1, { minExclusive: true }),
+        deratingFactor: bounded('enclosureDerating'),
         inside: z.enum(['cable-in-air', 'bar-on-edge', 'bar-flat'], { error: "Inside must be 'cable-in-air', 'bar-on-edge' or 'bar-flat'" }),
         ...arrangement,
       }),
@@ -186,45 +180,45 @@ export const installationSchema = z
   .meta({ id: 'Installation' });
 
 export const economicsSchema = z.strictObject({
-  lossLoadFactor: range('Loss load factor', '', 0, 1),
-  hoursPerYear: range('Hours per year', 'h', 0, 8784).optional(),
+  lossLoadFactor: bounded('lossLoadFactor'),
+  hoursPerYear: bounded('hoursPerYear').optional(),
   energyPricePerKWh: money,
   demandChargePerKWYear: money.optional(),
-  loadGrowthPercent: range('Load growth', '%', -100, 100, { minExclusive: true }).optional(),
-  energyPriceGrowthPercent: range('Energy price growth', '%', -100, 100, { minExclusive: true }).optional(),
-  discountRatePercent: range('Discount rate', '%', -100, 100, { minExclusive: true }),
-  years: z.number({ error: 'Years must be a whole number' }).int('Years must be a whole number').min(0).max(200, 'Years must be at most 200'),
+  loadGrowthPercent: bounded('loadGrowthPercent').optional(),
+  energyPriceGrowthPercent: bounded('energyPriceGrowthPercent').optional(),
+  discountRatePercent: bounded('discountRatePercent'),
+  years: wholeNumber('years'),
 });
 
 const conditionsShape = {
-  designCurrentA: range('Design current', 'A', 0, 100_000).meta({ description: 'Design current I_B per phase, A r.m.s.' }),
-  frequencyHz: range('Frequency', 'Hz', 0, 1000).meta({ description: '0 for DC.' }),
+  designCurrentA: bounded('designCurrentA').meta({ description: 'Design current I_B per phase, A r.m.s.' }),
+  frequencyHz: bounded('frequencyHz').meta({ description: '0 for DC.' }),
   phases: z.union([z.literal(1), z.literal(3)], { error: 'Phases must be 1 or 3' }),
-  nominalVoltageV: range('Voltage U₀', 'V', 0, 1e6, { minExclusive: true }).meta({ description: 'U₀, line to neutral, V.' }),
-  lengthM: range('Route length', 'm', 0, 1e6),
-  powerFactor: range('Power factor', '', 0, 1),
-  reactanceOhmPerM: range('Reactance', 'Ω/m', 0, 1).optional(),
-  maxVoltageDropPercent: range('Allowed voltage drop', '%', 0, 100, { minExclusive: true }).optional(),
-  ambientC: range('Ambient', '°C', -60, 200).optional().meta({ description: 'Air around the conductor, °C. Not given: a reference ambient is assumed and flagged.' }),
+  nominalVoltageV: bounded('nominalVoltageV').meta({ description: 'U₀, line to neutral, V (low and medium voltage: no dielectric loss is modelled).' }),
+  lengthM: bounded('lengthM'),
+  powerFactor: bounded('powerFactor'),
+  reactanceOhmPerM: bounded('reactanceOhmPerM').optional(),
+  maxVoltageDropPercent: bounded('maxVoltageDropPercent').optional(),
+  ambientC: bounded('ambientC').optional().meta({ description: 'Air around the conductor, °C. Not given: a reference ambient is assumed and flagged.' }),
   installation: installationSchema,
-  windSpeedMPerS: range('Air speed', 'm/s', 0, 60).optional(),
+  windSpeedMPerS: bounded('windSpeedMPerS').optional(),
   solar: z
     .strictObject({
-      irradianceWPerM2: range('Sun irradiance', 'W/m²', 0, 1500),
-      absorptivity: range('Solar absorptivity', '', 0, 1).optional(),
+      irradianceWPerM2: bounded('irradianceWPerM2'),
+      absorptivity: bounded('solarAbsorptivity').optional(),
     })
     .optional(),
   fault: z
     .strictObject({
-      currentA: range('Fault current', 'A', 0, 1e7, { minExclusive: true }),
-      durationS: range('Clearing time', 's', 0, 60, { minExclusive: true }),
+      currentA: bounded('faultCurrentA'),
+      durationS: bounded('faultDurationS'),
       initialFrom: z.enum(['limit', 'operating'], { error: "initialFrom must be 'limit' or 'operating'" }).optional(),
     })
     .optional(),
-  temperatureLimitC: temperatureLimit('Own temperature limit').optional(),
+  temperatureLimitC: bounded('temperatureLimitC').optional(),
   raiseMaterialLimit: z.boolean().optional(),
-  groupingFactor: range('Grouping factor', '', 0, 1, { minExclusive: true }).optional(),
-  surfaceCoefficientWPerM2K: range('Surface coefficient', 'W/(m²·K)', 0, 1e5, { minExclusive: true }).optional(),
+  groupingFactor: bounded('groupingFactor').optional(),
+  surfaceCoefficientWPerM2K: bounded('surfaceCoefficientWPerM2K').optional(),
   economics: economicsSchema.optional(),
 };
 
@@ -243,7 +237,7 @@ export const conditionsSchema = z.strictObject(conditionsShape).superRefine(cond
 
 /** For the ampacity alone the design current does not matter: it may be left out. */
 export const ampacityConditionsSchema = z
-  .strictObject({ ...conditionsShape, designCurrentA: conditionsShape.designCurrentA.optional() })
+  .strictObject({ ...conditionsShape, designCurrentA: bounded('currentA', 'Design current').optional().meta({ description: 'Not needed for the ampacity; 0 A is accepted.' }) })
   .superRefine(conditionRules)
   .meta({ id: 'AmpacityConditions' });
 

@@ -4,8 +4,21 @@
  * names its metal by `materialKey`, a build its conductor by `conductorKey`).
  * The server validates every write with these schemas again, whatever the client checked.
  */
+import Decimal from 'decimal.js';
 import { z } from 'zod';
-import { decimalField, optionalDecimalField } from './decimal';
+import { INPUT_BOUNDS, type InputBound } from '../inputBounds';
+import { decimalField, optionalDecimalField, type DecimalBounds } from './decimal';
+
+/**
+ * A bound of lib/inputBounds (SI) in the catalogue's stored unit: `perSi` catalogue units per SI
+ * unit (1000 for mm per m or Ω/km per Ω/m), scaled exactly with decimal.js. Used where a catalogue
+ * field goes into the sizing library as it is, so the catalogue never holds a value the library
+ * refuses; elsewhere the catalogue keeps its own, tighter data-quality ranges.
+ */
+function libraryBound(bound: InputBound, perSi = 1): DecimalBounds {
+  const scaled = (v: number) => new Decimal(v).times(perSi).toString();
+  return { min: scaled(bound.min), minExclusive: bound.minExclusive, max: scaled(bound.max), maxExclusive: bound.maxExclusive };
+}
 
 export const CATALOGUE_KINDS = ['materials', 'conductors', 'coverings', 'builds'] as const;
 export type CatalogueKind = (typeof CATALOGUE_KINDS)[number];
@@ -76,10 +89,10 @@ export const conductorRowSchema = z
     sizeSystem: enumField(SIZE_SYSTEMS),
     construction: optionalText(200),
     sectionMm2: decimalField({ min: 0, minExclusive: true, max: 10000 }),
-    r20OhmPerKm: decimalField({ min: 0, minExclusive: true, max: 1000 }),
+    r20OhmPerKm: decimalField(libraryBound(INPUT_BOUNDS.r20OhmPerM, 1000)),
     resistanceSource: sourceField,
-    diameterMm: optionalDecimalField({ min: 0, minExclusive: true, max: 200 }),
-    widthMm: optionalDecimalField({ min: 0, minExclusive: true, max: 1000 }),
+    diameterMm: optionalDecimalField(libraryBound(INPUT_BOUNDS.conductorDiameterM, 1000)),
+    widthMm: optionalDecimalField(libraryBound(INPUT_BOUNDS.barWidthM, 1000)),
     thicknessMm: optionalDecimalField({ min: 0, minExclusive: true, max: 100 }),
     dimensionSource: sourceField,
   })
@@ -104,8 +117,8 @@ export const coveringRowSchema = z
     role: enumField(COVERING_ROLES),
     thermalResistivityKmPerW: decimalField({ min: 0, minExclusive: true, max: 100 }),
     resistivitySource: sourceField,
-    continuousLimitC: optionalDecimalField({ min: -60, max: 400 }),
-    shortCircuitLimitC: optionalDecimalField({ min: -60, max: 1200 }),
+    continuousLimitC: optionalDecimalField(libraryBound(INPUT_BOUNDS.continuousLimitC)),
+    shortCircuitLimitC: optionalDecimalField(libraryBound(INPUT_BOUNDS.shortCircuitLimitC)),
     limitsSource: sourceField,
     emissivity: optionalDecimalField({ min: 0, minExclusive: true, max: 1 }),
     emissivitySource: sourceField,

@@ -3,6 +3,8 @@
  * validation messages and the preview, so that a cell's problem is named by the header the
  * designer sees in the spreadsheet. Values are SI, with the unit in the header.
  */
+import { INPUT_BOUNDS } from '../inputBounds';
+
 export type ScheduleColumnType = 'text' | 'number' | 'integer' | 'enum';
 
 export interface ScheduleColumn {
@@ -47,7 +49,7 @@ export const SCHEDULE_COLUMNS: readonly ScheduleColumn[] = [
   { field: 'circuitTag', header: 'circuit tag', type: 'text', required: true, example: 'F-101', hint: 'Your name for the circuit, unique within the file (at most 64 characters).' },
   { field: 'from', header: 'from', type: 'text', required: false, example: 'MSB-1', hint: 'Where the circuit starts (board, transformer…). Optional.' },
   { field: 'to', header: 'to', type: 'text', required: false, example: 'Chiller CH-2', hint: 'Where the circuit ends (load, sub-board…). Optional.' },
-  { field: 'designCurrentA', header: 'design current (A)', type: 'number', required: true, example: 250, hint: 'Design current I_B per phase, r.m.s., greater than 0 and at most 20 000 A.' },
+  { field: 'designCurrentA', header: 'design current (A)', type: 'number', required: true, example: 250, hint: `Design current I_B per phase, r.m.s., greater than 0 and at most ${INPUT_BOUNDS.designCurrentA.max} A.` },
   { field: 'nominalVoltageV', header: 'voltage U0 (V)', type: 'number', required: true, example: 230, hint: 'Line-to-neutral voltage U₀ (230 for a 230/400 V system); the voltage drop is a percentage of it.' },
   { field: 'phases', header: 'phases', type: 'integer', required: true, example: 3, options: ['1', '3'], hint: '1 or 3.' },
   { field: 'frequencyHz', header: 'frequency (Hz)', type: 'number', required: false, example: 50, hint: '0 for DC. Empty means 50 Hz, and the result notes that it was assumed.' },

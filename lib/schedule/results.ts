@@ -3,6 +3,7 @@
  * filters (failing, flagged) and the totals (conductor mass, losses, cost).
  */
 import { Money } from '../electrical/economics';
+import { shortCircuitWord, type ShortCircuitWord } from '../sheet/candidateRow';
 import type { CircuitSizing } from './size';
 import type { ScheduleRow } from './row';
 import type { Table } from './files';
@@ -27,8 +28,8 @@ export interface ResultLine {
   ampacityA: number | null;
   utilisation: number | null;
   voltageDropPercent: number | null;
-  /** 'withstands' | 'exceeded' | 'not checked'. */
-  shortCircuit: string | null;
+  /** The same words as a sheet's candidate grid and PDF (candidateRow); null when not sized. */
+  shortCircuit: ShortCircuitWord | null;
   shortCircuitFinalC: number | null;
   lossW: number | null;
   massKg: number | null;
@@ -70,7 +71,7 @@ export function resultLine(row: ScheduleRow, familyLabel: string, sizing: Circui
     ampacityA: shown?.ampacityA ?? null,
     utilisation: shown?.utilisation ?? null,
     voltageDropPercent: shown?.voltageDropPercent ?? null,
-    shortCircuit: shown && sc ? (!sc.checked ? 'not checked' : sc.withstands ? 'withstands' : 'exceeded') : null,
+    shortCircuit: shown && sc ? shortCircuitWord(sc) : null,
     shortCircuitFinalC: shown && sc?.checked ? (sc.finalC ?? null) : null,
     lossW: shown?.lossW ?? null,
     massKg: shown?.massKg ?? null,

@@ -4,6 +4,7 @@
  * the family). Every problem names the spreadsheet row and the column header.
  */
 import { z } from 'zod';
+import { INPUT_BOUNDS } from '../inputBounds';
 import { columnByField, headerOf, INSTALLATION_WORDS, normaliseHeader, SCHEDULE_COLUMNS, type ScheduleField } from './columns';
 import { findFamily } from './families';
 
@@ -39,11 +40,17 @@ function parseNumber(raw: unknown): number | null | { error: string } {
   return Number(text);
 }
 
+/** A bound of lib/inputBounds (the one table), or a limit of the schedule's own. */
 interface NumberBounds {
   min?: number;
   minExclusive?: boolean;
   max?: number;
   integer?: boolean;
+}
+
+/** A bound of the table in another unit (kA for A): both ends divided by `perUnit`. */
+function inUnitOf(bound: NumberBounds & { min: number; max: number }, perUnit: number): NumberBounds {
+  return { ...bound, min: bound.min / perUnit, max: bound.max / perUnit };
 }
 
 function numberCell(required: boolean, bounds: NumberBounds) {
@@ -100,22 +107,24 @@ export const scheduleRowSchema = z
     circuitTag: textCell(true, 64),
     from: textCell(false, 120),
     to: textCell(false, 120),
-    designCurrentA: required({ min: 0, minExclusive: true, max: 20000 }),
-    nominalVoltageV: required({ min: 0, minExclusive: true, max: 36000 }),
+    designCurrentA: required(INPUT_BOUNDS.designCurrentA),
+    nominalVoltageV: required(INPUT_BOUNDS.nominalVoltageV),
     phases: numberCell(true, { integer: true }).refine((v) => v === 1 || v === 3, 'must be 1 or 3').transform((v) => v as 1 | 3),
-    frequencyHz: optional({ min: 0, max: 1000 }),
-    lengthM: required({ min: 0, minExclusive: true, max: 100000 }),
-    powerFactor: required({ min: 0, max: 1 }),
+    frequencyHz: optional(INPUT_BOUNDS.frequencyHz),
+    lengthM: required(INPUT_BOUNDS.lengthM),
+    powerFactor: required(INPUT_BOUNDS.powerFactor),
     installation: installationCell,
-    depthM: optional({ min: 0, minExclusive: true, max: 20 }),
-    ambientC: optional({ min: -60, max: 200 }),
-    faultCurrentKA: optional({ min: 0, minExclusive: true, max: 500 }),
-    clearingTimeS: optional({ min: 0, minExclusive: true, max: 60 }),
+    depthM: optional(INPUT_BOUNDS.depthM),
+    // The ambient column is the ground temperature for buried rows; both have the same range.
+    ambientC: optional(INPUT_BOUNDS.ambientC),
+    faultCurrentKA: optional(inUnitOf(INPUT_BOUNDS.faultCurrentA, 1000)),
+    clearingTimeS: optional(INPUT_BOUNDS.faultDurationS),
     family: textCell(true, 120),
-    maxVoltageDropPercent: optional({ min: 0, minExclusive: true, max: 100 }),
+    maxVoltageDropPercent: optional(INPUT_BOUNDS.maxVoltageDropPercent),
+    // Not a validity bound: how many sizes the schedule tries per row (runs per phase), so its own.
     maxParallel: optional({ min: 1, max: 8, integer: true }),
-    groupingFactor: optional({ min: 0, minExclusive: true, max: 1 }),
-    temperatureLimitC: optional({ min: -50, minExclusive: true, max: 1000 }),
+    groupingFactor: optional(INPUT_BOUNDS.groupingFactor),
+    temperatureLimitC: optional(INPUT_BOUNDS.temperatureLimitC),
   })
   .superRefine((row, ctx) => {
     if (row.installation === 'buried' && row.depthM === null) {

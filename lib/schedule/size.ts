@@ -8,6 +8,7 @@
 import { evaluateCandidate } from '../electrical/sizing/evaluate';
 import type { AssumptionFlag } from '../electrical/sizing/flags';
 import type { Candidate, CandidateEvaluationOk, Conditions, ShortCircuitCheck } from '../electrical/sizing/types';
+import { candidateRow } from '../sheet/candidateRow';
 import { candidateSectionMm2 } from './families';
 import type { ScheduleRow } from './row';
 
@@ -73,7 +74,7 @@ export interface ChosenSize {
   marginK: number | null;
   marginPercent: number | null;
   ampacityA: number;
-  /** Design current / ampacity; null when the ampacity is zero. */
+  /** Design current / ampacity; null when no current is allowed (ampacity zero). */
   utilisation: number | null;
   voltageDropV: number;
   voltageDropPercent: number;
@@ -107,28 +108,30 @@ export type CircuitSizing =
       assumptions: string[];
     };
 
+/** The stored result of a size: the person-facing figures of candidateRow (the same as a sheet's grid and PDF) and what the schedule adds. */
 function chosenOf(e: CandidateEvaluationOk, candidate: Candidate, lengthM: number): ChosenSize {
+  const row = candidateRow(e);
   return {
-    candidateId: e.id,
-    label: e.label,
-    kind: e.kind,
+    candidateId: row.id,
+    label: row.label,
+    kind: row.kind,
     runsPerPhase: runsOf(candidate),
-    sectionPerPhaseMm2: e.sectionPerPhaseMm2,
-    hotSpotC: e.hotSpotC,
-    limitC: e.limit.temperatureC,
-    limitSource: e.limit.layer ?? e.limit.source,
-    marginK: e.marginK,
-    marginPercent: e.marginPercent,
-    ampacityA: e.ampacityA,
-    utilisation: e.utilisation,
-    voltageDropV: e.voltageDrop.volts,
-    voltageDropPercent: e.voltageDrop.percent,
-    voltageDropLimitPercent: e.voltageDrop.limitPercent ?? null,
+    sectionPerPhaseMm2: row.sectionPerPhaseMm2,
+    hotSpotC: row.hotSpotC,
+    limitC: row.limitC,
+    limitSource: row.limitSource,
+    marginK: row.marginK,
+    marginPercent: row.marginPercent,
+    ampacityA: row.ampacityA,
+    utilisation: row.utilisation,
+    voltageDropV: row.voltageDropV,
+    voltageDropPercent: row.voltageDropPercent,
+    voltageDropLimitPercent: row.voltageDropLimitPercent,
     shortCircuit: e.shortCircuit,
-    lossWPerM: e.lossWPerM,
-    lossW: e.lossWPerM === null ? null : e.lossWPerM * lengthM,
-    massKg: e.massKg,
-    materialCost: e.materialCost,
+    lossWPerM: row.lossWPerM,
+    lossW: row.lossWPerM === null ? null : row.lossWPerM * lengthM,
+    massKg: row.massKg,
+    materialCost: row.materialCost,
     flags: e.flags,
   };
 }

@@ -5,6 +5,16 @@
  */
 import { z } from 'zod';
 import type { BarCandidate, CableCandidate, Candidate } from '../electrical/sizing/types';
+import { INPUT_BOUNDS, zodBound, type BoundName } from '../inputBounds';
+
+/*
+ * Bounds: where lib/inputBounds gives a range at least as wide as a stored sheet could hold
+ * (counts, emissivities, the AC/DC ratio, α20), the table's range is used. The dimensions and
+ * resistances stay "greater than 0" here: a candidate is a copy of catalogue data kept with the
+ * sheet, and a stored (perhaps approved) sheet must stay readable; a value beyond the table is
+ * refused by the library with its field named when the sheet is computed.
+ */
+const bounded = (name: BoundName) => zodBound(z.number({ error: `${INPUT_BOUNDS[name].label} must be a number` }), INPUT_BOUNDS[name]);
 
 const positive = (what: string) => z.number({ error: `${what} must be a number` }).positive(`${what} must be greater than 0`);
 const money = z
@@ -17,8 +27,8 @@ const candidateCommon = {
   label: z.string().min(1).max(200),
   material: z.enum(['copper', 'aluminium']),
   r20OhmPerM: positive('Resistance at 20 °C'),
-  alpha20PerK: z.number().positive().max(0.01).optional(),
-  parallel: z.number().int('Conductors per phase must be a whole number').min(1).max(100).default(1),
+  alpha20PerK: bounded('alpha20PerK').optional(),
+  parallel: zodBound(z.number(), INPUT_BOUNDS.parallel, 'Conductors per phase').default(1),
   catalogue: z
     .object({ conductorId: z.string().optional(), coveringIds: z.array(z.string()).optional(), buildId: z.string().optional() })
     .optional(),
@@ -47,9 +57,9 @@ export const cableCandidateSchema = z.object({
   kind: z.literal('cable'),
   sectionMm2: positive('Section'),
   conductorDiameterM: positive('Conductor diameter'),
-  cores: z.number().int().min(1).max(5).optional(),
+  cores: bounded('cores').optional(),
   layers: z.array(cableLayerSchema).min(1, 'A cable needs at least its insulation'),
-  emissivity: z.number().min(0).max(1).optional(),
+  emissivity: bounded('emissivity').optional(),
   ks: z.number().positive().optional(),
   kp: z.number().positive().optional(),
 });
@@ -59,20 +69,20 @@ export const barCandidateSchema = z.object({
   kind: z.literal('bar'),
   widthM: positive('Bar width'),
   thicknessM: positive('Bar thickness'),
-  barsPerPhase: z.number().int('Bars per phase must be a whole number').min(1).max(12).optional(),
+  barsPerPhase: bounded('barsPerPhase').optional(),
   barGapM: z.number().positive().optional(),
   coating: z
     .object({
       name: z.string().optional(),
       thicknessM: positive('Coating thickness'),
       thermalResistivityKmPerW: positive('Coating thermal resistivity'),
-      emissivity: z.number().min(0).max(1).optional(),
+      emissivity: bounded('emissivity').optional(),
       continuousLimitC: z.number().optional(),
       shortCircuitLimitC: z.number().optional(),
     })
     .optional(),
-  emissivity: z.number().min(0).max(1).optional(),
-  acResistanceRatio: z.number().min(1).max(10).optional(),
+  emissivity: bounded('emissivity').optional(),
+  acResistanceRatio: bounded('acResistanceRatio').optional(),
   terminalLimitC: z.number().optional(),
   shortCircuitLimitC: z.number().optional(),
 });

@@ -15,12 +15,16 @@
  *       version-2 or -3 sheet reads with it unchecked.
  */
 import { z } from 'zod';
+import { INPUT_BOUNDS, zodBound, type BoundName } from '../inputBounds';
 import { sheetCandidateSchema } from './candidates';
 
 export const SHEET_SCHEMA_VERSION = 4 as const;
 
 const num = (label: string) => z.number({ error: `${label} must be a number` }).refine(Number.isFinite, `${label} must be a finite number`);
-const optionalNum = (label: string) => num(label).nullable();
+/** A number inside its bound of lib/inputBounds (the one table every edge and the library read). */
+const bounded = (name: BoundName, label: string = INPUT_BOUNDS[name].label) => zodBound(num(label), INPUT_BOUNDS[name], label);
+/** The same, or null for "not entered" (the library then assumes a default and flags it). */
+const optionalBounded = (name: BoundName, label?: string) => bounded(name, label).nullable();
 const moneyText = (label: string) =>
   z
     .string()
@@ -31,61 +35,61 @@ export const installationKinds = ['bar-on-edge', 'bar-flat', 'cable-in-air', 'bu
 export type InstallationKind = (typeof installationKinds)[number];
 
 export const circuitSchema = z.object({
-  designCurrentA: num('Design current').gt(0, 'Design current must be greater than 0 A').max(20000, 'Design current must be at most 20 000 A'),
+  designCurrentA: bounded('designCurrentA'),
   /** U₀, line to neutral, V. */
-  nominalVoltageV: num('Voltage U₀').gt(0, 'Voltage U₀ must be greater than 0 V').max(36000, 'Voltage U₀ must be at most 36 kV'),
+  nominalVoltageV: bounded('nominalVoltageV'),
   phases: z.union([z.literal(1), z.literal(3)], { error: 'Phases must be 1 or 3' }),
-  frequencyHz: num('Frequency').min(0, 'Frequency must be 0 (DC) or more').max(1000, 'Frequency must be at most 1000 Hz'),
-  lengthM: num('Route length').min(0, 'Route length must not be negative').max(100000, 'Route length must be at most 100 km'),
-  powerFactor: num('Power factor').min(0, 'Power factor must be between 0 and 1').max(1, 'Power factor must be between 0 and 1'),
-  maxVoltageDropPercent: optionalNum('Allowed voltage drop').refine((v) => v === null || (v > 0 && v <= 100), 'Allowed voltage drop must be between 0 and 100 %'),
-  reactanceOhmPerM: optionalNum('Reactance').refine((v) => v === null || v >= 0, 'Reactance must not be negative'),
+  frequencyHz: bounded('frequencyHz'),
+  lengthM: bounded('lengthM'),
+  powerFactor: bounded('powerFactor'),
+  maxVoltageDropPercent: optionalBounded('maxVoltageDropPercent'),
+  reactanceOhmPerM: optionalBounded('reactanceOhmPerM'),
 });
 
 export const faultSchema = z.object({
   checked: z.boolean(),
-  currentA: num('Fault current').gt(0, 'Fault current must be greater than 0 A'),
-  durationS: num('Clearing time').gt(0, 'Clearing time must be greater than 0 s').max(60, 'Clearing time must be at most 60 s'),
+  currentA: bounded('faultCurrentA'),
+  durationS: bounded('faultDurationS'),
 });
 
 export const environmentSchema = z.object({
   /** null: not entered (the library assumes its reference ambient and raises a flag). */
-  ambientC: optionalNum('Ambient').refine((v) => v === null || (v >= -60 && v <= 200), 'Ambient must be between −60 and 200 °C'),
-  windSpeedMPerS: num('Air speed').min(0, 'Air speed must not be negative').max(60, 'Air speed must be at most 60 m/s'),
+  ambientC: optionalBounded('ambientC'),
+  windSpeedMPerS: bounded('windSpeedMPerS'),
   outdoorSun: z.boolean(),
-  irradianceWPerM2: num('Sun irradiance').min(0, 'Sun irradiance must not be negative').max(1500, 'Sun irradiance must be at most 1500 W/m²'),
+  irradianceWPerM2: bounded('irradianceWPerM2'),
   /** null: not entered (assumed and flagged). */
-  solarAbsorptivity: optionalNum('Solar absorptivity').refine((v) => v === null || (v >= 0 && v <= 1), 'Solar absorptivity must be between 0 and 1'),
+  solarAbsorptivity: optionalBounded('solarAbsorptivity'),
 });
 
 export const installationSchema = z.object({
   kind: z.enum(installationKinds, { error: 'Choose an installation' }),
   formation: z.enum(['trefoil', 'flat']),
   /** Axis-to-axis spacing of the circuit's cables, m; null = touching. */
-  spacingM: optionalNum('Cable spacing').refine((v) => v === null || v > 0, 'Cable spacing must be greater than 0'),
-  depthM: num('Depth').gt(0, 'Depth must be greater than 0').max(20, 'Depth must be at most 20 m'),
-  soilResistivityKmPerW: optionalNum('Soil thermal resistivity').refine((v) => v === null || (v >= 0.1 && v <= 20), 'Soil thermal resistivity must be between 0.1 and 20 K·m/W'),
-  groundC: optionalNum('Ground temperature').refine((v) => v === null || (v >= -60 && v <= 200), 'Ground temperature must be between −60 and 200 °C'),
-  enclosureDerating: num('Enclosure derating').gt(0, 'Enclosure derating must be greater than 0').max(1, 'Enclosure derating must be at most 1'),
+  spacingM: optionalBounded('spacingM'),
+  depthM: bounded('depthM'),
+  soilResistivityKmPerW: optionalBounded('soilResistivityKmPerW'),
+  groundC: optionalBounded('groundC'),
+  enclosureDerating: bounded('enclosureDerating'),
   enclosureInside: z.enum(['cable-in-air', 'bar-on-edge', 'bar-flat']),
 });
 
 export const limitsSchema = z.object({
   /** A limit of the user's own (a joint, a neighbouring device), °C; null = material limits only. */
-  temperatureLimitC: optionalNum('Own temperature limit').refine((v) => v === null || (v > -50 && v <= 1000), 'Own temperature limit must be between −50 and 1000 °C'),
+  temperatureLimitC: optionalBounded('temperatureLimitC'),
   raiseMaterialLimit: z.boolean(),
-  groupingFactor: num('Grouping factor').gt(0, 'Grouping factor must be greater than 0').max(1, 'Grouping factor must be at most 1'),
+  groupingFactor: bounded('groupingFactor'),
 });
 
 export const economicsSchema = z.object({
   included: z.boolean(),
-  lossLoadFactor: num('Loss load factor').min(0, 'Loss load factor must be between 0 and 1').max(1, 'Loss load factor must be between 0 and 1'),
-  hoursPerYear: num('Hours per year').min(0, 'Hours per year must not be negative').max(8784, 'Hours per year must be at most 8784'),
+  lossLoadFactor: bounded('lossLoadFactor'),
+  hoursPerYear: bounded('hoursPerYear'),
   energyPricePerKWh: moneyText('Energy price'),
-  discountRatePercent: num('Discount rate').gt(-100).lt(100, 'Discount rate must be under 100 %'),
-  years: num('Years').int('Years must be a whole number').min(0).max(200, 'Years must be at most 200'),
-  loadGrowthPercent: num('Load growth').gt(-100).lt(100, 'Load growth must be under 100 %'),
-  energyPriceGrowthPercent: num('Energy price growth').gt(-100).lt(100, 'Energy price growth must be under 100 %'),
+  discountRatePercent: bounded('discountRatePercent'),
+  years: bounded('years'),
+  loadGrowthPercent: bounded('loadGrowthPercent'),
+  energyPriceGrowthPercent: bounded('energyPriceGrowthPercent'),
 });
 
 /** Allowed numbers of equal intervals in a day's load profile (hourly or finer, dividing the day). */
@@ -93,11 +97,11 @@ export const DAILY_PROFILE_LENGTHS = [24, 48, 96, 144, 288, 1440] as const;
 
 export const overTimeSchema = z.object({
   checked: z.boolean(),
-  overloadCurrentA: num('Overload current').gt(0, 'Overload current must be greater than 0 A').max(100000, 'Overload current must be at most 100 kA'),
-  overloadDurationS: num('Overload duration').gt(0, 'Overload duration must be greater than 0').max(7 * 86400, 'Overload duration must be at most a week'),
+  overloadCurrentA: bounded('overloadCurrentA'),
+  overloadDurationS: bounded('overloadDurationS'),
   /** Currents per phase over one day in equal intervals from midnight, A; empty = no daily check. */
   dailyProfileA: z
-    .array(num('Daily load current').min(0, 'Daily load currents must not be negative').max(100000, 'Daily load currents must be at most 100 kA'))
+    .array(bounded('dailyLoadCurrentA'))
     .refine((v) => v.length === 0 || (DAILY_PROFILE_LENGTHS as readonly number[]).includes(v.length), `A daily profile has ${DAILY_PROFILE_LENGTHS.join(', ')} values (hourly or finer)`),
   /** Fault heating with heat into the coverings, beside the adiabatic figure (uses the fault inputs). */
   faultWithCoverings: z.boolean(),
@@ -106,24 +110,24 @@ export const overTimeSchema = z.object({
 export const runEndKinds = ['terminal', 'insulated'] as const;
 export const alongRunSchema = z.object({
   checked: z.boolean(),
-  lengthM: num('Run length').gt(0, 'Run length must be greater than 0 m').max(1000, 'Run length must be at most 1000 m'),
+  lengthM: bounded('runLengthM'),
   startEnd: z.enum(runEndKinds),
-  startTemperatureC: num('Start terminal temperature').min(-60, 'Terminal temperature must be at least −60 °C').max(300, 'Terminal temperature must be at most 300 °C'),
+  startTemperatureC: bounded('terminalTemperatureC', 'Start terminal temperature'),
   endEnd: z.enum(runEndKinds),
-  endTemperatureC: num('End terminal temperature').min(-60, 'Terminal temperature must be at least −60 °C').max(300, 'Terminal temperature must be at most 300 °C'),
+  endTemperatureC: bounded('terminalTemperatureC', 'End terminal temperature'),
   joints: z
     .array(
       z.object({
         positionM: num('Joint position').min(0, 'Joint position must not be negative'),
         /** µΩ; null = not entered (a default is assumed and flagged). */
-        resistanceMicroOhm: optionalNum('Joint resistance').refine((v) => v === null || (v >= 0 && v <= 10000), 'Joint resistance must be between 0 and 10 000 µΩ'),
+        resistanceMicroOhm: optionalBounded('jointResistanceMicroOhm'),
       }),
     )
     .max(50, 'At most 50 joints on one run'),
 });
 
 export const enclosureWalls = ['painted-steel', 'stainless-steel', 'aluminium', 'plastic'] as const;
-const enclosureLength = (label: string) => num(label).gt(0, `${label} must be greater than 0 m`).max(10, `${label} must be at most 10 m`);
+const enclosureLength = (label: string) => bounded('enclosureSizeM', label);
 export const enclosureAirSchema = z.object({
   checked: z.boolean(),
   heightM: enclosureLength('Enclosure height'),
@@ -133,9 +137,9 @@ export const enclosureAirSchema = z.object({
   sidesCovered: z.union([z.literal(0), z.literal(1), z.literal(2)], { error: 'Covered sides must be 0, 1 or 2' }),
   topCovered: z.boolean(),
   wall: z.enum(enclosureWalls),
-  outsideAirC: num('Air around the enclosure').min(-60, 'Air around the enclosure must be at least −60 °C').max(100, 'Air around the enclosure must be at most 100 °C'),
-  routeLengthInsideM: num('Route length inside').min(0, 'Route length inside must not be negative').max(100, 'Route length inside must be at most 100 m'),
-  otherLossesW: num('Other losses inside').min(0, 'Other losses inside must not be negative').max(100000, 'Other losses inside must be at most 100 kW'),
+  outsideAirC: bounded('enclosureOutsideAirC'),
+  routeLengthInsideM: bounded('routeLengthInsideM'),
+  otherLossesW: bounded('otherLossesW'),
 });
 
 export const sheetInputsSchema = z

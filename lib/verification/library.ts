@@ -29,7 +29,7 @@ import {
 } from '../electrical';
 // Plain data (decimal strings and their sources), importable without the database: the rows the
 // seed step copies into every team's catalogue.
-import { STANDARD_CONDUCTORS, STANDARD_MATERIALS } from '../../db/seed/catalogue-data';
+import { STANDARD_CONDUCTORS, STANDARD_MATERIALS } from '../catalogue/standardData';
 
 export const productLibrary = {
   // lib/thermal

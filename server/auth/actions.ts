@@ -13,7 +13,7 @@
  * answered with notFound() (404), never 403.
  */
 import { forbidden, unauthorized } from 'next/navigation';
-import { can, type Permission } from './permissions';
+import { can, type Permission } from '@/lib/auth/permissions';
 import { getSessionUser, type SessionUser } from './session';
 
 export async function authorizeAction(permission: Permission | 'authenticated'): Promise<SessionUser> {

@@ -5,7 +5,7 @@
 import { z } from 'zod';
 import { findSignInRow } from '@/db/queries/members';
 import { checkSignInAllowed, clearAccountFailures, recordFailedSignIn } from '@/server/limits/signIn';
-import type { Role } from './permissions';
+import type { Role } from '@/lib/auth/permissions';
 import { verifyPassword } from './password';
 
 export const signInSchema = z.object({

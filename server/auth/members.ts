@@ -13,10 +13,10 @@ import { ApiError } from '@/server/http/errors';
 import { appBaseUrl, sendMail } from '@/server/mail/send';
 import { invitationMail, passwordResetMail } from '@/server/mail/templates';
 import { clearAccountFailures } from '@/server/limits/signIn';
-import { ROLES, type Role } from './permissions';
+import { ROLES, type Role } from '@/lib/auth/permissions';
 import { hashPassword, passwordSchema } from './password';
 import type { SessionUser } from './session';
-import { hashLinkToken, INVITATION_LIFETIME_MS, looksLikeLinkToken, newLinkToken, RESET_LIFETIME_MS } from './tokens';
+import { hashLinkToken, INVITATION_LIFETIME_MS, looksLikeLinkToken, newLinkToken, RESET_LIFETIME_MS, type LinkState } from '@/lib/auth/linkTokens';
 
 export const emailSchema = z.string().trim().toLowerCase().email('Enter an e-mail address.').max(320, 'Use at most 320 characters.');
 export const roleSchema = z.enum(ROLES, { message: 'Choose admin, designer, reviewer or viewer.' });
@@ -33,7 +33,7 @@ export const acceptInvitationSchema = z.object({
 export const resetRequestSchema = z.object({ email: emailSchema });
 export const resetPasswordSchema = z.object({ token: z.string().min(1).max(100), password: passwordSchema });
 
-export type LinkState = 'valid' | 'used' | 'expired' | 'unknown';
+export type { LinkState };
 
 function linkStateOf(row: { acceptedAt?: Date | null; revokedAt?: Date | null; usedAt?: Date | null; expiresAt: Date } | null): LinkState {
   if (!row) return 'unknown';

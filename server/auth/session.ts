@@ -8,7 +8,7 @@ import { cookies, headers } from 'next/headers';
 import { forbidden, redirect } from 'next/navigation';
 import { decode } from 'next-auth/jwt';
 import { findSessionRow } from '@/db/queries/members';
-import { can, isRole, type Permission, type Role } from './permissions';
+import { can, isRole, type Permission, type Role } from '@/lib/auth/permissions';
 import { sessionCookieName } from './cookies';
 import { isSafeLocalPath } from '@/server/http/localPath';
 

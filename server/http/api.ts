@@ -18,7 +18,7 @@
  *   is SameSite=Lax already; this is the second lock).
  */
 import type { NextRequest } from 'next/server';
-import { can, type Permission } from '@/server/auth/permissions';
+import { can, type Permission } from '@/lib/auth/permissions';
 import { getSessionUser, type SessionUser } from '@/server/auth/session';
 import { ApiError, errorResponse } from './errors';
 

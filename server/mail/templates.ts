@@ -1,5 +1,5 @@
 /** The wording of the mail Ampwarden sends: plain text first, a simple HTML twin beside it. */
-import { ROLE_LABELS, type Role } from '@/server/auth/permissions';
+import { ROLE_LABELS, type Role } from '@/lib/auth/permissions';
 import type { OutgoingMail } from './send';
 
 function escapeHtml(text: string): string {

@@ -7,8 +7,8 @@
  * Numbers come from the saved result snapshot only.
  */
 import { Document, Page, StyleSheet, Text, View } from '@react-pdf/renderer';
-import { CAUTION_TEXT } from '@/components/shell/CautionNotice';
-import { candidateRecords, chosenResultRows, formatDate, inputRows, METHOD_LINES } from '@/components/share/sheetTables';
+import { CAUTION_TEXT } from '@/lib/caution';
+import { candidateRecords, chosenResultRows, formatDate, inputRows, METHOD_LINES } from '@/lib/sheet/sheetTables';
 import type { AssumptionFlag } from '@/lib/electrical/sizing/flags';
 import { chosenEvaluation, type ResultSnapshot } from '@/lib/sheet/snapshot';
 import { STATUS_LABELS, type SheetStatus } from '@/lib/sheet/stateMachine';

@@ -3,8 +3,8 @@
  * for ρ, α, Ω…), registered once per process by the verification report's module, reused here so
  * that both documents share one registration (react-pdf keeps a global font store).
  */
-export { registerReportFonts as registerPdfFonts } from '@/components/verification/VerificationReportDocument';
-export { pdfSafeText } from '@/components/verification/pdfText';
+export { registerReportFonts as registerPdfFonts } from './VerificationReportDocument';
+export { pdfSafeText } from './pdfText';
 
 /** The family list to put in a page style: latin first, Greek symbols from the fallback. */
 export const PDF_FONT_FAMILY = ['Plex Sans', 'Plex Sans Greek'];

@@ -5,8 +5,8 @@
  */
 import ExcelJS from 'exceljs';
 import Papa from 'papaparse';
-import { CAUTION_TEXT } from '@/components/shell/CautionNotice';
-import { CANDIDATE_EXPORT_COLUMNS, candidateRecords, formatDate } from '@/components/share/sheetTables';
+import { CAUTION_TEXT } from '@/lib/caution';
+import { CANDIDATE_EXPORT_COLUMNS, candidateRecords, formatDate } from '@/lib/sheet/sheetTables';
 import type { SheetRecord } from '@/db/queries/sheets';
 import { STATUS_LABELS } from '@/lib/sheet/stateMachine';
 

@@ -1,5 +1,5 @@
 /** The wording of a sizing sheet sent by e-mail: plain text first, a simple HTML twin beside it. */
-import { CAUTION_TEXT } from '@/components/shell/CautionNotice';
+import { CAUTION_TEXT } from '@/lib/caution';
 import type { OutgoingMail } from '@/server/mail/send';
 
 function escapeHtml(text: string): string {

@@ -9,7 +9,7 @@ import { closeDb } from '@/db/client';
 import { createProject } from '@/db/queries/projects';
 import { getSheet } from '@/db/queries/sheets';
 import { createShare } from '@/db/queries/shares';
-import { CAUTION_TEXT } from '@/components/shell/CautionNotice';
+import { CAUTION_TEXT } from '@/lib/caution';
 import { copyStandardCatalogueToTeam } from '@/db/seed/catalogue';
 import { computeEnclosureAir } from '@/lib/sheet/enclosureAir';
 import { celsiusToFahrenheit, feetToMetres, formatNumber } from '@/lib/units';

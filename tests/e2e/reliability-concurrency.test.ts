@@ -9,7 +9,7 @@ import { sheets } from '@/db/schema';
 import { createProject } from '@/db/queries/projects';
 import { createSheet } from '@/db/queries/sheets';
 import { defaultSheetInputs, type SheetInputs } from '@/lib/sheet';
-import { can } from '@/server/auth/permissions';
+import { can } from '@/lib/auth/permissions';
 import { appUrl } from '../helpers/browser';
 import { createTestTeam, createTestUser } from '../helpers/fixtures';
 import { sessionCookie } from './reliability-helpers';

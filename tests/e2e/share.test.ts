@@ -15,7 +15,7 @@ import type { Browser } from 'playwright-core';
 import { extractText, getDocumentProxy } from 'unpdf';
 import { closeDb } from '@/db/client';
 import { createShare } from '@/db/queries/shares';
-import { CAUTION_TEXT } from '@/components/shell/CautionNotice';
+import { CAUTION_TEXT } from '@/lib/caution';
 import { signInInBrowser } from './sheet-steps';
 import { appUrl, launchBrowser, screenshot } from '../helpers/browser';
 import { createTestTeam, createTestUser, TEST_PASSWORD } from '../helpers/fixtures';

@@ -10,7 +10,7 @@ import {
 } from '@/lib/api';
 import { fieldRows, variantRows, type FieldRow } from '@/lib/api/fieldTable';
 import { CautionNotice } from '@/components/shell/CautionNotice';
-import { can } from '@/server/auth/permissions';
+import { can } from '@/lib/auth/permissions';
 import { requirePageUser } from '@/server/auth/session';
 
 export const metadata = { title: 'Calculation API' };

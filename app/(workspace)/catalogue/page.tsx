@@ -1,5 +1,5 @@
 import { countCatalogue } from '@/db/queries/catalogue';
-import { can } from '@/server/auth/permissions';
+import { can } from '@/lib/auth/permissions';
 import { requirePageUser } from '@/server/auth/session';
 import { CatalogueScreen } from '@/components/catalogue/CatalogueScreen';
 import { isCatalogueKind } from '@/lib/catalogue/schemas';

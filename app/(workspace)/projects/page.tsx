@@ -1,7 +1,7 @@
 import Link from 'next/link';
 import { listProjects } from '@/db/queries/projects';
 import { listReviewQueue } from '@/db/queries/sheets';
-import { can } from '@/server/auth/permissions';
+import { can } from '@/lib/auth/permissions';
 import { requirePageUser } from '@/server/auth/session';
 import { ReviewQueue } from '@/components/sheet/ReviewQueue';
 import { CreateProjectForm } from './CreateProjectForm';

@@ -2,7 +2,7 @@ import { AuthFrame } from '@/components/auth/AuthFrame';
 import { LinkRefusal } from '@/components/auth/LinkRefusal';
 import { SetPasswordForm } from '@/components/auth/SetPasswordForm';
 import { inspectInvitation } from '@/server/auth/members';
-import { ROLE_LABELS } from '@/server/auth/permissions';
+import { ROLE_LABELS } from '@/lib/auth/permissions';
 
 export const metadata = { title: 'Join your team' };
 export const dynamic = 'force-dynamic';

@@ -12,7 +12,7 @@ import { Wordmark } from '@/components/shell/Wordmark';
 import { StatusBadge } from '@/components/sheet/StatusBadge';
 import { ShareRefusal } from '@/components/share/ShareRefusal';
 import { SharedSheetView, type SharedSheet } from '@/components/share/SharedSheetView';
-import { formatDate } from '@/components/share/sheetTables';
+import { formatDate } from '@/lib/sheet/sheetTables';
 import { openShare } from '@/db/queries/shares';
 import type { SheetRecord } from '@/db/queries/sheets';
 import { savedOptionalChecks } from '@/lib/sheet/snapshot';

@@ -1,5 +1,5 @@
 /**
- * The standard catalogue that the seed copies into every team (db/seed/catalogue-data.ts, plain
+ * The standard catalogue that the seed copies into every team (lib/catalogue/standardData.ts, plain
  * data) against the tables of references.md: IEC 60228 Table 2 class 2 maximum resistances at
  * 20 °C (from memory) and the IEC 60287-1-1 Table 1 material constants.
  */
@@ -35,7 +35,7 @@ function tableCase(id: string, title: string, material: 'copper' | 'aluminium', 
     area: 'catalogue',
     source: { kind: 'from memory', fromMemory: true, citation: `IEC 60228 Table 2, class 2 plain ${material === 'copper' ? 'copper' : 'aluminium'}, maximum Ω/km at 20 °C (references.md, from memory)` },
     inputs: [
-      { name: 'catalogue', value: 'standard catalogue seeded into every team (db/seed/catalogue-data.ts)' },
+      { name: 'catalogue', value: 'standard catalogue seeded into every team (lib/catalogue/standardData.ts)' },
       { name: 'sizes checked', value: table.map(([s]) => s).join(', '), unit: 'mm²' },
     ],
     notes: 'The seeded value must equal the table exactly: it is the default R₂₀ the sizing uses when no datasheet value is entered.',
@@ -51,7 +51,7 @@ const materials: VerificationCase = {
   title: 'Seeded catalogue materials: ρ₂₀ and α₂₀ of copper and aluminium',
   area: 'catalogue',
   source: { kind: 'standard', citation: 'IEC 60287-1-1 Table 1: Cu 1.7241e-8 Ω·m, 3.93e-3 /K; Al 2.8264e-8 Ω·m, 4.03e-3 /K' },
-  inputs: [{ name: 'catalogue', value: 'standard catalogue seeded into every team (db/seed/catalogue-data.ts)' }],
+  inputs: [{ name: 'catalogue', value: 'standard catalogue seeded into every team (lib/catalogue/standardData.ts)' }],
   quantities: [
     { key: 'cuRho', label: 'copper ρ₂₀', unit: 'Ω·m', reference: 1.7241e-8, tolerance: { kind: 'relative', value: 1e-12 } },
     { key: 'cuAlpha', label: 'copper α₂₀', unit: '1/K', reference: 3.93e-3, tolerance: { kind: 'relative', value: 1e-12 } },

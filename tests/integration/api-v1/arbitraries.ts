@@ -5,6 +5,7 @@
  */
 import fc from 'fast-check';
 import { EXAMPLE_AMPACITY_REQUEST, EXAMPLE_EVALUATE_REQUEST, MAX_CANDIDATES_PER_REQUEST } from '@/lib/api';
+import { INPUT_BOUNDS } from '@/lib/inputBounds';
 
 type Json = null | boolean | number | string | Json[] | { [key: string]: Json };
 
@@ -132,16 +133,17 @@ const installation = fc.oneof(
 
 export const inRangeConditions = fc.record(
   {
-    designCurrentA: fc.double({ min: 0, max: 100_000, noNaN: true }),
+    // Ranges of lib/inputBounds, the table the API schemas read.
+    designCurrentA: fc.double({ min: INPUT_BOUNDS.designCurrentA.min, minExcluded: true, max: INPUT_BOUNDS.designCurrentA.max, noNaN: true }),
     frequencyHz: fc.constantFrom(0, 50, 60, 400, 1000),
     phases: fc.constantFrom(1, 3),
-    nominalVoltageV: fc.double({ min: 1, max: 1e6, noNaN: true }),
-    lengthM: fc.double({ min: 0, max: 1e6, noNaN: true }),
+    nominalVoltageV: fc.double({ min: 1, max: INPUT_BOUNDS.nominalVoltageV.max, noNaN: true }),
+    lengthM: fc.double({ min: 0, max: INPUT_BOUNDS.lengthM.max, noNaN: true }),
     powerFactor: fc.double({ min: 0, max: 1, noNaN: true }),
     ambientC: fc.double({ min: -60, max: 200, noNaN: true }),
     installation,
     windSpeedMPerS: fc.double({ min: 0, max: 60, noNaN: true }),
-    fault: fc.record({ currentA: fc.double({ min: 1, max: 1e7, noNaN: true }), durationS: fc.double({ min: 1e-3, max: 60, noNaN: true }) }),
+    fault: fc.record({ currentA: fc.double({ min: 1, max: INPUT_BOUNDS.faultCurrentA.max, noNaN: true }), durationS: fc.double({ min: 1e-3, max: 60, noNaN: true }) }),
     temperatureLimitC: fc.double({ min: -50, max: 1000, noNaN: true }),
     groupingFactor: fc.double({ min: 0.01, max: 1, noNaN: true }),
     surfaceCoefficientWPerM2K: fc.double({ min: 0.01, max: 1e5, noNaN: true }),

@@ -8,7 +8,7 @@ import Papa from 'papaparse';
 import { extractText, getDocumentProxy } from 'unpdf';
 import { closeDb } from '@/db/client';
 import { getSheet, type SheetRecord } from '@/db/queries/sheets';
-import { CAUTION_TEXT } from '@/components/shell/CautionNotice';
+import { CAUTION_TEXT } from '@/lib/caution';
 import { chosenEvaluation } from '@/lib/sheet';
 import { formatNumber } from '@/lib/units';
 import { renderSheetPdf } from '@/server/pdf/renderSheetPdf';

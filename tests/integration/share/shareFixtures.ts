@@ -8,7 +8,7 @@ import { createProject } from '@/db/queries/projects';
 import { createSheet } from '@/db/queries/sheets';
 import { demoSingleCore } from '@/db/seed/sheets';
 import { defaultSheetInputs, type Actor, type SheetInputs } from '@/lib/sheet';
-import { can, type Role } from '@/server/auth/permissions';
+import { can, type Role } from '@/lib/auth/permissions';
 
 export const actorOf = (user: { id: string; role: Role }): Actor => ({ userId: user.id, can: (p) => can(user.role, p) });
 

@@ -20,7 +20,7 @@ import {
 } from '@/db/queries/sheets';
 import { demoSingleCore } from '@/db/seed/sheets';
 import { defaultSheetInputs, SHEET_SCHEMA_VERSION, type Actor, type SheetInputs } from '@/lib/sheet';
-import { can, type Role } from '@/server/auth/permissions';
+import { can, type Role } from '@/lib/auth/permissions';
 import { createTestTeam, createTestUser } from '../../helpers/fixtures';
 
 afterAll(() => closeDb());

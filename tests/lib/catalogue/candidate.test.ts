@@ -3,7 +3,7 @@
 import { describe, expect, it } from 'vitest';
 import { barToCandidate, cableBuildToCandidate, ROW_SCHEMAS } from '@/lib/catalogue';
 import { evaluateCandidate, type Conditions } from '@/lib/electrical';
-import { STANDARD_BUILDS, STANDARD_CONDUCTORS, STANDARD_COVERINGS, STANDARD_MATERIALS } from '@/db/seed/catalogue-data';
+import { STANDARD_BUILDS, STANDARD_CONDUCTORS, STANDARD_COVERINGS, STANDARD_MATERIALS } from '@/lib/catalogue/standardData';
 
 const withId = <T extends object>(row: T, id: string) => ({ ...row, id });
 const material = (key: string) => withId(ROW_SCHEMAS.materials.parse(STANDARD_MATERIALS.find((m) => m.key === key)), `m-${key}`);

@@ -3,7 +3,7 @@
 import { describe, expect, it } from 'vitest';
 import { CATALOGUE_COLUMNS } from '@/lib/catalogue';
 import { FileRefusal, MAX_IMPORT_BYTES, readCatalogueFile, validateRecords, writeCsv, writeXlsx } from '@/lib/catalogue/files';
-import { STANDARD_COVERINGS } from '@/db/seed/catalogue-data';
+import { STANDARD_COVERINGS } from '@/lib/catalogue/standardData';
 
 const encode = (text: string) => new TextEncoder().encode(text);
 const coveringHeader = CATALOGUE_COLUMNS.coverings.map((c) => c.header).join(',');

@@ -1,7 +1,7 @@
 // Row schemas: what a grid edit or an import row may hold, with the field named in each error.
 import { describe, expect, it } from 'vitest';
 import { buildRowSchema, conductorRowSchema, coveringRowSchema, materialRowSchema } from '@/lib/catalogue';
-import { STANDARD_BUILDS, STANDARD_CONDUCTORS, STANDARD_COVERINGS, STANDARD_MATERIALS } from '@/db/seed/catalogue-data';
+import { STANDARD_BUILDS, STANDARD_CONDUCTORS, STANDARD_COVERINGS, STANDARD_MATERIALS } from '@/lib/catalogue/standardData';
 
 const issuesOf = (result: { success: boolean; error?: { issues: Array<{ path: PropertyKey[]; message: string }> } }) =>
   (result.error?.issues ?? []).map((i) => `${i.path.join('.')}: ${i.message}`);

@@ -2,7 +2,7 @@
 // authored; an unacknowledged review flag or any blocker prevents approval; approved is frozen.
 import { describe, expect, it } from 'vitest';
 import { availableActions, decide, type Actor, type SheetAction, type SheetStatus } from '@/lib/sheet';
-import { can, ROLES, type Role } from '@/server/auth/permissions';
+import { can, ROLES, type Role } from '@/lib/auth/permissions';
 
 const actorAs = (role: Role, userId = `${role}-1`): Actor => ({ userId, can: (p) => can(role, p) });
 const ready = { hasChosenCandidate: true, blockerCodes: [], unacknowledgedReviewCodes: [] };

@@ -12,8 +12,8 @@ import * as fontkit from 'fontkit';
 import { renderToBuffer } from '@react-pdf/renderer';
 import { extractText, getDocumentProxy } from 'unpdf';
 import { reportCsv, reportRows, runCase, summarise, verificationCases, type CaseResult } from '@/lib/verification';
-import { REPORT_FONT_FILES, registerReportFonts, VerificationReportDocument } from '@/components/verification/VerificationReportDocument';
-import { pdfSafeText } from '@/components/verification/pdfText';
+import { REPORT_FONT_FILES, registerReportFonts, VerificationReportDocument } from '@/server/pdf/VerificationReportDocument';
+import { pdfSafeText } from '@/server/pdf/pdfText';
 
 const results: CaseResult[] = verificationCases.map((c) => runCase(c));
 

@@ -2,7 +2,7 @@ import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { getProject } from '@/db/queries/projects';
 import { isUuid, listReviewQueue, listSheetsForProject } from '@/db/queries/sheets';
-import { can } from '@/server/auth/permissions';
+import { can } from '@/lib/auth/permissions';
 import { requirePageUser } from '@/server/auth/session';
 import { StatusBadge } from '@/components/sheet/StatusBadge';
 import { ReviewQueue } from '@/components/sheet/ReviewQueue';

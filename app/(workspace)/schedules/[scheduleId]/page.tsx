@@ -2,7 +2,7 @@ import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { getSchedule } from '@/db/queries/schedules';
 import { CautionNotice } from '@/components/shell/CautionNotice';
-import { can } from '@/server/auth/permissions';
+import { can } from '@/lib/auth/permissions';
 import { requirePageUser } from '@/server/auth/session';
 import { ScheduleView } from './ScheduleView';
 

@@ -4,7 +4,7 @@
  */
 import { z } from 'zod';
 import { SheetOperationError } from '@/db/queries/sheets';
-import { can, type Role } from '@/server/auth/permissions';
+import { can, type Role } from '@/lib/auth/permissions';
 import type { Actor } from '@/lib/sheet';
 
 export function sheetActor(user: { id: string; role: Role }): Actor {

@@ -15,7 +15,7 @@ import { renderToBuffer, type DocumentProps } from '@react-pdf/renderer';
 import { z } from 'zod';
 import { apiHandler } from '@/server/http/api';
 import { reportCsv, runCase, verificationCases, type CaseResult } from '@/lib/verification';
-import { registerReportFonts, VerificationReportDocument } from '@/components/verification/VerificationReportDocument';
+import { registerReportFonts, VerificationReportDocument } from '@/server/pdf/VerificationReportDocument';
 
 export const runtime = 'nodejs';
 export const dynamic = 'force-dynamic';

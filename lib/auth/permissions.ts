@@ -1,6 +1,7 @@
 /**
  * Roles and their rights (../shared/design/product.md, "People and roles"). Pure: no database,
- * no Next.js, so that pages, route handlers, server actions and tests share one table.
+ * no Next.js, so that pages, route handlers, server actions, components and tests share one table.
+ * The database enum `role` (db/schema/core.ts) is built from ROLES.
  */
 export const ROLES = ['admin', 'designer', 'reviewer', 'viewer'] as const;
 export type Role = (typeof ROLES)[number];

@@ -4,7 +4,7 @@
  */
 import path from 'node:path';
 import { Document, Font, Page, StyleSheet, Text, View } from '@react-pdf/renderer';
-import { CAUTION_TEXT } from '@/components/shell/CautionNotice';
+import { CAUTION_TEXT } from '@/lib/caution';
 import {
   describeTolerance,
   formatNumber,

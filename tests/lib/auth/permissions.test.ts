@@ -1,17 +1,36 @@
 // Role rights as ../shared/design/product.md ("People and roles") states them (issue 6).
 import { describe, expect, it } from 'vitest';
-import { can, PERMISSIONS, ROLES, type Permission, type Role } from '@/server/auth/permissions';
+import { can, PERMISSIONS, ROLES, type Permission, type Role } from '@/lib/auth/permissions';
 
-// Read off product.md: admin may do everything; designer creates and edits projects, sheets and
-// schedules, submits and shares; reviewer reads and approves or returns; viewer reads.
+// Read off product.md, written out by hand (never copied from the table under test): admin may do
+// everything — read, projects, sheets, submit, review, share, catalogue edits and imports, members
+// and roles, schedules, API tokens; designer creates and edits projects, sheets and schedules,
+// submits and shares; reviewer reads and approves or returns; viewer reads.
+const EVERY_RIGHT: Permission[] = [
+  'team:read',
+  'project:write',
+  'sheet:write',
+  'sheet:submit',
+  'sheet:review',
+  'sheet:share',
+  'catalogue:write',
+  'members:manage',
+  'schedule:write',
+  'apitoken:manage',
+];
 const EXPECTED: Record<Role, Permission[]> = {
-  admin: [...PERMISSIONS],
+  admin: EVERY_RIGHT,
   designer: ['team:read', 'project:write', 'sheet:write', 'sheet:submit', 'sheet:share', 'schedule:write'],
   reviewer: ['team:read', 'sheet:review'],
   viewer: ['team:read'],
 };
 
 describe('can(role, permission)', () => {
+  it('knows exactly the four roles of product.md and the rights listed above (a new one needs a decision here)', () => {
+    expect([...ROLES]).toEqual(['admin', 'designer', 'reviewer', 'viewer']);
+    expect([...PERMISSIONS].sort()).toEqual([...EVERY_RIGHT].sort());
+  });
+
   it.each(ROLES.flatMap((role) => PERMISSIONS.map((permission) => [role, permission] as const)))('%s → %s', (role, permission) => {
     expect(can(role, permission)).toBe(EXPECTED[role].includes(permission));
   });

@@ -6,10 +6,13 @@
  *
  * Computed values (bar and North American resistances, approximate diameters) are derived here
  * with decimal.js from the stated formula, so the formula and the stored number cannot drift apart.
+ *
+ * Pure data in lib/ (no database): the seed (db/seed/catalogue.ts) copies it into every team, and
+ * the verification cases (lib/verification) check it, without lib importing db.
  */
 import Decimal from 'decimal.js';
-import { awgToMm2, kcmilToMm2 } from '@/lib/units';
-import type { BuildRow, ConductorRow, CoveringRow, MaterialRow } from '@/lib/catalogue';
+import { awgToMm2, kcmilToMm2 } from '../units';
+import type { BuildRow, ConductorRow, CoveringRow, MaterialRow } from './schemas';
 
 type Input<T> = { [K in keyof T]: T[K] extends string ? string : T[K] extends string | null ? string | null : T[K] };
 

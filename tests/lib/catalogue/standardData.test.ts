@@ -11,7 +11,7 @@ import {
   STANDARD_CONDUCTORS,
   STANDARD_COVERINGS,
   STANDARD_MATERIALS,
-} from '@/db/seed/catalogue-data';
+} from '@/lib/catalogue/standardData';
 
 const conductor = (key: string) => {
   const row = STANDARD_CONDUCTORS.find((c) => c.key === key);

@@ -1,14 +1,15 @@
 /**
  * The sizing sheet as plain tables — inputs with units, candidates, the chosen candidate's results,
  * the method and standards — shared by the share view, the PDF and the candidate exports so that all
- * three print the same words and the same numbers from the saved snapshot. Pure TypeScript (no
- * React, no server code): the browser and the server both use it. SI units, as stored.
+ * three print the same words and the same numbers from the saved snapshot; each candidate's figures
+ * come from candidateRow (lib/sheet/candidateRow.ts), which the candidate grid uses too. Pure
+ * TypeScript (no React, no server code): the browser and the server both use it. SI units, as stored.
  */
 import type { CandidateEvaluation, CandidateEvaluationOk } from '@/lib/electrical/sizing/types';
 import { describeArrangement, sectionPerPhaseMm2, type SheetCandidate } from '@/lib/sheet/candidates';
 import type { SheetInputs } from '@/lib/sheet/schema';
-import type { ResultSnapshot } from '@/lib/sheet/snapshot';
 import { formatNumber, formatQuantity } from '@/lib/units';
+import { candidateRow, type CandidateRow, type ComparisonMarks, type ResultState } from './candidateRow';
 
 export interface InputRow {
   section: string;
@@ -104,7 +105,7 @@ export function inputRows(inputs: SheetInputs): InputRow[] {
   return rows;
 }
 
-/** One candidate of the comparison with its saved result; numbers unrounded (the snapshot's own). */
+/** One candidate of the comparison with its result; numbers unrounded (the snapshot's own), SI. */
 export interface CandidateRecord {
   id: string;
   label: string;
@@ -115,6 +116,8 @@ export interface CandidateRecord {
   chosen: boolean;
   evaluated: boolean;
   state: string;
+  /** The shown state, or 'error' when the candidate has no result. */
+  stateKey: ResultState | 'error';
   passes: boolean | null;
   hotSpotC: number | null;
   limitC: number | null;
@@ -122,28 +125,37 @@ export interface CandidateRecord {
   marginK: number | null;
   marginPercent: number | null;
   ampacityA: number | null;
+  /** True when the candidate may carry no current at all (see candidateRow). */
+  noCurrentAllowed: boolean;
+  /** Null when not evaluated or when no current is allowed (utilisationText says which). */
   utilisationPercent: number | null;
+  utilisationText: string;
   lossWPerM: number | null;
   voltageDropPercent: number | null;
   shortCircuit: string;
   massKg: number | null;
   materialCost: string | null;
   lifeCycleCost: string | null;
+  flagCounts: CandidateRow['flagCounts'];
   flagCodes: string[];
   marks: string[];
   error: string | null;
 }
 
-export function resultWord(e: CandidateEvaluationOk): string {
-  if (e.hotSpotC === null) return 'Runaway: no steady state';
-  if (e.marginK === null || e.marginK < 0) return 'Over limit';
-  const word = e.marginPercent !== null && e.marginPercent < 10 ? 'Margin under 10 %' : 'Within limit';
-  return e.passes ? word : `${word}; fails a check`;
+/** The results the records are read from: a saved snapshot, or the browser's live comparison. */
+export interface CandidateResults extends ComparisonMarks {
+  evaluations: readonly CandidateEvaluation[];
+  chosenCandidateId: string | null;
 }
 
-export function candidateRecords(candidates: SheetCandidate[], snapshot: ResultSnapshot | null): CandidateRecord[] {
+/**
+ * Every candidate of a sheet with its result, in the sheet's order. The figures come from
+ * candidateRow; `missing` is the word for a candidate with no result yet ('No saved result' for a
+ * snapshot, 'Computing…' on the live sheet).
+ */
+export function candidateRecords(candidates: SheetCandidate[], results: CandidateResults | null, missing = 'No saved result'): CandidateRecord[] {
   return candidates.map((candidate) => {
-    const e: CandidateEvaluation | undefined = snapshot?.evaluations.find((x) => x.id === candidate.id);
+    const e: CandidateEvaluation | undefined = results?.evaluations.find((x) => x.id === candidate.id);
     const base = {
       id: candidate.id,
       label: candidate.label,
@@ -151,13 +163,14 @@ export function candidateRecords(candidates: SheetCandidate[], snapshot: ResultS
       material: candidate.material,
       arrangement: describeArrangement(candidate),
       sectionPerPhaseMm2: sectionPerPhaseMm2(candidate),
-      chosen: snapshot?.chosenCandidateId === candidate.id,
+      chosen: results?.chosenCandidateId === candidate.id,
     };
     if (!e || !e.ok) {
       return {
         ...base,
         evaluated: false,
-        state: e ? 'Not evaluated' : 'No saved result',
+        state: e ? 'Not evaluated' : missing,
+        stateKey: 'error',
         passes: null,
         hotSpotC: null,
         limitC: null,
@@ -165,42 +178,47 @@ export function candidateRecords(candidates: SheetCandidate[], snapshot: ResultS
         marginK: null,
         marginPercent: null,
         ampacityA: null,
+        noCurrentAllowed: false,
         utilisationPercent: null,
+        utilisationText: '',
         lossWPerM: null,
         voltageDropPercent: null,
         shortCircuit: '',
         massKg: null,
         materialCost: null,
         lifeCycleCost: null,
+        flagCounts: { blocker: 0, review: 0, note: 0 },
         flagCodes: [],
         marks: [],
         error: e && !e.ok ? e.error.message : null,
       };
     }
-    const marks: string[] = [];
-    if (e.isSmallestPassing || snapshot?.smallestPassingId === e.id) marks.push('Smallest passing');
-    if (e.isLowestLifeCycleCostPassing || snapshot?.lowestLifeCycleCostPassingId === e.id) marks.push('Lowest cost passing');
+    const row = candidateRow(e, results ?? {});
     return {
       ...base,
       evaluated: true,
-      state: resultWord(e),
-      passes: e.passes,
-      hotSpotC: e.hotSpotC,
-      limitC: e.limit.temperatureC,
-      limitSource: e.limit.layer ?? e.limit.source,
-      marginK: e.marginK,
-      marginPercent: e.marginPercent,
-      ampacityA: e.ampacityA,
-      // Number.MAX_VALUE stands for "no current allowed at all"; a spreadsheet reads that better as empty.
-      utilisationPercent: e.utilisation >= Number.MAX_VALUE / 100 ? null : e.utilisation * 100,
-      lossWPerM: e.lossWPerM,
-      voltageDropPercent: e.voltageDrop.percent,
-      shortCircuit: !e.shortCircuit.checked ? 'not checked' : e.shortCircuit.withstands ? 'passes' : 'fails',
-      massKg: e.massKg,
-      materialCost: e.materialCost,
-      lifeCycleCost: e.lifeCycleCost,
-      flagCodes: e.flags.map((f) => f.code),
-      marks,
+      state: row.state,
+      stateKey: row.stateKey,
+      passes: row.passes,
+      hotSpotC: row.hotSpotC,
+      limitC: row.limitC,
+      limitSource: row.limitSource,
+      marginK: row.marginK,
+      marginPercent: row.marginPercent,
+      ampacityA: row.ampacityA,
+      noCurrentAllowed: row.noCurrentAllowed,
+      // Empty when no current is allowed: a spreadsheet reads that better than a huge number.
+      utilisationPercent: row.utilisationPercent,
+      utilisationText: row.utilisationText,
+      lossWPerM: row.lossWPerM,
+      voltageDropPercent: row.voltageDropPercent,
+      shortCircuit: row.shortCircuit,
+      massKg: row.massKg,
+      materialCost: row.materialCost,
+      lifeCycleCost: row.lifeCycleCost,
+      flagCounts: row.flagCounts,
+      flagCodes: row.flagCodes,
+      marks: row.marks,
       error: null,
     };
   });
@@ -244,14 +262,15 @@ export function chosenResultRows(e: CandidateEvaluationOk, lengthM: number): Cho
   const t = (c: number | null | undefined) => (c === null || c === undefined ? '—' : formatQuantity(c, 'temperature', 'si'));
   const sc = e.shortCircuit;
   const vd = e.voltageDrop;
+  const row = candidateRow(e);
   return [
-    { label: 'Result', value: resultWord(e) },
+    { label: 'Result', value: row.state },
     { label: 'Design current', value: `${n(e.designCurrentA)} A` },
     { label: 'Hot spot', value: e.hotSpotC === null ? 'no steady state (thermal runaway)' : t(e.hotSpotC) },
     { label: 'Limit', value: `${t(e.limit.temperatureC)} (${e.limit.layer ?? e.limit.source})` },
     { label: 'Margin', value: e.marginK === null ? '—' : `${formatQuantity(e.marginK, 'temperatureRise', 'si')}${e.marginPercent === null ? '' : ` (${n(e.marginPercent, 3)} % of the allowed rise)`}` },
     { label: 'Ampacity', value: `${n(e.ampacityA)} A` },
-    { label: 'Utilisation', value: e.utilisation >= Number.MAX_VALUE / 100 ? 'no current allowed' : `${n(e.utilisation * 100, 3)} %` },
+    { label: 'Utilisation', value: row.utilisationText },
     { label: 'Ambient used', value: t(e.ambientC) },
     { label: 'Conductor temperature (mean)', value: t(e.conductorC) },
     { label: 'AC/DC resistance ratio', value: n(e.acFactor, 4) },

@@ -1,0 +1,51 @@
+/**
+ * A sizing sheet as the pages and components read it: one sheet with its review data, and one line
+ * of a list (project page, review queue). Plain shapes in lib/ so that components use them without
+ * importing the database layer; db/queries/sheets.ts fills them (and re-exports them).
+ */
+import type { ResultSnapshot } from './snapshot';
+import type { SheetInputs } from './schema';
+import type { SheetStatus } from './stateMachine';
+
+export interface SheetRecord {
+  id: string;
+  teamId: string;
+  projectId: string;
+  projectName: string;
+  circuitTag: string;
+  title: string;
+  status: SheetStatus;
+  revision: number;
+  previousRevisionId: string | null;
+  newerRevisionId: string | null;
+  inputs: SheetInputs;
+  /** The stored inputs' schema version before migrate-on-read. */
+  storedSchemaVersion: number;
+  result: ResultSnapshot | null;
+  solverVersion: string | null;
+  version: number;
+  authorId: string;
+  authorName: string | null;
+  reviewerId: string | null;
+  reviewerName: string | null;
+  approvedAt: Date | null;
+  createdAt: Date;
+  updatedAt: Date;
+  acknowledgements: { flagCode: string; comment: string; reviewerName: string | null; createdAt: Date }[];
+}
+
+export interface SheetListItem {
+  id: string;
+  projectId: string;
+  projectName: string;
+  circuitTag: string;
+  title: string;
+  status: SheetStatus;
+  revision: number;
+  authorId: string;
+  authorName: string | null;
+  updatedAt: Date;
+  newerRevisionId: string | null;
+  chosenLabel: string | null;
+  chosenPasses: boolean | null;
+}
