@@ -16,11 +16,16 @@
  * §543.1.3 table (Table 54.3, same material as the line conductor, from memory):
  * S_pe = S for S ≤ 16 mm², 16 for 16 < S ≤ 35, S/2 above 35.
  *
- * §543.1.1 lets the section be either calculated (§543.1.2) or selected from the table, so a
- * conductor meeting either complies: the smaller of the two is the least section permitted and
- * that method "governs". A protective conductor that is not part of a cable nor in a common
- * enclosure with the line conductors is never below 2.5 mm² Cu / 16 mm² Al with mechanical
- * protection, 4 mm² Cu / 16 mm² Al without (§543.1.3, from memory).
+ * Which governs. §543.1.1 lets the section be calculated (§543.1.2) or selected from the
+ * table, but first asks the conductor to withstand the thermal stress of the prospective
+ * fault during the disconnection time. So when the fault current and time are known the
+ * calculation governs: a section the table admits but the calculation does not is refused (the
+ * table's presumption is contradicted by the numbers), and a section below the table but above
+ * the calculation is accepted (the calculated route). Without fault data only the table can
+ * be applied, and it governs. A protective conductor that is not part of a cable nor bunched
+ * with the line conductors is never below 2.5 mm² Cu / 16 mm² Al with mechanical protection,
+ * 4 mm² Cu / 16 mm² Al without (§543.1.3, from memory); when that floor is the larger figure
+ * it governs.
  */
 import { ElectricalInputError, requireNonNegative, requirePositive, requireRange, requireTemperature } from '../errors';
 import type { ConductorMaterial } from '../materials';
@@ -64,43 +69,48 @@ function nextStandardSection(s: number): number | undefined {
   return IEC_60228_SECTIONS_MM2.find((v) => v >= s * (1 - 1e-9));
 }
 
+export interface AdiabaticPeResult {
+  /** √(I²t)/k, mm². */
+  minimumMm2: number;
+  nextStandardMm2: number | undefined;
+  kAs05PerMm2: number;
+  energyA2s: number;
+  initialC: number;
+  finalC: number;
+  basis: string;
+}
+
 export interface ProtectiveConductorResult {
   clause: 'IEC 60364-5-54 §543.1';
-  adiabatic: {
-    /** √(I²t)/k, mm². */
-    minimumMm2: number;
-    nextStandardMm2: number | undefined;
-    kAs05PerMm2: number;
-    energyA2s: number;
-    initialC: number;
-    finalC: number;
-    basis: string;
-  };
+  /** §543.1.2; undefined when no fault data were given. */
+  adiabatic: AdiabaticPeResult | undefined;
   /** Table 54.3; undefined when the protective conductor is not of the line conductor's material (the k₁/k₂ scaling is not done here). */
   table: { minimumMm2: number; nextStandardMm2: number | undefined; basis: string } | undefined;
-  /** §543.1.3 floor for a separate conductor, mm²; 0 for a core of a cable. */
+  /** §543.1.3 floor for a separate conductor, mm²; 0 for a core of a cable or one bunched with the line conductors. */
   mechanicalMinimumMm2: number;
-  /** Least section permitted: the smaller method (either complies, §543.1.1), never below the mechanical floor. */
-  permittedMinimumMm2: number;
+  /** Least section accepted, mm² (see the module note for the rule). */
+  requiredMinimumMm2: number;
   governing: 'adiabatic' | 'table' | 'mechanical';
-  /** With an installed section: whether it meets the permitted minimum, and each method alone. */
-  installed?: { sectionMm2: number; meetsAdiabatic: boolean; meetsTable: boolean | undefined; verdict: 'pass' | 'fail' };
+  /** A sentence for the reader when the two methods disagree. */
+  note: string | undefined;
+  /** With an installed section: each method alone and the verdict against `requiredMinimumMm2`. */
+  installed?: { sectionMm2: number; meetsAdiabatic: boolean | undefined; meetsTable: boolean | undefined; verdict: 'pass' | 'fail' };
 }
 
 /**
  * Minimum protective-conductor section by both methods of §543.1 and which one governs.
- * `energyA2s` (the device's let-through I²t from its maker) replaces I²·t when given — for a
- * breaker tripping instantaneously I²·t at the minimum fault current under-states the energy
- * at higher fault currents.
+ * Fault data: `faultCurrentA` with `disconnectionTimeS` (from the §411 check), or the device's
+ * let-through `energyA2s` from its maker (for a breaker tripping instantaneously, I²·t at the
+ * minimum fault current under-states the energy at higher currents), or neither (table only).
  */
 export function protectiveConductorSection(args: {
   material: ConductorMaterial;
   insulation: ProtectiveConductorInsulation;
   arrangement: ProtectiveConductorArrangement;
   /** Earth-fault current I, A (from the §411 check). */
-  faultCurrentA: number;
+  faultCurrentA?: number;
   /** Operating time of the device at I, s (≤ 5 s). */
-  disconnectionTimeS: number;
+  disconnectionTimeS?: number;
   energyA2s?: number;
   lineSectionMm2: number;
   lineMaterial: ConductorMaterial;
@@ -112,26 +122,38 @@ export function protectiveConductorSection(args: {
 }): ProtectiveConductorResult {
   materialConstants(args?.material, 'material');
   materialConstants(args.lineMaterial, 'lineMaterial');
-  const I = requireNonNegative(args.faultCurrentA, 'faultCurrentA');
-  const t = requireRange(args.disconnectionTimeS, 'disconnectionTimeS', 0, ADIABATIC_PE_MAX_TIME_S, { minExclusive: true });
-  const energy = args.energyA2s === undefined ? I * I * t : requireNonNegative(args.energyA2s, 'energyA2s');
+  // The temperatures are checked even when only the table is used, so bad data never pass silently.
+  protectiveConductorTemperatures({ insulation: args.insulation, arrangement: args.arrangement, sectionMm2: 1 });
   const line = requirePositive(args.lineSectionMm2, 'lineSectionMm2');
   const installed = args.installedSectionMm2 === undefined ? undefined : requirePositive(args.installedSectionMm2, 'installedSectionMm2');
+  const energy = faultEnergy(args);
 
-  const adiabaticAt = (sectionForTable: number) => {
-    const temps = protectiveConductorTemperatures({ insulation: args.insulation, arrangement: args.arrangement, sectionMm2: sectionForTable });
-    const initialC = args.initialC === undefined ? temps.initialC : requireTemperature(args.initialC, 'initialC');
-    const finalC = args.finalC === undefined ? temps.finalC : requireTemperature(args.finalC, 'finalC');
-    const k = adiabaticK({ material: args.material, initial: initialC, final: finalC });
-    const entered = args.initialC !== undefined || args.finalC !== undefined;
-    return { k, initialC, finalC, basis: entered ? `entered temperatures ${initialC} → ${finalC} °C` : temps.basis };
-  };
-  // The PVC final temperature depends on the section (140 °C above 300 mm²): settle it.
-  let a = adiabaticAt(installed ?? 1);
-  let minimum = Math.sqrt(energy) / a.k;
-  if (installed === undefined && minimum > 300) {
-    a = adiabaticAt(minimum);
-    minimum = Math.sqrt(energy) / a.k;
+  let adiabatic: AdiabaticPeResult | undefined;
+  if (energy !== undefined) {
+    const adiabaticAt = (sectionForTable: number) => {
+      const temps = protectiveConductorTemperatures({ insulation: args.insulation, arrangement: args.arrangement, sectionMm2: sectionForTable });
+      const initialC = args.initialC === undefined ? temps.initialC : requireTemperature(args.initialC, 'initialC');
+      const finalC = args.finalC === undefined ? temps.finalC : requireTemperature(args.finalC, 'finalC');
+      const k = adiabaticK({ material: args.material, initial: initialC, final: finalC });
+      const entered = args.initialC !== undefined || args.finalC !== undefined;
+      return { k, initialC, finalC, basis: entered ? `entered temperatures ${initialC} → ${finalC} °C` : temps.basis };
+    };
+    // The PVC final temperature depends on the section (140 °C above 300 mm²): settle it.
+    let a = adiabaticAt(installed ?? 1);
+    let minimum = Math.sqrt(energy) / a.k;
+    if (installed === undefined && minimum > 300) {
+      a = adiabaticAt(minimum);
+      minimum = Math.sqrt(energy) / a.k;
+    }
+    adiabatic = {
+      minimumMm2: minimum,
+      nextStandardMm2: nextStandardSection(minimum),
+      kAs05PerMm2: a.k,
+      energyA2s: energy,
+      initialC: a.initialC,
+      finalC: a.finalC,
+      basis: `§543.1.2 S = √(I²t)/k; ${a.basis}`,
+    };
   }
 
   let table: ProtectiveConductorResult['table'];
@@ -140,41 +162,50 @@ export function protectiveConductorSection(args: {
     const rule = line <= 16 ? 'S ≤ 16 mm²: S_pe = S' : line <= 35 ? '16 < S ≤ 35 mm²: S_pe = 16 mm²' : 'S > 35 mm²: S_pe = S/2';
     table = { minimumMm2: tmin, nextStandardMm2: nextStandardSection(tmin), basis: `IEC 60364-5-54 Table 54.3, ${rule} (from memory)` };
   }
+  if (!adiabatic && !table) {
+    throw new ElectricalInputError('faultCurrentA', 'a protective conductor of another material than the line conductor needs the fault current and time (§543.1.2)');
+  }
   const separate = args.arrangement === 'separate';
   const mechanicalMinimumMm2 = !separate ? 0 : args.material === 'aluminium' ? 16 : args.mechanicallyProtected ? 2.5 : 4;
 
-  const methodMinimum = table ? Math.min(minimum, table.minimumMm2) : minimum;
-  const methodGoverning: 'adiabatic' | 'table' = table && table.minimumMm2 < minimum ? 'table' : 'adiabatic';
-  const permittedMinimumMm2 = Math.max(methodMinimum, mechanicalMinimumMm2);
+  const methodGoverning: 'adiabatic' | 'table' = adiabatic ? 'adiabatic' : 'table';
+  const methodMinimum = adiabatic ? adiabatic.minimumMm2 : (table as { minimumMm2: number }).minimumMm2;
+  const requiredMinimumMm2 = Math.max(methodMinimum, mechanicalMinimumMm2);
   const governing = mechanicalMinimumMm2 > methodMinimum ? 'mechanical' : methodGoverning;
 
-  const result: ProtectiveConductorResult = {
-    clause: 'IEC 60364-5-54 §543.1',
-    adiabatic: {
-      minimumMm2: minimum,
-      nextStandardMm2: nextStandardSection(minimum),
-      kAs05PerMm2: a.k,
-      energyA2s: energy,
-      initialC: a.initialC,
-      finalC: a.finalC,
-      basis: `§543.1.2 S = √(I²t)/k; ${a.basis}`,
-    },
-    table,
-    mechanicalMinimumMm2,
-    permittedMinimumMm2,
-    governing,
-  };
+  let note: string | undefined;
+  if (adiabatic && table) {
+    const a = fmt(adiabatic.minimumMm2);
+    const t = fmt(table.minimumMm2);
+    if (table.minimumMm2 < adiabatic.minimumMm2) {
+      note = `Table 54.3 alone would admit ${t} mm², but this fault needs ${a} mm² adiabatically; §543.1.1 asks the conductor to withstand the fault, so the calculation governs.`;
+    } else if (table.minimumMm2 > adiabatic.minimumMm2) {
+      note = `Table 54.3 asks ${t} mm²; the calculation (§543.1.2) shows ${a} mm² withstands this fault, which §543.1.1 accepts.`;
+    }
+  }
+
+  const result: ProtectiveConductorResult = { clause: 'IEC 60364-5-54 §543.1', adiabatic, table, mechanicalMinimumMm2, requiredMinimumMm2, governing, note };
   if (installed !== undefined) {
     const slack = 1 + 1e-9;
-    const meetsAdiabatic = minimum <= installed * slack;
-    const meetsTable = table ? table.minimumMm2 <= installed * slack : undefined;
-    const meetsFloor = mechanicalMinimumMm2 <= installed * slack;
     result.installed = {
       sectionMm2: installed,
-      meetsAdiabatic,
-      meetsTable,
-      verdict: meetsFloor && (meetsAdiabatic || meetsTable === true) ? 'pass' : 'fail',
+      meetsAdiabatic: adiabatic ? adiabatic.minimumMm2 <= installed * slack : undefined,
+      meetsTable: table ? table.minimumMm2 <= installed * slack : undefined,
+      verdict: requiredMinimumMm2 <= installed * slack ? 'pass' : 'fail',
     };
   }
   return result;
+}
+
+/** I²t from the fault data, or undefined when none were given (table only). */
+function faultEnergy(args: { faultCurrentA?: number; disconnectionTimeS?: number; energyA2s?: number }): number | undefined {
+  if (args.energyA2s !== undefined) return requireNonNegative(args.energyA2s, 'energyA2s');
+  if (args.faultCurrentA === undefined && args.disconnectionTimeS === undefined) return undefined;
+  const I = requireNonNegative(args.faultCurrentA, 'faultCurrentA');
+  const t = requireRange(args.disconnectionTimeS, 'disconnectionTimeS', 0, ADIABATIC_PE_MAX_TIME_S, { minExclusive: true });
+  return I * I * t;
+}
+
+function fmt(v: number): string {
+  return Number(v.toPrecision(3)).toString();
 }
