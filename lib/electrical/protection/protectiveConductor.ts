@@ -53,7 +53,7 @@ export function protectiveConductorTemperatures(args: {
   sectionMm2: number;
 }): { initialC: number; finalC: number; basis: string } {
   const { insulation, arrangement } = args;
-  if (!(insulation in OPERATING_C)) throw new ElectricalInputError('insulation', `must be 'pvc-70', 'pvc-90' or 'thermosetting-90' (got ${String(insulation)})`);
+  if (typeof insulation !== 'string' || !Object.hasOwn(OPERATING_C, insulation)) throw new ElectricalInputError('insulation', `must be 'pvc-70', 'pvc-90' or 'thermosetting-90' (got ${String(insulation)})`);
   if (arrangement !== 'in-cable-or-bunched' && arrangement !== 'separate') {
     throw new ElectricalInputError('arrangement', `must be 'in-cable-or-bunched' or 'separate' (got ${String(arrangement)})`);
   }

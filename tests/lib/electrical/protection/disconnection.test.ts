@@ -119,6 +119,23 @@ describe('earth-fault loop and disconnection, worked by hand', () => {
     expect(r.verdict).toBe('pass');
   });
 
+  it('TT at U₀ = 400 V allows 0.07 s: the IEC 60898-1 bound (< 0.1 s) does not show it, whatever the current', () => {
+    const r = automaticDisconnection({ ...base, nominalVoltageToEarthV: 400, systemEarthing: 'TT', earthElectrodesOhm: 0.01, device: { kind: 'breaker-iec60898-1', curve: 'B', ratedCurrentA: 6 } });
+    expect(r.required.timeS).toBe(0.07);
+    expect(r.operating.method).toBe('instantaneous');
+    expect(r.maxLoopImpedanceOhm).toBeUndefined();
+    expect(r.verdict).toBe('fail');
+  });
+
+  it('an IEC 60947-2 breaker without its maker\'s break time: the 0.1 s taken is listed as an assumption', () => {
+    // I_a = 217.313 A ≥ 1.2·I_i = 1.2·150 = 180 A.
+    const r = automaticDisconnection({ ...base, device: { kind: 'breaker-iec60947-2', ratedCurrentA: 32, settingCurrentA: 25, instantaneousCurrentA: 150 } });
+    expect(r.operating).toMatchObject({ method: 'instantaneous', timeS: 0.1 });
+    expect(r.maxLoopImpedanceOhm).toBeCloseTo((0.95 * 230) / 180, 9);
+    expect(r.assumptions.some((a) => /break time/.test(a))).toBe(true);
+    expect(r.verdict).toBe('pass');
+  });
+
   it('property: the verdict agrees with Z_s ≤ Z_s,max for any cable length (C32, 300 runs)', () => {
     fc.assert(
       fc.property(fc.double({ min: 1, max: 400, noNaN: true }), (lengthM) => {
