@@ -9,7 +9,7 @@ import { closeDb } from '@/db/client';
 import { createProject } from '@/db/queries/projects';
 import { createSheet } from '@/db/queries/sheets';
 import { demoSheets } from '@/db/seed/sheets';
-import { can } from '@/server/auth/permissions';
+import { can } from '@/lib/auth/permissions';
 import { computeSheet } from '@/lib/sheet/compute';
 import { formatQuantity } from '@/lib/units';
 import type { SheetInputs } from '@/lib/sheet/schema';

@@ -201,6 +201,11 @@ function airModel(arrangement: Arrangement, cables: GroupCable[], cand: Prepared
   if (whole.kind === 'tabulated') {
     const c = whole.constants;
     notes.push(...whole.assumptions);
+    // Cables far enough apart to count as isolated (the table's footnote) are each an isolated
+    // cable: the correlations and radiation of physics.md §2, as for a cable alone.
+    if (whole.arrangement === 'single') {
+      return { kind: 'air', constants: null, row: 'isolated', rowText: 'isolated cables (horizontal clearance ≥ 0.75·D_e, IEC 60287-2-1 Table 2 footnote, from memory): convection correlation and radiation for each', uncoveredNeighbours: 0, notes };
+    }
     return { kind: 'air', constants: { Z: c.Z, E: c.E, g: c.g }, row: whole.arrangement, rowText: `${c.description} (IEC 60287-2-1 Table 2 row ${c.row}, from memory)`, uncoveredNeighbours: 0, notes };
   }
   // The circuit's own run alone, then the circuits beside it.
@@ -208,6 +213,11 @@ function airModel(arrangement: Arrangement, cables: GroupCable[], cand: Prepared
   const ownRow = freeAirRowFor(own);
   let row: FreeAirArrangement;
   let conservativeRow: string | undefined;
+  if (ownRow.kind === 'tabulated' && ownRow.arrangement === 'single') {
+    // The circuit's own cables count as isolated; only the circuits beside it are in question.
+    const uncovered = uncoveredNeighboursOf(cables);
+    return { kind: 'air', constants: null, row: 'isolated', rowText: 'isolated cables: convection correlation and radiation for each', uncoveredNeighbours: uncovered, notes: [...ownRow.assumptions] };
+  }
   if (ownRow.kind === 'tabulated') {
     row = ownRow.arrangement;
     notes.push(...ownRow.assumptions);
@@ -218,18 +228,8 @@ function airModel(arrangement: Arrangement, cables: GroupCable[], cand: Prepared
     row = c.formation === 'trefoil' ? 'trefoil-touching' : c.formation === 'flat-vertical' ? (n === 2 ? 'two-touching-vertical' : 'three-touching-vertical') : n === 2 ? 'two-touching-horizontal' : 'three-touching-horizontal';
     conservativeRow = `${ownRow.reason}; rated as ${FREE_AIR_CONSTANTS[row].description}, which runs hotter`;
   }
-  // Other circuits (and the circuit's other runs) close enough to matter.
-  const runCables = cables.filter((k) => k.circuit === 0);
-  let uncovered = 0;
+  const uncovered = uncoveredNeighboursOf(cables);
   const others = new Set(cables.filter((k) => k.circuit !== 0).map((k) => k.circuit));
-  for (const other of others) {
-    const near = cables.some(
-      (k) =>
-        k.circuit === other &&
-        runCables.some((p) => Math.hypot(p.xM - k.xM, p.yM - k.yM) - (p.externalDiameterM + k.externalDiameterM) / 2 < AIR_CLEARANCE_WITHOUT_GROUPING_RATIO * Math.max(p.externalDiameterM, k.externalDiameterM)),
-    );
-    if (near) uncovered++;
-  }
   const c = FREE_AIR_CONSTANTS[row];
   if (others.size > uncovered) notes.push(`Circuits at least ${AIR_CLEARANCE_WITHOUT_GROUPING_RATIO}·D_e clear of this one taken as not heating it (IEC 60364-5-52, from memory, common practice)`);
   return {
@@ -241,6 +241,22 @@ function airModel(arrangement: Arrangement, cables: GroupCable[], cand: Prepared
     ...(conservativeRow ? { conservativeRow } : {}),
     notes,
   };
+}
+
+/** Other circuits (and the circuit's other runs) in air close enough to heat the first run. */
+function uncoveredNeighboursOf(cables: GroupCable[]): number {
+  const runCables = cables.filter((k) => k.circuit === 0);
+  let uncovered = 0;
+  const others = new Set(cables.filter((k) => k.circuit !== 0).map((k) => k.circuit));
+  for (const other of others) {
+    const near = cables.some(
+      (k) =>
+        k.circuit === other &&
+        runCables.some((p) => Math.hypot(p.xM - k.xM, p.yM - k.yM) - (p.externalDiameterM + k.externalDiameterM) / 2 < AIR_CLEARANCE_WITHOUT_GROUPING_RATIO * Math.max(p.externalDiameterM, k.externalDiameterM)),
+    );
+    if (near) uncovered++;
+  }
+  return uncovered;
 }
 
 // ───────────────────────────── In the ground ─────────────────────────────

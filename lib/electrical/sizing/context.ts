@@ -32,7 +32,7 @@ export interface SizingContext {
 export function sizingContext(candidate: Candidate, cond: PreparedConditions, index: number, flags = new FlagSet()): SizingContext {
   const cand = prepareCandidate(candidate, index, cond, flags);
   const group = cand.kind === 'cable' ? cableGroupOf(cand, cond) : undefined;
-  const groupLawInAir = group?.model.kind === 'air' && group.model.constants !== null && cond.surfaceCoefficientWPerM2K === undefined;
+  const groupLawInAir = group !== undefined && group.model.kind === 'air' && group.model.constants !== null && cond.surfaceCoefficientWPerM2K === undefined;
   conditionFlags(cond, flags, { windCredited: !groupLawInAir });
   if (group) groupFlags(group, cond, flags);
   return { cand, cond, ...(group ? { group } : {}), model: buildThermalModel(cand, cond, group), acFn: acFactorFunction(cand, cond), flags, solves: 0 };
@@ -44,9 +44,9 @@ function groupFlags(group: CableGroup, cond: PreparedConditions, flags: FlagSet)
   if (group.isolated) return;
   if (model.kind === 'air') {
     if (cond.surfaceCoefficientWPerM2K !== undefined) return; // the user's coefficient replaces every law
-    flags.add('CABLE_GROUP_RATED', GROUP_TEXT.air(model.rowText, model.notes), { row: model.row });
+    if (model.constants !== null) flags.add('CABLE_GROUP_RATED', GROUP_TEXT.air(model.rowText, model.notes), { row: model.row });
     if (model.conservativeRow) flags.add('GROUP_ROW_CONSERVATIVE', MODEL_TEXT.groupRowConservative(model.conservativeRow));
-    if (cond.windSpeedMPerS > 0) flags.add('WIND_NOT_CREDITED_TO_GROUP', MODEL_TEXT.windNotCreditedToGroup(cond.windSpeedMPerS));
+    if (cond.windSpeedMPerS > 0 && model.constants !== null) flags.add('WIND_NOT_CREDITED_TO_GROUP', MODEL_TEXT.windNotCreditedToGroup(cond.windSpeedMPerS));
     if (model.uncoveredNeighbours > 0) {
       flags.add('MUTUAL_HEATING_NOT_MODELLED', MODEL_TEXT.mutualHeating(model.uncoveredNeighbours), { circuits: model.uncoveredNeighbours });
       // The user's grouping factor stands for the other circuits; without it the number is unsafe.

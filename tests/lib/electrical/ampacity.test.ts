@@ -122,13 +122,21 @@ describe('ampacity search (physics.md §5: bracketing root finder, 0.1 A)', () =
   });
 
   it('the closed-form cross-check also holds when the sheath governs and in the sun (IEC 60287-1-1 eq. 1 with σD_eH)', () => {
+    // A touching trefoil: the solver and the independent closed form share the IEC 60287-2-1
+    // free-air law of the arrangement, so they must agree closely.
+    const trefoil = { kind: 'cable-in-air' as const };
     const cable = xlpeCable(240);
     cable.layers[1] = { ...cable.layers[1], continuousLimitC: 70 };
-    const sheath = ampacity(cable, cableConditions());
+    const sheath = ampacity(cable, cableConditions({ installation: trefoil }));
+    expect(sheath.governingLimit.layer).toBe('PVC sheath');
     expect(Math.abs(sheath.closedForm!.differencePercent)).toBeLessThan(1);
-    const sunny = ampacity(xlpeCable(240), cableConditions({ solar: { irradianceWPerM2: 1000, absorptivity: 0.6 } }));
+    const sunny = ampacity(xlpeCable(240), cableConditions({ installation: trefoil, solar: { irradianceWPerM2: 1000, absorptivity: 0.6 } }));
     expect(Math.abs(sunny.closedForm!.differencePercent)).toBeLessThan(1);
-    expect(sunny.current).toBeLessThan(ampacity(xlpeCable(240), cableConditions()).current);
+    expect(sunny.current).toBeLessThan(ampacity(xlpeCable(240), cableConditions({ installation: trefoil })).current);
+    // Cables each alone keep the correlations and radiation; the standard's single-cable law
+    // beside them differs, but within the 3 % at which CROSS_CHECK_DIFFERENCE is raised.
+    const alone = ampacity(xlpeCable(240), cableConditions());
+    expect(Math.abs(alone.closedForm!.differencePercent)).toBeLessThan(3);
   });
 
   it('no current can flow when the ambient is above the limit: 0 A, said why', () => {

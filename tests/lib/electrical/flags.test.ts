@@ -41,8 +41,8 @@ const cases: Record<Exclude<FlagCode, BeyondSteadyFlagCode>, () => { candidate: 
     conditions: barConditions({ designCurrentA: 100, installation: { kind: 'bar-flat' } }),
   }),
   SURFACE_COEFFICIENT_ENTERED: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ surfaceCoefficientWPerM2K: 9 }) }),
-  // Wind cools a cable that lies alone (a three-core cable); a group's free-air law is for still air.
-  WIND_COOLING_CREDITED: () => ({ candidate: xlpeCable(95, { cores: 3 }), conditions: cableConditions({ windSpeedMPerS: 2 }) }),
+  // Wind cools cables that lie each alone (the fixture's 0.1 m spacing); a group's free-air law is for still air.
+  WIND_COOLING_CREDITED: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ windSpeedMPerS: 2 }) }),
   EMISSIVITY_ASSUMED: () => ({ candidate: xlpeCable(95, { emissivity: undefined }), conditions: cableConditions() }),
   SOLAR_ABSORPTIVITY_ASSUMED: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ solar: { irradianceWPerM2: 1000 } }) }),
   AC_FACTOR_LOWER_BOUND: () => ({ candidate: copperBar(0.1, 0.01), conditions: barConditions() }),
@@ -106,7 +106,7 @@ const cases: Record<Exclude<FlagCode, BeyondSteadyFlagCode>, () => { candidate: 
     const de = c.conductorDiameterM + 2 * (1.7e-3 + 1.8e-3);
     return { candidate: c, conditions: cableConditions({ installation: { kind: 'cable-in-air', spacingM: de + 0.005 } }) };
   },
-  WIND_NOT_CREDITED_TO_GROUP: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ windSpeedMPerS: 2 }) }),
+  WIND_NOT_CREDITED_TO_GROUP: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ windSpeedMPerS: 2, installation: { kind: 'cable-in-air' } }) }),
   OTHER_CIRCUIT_HEAT_ENTERED: () => ({
     candidate: xlpeCable(95),
     conditions: cableConditions({ installation: { kind: 'buried', depthM: 0.8, otherCircuits: [{ currentA: 200, cable: { externalDiameterM: 0.03, lossWPerM: 20 } }], circuitSpacingM: 0.3 } }),
