@@ -15,7 +15,8 @@
  */
 import { lusolve } from 'mathjs';
 import { cableProblem, solveSteady } from '../lib/thermal';
-import { createContext, iterate } from '../lib/thermal/iterate';
+import { createContext } from '../lib/thermal/assembly';
+import { iterate } from '../lib/thermal/iterate';
 import { thomas } from '../lib/thermal/tridiagonal';
 import { validateProblem } from '../lib/thermal/validate';
 

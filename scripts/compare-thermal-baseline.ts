@@ -74,7 +74,7 @@ const bar = {
   emissivity: 0.4,
 };
 
-const heatCapacities = (p: { geometry: { layers: object[] } }) => ({
+const heatCapacities = <P extends { geometry: { layers: object[] } }>(p: P): P => ({
   ...p,
   geometry: {
     ...p.geometry,
@@ -252,6 +252,8 @@ const COUNTERS = new Set(['iterations', 'tridiagonalSolves', 'tangent', 'lagged'
 interface Difference {
   worst: number;
   where: string;
+  /** Hot-spot positions that moved: only meaningful where the field is not flat (listed apart). */
+  positions: string[];
   strings: string[];
   counters: string[];
   shape: string[];
@@ -265,6 +267,10 @@ function compare(a: unknown, b: unknown, at: string, d: Difference): void {
       return;
     }
     if (a === b || (Number.isNaN(a) && Number.isNaN(b))) return;
+    if (/hotSpot\.position(M)?$/.test(at)) {
+      d.positions.push(`${at}: ${a} → ${b}`);
+      return;
+    }
     const rel = Math.abs(a - b) / Math.max(Math.abs(a), Math.abs(b));
     // Heat flows that are round-off of zero (≤ 1e-9 W) carry no relative meaning.
     const meaningful = Math.max(Math.abs(a), Math.abs(b)) > 1e-9;
@@ -317,7 +323,7 @@ async function main(): Promise<void> {
   for (const moving of [false, true]) {
     console.log(moving ? '\nExpected to move (fault over time):' : 'Expected equal to ≤ 1e-7 relative:');
     for (const c of cases.filter((x) => !!x.expectedToMove === moving)) {
-      const d: Difference = { worst: 0, where: '', strings: [], counters: [], shape: [] };
+      const d: Difference = { worst: 0, where: '', positions: [], strings: [], counters: [], shape: [] };
       const before = outcome(baseline, c);
       const after = outcome(current, c);
       compare(before, after, 'result', d);
@@ -327,6 +333,7 @@ async function main(): Promise<void> {
       const verdict = moving ? '' : d.worst <= 1e-7 && d.strings.length === 0 && d.shape.length === 0 ? 'ok  ' : 'DIFF';
       console.log(`  ${verdict} ${c.name}: max rel ${d.worst.toExponential(2)}${d.where ? ` at ${d.where}` : ''}`);
       for (const s of d.shape.slice(0, 6)) console.log(`      shape ${s}`);
+      for (const s of d.positions.slice(0, 3)) console.log(`      hot-spot position (a flat field's hottest cell is round-off) ${s}`);
       for (const s of d.strings.slice(0, 4)) console.log(`      string ${s}`);
       if (d.strings.length === 0 && d.shape.length === 0 && moving) console.log('      (unchanged)');
       if (d.counters.length) console.log(`      counters: ${d.counters.slice(0, 4).join('; ')}${d.counters.length > 4 ? ` (+${d.counters.length - 4})` : ''}`);
