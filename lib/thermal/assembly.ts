@@ -185,18 +185,25 @@ export function assemble(ctx: SolverContext, pass: Pass): void {
   const { joule, rises, previousRises } = pass;
   const n = mesh.cellCount;
   const source = ctx.problem.source;
-  // The same term for every generating cell, except a lagged Joule source (per cell, at θ*).
+  // A uniform source and the tangent Joule source are one term for every generating cell: their
+  // contribution per unit volume is taken once per pass. A lagged source is evaluated per cell at θ*.
   const common: SourceTerm | undefined =
     source.kind === 'uniform' ? uniformSource(source.q) : pass.mode === 'tangent' ? jouleTangent(joule!) : undefined;
+  const perVolume = common ? sourceContribution(common, 1) : undefined;
   const ambientRise = sideways ? sidewaysAmbient(sideways) - ctx.reference : 0;
   for (let i = 0; i < n; i++) {
     let ap = conductionDiagonal[i];
     let b = 0;
     const v = sourceVolumes[i];
     if (v !== 0) {
-      const c = sourceContribution(common ?? jouleLagged(joule!, rises[i]), v);
-      ap += c.aP;
-      b += c.b;
+      if (perVolume) {
+        ap += perVolume.aP * v;
+        b += perVolume.b * v;
+      } else {
+        const c = sourceContribution(jouleLagged(joule!, rises[i]), v);
+        ap += c.aP;
+        b += c.b;
+      }
     }
     if (sideways) {
       const c = sourceContribution(sidewaysLoss(sidewaysLossPerVolume(sideways, rises[i] - ambientRise), ambientRise), mesh.volumes[i]);

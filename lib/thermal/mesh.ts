@@ -95,11 +95,23 @@ export function buildMesh(geometry: NormalizedGeometry, arrays: ArraySource = fr
   return { kind: geometry.kind, cellCount: n, faces, nodes, volumes, faceAreas, conductivity, generating, layerOfCell, layerBounds };
 }
 
+/**
+ * The diffusion term's laws (terms.ts) as this module uses them: the half-cell resistance of each
+ * geometry and the face conductance. Held in one local table so that the loop over every face of
+ * a mesh calls them directly (a loader that turns each imported name into a getter would
+ * otherwise add a call per face).
+ */
+const DIFFUSION = {
+  slab: slabHalfCellResistance,
+  cylinder: cylinderHalfCellResistance,
+  face: faceConductance,
+} as const;
+
 /** Resistance from node `cell` to the face at `facePosition`: K/W per m² (slab) or per m (cylinder). */
 export function halfCellResistance(mesh: Mesh, cell: number, facePosition: number): number {
   const k = mesh.conductivity[cell];
   const node = mesh.nodes[cell];
-  return mesh.kind === 'slab' ? slabHalfCellResistance(Math.abs(facePosition - node), k) : cylinderHalfCellResistance(node, facePosition, k);
+  return mesh.kind === 'slab' ? DIFFUSION.slab(Math.abs(facePosition - node), k) : DIFFUSION.cylinder(node, facePosition, k);
 }
 
 /**
@@ -111,7 +123,7 @@ export function interiorConductances(mesh: Mesh, out?: Float64Array): Float64Arr
   const g = out ?? new Float64Array(Math.max(n - 1, 0));
   for (let j = 0; j < n - 1; j++) {
     const face = mesh.faces[j + 1];
-    g[j] = faceConductance(halfCellResistance(mesh, j, face), halfCellResistance(mesh, j + 1, face));
+    g[j] = DIFFUSION.face(halfCellResistance(mesh, j, face), halfCellResistance(mesh, j + 1, face));
   }
   return g;
 }

@@ -14,8 +14,8 @@
  * layer uses 4 cells per covering, exact in steady state). Over the long times of an overload or a
  * daily cycle the heat crosses a covering in minutes (penetration depth √(αt) of XLPE over 30 min
  * ≈ 15 mm, against layers of 1–3 mm), so that mesh holds. A fault of about a second heats only a
- * skin √(αt) ≈ 0.4 mm deep, and four cells per covering miss 10–23 % of the heat flowing into it;
- * faultHeating therefore refines the coverings itself (see refineCoverings).
+ * skin √(αt) ≈ 0.4 mm deep, and four cells per covering miss a fifth to a quarter of the heat
+ * flowing into it; faultHeating therefore refines the coverings itself (see refineCoverings).
  */
 import { createContext, type SolverContext } from './assembly';
 import { cellCount } from './mesh';
