@@ -335,7 +335,7 @@ async function main(): Promise<void> {
       for (const s of d.shape.slice(0, 6)) console.log(`      shape ${s}`);
       for (const s of d.positions.slice(0, 3)) console.log(`      hot-spot position (a flat field's hottest cell is round-off) ${s}`);
       for (const s of d.strings.slice(0, 4)) console.log(`      string ${s}`);
-      if (d.strings.length === 0 && d.shape.length === 0 && moving) console.log('      (unchanged)');
+      if (d.worst === 0 && d.strings.length === 0 && d.shape.length === 0 && moving) console.log('      (unchanged)');
       if (d.counters.length) console.log(`      counters: ${d.counters.slice(0, 4).join('; ')}${d.counters.length > 4 ? ` (+${d.counters.length - 4})` : ''}`);
     }
   }

@@ -176,51 +176,79 @@ export function withProblem(ctx: SolverContext, problem: NormalizedProblem): Sol
 
 /**
  * Fill the tridiagonal system of one pass in ctx.work (diagonal and rhs; the off-diagonals −G
- * were set with the context): per cell the diffusion part of a_P, then the source, the sideways
- * loss, the point heat and the heat capacity; then the boundary terms of the two end cells.
+ * were set with the context): the diffusion part of a_P and the source of every cell, then the
+ * sideways loss, the point heat and the heat capacity where the problem has them, then the
+ * boundary terms of the two end cells. Each term is one sweep adding its contribution.
  */
 export function assemble(ctx: SolverContext, pass: Pass): void {
-  const { mesh, conductionDiagonal, sourceVolumes, capacityRate: rates, pointHeat: heat, sideways } = ctx;
+  addDiffusionAndSource(ctx, pass);
+  if (ctx.sideways) addSidewaysLoss(ctx, ctx.sideways, pass.rises);
+  if (ctx.pointHeat) addPointHeat(ctx, ctx.pointHeat);
+  if (ctx.capacityRate) addCapacity(ctx, ctx.capacityRate, pass.previousRises!);
   const { diagonal, rhs } = ctx.work;
-  const { joule, rises, previousRises } = pass;
-  const n = mesh.cellCount;
-  const source = ctx.problem.source;
-  // A uniform source and the tangent Joule source are one term for every generating cell: their
-  // contribution per unit volume is taken once per pass. A lagged source is evaluated per cell at θ*.
-  const common: SourceTerm | undefined =
-    source.kind === 'uniform' ? uniformSource(source.q) : pass.mode === 'tangent' ? jouleTangent(joule!) : undefined;
-  const perVolume = common ? sourceContribution(common, 1) : undefined;
-  const ambientRise = sideways ? sidewaysAmbient(sideways) - ctx.reference : 0;
-  for (let i = 0; i < n; i++) {
-    let ap = conductionDiagonal[i];
-    let b = 0;
-    const v = sourceVolumes[i];
-    if (v !== 0) {
-      if (perVolume) {
-        ap += perVolume.aP * v;
-        b += perVolume.b * v;
-      } else {
-        const c = sourceContribution(jouleLagged(joule!, rises[i]), v);
-        ap += c.aP;
-        b += c.b;
-      }
-    }
-    if (sideways) {
-      const c = sourceContribution(sidewaysLoss(sidewaysLossPerVolume(sideways, rises[i] - ambientRise), ambientRise), mesh.volumes[i]);
-      ap += c.aP;
-      b += c.b;
-    }
-    if (heat) b += pointHeat(heat[i]).b;
-    if (rates) {
-      const c = capacityContribution(rates[i], previousRises![i]);
-      ap += c.aP;
-      b += c.b;
-    }
-    diagonal[i] = ap;
-    rhs[i] = b;
-  }
+  const n = ctx.mesh.cellCount;
   diagonal[0] += pass.inner.aP;
   rhs[0] += pass.inner.b;
   diagonal[n - 1] += pass.outer.aP;
   rhs[n - 1] += pass.outer.b;
+}
+
+/**
+ * a_P = Σ G of the cell's faces + the source's −S_pΔV; b = S_uΔV. A uniform source and the tangent
+ * Joule source are one term for every generating cell, so their contribution per unit volume is
+ * taken once per pass; a lagged source is evaluated per cell at θ*.
+ */
+function addDiffusionAndSource(ctx: SolverContext, pass: Pass): void {
+  const { conductionDiagonal, sourceVolumes } = ctx;
+  const { diagonal, rhs } = ctx.work;
+  const { joule, rises } = pass;
+  const n = ctx.mesh.cellCount;
+  const source = ctx.problem.source;
+  const common: SourceTerm | undefined =
+    source.kind === 'uniform' ? uniformSource(source.q) : pass.mode === 'tangent' ? jouleTangent(joule!) : undefined;
+  if (common) {
+    const perVolume = sourceContribution(common, 1);
+    for (let i = 0; i < n; i++) {
+      const v = sourceVolumes[i];
+      diagonal[i] = conductionDiagonal[i] + perVolume.aP * v;
+      rhs[i] = perVolume.b * v;
+    }
+    return;
+  }
+  for (let i = 0; i < n; i++) {
+    const v = sourceVolumes[i];
+    const c = v !== 0 ? sourceContribution(jouleLagged(joule!, rises[i]), v) : NO_CONTRIBUTION;
+    diagonal[i] = conductionDiagonal[i] + c.aP;
+    rhs[i] = c.b;
+  }
+}
+
+const NO_CONTRIBUTION: Contribution = { aP: 0, b: 0 };
+
+/** The bar run's sideways loss, S_p = −hP/A_c with h at the cell's iterate (terms.ts sidewaysLoss). */
+function addSidewaysLoss(ctx: SolverContext, loss: SidewaysLoss, rises: Float64Array): void {
+  const { diagonal, rhs } = ctx.work;
+  const volumes = ctx.mesh.volumes;
+  const ambientRise = sidewaysAmbient(loss) - ctx.reference;
+  for (let i = 0; i < volumes.length; i++) {
+    const c = sourceContribution(sidewaysLoss(sidewaysLossPerVolume(loss, rises[i] - ambientRise), ambientRise), volumes[i]);
+    diagonal[i] += c.aP;
+    rhs[i] += c.b;
+  }
+}
+
+/** The joints' point heat (terms.ts pointHeat). */
+function addPointHeat(ctx: SolverContext, heat: Float64Array): void {
+  const rhs = ctx.work.rhs;
+  for (let i = 0; i < heat.length; i++) if (heat[i] !== 0) rhs[i] += pointHeat(heat[i]).b;
+}
+
+/** Implicit Euler: ρcΔV/Δt on a_P, ρcΔV/Δt·θ_old on b (terms.ts capacityContribution). */
+function addCapacity(ctx: SolverContext, rates: Float64Array, previousRises: Float64Array): void {
+  const { diagonal, rhs } = ctx.work;
+  for (let i = 0; i < rates.length; i++) {
+    const c = capacityContribution(rates[i], previousRises[i]);
+    diagonal[i] += c.aP;
+    rhs[i] += c.b;
+  }
 }

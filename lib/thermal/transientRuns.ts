@@ -23,7 +23,7 @@ import { ThermalInputError } from './errors';
 import { iterate } from './iterate';
 import type { NormalizedProblem } from './normalized';
 import { preparedFrom, type PreparedProblem } from './prepare';
-import type { Layer, ThermalFlag, ThermalProblem } from './types';
+import type { ThermalFlag, ThermalProblem } from './types';
 import {
   requireHeatCapacities,
   requirePositive,
@@ -278,7 +278,10 @@ export interface FaultHeatingResult {
    * coverings refined for the fault's time scale (see refineCoverings).
    */
   cellsPerLayer: number[];
-  /** How much the final hot spot moved at the last doubling of the covering cells, K (0: no coverings). */
+  /**
+   * How much the final hot spot moved at the last doubling of the covering cells, K (0: no
+   * coverings; +Infinity: the first size was already the cap, nothing to compare with).
+   */
   meshChangeK: number;
   flags: ThermalFlag[];
 }
@@ -338,9 +341,9 @@ function volumeMean(ctx: SolverContext, t: ArrayLike<number>): number {
   return sum / volume;
 }
 
-/** The problem with each covering at `cells[i]` cells (generating layers unchanged). */
-function withCoveringCells(problem: ThermalProblem, cells: number[]): ThermalProblem {
-  return { ...problem, geometry: { ...problem.geometry, layers: problem.geometry.layers.map((l, i): Layer => ({ ...l, cells: cells[i] })) } };
+/** The problem with layer i at `cells[i]` cells (validated once: only the mesh changes). */
+function withCells(problem: NormalizedProblem, cells: number[]): NormalizedProblem {
+  return { ...problem, geometry: { ...problem.geometry, layers: problem.geometry.layers.map((l, i) => ({ ...l, cells: cells[i] })) } };
 }
 
 /** Step 1 of refineCoverings: covering cells no thicker than δ/CELLS_PER_PENETRATION_DEPTH. */
@@ -365,11 +368,11 @@ interface FaultRun {
 
 /** The fault marched on one problem from `initialC` or from its steady state at the pre-fault current. */
 function march(
-  problem: ThermalProblem,
+  problem: NormalizedProblem,
   cells: number[],
   args: { faultCurrentA: number; steps: number; timeStepS: number; initialC?: number; every: number },
 ): FaultRun {
-  const model = runModel(problem);
+  const model = runModelOf(withCells(problem, cells));
   const m = model.marcher(args.timeStepS);
   let start: Float64Array;
   if (args.initialC !== undefined) {
@@ -396,22 +399,22 @@ function march(
  * of the adiabatic run, for the credit.
  */
 function refineCoverings(
-  problem: ThermalProblem,
   normalized: NormalizedProblem,
   args: { faultCurrentA: number; steps: number; timeStepS: number; initialC?: number; every: number; durationS: number },
   adiabaticC: number,
 ): { run: FaultRun; changeK: number; settled: boolean } {
   const given = normalized.geometry.layers.map((l) => l.cells);
-  if (!normalized.geometry.layers.some((l) => !l.generating)) return { run: march(problem, given, args), changeK: 0, settled: true };
+  if (!normalized.geometry.layers.some((l) => !l.generating)) return { run: march(normalized, given, args), changeK: 0, settled: true };
   const first = cellsForPenetrationDepth(normalized, args.durationS);
-  let run = march(withCoveringCells(problem, first), first, args);
+  let run = march(normalized, first, args);
+  // No comparison yet: the change is unknown (only if the first size is already at the cap).
+  let changeK = Infinity;
   for (;;) {
     const finer = run.cells.map((c, i) => (normalized.geometry.layers[i].generating ? c : Math.min(2 * c, MAX_COVERING_CELLS)));
-    if (finer.every((c, i) => c === run.cells[i])) return { run, changeK: NaN, settled: false };
-    const next = march(withCoveringCells(problem, finer), finer, args);
-    const before = hottest(run.final);
+    if (finer.every((c, i) => c === run.cells[i])) return { run, changeK, settled: false };
+    const next = march(normalized, finer, args);
     const after = hottest(next.final);
-    const changeK = Math.abs(after - before);
+    changeK = Math.abs(after - hottest(run.final));
     const credit = Math.abs(adiabaticC - after);
     const rise = Math.abs(after - hottest(next.start));
     if (changeK <= Math.max(FAULT_MESH_TOLERANCE * credit, 1e-6 * rise)) return { run: next, changeK, settled: true };
@@ -459,7 +462,7 @@ export function faultHeating(input: FaultHeatingInput): FaultHeatingResult {
   }
   const finalAdiabaticC = hottest(conductorOnly);
 
-  const { run, changeK, settled } = refineCoverings(problem, normalized, { faultCurrentA, steps, timeStepS, initialC, every, durationS }, finalAdiabaticC);
+  const { run, changeK, settled } = refineCoverings(normalized, { faultCurrentA, steps, timeStepS, initialC, every, durationS }, finalAdiabaticC);
   const series: FaultHeatingResult['series'] = [{ timeS: 0, hotSpotC: hottest(start), adiabaticC: hottest(start.slice(adiabatic.first, adiabatic.first + adiabatic.cells)) }];
   let recorded = 0;
   for (let k = 1; k <= steps; k++) {
