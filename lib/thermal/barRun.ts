@@ -1,22 +1,28 @@
 /**
  * A bus-bar run along its length (physics.md §6): one-dimensional conduction along the bar,
  *   d/dx(k A_c dT/dx) + q'''(T)·A_c − h(T)·P·(T − T∞) + Σ Q_j δ(x − x_j) = 0,
- * written in the finite-volume form of §1 with the sideways loss as a source
- * S_p = −hP/A_c ≤ 0, S_u = hP·T∞/A_c (Incropera §3.6, the fin equation with generation),
- * Joule heating q''' = J²ρ₂₀[1 + α(T − 20)]F_ac in its exact tangent form, bolted joints as point
- * heat I²R_joint in the cell holding them, and the ends either at a set temperature (a device
- * terminal) or insulated.
+ * solved by the one finite-volume assembly and outer iteration of every solve (assembly.ts,
+ * iterate.ts) on a slab mesh along the run, per m² of the bar's section: the sideways loss is the
+ * source term S_p = −hP/A_c ≤ 0, S_u = hP·T∞/A_c (terms.ts sidewaysLoss; Incropera §3.6, the fin
+ * equation with generation), Joule heating q''' = J²ρ₂₀[1 + α(T − 20)]F_ac is the problem's
+ * source (tangent form, exact), bolted joints are point heat I²R_joint in the cell holding them
+ * (terms.ts pointHeat), and the ends are boundaries of the slab: a set temperature (a device
+ * terminal) or insulated (symmetry).
  *
  * The cross-section is taken at one temperature (fin approximation: Bi = ht/(2k) is ~1e-4 for a
  * copper bar in air). h at each cell comes from the same surface correlations as the steady
  * cross-section model (busBarProblem: vertical plate on edge, horizontal plates laid flat, forced
  * flat plate with wind; radiation to surroundings at the air temperature), evaluated at the
- * cell's own temperature, and the whole field is iterated until no cell moves by 1e-6 K.
+ * cell's own temperature (sideways.ts), and iterated like any other solve: to options.tolerance
+ * (1e-6 K) and a closed energy balance.
  */
+import { createContext } from './assembly';
 import { busBarProblem } from './builders';
 import { ThermalInputError } from './errors';
-import { surfaceFlux } from './surface';
-import { thomas } from './tridiagonal';
+import { iterate } from './iterate';
+import { cellHolding } from './mesh';
+import type { NormalizedBoundary, NormalizedProblem, NormalizedSurface } from './normalized';
+import { requireSecantSurfaces, sidewaysLossPerVolume } from './sideways';
 import type { ThermalFlag, ThermalProblem } from './types';
 import {
   requireNonNegative,
@@ -25,8 +31,10 @@ import {
   requireRecord,
   requireTemperature,
   validateProblem,
-  type NormalizedSurface,
 } from './validate';
+
+/** First iterate: the whole run this far above the air. */
+const START_RISE_K = 10;
 
 export type BarRunEnd = { kind: 'terminal'; temperatureC: number } | { kind: 'insulated' };
 
@@ -85,7 +93,7 @@ export interface BarRunResult {
   /** Joule heat of the bars and joints, and heat lost sideways, W per phase. */
   generatedW: number;
   lostSidewaysW: number;
-  /** |generated − sideways − terminals| / generated. */
+  /** |generated − sideways − terminals| / the largest of those flows (energy.ts). */
   energyResidual: number;
   iterations: number;
   /** Surface coefficient (convection + radiation) at the hot spot, W/(m²·K). */
@@ -180,76 +188,37 @@ export function solveBarRun(input: BarRunInput): BarRunResult {
     });
   }
 
-  const dx = lengthM / cells;
   const areaM2 = widthM * thicknessM;
   const barCurrent = currentA / bars;
-  // Joule per metre of one bar: q' = I²R₂₀F[1 + α(T − 20)] = q20 + slope·(T − 20).
-  const q20PerM = barCurrent * barCurrent * r20 * acFactor;
-  const slopePerM = q20PerM * alpha;
-  const g = (k * areaM2) / dx;
-  const jointHeat = new Float64Array(cells);
-  const jointCell = joints.map((j) => Math.min(cells - 1, Math.floor(j.positionM / dx)));
-  joints.forEach((j, i) => {
-    // The pack shares the joint: each bar carries I/n through n·R_j, i.e. I²R_j/n.
-    jointHeat[jointCell[i]] += (currentA * currentA * j.resistanceMicroOhm * 1e-6) / bars;
-  });
+  // The pack shares each joint: each bar carries I/n through n·R_j, i.e. I²R_j/n (W per bar).
+  const jointHeatW = (j: { resistanceMicroOhm: number }) => (currentA * currentA * j.resistanceMicroOhm * 1e-6) / bars;
+  const endBoundary = (e: BarRunEnd): NormalizedBoundary => (e.kind === 'terminal' ? { kind: 'temperature', value: e.temperatureC } : { kind: 'symmetry' });
 
-  const nodes = new Float64Array(cells);
-  for (let i = 0; i < cells; i++) nodes[i] = (i + 0.5) * dx;
-  const lower = new Float64Array(cells);
-  const diagonal = new Float64Array(cells);
-  const upper = new Float64Array(cells);
-  const rhs = new Float64Array(cells);
-  const x = new Float64Array(cells);
-  const scratch = new Float64Array(cells);
-  const hPerM = new Float64Array(cells);
-  // Rises above the air keep their digits (as in iterate.ts).
-  const rises = new Float64Array(cells).fill(10);
-  const endRise = (e: BarRunEnd): number => (e.kind === 'terminal' ? e.temperatureC - ambientC : 0);
-  const endConductance = (e: BarRunEnd): number => (e.kind === 'terminal' ? 2 * g : 0);
-  const gStart = endConductance(start);
-  const gEnd = endConductance(end);
-
-  /** Sideways loss coefficient h·P of one bar at rise θ, W/(m·K) (secant: loss = hP·θ). */
-  const lossCoefficient = (rise: number): number => {
-    let sum = 0;
-    for (const f of faces) {
-      const e = surfaceFlux(f, ambientC + rise, rise);
-      sum += (e.hConv + e.hRad) * faceAreaPerM;
-    }
-    return sum;
+  // The run as a slab along x, per m² of section: J = I/A_c, ρ₂₀ = R₂₀·A_c (physics.md §1).
+  requireSecantSurfaces(faces);
+  const along = validateProblem(
+    {
+      geometry: { kind: 'slab', layers: [{ thickness: lengthM, conductivity: k, generating: true, cells }] },
+      source: { kind: 'joule', current: barCurrent, area: areaM2, rho20: r20 * areaM2, alpha20: alpha, acFactor },
+      inner: { kind: 'symmetry' },
+      outer: { kind: 'symmetry' },
+      options: { maxIterations },
+    },
+    false,
+  );
+  const problem: NormalizedProblem = {
+    ...along,
+    inner: endBoundary(start),
+    outer: endBoundary(end),
+    sideways: { surfaces: faces, areaPerVolume: faceAreaPerM / areaM2 },
+    pointSources: joints.map((j) => ({ position: j.positionM, heat: jointHeatW(j) / areaM2 })),
   };
-
-  let iterations = 0;
-  let converged = false;
-  for (iterations = 1; iterations <= maxIterations; iterations++) {
-    for (let i = 0; i < cells; i++) hPerM[i] = lossCoefficient(Math.max(rises[i], 1e-9));
-    const qRef = q20PerM + slopePerM * (ambientC - 20);
-    for (let i = 0; i < cells; i++) {
-      const gw = i > 0 ? g : gStart;
-      const ge = i < cells - 1 ? g : gEnd;
-      // S_p·ΔV = (−hP + dq'/dT)·dx (tangent Joule is exact: q' is linear in T).
-      diagonal[i] = gw + ge + (hPerM[i] - slopePerM) * dx;
-      rhs[i] = qRef * dx + jointHeat[i] + (i === 0 ? gStart * endRise(start) : 0) + (i === cells - 1 ? gEnd * endRise(end) : 0);
-      lower[i] = i > 0 ? -g : 0;
-      upper[i] = i < cells - 1 ? -g : 0;
-    }
-    const pivot = thomas(cells, lower, diagonal, upper, rhs, x, scratch);
-    if (!(pivot > 0)) break; // Joule growth outruns the sideways loss: no steady state.
-    let delta = 0;
-    for (let i = 0; i < cells; i++) {
-      delta = Math.max(delta, Math.abs(x[i] - rises[i]));
-      rises[i] = x[i];
-    }
-    if (!Number.isFinite(delta)) break;
-    if (delta < 1e-6) {
-      converged = true;
-      break;
-    }
-  }
+  const ctx = createContext(problem);
+  const nodes = Array.from(ctx.mesh.nodes);
+  const outcome = iterate(ctx, { start: ambientC + START_RISE_K });
 
   const perPhase = bars;
-  if (!converged) {
+  if (outcome.status !== 'converged') {
     flags.push({
       code: 'bar-run-no-steady-state',
       severity: 'warning',
@@ -257,7 +226,7 @@ export function solveBarRun(input: BarRunInput): BarRunResult {
     });
     return {
       converged: false,
-      positionsM: Array.from(nodes),
+      positionsM: nodes,
       temperaturesC: [],
       hotSpot: { temperatureC: Infinity, positionM: lengthM / 2 },
       joints: joints.map((j) => ({ ...j, heatW: (currentA * currentA * j.resistanceMicroOhm) / 1e6, temperatureC: Infinity })),
@@ -266,47 +235,40 @@ export function solveBarRun(input: BarRunInput): BarRunResult {
       generatedW: Infinity,
       lostSidewaysW: Infinity,
       energyResidual: Infinity,
-      iterations: Math.min(iterations, maxIterations),
+      iterations: outcome.iterations,
       hotSpotSurfaceCoefficientWPerM2K: Infinity,
       flags,
     };
   }
 
-  const temperaturesC = Array.from(rises, (r) => ambientC + r);
+  const temperaturesC = Array.from(outcome.temperatures);
   let hot = 0;
-  for (let i = 1; i < cells; i++) if (rises[i] > rises[hot]) hot = i;
+  for (let i = 1; i < cells; i++) if (temperaturesC[i] > temperaturesC[hot]) hot = i;
   let hotSpot = { temperatureC: temperaturesC[hot], positionM: nodes[hot] };
   if (start.kind === 'terminal' && start.temperatureC > hotSpot.temperatureC) hotSpot = { temperatureC: start.temperatureC, positionM: 0 };
   if (end.kind === 'terminal' && end.temperatureC > hotSpot.temperatureC) hotSpot = { temperatureC: end.temperatureC, positionM: lengthM };
 
-  let generated = 0;
-  let lost = 0;
-  for (let i = 0; i < cells; i++) {
-    generated += (q20PerM + slopePerM * (temperaturesC[i] - 20)) * dx + jointHeat[i];
-    lost += lossCoefficient(rises[i]) * rises[i] * dx;
-  }
-  const intoStart = gStart * (rises[0] - endRise(start));
-  const intoEnd = gEnd * (rises[cells - 1] - endRise(end));
-  const residual = Math.abs(generated - lost - intoStart - intoEnd) / Math.max(Math.abs(generated), 1e-12);
-  const hotRise = Math.max(rises[hot], 1e-9);
-
+  // The balance is per m² of section: times the section and the bars, W per phase.
+  const e = outcome.energy;
+  const perPhaseW = (perSection: number) => perSection * areaM2 * perPhase;
+  const hotRise = Math.max(temperaturesC[hot] - ambientC, 1e-9);
   return {
     converged: true,
-    positionsM: Array.from(nodes),
+    positionsM: nodes,
     temperaturesC,
     hotSpot,
-    joints: joints.map((j, i) => ({
+    joints: joints.map((j) => ({
       ...j,
       heatW: (currentA * currentA * j.resistanceMicroOhm) / 1e6,
-      temperatureC: temperaturesC[jointCell[i]],
+      temperatureC: temperaturesC[cellHolding(ctx.mesh, j.positionM)],
     })),
-    heatIntoStartW: intoStart * perPhase,
-    heatIntoEndW: intoEnd * perPhase,
-    generatedW: generated * perPhase,
-    lostSidewaysW: lost * perPhase,
-    energyResidual: residual,
-    iterations,
-    hotSpotSurfaceCoefficientWPerM2K: lossCoefficient(hotRise) / perimeterM,
+    heatIntoStartW: perPhaseW(e.leavingInner),
+    heatIntoEndW: perPhaseW(e.leavingOuter),
+    generatedW: perPhaseW(e.generated),
+    lostSidewaysW: perPhaseW(e.leavingSideways),
+    energyResidual: e.residual,
+    iterations: outcome.iterations,
+    hotSpotSurfaceCoefficientWPerM2K: (sidewaysLossPerVolume(problem.sideways!, hotRise) * areaM2) / perimeterM,
     flags,
   };
 }

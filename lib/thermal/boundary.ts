@@ -1,12 +1,19 @@
 /**
- * Boundary conditions as contributions a_B (to a_P) and b_B (to b) of the boundary cell
- * (physics.md §1). The boundary face carries no node: its conductance is over the half-cell
- * between the boundary node and the face.
+ * The two boundary faces of a 1-D mesh: their geometry (BoundarySide), the boundary term each
+ * contributes to its cell at a pass (terms.ts, chosen by the boundary's kind), and the exact law
+ * of each for the results: face temperature and heat leaving (physics.md §1).
  */
-import { boundaryHalfCellConductance } from './coefficients';
-import type { Mesh } from './mesh';
+import { boundaryHalfCellConductance, type Mesh } from './mesh';
+import type { NormalizedBoundary } from './normalized';
 import { evaluateSurface, isLinearSurface, linearisationSlope, surfaceFlux, type SurfaceExchange } from './surface';
-import type { NormalizedBoundary } from './validate';
+import {
+  fluxBoundary,
+  linearisedSurfaceRise as surfaceRiseFromNode,
+  surfaceBoundary,
+  symmetryBoundary,
+  temperatureBoundary,
+  type Contribution,
+} from './terms';
 
 export interface BoundarySide {
   side: 'inner' | 'outer';
@@ -36,11 +43,13 @@ export function boundarySide(mesh: Mesh, spec: NormalizedBoundary, side: 'inner'
   };
 }
 
-export interface BoundaryTerms {
-  /** Added to a_P of the boundary cell, W/K (per m² or per m). */
-  a: number;
-  /** Added to b of the boundary cell, W (equations written for rises above the reference). */
-  b: number;
+/** The same face with another boundary law (a prepared problem at another ambient). */
+export function withSpec(side: BoundarySide, spec: NormalizedBoundary): BoundarySide {
+  return { ...side, spec };
+}
+
+/** A boundary's contribution at one pass, and for a surface the linearisation behind it. */
+export interface BoundaryTerms extends Contribution {
   /** Surface only: linearisation point (rise above the reference), slope g, exchange there. */
   surfaceRise?: number;
   slope?: number;
@@ -48,49 +57,33 @@ export interface BoundaryTerms {
 }
 
 /**
- * Contributions for the equations written in θ = T − T_ref (T_ref: the context's reference
- * temperature, usually the ambient), which keeps the digits of small rises.
- *
- * Surface: the half-cell conductance G in series with the exchange linearised about θs*,
- * q_s ≈ q* + g(θs − θs*). Eliminating the face temperature from
- *   G(θ_P − θs) = A_f [q* + g(θs − θs*)]
- * gives a heat flow a_B θ_P − b_B with a_B = G·A_f g/(G + A_f g),
- * b_B = G·A_f(g θs* − q*)/(G + A_f g): a conductance in series with h·A (physics.md §1).
+ * The boundary term of `side` for equations in θ = T − T_ref (T_ref = `reference`, °C). A surface
+ * is linearised about the surface rise `surfaceRise` (surface.ts chooses the slope).
  */
 export function boundaryTerms(side: BoundarySide, surfaceRise: number, reference: number): BoundaryTerms {
   const spec = side.spec;
   const G = side.halfConductance;
   switch (spec.kind) {
     case 'temperature':
-      return { a: G, b: G * (spec.value - reference) };
+      return temperatureBoundary(G, spec.value - reference);
     case 'flux':
-      return { a: 0, b: spec.value * side.faceArea };
+      return fluxBoundary(spec.value, side.faceArea);
     case 'symmetry':
-      return { a: 0, b: 0 };
+      return symmetryBoundary();
     case 'surface': {
       const exchange = evaluateSurface(spec, reference + surfaceRise, surfaceRise + (reference - spec.ambient));
       const g = linearisationSlope(exchange, isLinearSurface(spec));
       // The evaluation may have clamped an absurd iterate; linearise where it evaluated.
       const rise = exchange.surfaceC === reference + surfaceRise ? surfaceRise : exchange.surfaceC - reference;
-      const af = side.exchangeArea;
-      const denominator = G + af * g;
-      return {
-        a: (G * af * g) / denominator,
-        b: (G * af * (g * rise - exchange.netFlux)) / denominator,
-        surfaceRise: rise,
-        slope: g,
-        exchange,
-      };
+      const term = surfaceBoundary(G, side.exchangeArea, g, rise, exchange.netFlux);
+      return { aP: term.aP, b: term.b, surfaceRise: rise, slope: g, exchange };
     }
   }
 }
 
 /** Surface rise above the reference implied by the node rise under the linearisation. */
 export function linearisedSurfaceRise(side: BoundarySide, terms: BoundaryTerms, nodeRise: number): number {
-  const G = side.halfConductance;
-  const af = side.exchangeArea;
-  const g = terms.slope!;
-  return (G * nodeRise + af * (g * terms.surfaceRise! - terms.exchange!.netFlux)) / (G + af * g);
+  return surfaceRiseFromNode(side.halfConductance, side.exchangeArea, terms.slope!, terms.surfaceRise!, terms.exchange!.netFlux, nodeRise);
 }
 
 /** Temperature at the boundary face, °C (symmetry: the node's, zero gradient). */
@@ -126,4 +119,9 @@ export function heatLeaving(side: BoundarySide, nodeRise: number, surfaceRise: n
     case 'surface':
       return side.exchangeArea * surfaceFlux(spec, reference + surfaceRise, surfaceRise + (reference - spec.ambient)).netFlux;
   }
+}
+
+/** True when the boundary's conductance does not depend on temperature. */
+export function isLinearBoundary(b: NormalizedBoundary): boolean {
+  return b.kind !== 'surface' || isLinearSurface(b);
 }

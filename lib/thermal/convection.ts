@@ -7,7 +7,7 @@
 import { airProperties } from './air';
 import { KELVIN_OFFSET, STANDARD_GRAVITY } from './constants';
 import type { ConvectionEvaluation } from './types';
-import type { NormalizedConvection } from './validate';
+import type { NormalizedConvection } from './normalized';
 
 // ---------------------------------------------------------------------------------------------
 // Nusselt correlations (pure functions of the dimensionless groups)

@@ -3,6 +3,9 @@
  * (physics.md §§1–3, contract §7). Plain TypeScript: no React, no database, no Node-only APIs.
  */
 export { solveSteady, solveTransient } from './solve';
+// A problem validated and meshed once, solved at many currents, AC factors and ambients.
+export { prepare } from './prepare';
+export type { PreparedProblem, PreparedSolveOptions } from './prepare';
 export { ThermalInputError, isThermalInputError } from './errors';
 export type {
   Boundary,

@@ -1,25 +1,20 @@
 /**
- * Assembly and the outer (Picard/Newton) iteration (physics.md §1).
+ * The outer (Picard/Newton) iteration of every solve (physics.md §1).
  *
  * Each pass: linearise the surfaces about the current surface temperatures and the source about
- * the current cell temperatures, assemble a_P T_P = a_W T_W + a_E T_E + b, solve it with one
- * Thomas sweep, update. Stop when the largest change (cells and surface faces) is below the
- * tolerance and the energy balance closes.
- *
- * The unknowns are rises θ = T − T_ref above a reference temperature (the ambient the heat is
- * finally given to), so that a rise of 1e-9 K keeps its digits instead of drowning in the 1e-14
- * relative round-off of a temperature near 300; the equations are unchanged by the shift.
+ * the current cell temperatures, assemble the equations from their terms (assembly.ts), solve
+ * them with one Thomas sweep, update. Stop when the largest change (cells and surface faces) is
+ * below the tolerance and the energy balance closes. The unknowns are rises above the context's
+ * reference temperature (reference.ts).
  */
-import { boundarySide, boundaryTerms, linearisedSurfaceRise, type BoundarySide, type BoundaryTerms } from './boundary';
-import { interiorConductances } from './coefficients';
+import { assemble, type SolverContext } from './assembly';
+import { boundaryTerms, linearisedSurfaceRise, type BoundarySide } from './boundary';
 import { energyBalance, type EnergyBalance } from './energy';
-import { buildMesh, cellCount, meshStoreSize, type Mesh } from './mesh';
-import { freshArrays, type ArraySource } from './pool';
-import { jouleCoefficients, type JouleCoefficients } from './source';
-import { isLinearSurface } from './surface';
+import { DivergenceWatch, hasLinearSurroundings } from './runaway';
+import { jouleCoefficients, jouleLine } from './source';
+import type { Contribution, JouleLine } from './terms';
 import { thomas } from './tridiagonal';
 import type { Linearisation } from './types';
-import type { NormalizedBoundary, NormalizedProblem } from './validate';
 
 /**
  * Smallest acceptable pivot/diagonal ratio for a tangent pass. Positive pivots ⇔ the symmetric
@@ -39,168 +34,8 @@ const TANGENT_PIVOT_MARGIN = 1e-9;
 /** Relative change treated as round-off when rises are huge (a few thousand ulps). */
 const ROUND_OFF_RELATIVE = 1e-12;
 
-/** Consecutive rising passes above the temperature limit that count as divergence. */
-const DIVERGENCE_STREAK = 3;
-
 /** First linearisation point of a surface in a steady solve: a modest rise above the air. */
 const STEADY_SURFACE_START_RISE_K = 10;
-
-export interface SolverContext {
-  problem: NormalizedProblem;
-  /** °C; unknowns are rises above it. */
-  reference: number;
-  mesh: Mesh;
-  /** Conductance between cells j and j+1. */
-  conductances: Float64Array;
-  /** Σ of the two face conductances per cell: the part of a_P that no pass changes. */
-  conductionDiagonal: Float64Array;
-  /** ΔV of generating cells, 0 elsewhere: where S_u and S_p act. */
-  sourceVolumes: Float64Array;
-  inner: BoundarySide;
-  outer: BoundarySide;
-  /** ρcΔV/Δt per cell (transient only). */
-  capacityRate?: Float64Array;
-  work: {
-    lower: Float64Array;
-    diagonal: Float64Array;
-    upper: Float64Array;
-    rhs: Float64Array;
-    solution: Float64Array;
-    scratch: Float64Array;
-    /** Current iterate, θ = T − reference. */
-    rises: Float64Array;
-    /** Transient: θ at the start of the step. */
-    previousRises: Float64Array;
-    /** °C of the last outcome (see IterationOutcome.temperatures). */
-    temperatures: Float64Array;
-  };
-}
-
-/** The temperature the heat is finally given to: the outer ambient or fixed temperature, if any. */
-export function referenceTemperature(problem: NormalizedProblem): number {
-  for (const b of [problem.outer, problem.inner]) {
-    if (b.kind === 'surface') return b.ambient;
-    if (b.kind === 'temperature') return b.value;
-  }
-  return 20;
-}
-
-/**
- * Mesh, conductances and work arrays for one solve, all taken from `arrays` (a solve's scratch,
- * see pool.ts, which must have room for contextStoreSize(problem) doubles).
- */
-export function contextStoreSize(problem: NormalizedProblem): number {
-  const n = cellCount(problem.geometry);
-  return meshStoreSize(n) + 12 * n;
-}
-
-export function createContext(problem: NormalizedProblem, timeStep?: number, arrays: ArraySource = freshArrays): SolverContext {
-  const mesh = buildMesh(problem.geometry, arrays);
-  const n = mesh.cellCount;
-  let capacityRate: Float64Array | undefined;
-  if (timeStep !== undefined) {
-    capacityRate = new Float64Array(n);
-    for (let i = 0; i < n; i++) {
-      const layer = problem.geometry.layers[mesh.layerOfCell[i]];
-      capacityRate[i] = (layer.density! * layer.heatCapacity! * mesh.volumes[i]) / timeStep;
-    }
-  }
-  const work = {
-    lower: arrays.take(n),
-    diagonal: arrays.take(n),
-    upper: arrays.take(n),
-    rhs: arrays.take(n),
-    solution: arrays.take(n),
-    scratch: arrays.take(n),
-    rises: arrays.take(n),
-    previousRises: arrays.take(n),
-    temperatures: arrays.take(n),
-  };
-  const conductances = interiorConductances(mesh, arrays.take(Math.max(n - 1, 0)));
-  const conductionDiagonal = arrays.take(n);
-  const sourceVolumes = arrays.take(n);
-  // Conduction and the place of the source are fixed for the solve: set them (and the
-  // off-diagonals, which the Thomas sweep only reads) once, not on every pass.
-  for (let i = 0; i < n; i++) {
-    const gw = i > 0 ? conductances[i - 1] : 0;
-    const ge = i < n - 1 ? conductances[i] : 0;
-    work.lower[i] = -gw;
-    work.upper[i] = -ge;
-    conductionDiagonal[i] = gw + ge;
-    sourceVolumes[i] = mesh.generating[i] ? mesh.volumes[i] : 0;
-  }
-  return {
-    problem,
-    reference: referenceTemperature(problem),
-    mesh,
-    conductances,
-    conductionDiagonal,
-    sourceVolumes,
-    inner: boundarySide(mesh, problem.inner, 'inner'),
-    outer: boundarySide(mesh, problem.outer, 'outer'),
-    capacityRate,
-    work,
-  };
-}
-
-function isNonlinearBoundary(b: NormalizedBoundary): boolean {
-  return b.kind === 'surface' && !isLinearSurface(b);
-}
-
-/** True when no boundary conductance depends on temperature. */
-export function hasLinearSurroundings(problem: NormalizedProblem): boolean {
-  return !isNonlinearBoundary(problem.inner) && !isNonlinearBoundary(problem.outer);
-}
-
-/**
- * Fill the tridiagonal system for one pass (unknowns θ) and solve it. Returns the smallest pivot
- * ratio (positive for a positive-definite matrix). Row i: −G_w θ_{i−1} + a_P θ_i − G_e θ_{i+1} = b;
- * the off-diagonals −G and the conduction part of a_P were set with the context.
- */
-function assembleAndSolve(
-  ctx: SolverContext,
-  mode: Linearisation,
-  joule: JouleCoefficients | undefined,
-  rises: Float64Array,
-  previousRises: Float64Array | undefined,
-  inner: BoundaryTerms,
-  outer: BoundaryTerms,
-): number {
-  const { mesh, conductionDiagonal, sourceVolumes, capacityRate, reference } = ctx;
-  const { lower, diagonal, upper, rhs, solution, scratch } = ctx.work;
-  const n = mesh.cellCount;
-  const source = ctx.problem.source;
-  // Joule: q(T) = q20 + slope·(T − 20) = qRef + slope·θ, qRef being q at the reference.
-  // Uniform: S_u = q, S_p = 0. Joule tangent: S_u = qRef, S_p = slope (exact). Lagged: per cell.
-  const slope = joule ? joule.slope : 0;
-  const qRef = source.kind === 'uniform' ? source.q : joule!.q20 + slope * (reference - 20);
-  const spTangent = joule && mode === 'tangent' ? slope : 0;
-  const lagged = joule !== undefined && mode === 'lagged';
-  for (let i = 0; i < n; i++) {
-    let ap = conductionDiagonal[i];
-    let b = 0;
-    const v = sourceVolumes[i];
-    if (v !== 0) {
-      if (lagged) {
-        b += (qRef + slope * rises[i]) * v;
-      } else {
-        b += qRef * v;
-        ap -= spTangent * v;
-      }
-    }
-    if (capacityRate) {
-      ap += capacityRate[i];
-      b += capacityRate[i] * previousRises![i];
-    }
-    diagonal[i] = ap;
-    rhs[i] = b;
-  }
-  diagonal[0] += inner.a;
-  rhs[0] += inner.b;
-  diagonal[n - 1] += outer.a;
-  rhs[n - 1] += outer.b;
-  return thomas(n, lower, diagonal, upper, rhs, solution, scratch);
-}
 
 export type IterationStatus = 'converged' | 'diverged' | 'stalled';
 
@@ -252,9 +87,8 @@ export function iterate(ctx: SolverContext, args: IterateArgs): IterationOutcome
   let solves = 0;
   let lastMode: Linearisation = 'lagged';
   let previousDelta = Infinity;
-  let previousHottest = -Infinity;
-  let aboveLimitStreak = 0;
-  const limitRise = options.temperatureLimit - reference;
+  const watch = new DivergenceWatch(options.temperatureLimit - reference);
+  const line = joule ? jouleLine(joule, reference) : undefined;
   // One exit below the loop builds the outcome (no per-call closures: under the dev loader each
   // named closure costs a defineProperty, and a solve is only a few passes long).
   let status: IterationStatus = 'stalled';
@@ -266,13 +100,13 @@ export function iterate(ctx: SolverContext, args: IterateArgs): IterationOutcome
     const outerTerms = boundaryTerms(ctx.outer, surfaceOuter, reference);
 
     let mode: Linearisation = joule ? options.linearisation : 'lagged';
-    const pivotRatio = assembleAndSolve(ctx, mode, joule, rises, previousRises, innerTerms, outerTerms);
+    const pivotRatio = assembleAndSolve(ctx, mode, line, rises, previousRises, innerTerms, outerTerms);
     solves++;
     if (mode === 'tangent' && !(pivotRatio > TANGENT_PIVOT_MARGIN)) {
       // The tangent matrix is not positive definite at this linearisation: its solution would
       // not be an ordered, physical temperature field. Fall back to the lagged form.
       mode = 'lagged';
-      assembleAndSolve(ctx, mode, joule, rises, previousRises, innerTerms, outerTerms);
+      assembleAndSolve(ctx, mode, line, rises, previousRises, innerTerms, outerTerms);
       solves++;
     }
     counts[mode]++;
@@ -311,14 +145,7 @@ export function iterate(ctx: SolverContext, args: IterateArgs): IterationOutcome
     // source represented exactly (uniform, or Joule in tangent form with a positive-definite
     // matrix). Such an answer is reported even if very hot: it is the model's steady state.
     const exact = linearSurroundings && (!joule || mode === 'tangent');
-    // Only a temperature-dependent source can run away; a uniform one always has a bounded state.
-    // Growth past the limit for several passes in a row is taken as unbounded (see
-    // DEFAULT_TEMPERATURE_LIMIT_C). One pass above it is not enough: a first linearisation about
-    // a cool surface can overshoot, and the next Newton pass pulls it back.
-    if (!exact && joule && hottest > limitRise && hottest > previousHottest) aboveLimitStreak++;
-    else aboveLimitStreak = 0;
-    previousHottest = hottest;
-    if (aboveLimitStreak >= DIVERGENCE_STREAK) {
+    if (watch.diverging(hottest, exact, joule !== undefined)) {
       status = 'diverged';
       passes = iteration;
       break;
@@ -359,6 +186,24 @@ export function iterate(ctx: SolverContext, args: IterateArgs): IterationOutcome
   };
 }
 
+/**
+ * Assemble one pass (assembly.ts) and solve it. Returns the smallest pivot ratio of the sweep
+ * (positive for a positive-definite matrix).
+ */
+function assembleAndSolve(
+  ctx: SolverContext,
+  mode: Linearisation,
+  joule: JouleLine | undefined,
+  rises: Float64Array,
+  previousRises: Float64Array | undefined,
+  inner: Contribution,
+  outer: Contribution,
+): number {
+  assemble(ctx, { mode, joule, rises, previousRises, inner, outer });
+  const { lower, diagonal, upper, rhs, solution, scratch } = ctx.work;
+  return thomas(ctx.mesh.cellCount, lower, diagonal, upper, rhs, solution, scratch);
+}
+
 /** First linearisation point of a surface, as a rise above the reference (NaN: not a surface). */
 function surfaceStartRise(side: BoundarySide, givenC: number | undefined, reference: number): number {
   return side.spec.kind === 'surface' ? (givenC ?? side.spec.ambient + STEADY_SURFACE_START_RISE_K) - reference : NaN;
@@ -367,16 +212,4 @@ function surfaceStartRise(side: BoundarySide, givenC: number | undefined, refere
 function celsius(rises: Float64Array, reference: number, out: Float64Array): Float64Array {
   for (let i = 0; i < rises.length; i++) out[i] = reference + rises[i];
   return out;
-}
-
-/** Assemble K (conduction + linear boundary conductances) for the runaway analysis. */
-export function conductanceMatrix(ctx: SolverContext): { diagonal: Float64Array; offDiagonal: Float64Array } {
-  const n = ctx.mesh.cellCount;
-  const diagonal = new Float64Array(n);
-  const g = ctx.conductances;
-  for (let i = 0; i < n; i++) diagonal[i] = (i > 0 ? g[i - 1] : 0) + (i < n - 1 ? g[i] : 0);
-  // Linear boundaries do not depend on the linearisation point; any value will do.
-  diagonal[0] += boundaryTerms(ctx.inner, 0, ctx.reference).a;
-  diagonal[n - 1] += boundaryTerms(ctx.outer, 0, ctx.reference).a;
-  return { diagonal, offDiagonal: g };
 }

@@ -1,11 +1,13 @@
 /**
  * Cell-centred finite-volume mesh in one dimension (Patankar 1980, §4.6 "practice B": faces
  * first, one node inside each cell). Each layer is split into its own number of equal cells so
- * that every material interface is a cell face.
+ * that every material interface is a cell face. The face conductances of the mesh (diffusion
+ * term, terms.ts) are computed here from its geometry: face j + 1 joins cells j and j + 1.
  */
+import type { NormalizedGeometry } from './normalized';
 import { freshArrays, type ArraySource } from './pool';
+import { cylinderHalfCellResistance, faceConductance, slabHalfCellResistance } from './terms';
 import type { GeometryKind, LayerBound } from './types';
-import type { NormalizedGeometry } from './validate';
 
 export interface Mesh {
   kind: GeometryKind;
@@ -91,4 +93,59 @@ export function buildMesh(geometry: NormalizedGeometry, arrays: ArraySource = fr
   }
   for (let f = 0; f <= n; f++) faceAreas[f] = cylinder ? 2 * Math.PI * faces[f] : 1;
   return { kind: geometry.kind, cellCount: n, faces, nodes, volumes, faceAreas, conductivity, generating, layerOfCell, layerBounds };
+}
+
+/**
+ * The diffusion term's laws (terms.ts) as this module uses them: the half-cell resistance of each
+ * geometry and the face conductance. Held in one local table so that the loop over every face of
+ * a mesh calls them directly (a loader that turns each imported name into a getter would
+ * otherwise add a call per face).
+ */
+const DIFFUSION = {
+  slab: slabHalfCellResistance,
+  cylinder: cylinderHalfCellResistance,
+  face: faceConductance,
+} as const;
+
+/** Resistance from node `cell` to the face at `facePosition`: K/W per m² (slab) or per m (cylinder). */
+export function halfCellResistance(mesh: Mesh, cell: number, facePosition: number): number {
+  const k = mesh.conductivity[cell];
+  const node = mesh.nodes[cell];
+  return mesh.kind === 'slab' ? DIFFUSION.slab(Math.abs(facePosition - node), k) : DIFFUSION.cylinder(node, facePosition, k);
+}
+
+/**
+ * Diffusion conductance of every interior face: between cell j and cell j + 1 for j = 0 … n − 2
+ * (W/K per m² or per m), written into `out` when given (length ≥ n − 1).
+ */
+export function interiorConductances(mesh: Mesh, out?: Float64Array): Float64Array {
+  const n = mesh.cellCount;
+  const g = out ?? new Float64Array(Math.max(n - 1, 0));
+  for (let j = 0; j < n - 1; j++) {
+    const face = mesh.faces[j + 1];
+    g[j] = DIFFUSION.face(halfCellResistance(mesh, j, face), halfCellResistance(mesh, j + 1, face));
+  }
+  return g;
+}
+
+/** Conductance of the half-cell between the boundary node and the boundary face. */
+export function boundaryHalfCellConductance(mesh: Mesh, side: 'inner' | 'outer'): number {
+  const n = mesh.cellCount;
+  return side === 'inner' ? 1 / halfCellResistance(mesh, 0, mesh.faces[0]) : 1 / halfCellResistance(mesh, n - 1, mesh.faces[n]);
+}
+
+/**
+ * The cell holding `position`: the one whose faces bracket it; a position on an interior face
+ * belongs to the cell after it, the last face to the last cell.
+ */
+export function cellHolding(mesh: Mesh, position: number): number {
+  const n = mesh.cellCount;
+  let lo = 0;
+  let hi = n - 1;
+  while (lo < hi) {
+    const mid = (lo + hi + 1) >> 1;
+    if (mesh.faces[mid] <= position) lo = mid;
+    else hi = mid - 1;
+  }
+  return lo;
 }

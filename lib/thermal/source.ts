@@ -1,14 +1,12 @@
 /**
- * Volumetric sources written as S = S_u + S_p·T_P (Patankar 1980, §4.2-5; physics.md §1).
+ * Volumetric source laws (physics.md §1): what the source is at a temperature. How a pass
+ * linearises it (S = S_u + S_p·θ, uniform / Joule tangent / Joule lagged) is in terms.ts.
  *
- * Joule heating: q'''(T) = J²·ρ₂₀·[1 + α₂₀(T − 20 °C)]·F_ac with J = I/A. Because ρ(T) is linear
- * in T the tangent form is exact, not an approximation:
- *   tangent: S_p = J²ρ₂₀α₂₀F_ac > 0,  S_u = q'''(T*) − S_p·T* = J²ρ₂₀F_ac(1 − 20α₂₀)
- *   lagged:  S_p = 0,                S_u = q'''(T*)
- * A positive S_p takes weight off the diagonal; iterate.ts decides when it is safe.
+ * Joule heating: q'''(T) = J²·ρ₂₀·[1 + α₂₀(T − 20 °C)]·F_ac with J = I/A — a straight line in T,
+ * so its tangent form is exact.
  */
-import type { Linearisation } from './types';
-import type { NormalizedSource } from './validate';
+import type { NormalizedJouleSource, NormalizedSource } from './normalized';
+import type { JouleLine } from './terms';
 
 export interface JouleCoefficients {
   /** q''' at 20 °C, W/m³ */
@@ -17,31 +15,20 @@ export interface JouleCoefficients {
   slope: number;
 }
 
-export function jouleCoefficients(
-  source: Extract<NormalizedSource, { kind: 'joule' }>,
-  currentA: number = source.current,
-): JouleCoefficients {
+export function jouleCoefficients(source: NormalizedJouleSource, currentA: number = source.current): JouleCoefficients {
   const j = currentA / source.area;
   const q20 = j * j * source.rho20 * source.acFactor;
   return { q20, slope: q20 * source.alpha20 };
 }
 
+/** The Joule line about the reference temperature (°C): q''' = q_ref + slope·θ. */
+export function jouleLine(c: JouleCoefficients, referenceC: number): JouleLine {
+  return { qRef: c.q20 + c.slope * (referenceC - 20), slope: c.slope };
+}
+
 /** q'''(T), W/m³ */
 export function jouleHeatDensity(c: JouleCoefficients, temperatureC: number): number {
   return c.q20 + c.slope * (temperatureC - 20);
-}
-
-/** S_u (W/m³) and S_p (W/(m³·K)) for one generating cell at the current iterate T*. */
-export function linearisedSource(
-  source: NormalizedSource,
-  joule: JouleCoefficients | undefined,
-  mode: Linearisation,
-  temperatureC: number,
-): { su: number; sp: number } {
-  if (source.kind === 'uniform') return { su: source.q, sp: 0 };
-  const c = joule!;
-  if (mode === 'tangent') return { su: c.q20 - 20 * c.slope, sp: c.slope };
-  return { su: jouleHeatDensity(c, temperatureC), sp: 0 };
 }
 
 /** q''' actually generated at temperature T (W/m³), for the energy balance. */

@@ -7,7 +7,7 @@ import { ABSOLUTE_ZERO_C, KELVIN_OFFSET, STEFAN_BOLTZMANN } from './constants';
 import { evaluateConvection } from './convection';
 import { radiationCoefficient } from './radiation';
 import type { ConvectionEvaluation } from './types';
-import type { NormalizedSurface } from './validate';
+import type { NormalizedSurface } from './normalized';
 
 /** The exchange at one surface temperature, without its slope. */
 export interface SurfaceFlux {

@@ -1,7 +1,7 @@
 /**
  * Up-front validation: every number the solver will touch is checked here, once, so that bad
  * input becomes a ThermalInputError naming the field instead of a NaN deep inside a sweep.
- * The output is a normalised problem with every default filled in.
+ * The output is a normalised problem with every default filled in (its shapes: normalized.ts).
  */
 import {
   ABSOLUTE_ZERO_C,
@@ -13,75 +13,16 @@ import {
   DEFAULT_TOLERANCE_K,
 } from './constants';
 import { ThermalInputError } from './errors';
-import type { GeometryKind, Linearisation, ThermalFlag } from './types';
-
-// ---------------------------------------------------------------------------------------------
-// Normalised shapes used inside the library
-// ---------------------------------------------------------------------------------------------
-
-export interface NormalizedLayer {
-  thickness: number;
-  conductivity: number;
-  generating: boolean;
-  cells: number;
-  density?: number;
-  heatCapacity?: number;
-  name?: string;
-}
-
-export interface NormalizedGeometry {
-  kind: GeometryKind;
-  innerRadius: number;
-  layers: NormalizedLayer[];
-}
-
-export type NormalizedConvection =
-  | { kind: 'horizontal-cylinder'; diameter: number }
-  | { kind: 'vertical-plate'; height: number }
-  | { kind: 'horizontal-plate'; facing: 'up' | 'down'; length: number }
-  | { kind: 'forced-cylinder'; velocity: number; diameter: number }
-  | { kind: 'forced-plate'; velocity: number; length: number }
-  | { kind: 'iec-60287-free-air'; diameter: number; Z: number; E: number; g: number };
-
-export interface NormalizedSurface {
-  kind: 'surface';
-  ambient: number;
-  /** 0 when the surface has no fixed coefficient. */
-  fixedH: number;
-  emissivity: number;
-  convection?: NormalizedConvection;
-  surroundings: number;
-  absorbedFlux: number;
-  areaFactor: number;
-}
-
-export type NormalizedBoundary =
-  | { kind: 'temperature'; value: number }
-  | { kind: 'flux'; value: number }
-  | { kind: 'symmetry' }
-  | NormalizedSurface;
-
-export type NormalizedSource =
-  | { kind: 'uniform'; q: number }
-  | { kind: 'joule'; current: number; area: number; rho20: number; alpha20: number; acFactor: number };
-
-export interface NormalizedOptions {
-  tolerance: number;
-  energyTolerance: number;
-  maxIterations: number;
-  linearisation: Linearisation;
-  relaxation: number;
-  temperatureLimit: number;
-}
-
-export interface NormalizedProblem {
-  geometry: NormalizedGeometry;
-  source: NormalizedSource;
-  inner: NormalizedBoundary;
-  outer: NormalizedBoundary;
-  options: NormalizedOptions;
-  assumptions: ThermalFlag[];
-}
+import type {
+  NormalizedBoundary,
+  NormalizedConvection,
+  NormalizedGeometry,
+  NormalizedLayer,
+  NormalizedOptions,
+  NormalizedProblem,
+  NormalizedSource,
+} from './normalized';
+import type { ThermalFlag } from './types';
 
 /** IEC 60287-2-1 Table 2 (from memory): single cable in free air. */
 export const IEC_FREE_AIR_SINGLE_CABLE = { Z: 0.21, E: 3.94, g: 0.6 } as const;
@@ -403,11 +344,33 @@ export function validateProblem(raw: unknown, requireHeatPath: boolean): Normali
     );
   }
 
-  if (requireHeatPath && !canRemoveHeat(inner, !solidAxis) && !canRemoveHeat(outer, true)) {
+  const normalized: NormalizedProblem = { geometry, source, inner, outer, options, assumptions };
+  if (requireHeatPath) requireSteadyHeatPath(normalized);
+  return normalized;
+}
+
+/**
+ * A steady state needs a boundary able to take heat away; without one it does not exist (or is
+ * not unique), which is an input error rather than a runaway.
+ */
+export function requireSteadyHeatPath(problem: NormalizedProblem): void {
+  const { geometry, inner, outer } = problem;
+  const solidAxis = geometry.kind === 'cylinder' && geometry.innerRadius === 0;
+  if (!canRemoveHeat(inner, !solidAxis) && !canRemoveHeat(outer, true)) {
     throw new ThermalInputError(
       'outer',
       'no boundary can carry heat away (need a temperature or a surface with h, convection or emissivity): no steady state exists',
     );
   }
-  return { geometry, source, inner, outer, options, assumptions };
+}
+
+/**
+ * Heat capacity of every layer, which any solve over time needs (a_P gains ρcΔV/Δt): the one
+ * check, for solveTransient and for the runs over time alike.
+ */
+export function requireHeatCapacities(problem: NormalizedProblem): void {
+  problem.geometry.layers.forEach((layer, i) => {
+    if (layer.density === undefined) throw new ThermalInputError(`geometry.layers[${i}].density`, 'is required for a solve over time');
+    if (layer.heatCapacity === undefined) throw new ThermalInputError(`geometry.layers[${i}].heatCapacity`, 'is required for a solve over time');
+  });
 }
