@@ -211,9 +211,18 @@ for (const kind of ['bar-on-edge', 'bar-flat', 'cable-in-air', 'buried', 'enclos
     name: `computeSheet + hotSpotCurve: default ${kind} sheet`,
     run: (lib) => {
       const inputs = lib.sheet.defaultSheetInputs(kind);
+      // The baseline (59a7b82) had hotSpotCurve; this checkout computes the curves with the sheet.
+      const sheet = lib.sheet as unknown as {
+        computeSheetWithCurves?: (i: typeof inputs, withCurves: boolean) => { computation: unknown; curves: unknown };
+        hotSpotCurve?: (i: typeof inputs, e: never) => unknown;
+      };
+      if (sheet.computeSheetWithCurves) {
+        const r = sheet.computeSheetWithCurves(inputs, true);
+        return { c: r.computation, curves: r.curves };
+      }
       const c = lib.sheet.computeSheet(inputs);
       if (!c.ok) return c;
-      const curves = c.comparison.evaluations.filter((e) => e.ok).map((e) => lib.sheet.hotSpotCurve(inputs, e as never));
+      const curves = c.comparison.evaluations.filter((e) => e.ok).map((e) => sheet.hotSpotCurve!(inputs, e as never));
       return { c, curves };
     },
   });

@@ -104,7 +104,9 @@ export function solveAt(ctx: SizingContext, modelCurrentA: number, acFactor: num
         : modelCurrentA === 0
           ? solveSteady(zeroFlowProblem(ctx.model.problem(0, acFactor, mesh)))
           : ctx.model.solver(mesh).at(modelCurrentA, acFactor);
-    if (!result.converged && result.runaway && !(result.runaway.current !== undefined && result.runaway.current > 0)) {
+    // A group's runaway (mutual heating feeding itself) comes without an onset current; only a
+    // single cable's "no steady state even at 0 A" is the solver failing.
+    if (!result.converged && result.runaway && !result.group && !(result.runaway.current !== undefined && result.runaway.current > 0)) {
       // "No steady state even at 0 A" is impossible physically (with no current the conductor
       // settles at the surroundings' temperature, or above it in the sun): this is the solver
       // failing to settle, not a runaway. Say so rather than report a runaway.

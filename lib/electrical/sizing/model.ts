@@ -17,7 +17,8 @@ import {
   busBarProblem,
   buriedExternalThermalResistance,
   cableProblem,
-  solveSteady,
+  prepare,
+  type PreparedProblem,
   type Boundary,
   type SteadyResult,
   type SurfaceBoundary,
@@ -76,11 +77,11 @@ export interface ThermalModel {
   /** The problem on a mesh, prepared once, solved at any model current and AC factor. */
   solver(mesh: Mesh): PreparedSolve;
   /**
-   * The same conductor and coverings with a linear outer surface of its own: a buried cable of a
-   * group, whose external resistance T₄ gives h = 1/(T₄·π·D_e) and whose ground is raised by its
-   * neighbours' heat.
+   * The same conductor and coverings with a linear outer surface of its own, prepared once: a
+   * buried cable of a group, whose external resistance T₄ gives h = 1/(T₄·π·D_e) and whose ground
+   * is raised by its neighbours' heat (the ambient given per call).
    */
-  solveWithOuter(mesh: Mesh, modelCurrentA: number, acFactor: number, outer: { hWPerM2K: number; ambientC: number }): SteadyResult;
+  withOuterSurface(mesh: Mesh, hWPerM2K: number): PreparedProblem;
 }
 
 /** A thermal problem whose geometry and surroundings are fixed, solved at many currents. */
@@ -89,7 +90,8 @@ export interface PreparedSolve {
 }
 
 function preparedSolve(problem: ThermalProblem): PreparedSolve {
-  return { at: (current, acFactor) => solveSteady(withCurrent(problem, current, acFactor)) };
+  const prepared = prepare(problem);
+  return { at: (current, acFactor) => prepared.at(current, acFactor) };
 }
 
 export function buildThermalModel(c: PreparedCandidate, k: PreparedConditions, group?: CableGroup): ThermalModel {
@@ -197,8 +199,7 @@ function cableModel(c: PreparedCable, k: PreparedConditions, group?: CableGroup)
     buriedT4,
     problem: (current, acFactor, mesh) => withCurrent(mesh === 'coarse' ? coarse : fine, current, acFactor),
     solver: solversOf(coarse, fine),
-    solveWithOuter: (mesh, current, acFactor, outer) =>
-      solveSteady({ ...withCurrent(mesh === 'coarse' ? coarse : fine, current, acFactor), outer: { kind: 'surface', ambient: outer.ambientC, h: outer.hWPerM2K, emissivity: 0 } }),
+    withOuterSurface: (mesh, hWPerM2K) => prepare({ ...(mesh === 'coarse' ? coarse : fine), outer: { kind: 'surface', ambient: k.ambientC, h: hWPerM2K, emissivity: 0 } }),
   };
 }
 
@@ -277,7 +278,7 @@ function barModel(c: PreparedBar, k: PreparedConditions): ThermalModel {
     ],
     problem: (current, acFactor, mesh) => withCurrent(mesh === 'coarse' ? coarse : fine, current, acFactor),
     solver: solversOf(coarse, fine),
-    solveWithOuter: () => {
+    withOuterSurface: () => {
       throw new Error('a bar has no buried group surface');
     },
   };

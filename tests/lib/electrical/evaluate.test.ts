@@ -249,7 +249,7 @@ describe('physical sense (common practice)', () => {
     const trefoil = { kind: 'cable-in-air' as const };
     const stillGroup = ok(evaluateCandidate(xlpeCable(95), cableConditions({ installation: trefoil }))).hotSpotC!;
     const windyGroup = ok(evaluateCandidate(xlpeCable(95), cableConditions({ installation: trefoil, windSpeedMPerS: 1 }))).hotSpotC!;
-    expect(Math.abs(windyGroup - stillGroup)).toBeLessThan(1e-9);
+    expect(Math.abs(windyGroup - stillGroup)).toBeLessThan(1e-6); // the same solve, reached from another first guess
   });
 });
 
