@@ -98,7 +98,7 @@ export function solveAt(ctx: SizingContext, modelCurrentA: number, acFactor: num
   ctx.solves++;
   try {
     const group = ctx.group;
-    const result =
+    const result: GroupSteadyResult =
       group && group.model.kind === 'buried' && !group.isolated
         ? solveBuriedGroup(ctx, group, group.model, modelCurrentA, acFactor, mesh)
         : modelCurrentA === 0
