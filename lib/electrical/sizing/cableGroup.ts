@@ -34,6 +34,7 @@ import { FREE_AIR_CONSTANTS, type FreeAirArrangement } from '../iec60287/constan
 import { freeAirRowFor } from '../iec60287/freeAir';
 import { ElectricalInputError } from '../errors';
 import type { PreparedCable, PreparedConditions } from './prepared';
+import type { GroupResult, GroupResultCable } from './types';
 
 /** IEC 60364-5-52 (from memory, common practice): circuits in air with a clearance of at least two diameters need no grouping reduction. */
 export const AIR_CLEARANCE_WITHOUT_GROUPING_RATIO = 2;
@@ -345,4 +346,52 @@ export function externalRise(unit: SolvedUnit, heatOfCable: (k: number) => numbe
 export function ductAirT4(model: BuriedGroupModel, cableDiameterM: number, meanAirC: number): number {
   if (!model.duct) return 0;
   return ductAirSpaceResistance({ material: model.duct.material, cableDiameterM, meanAirTemperatureC: meanAirC }).T4;
+}
+
+/** The group as the result reports it: every cable's place and, where solved, its temperatures at the design current. */
+export function groupResultOf(
+  group: CableGroup,
+  solution: { governingCable: number; cables: Array<{ cable: number; conductorC: number | null; surfaceC: number | null; heatWPerM: number; riseFromOthersK: number | null }> } | undefined,
+  representative: { conductorC: number; surfaceC: number; heatWPerM: number } | null,
+): GroupResult {
+  const placement = group.arrangement.placement;
+  const model = group.model;
+  const method =
+    model.kind === 'air'
+      ? model.constants
+        ? `In free air, the IEC 60287-2-1 §4.2.1 law for ${model.rowText}: every cable of the circuit alike`
+        : `In free air, ${model.rowText}`
+      : `In the ground, superposition with images (IEC 60287-2-1 §4.2.3), each cable's heat at its own temperature${model.notes.length > 1 ? `; ${model.notes.slice(1).join('; ')}` : ''}`;
+  const byCable = new Map((solution?.cables ?? []).map((c) => [c.cable, c]));
+  const cables: GroupResultCable[] = group.cables.map((k, i) => {
+    const solved = byCable.get(i);
+    const alike = model.kind === 'air' && k.role === 'rated' ? representative : null;
+    return {
+      circuit: k.circuit,
+      index: k.index,
+      position: k.position,
+      role: k.role,
+      xM: k.xM,
+      yM: k.yM,
+      externalDiameterM: k.externalDiameterM,
+      envelopeDiameterM: k.envelopeDiameterM,
+      conductorC: solved?.conductorC ?? alike?.conductorC ?? null,
+      surfaceC: solved?.surfaceC ?? alike?.surfaceC ?? null,
+      heatWPerM: solved?.heatWPerM ?? alike?.heatWPerM ?? (k.role === 'fixed' && model.kind === 'buried' ? model.fixedHeatWPerM[i] : null),
+      riseFromOthersK: solved?.riseFromOthersK ?? null,
+    };
+  });
+  const governingCable = solution ? (solution.governingCable >= 0 ? solution.governingCable : null) : representative ? group.cables.findIndex((k) => k.role === 'rated') : null;
+  const bank = placement.kind === 'backfill' ? placement.bank : undefined;
+  const xs = group.cables.map((k) => k.xM);
+  return {
+    placement: placement.kind,
+    method,
+    cables,
+    governingCable,
+    circuitAxisSpacingM: group.layout.circuitAxisSpacingM[0] ?? null,
+    circuitSpacingM: group.arrangement.circuitSpacing?.axisSpacingM ?? null,
+    depthM: placement.kind === 'air' ? null : placement.depthM,
+    ...(bank ? { bank: { centreXM: bank.centreXM ?? (Math.min(...xs) + Math.max(...xs)) / 2, centreDepthM: bank.centreDepthM, widthM: bank.widthM, heightM: bank.heightM } } : {}),
+  };
 }

@@ -15,7 +15,9 @@ import { shortCircuitCheck } from './checks/shortCircuit';
 import { voltageDropCheck } from './checks/voltageDrop';
 import { sizingContext, type SizingContext } from './context';
 import { FlagSet } from './flags';
-import { profileOf } from './model';
+import { groupResultOf } from './cableGroup';
+import type { GroupSteadyResult } from './groupSolve';
+import { heatPerMetre, profileOf } from './model';
 import { prepareConditions } from './prepareConditions';
 import type { PreparedConditions } from './prepared';
 import type { AmpacityResult, Candidate, CandidateEvaluation, CandidateEvaluationOk, Comparison, Conditions } from './types';
@@ -53,6 +55,14 @@ function runChecks(ctx: SizingContext): CandidateEvaluationOk {
   const list = flags.list();
   amp.flags = list;
   const ampacityA = amp.current;
+  const solved = design.point?.result as GroupSteadyResult | undefined;
+  const group = ctx.group
+    ? groupResultOf(
+        ctx.group,
+        solved?.group,
+        design.point && thermal.lossPerConductorWPerM !== null ? { conductorC: design.point.limits.conductorC, surfaceC: design.point.result.surfaceTemperature, heatWPerM: heatPerMetre(model, design.point.result) } : null,
+      )
+    : undefined;
   return {
     ok: true,
     index: cand.index,
@@ -86,6 +96,7 @@ function runChecks(ctx: SizingContext): CandidateEvaluationOk {
     lifeCycleCost: costs.lifeCycleCost,
     ampacity: amp,
     profile: design.point ? profileOf(model, design.point.result) : null,
+    ...(group ? { group } : {}),
     flags: list,
     solves: ctx.solves,
   };

@@ -351,12 +351,50 @@ export interface CandidateEvaluationOk {
   lossCostPresentValue: string | null;
   lifeCycleCost: string | null;
   ampacity: AmpacityResult;
-  /** Heat-balance profile at the design current (null on runaway). */
+  /** Heat-balance profile at the design current (null on runaway); of the governing cable of a group. */
   profile: HeatProfile | null;
+  /** The cross-section that was rated (cables only): where every cable lies and how hot it runs. */
+  group?: GroupResult;
   flags: AssumptionFlag[];
   solves: number;
   isSmallestPassing?: boolean;
   isLowestLifeCycleCostPassing?: boolean;
+}
+
+export interface GroupResultCable {
+  /** Circuit index: the candidate's parallel runs first, then the other circuits. */
+  circuit: number;
+  /** Index of the cable inside its circuit. */
+  index: number;
+  position: 'alone' | 'trefoil' | 'flat-outer' | 'flat-centre' | 'pair';
+  /** 'rated': a cable of the circuit being sized; 'same-cable': another circuit of the candidate's cable; 'fixed': another circuit given by its heat. */
+  role: 'rated' | 'same-cable' | 'fixed';
+  /** Centre, m: x across, y upward (the ground surface at y = 0 for buried cables). */
+  xM: number;
+  yM: number;
+  externalDiameterM: number;
+  /** The duct's outer diameter when in a duct, else D_e. */
+  envelopeDiameterM: number;
+  /** At the design current; null where not solved (a neighbour given by its heat) or on runaway. */
+  conductorC: number | null;
+  surfaceC: number | null;
+  heatWPerM: number | null;
+  /** Rise of its surroundings above the ground from the other cables, K (buried). */
+  riseFromOthersK: number | null;
+}
+
+export interface GroupResult {
+  placement: 'air' | 'buried' | 'ducts' | 'backfill';
+  /** How the group was rated, in words (the surface law in air, superposition in the ground). */
+  method: string;
+  cables: GroupResultCable[];
+  /** Index into `cables` of the cable that governs (the hottest against its limit), null on runaway. */
+  governingCable: number | null;
+  /** Axis spacing of the first run's cables, and centre spacing between circuits, m. */
+  circuitAxisSpacingM: number | null;
+  circuitSpacingM: number | null;
+  depthM: number | null;
+  bank?: { centreXM: number; centreDepthM: number; widthM: number; heightM: number };
 }
 
 export interface CandidateEvaluationError {
