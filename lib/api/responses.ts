@@ -80,6 +80,34 @@ const shortCircuitSchema = z.object({
 
 const decimalText = z.string().meta({ description: 'A decimal amount as text (exact).' });
 
+const groupSchema = z
+  .object({
+    placement: z.enum(['air', 'buried', 'ducts', 'backfill']),
+    method: z.string(),
+    cables: z.array(
+      z.object({
+        circuit: finite.meta({ description: "The candidate's parallel runs first, then the other circuits." }),
+        index: finite,
+        position: z.enum(['alone', 'trefoil', 'flat-outer', 'flat-centre', 'pair']),
+        role: z.enum(['rated', 'same-cable', 'fixed']),
+        xM: finite,
+        yM: finite.meta({ description: 'Upward; the ground surface is y = 0 for buried cables.' }),
+        externalDiameterM: finite,
+        envelopeDiameterM: finite,
+        conductorC: finite.nullable(),
+        surfaceC: finite.nullable(),
+        heatWPerM: finite.nullable(),
+        riseFromOthersK: finite.nullable(),
+      }),
+    ),
+    governingCable: finite.nullable().meta({ description: 'Index into cables of the cable that governs.' }),
+    circuitAxisSpacingM: finite.nullable(),
+    circuitSpacingM: finite.nullable(),
+    depthM: finite.nullable(),
+    bank: z.object({ centreXM: finite, centreDepthM: finite, widthM: finite, heightM: finite }).optional(),
+  })
+  .meta({ id: 'CableGroupResult', description: 'The cross-section that was rated: every cable, its temperatures and heat at the design current, and the one that governs.' });
+
 export const evaluationOkSchema = z
   .object({
     ok: z.literal(true),
@@ -114,6 +142,7 @@ export const evaluationOkSchema = z
     lifeCycleCost: decimalText.nullable(),
     ampacity: ampacityResultSchema,
     profile: profileSchema.nullable(),
+    group: groupSchema.optional(),
     flags: z.array(flagSchema),
     solves: finite,
     isSmallestPassing: z.boolean().optional(),
