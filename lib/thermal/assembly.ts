@@ -152,12 +152,15 @@ export function createContext(problem: NormalizedProblem, timeStepS?: number, ar
   };
   if (timeStepS !== undefined) ctx.capacityRate = capacityRates(problem, mesh, timeStepS);
   if (problem.sideways) ctx.sideways = problem.sideways;
-  if (problem.pointSources && problem.pointSources.length > 0) {
-    const heat = new Float64Array(n);
-    for (const p of problem.pointSources) heat[cellHolding(mesh, p.position)] += p.heat;
-    ctx.pointHeat = heat;
-  }
+  if (problem.pointSources && problem.pointSources.length > 0) ctx.pointHeat = pointHeatPerCell(mesh, problem.pointSources);
   return ctx;
+}
+
+/** Each point source's heat into the cell holding it. */
+function pointHeatPerCell(mesh: Mesh, points: NonNullable<NormalizedProblem['pointSources']>): Float64Array {
+  const heat = new Float64Array(mesh.cellCount);
+  for (const p of points) heat[cellHolding(mesh, p.position)] += p.heat;
+  return heat;
 }
 
 /**
@@ -171,6 +174,7 @@ export function withProblem(ctx: SolverContext, problem: NormalizedProblem): Sol
     reference: referenceTemperature(problem),
     inner: problem.inner === ctx.problem.inner ? ctx.inner : withSpec(ctx.inner, problem.inner),
     outer: problem.outer === ctx.problem.outer ? ctx.outer : withSpec(ctx.outer, problem.outer),
+    ...(problem.pointSources !== ctx.problem.pointSources && problem.pointSources ? { pointHeat: pointHeatPerCell(ctx.mesh, problem.pointSources) } : {}),
   };
 }
 

@@ -37,6 +37,11 @@ export interface PreparedSolveOptions {
   outerAmbientC?: number;
   /** °C: the same for the inner boundary (a bus bar has air on both faces). */
   innerAmbientC?: number;
+  /**
+   * The heats of the problem's point sources for this call, in their order (W per metre of
+   * cylinder or per m² of slab): a cable's screen loss follows its conductor's loss.
+   */
+  pointHeats?: readonly number[];
 }
 
 export interface PreparedProblem {
@@ -112,6 +117,11 @@ class Prepared implements PreparedProblem {
     }
     if (options?.innerAmbientC !== undefined) {
       problem.inner = withAmbient(base.inner, requireTemperature(options.innerAmbientC, 'innerAmbientC'), 'innerAmbientC', this.surroundingsExplicit.inner);
+    }
+    if (options?.pointHeats !== undefined) {
+      const points = base.pointSources ?? [];
+      if (options.pointHeats.length !== points.length) throw new ThermalInputError('pointHeats', `give one heat per point source (${points.length})`);
+      problem.pointSources = points.map((p, i) => ({ position: p.position, heat: requireNonNegative(options.pointHeats![i], `pointHeats[${i}]`) }));
     }
     return steadyState(withProblem(this.ctx, problem), this.slowestMode());
   }

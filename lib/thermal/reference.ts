@@ -41,6 +41,7 @@ export function steadyStart(problem: NormalizedProblem): number {
 export function undrivenTemperature(problem: NormalizedProblem): number | undefined {
   const s = problem.source;
   if ((s.kind === 'uniform' && s.q !== 0) || (s.kind === 'joule' && s.current !== 0)) return undefined;
+  if (problem.pointSources?.some((p) => p.heat !== 0)) return undefined;
   const refs: number[] = [];
   for (const b of [problem.inner, problem.outer]) {
     if (b.kind === 'flux' && b.value !== 0) return undefined;

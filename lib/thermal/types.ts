@@ -155,6 +155,18 @@ export interface ThermalProblem {
   options?: SolverOptions;
   /** Extension: assumptions made by whoever built the problem, copied into the result's flags. */
   assumptions?: ThermalFlag[];
+  /**
+   * Extension: heat released at a position (m, the mesh's coordinate: radius of a cylinder,
+   * distance from the inner face of a slab), W per metre of cylinder or W per m² of slab face, ≥ 0.
+   * The cell holding the position takes it — e.g. the losses in a cable's metallic screen, or the
+   * dielectric loss spread over points of the insulation. Independent of temperature.
+   */
+  pointSources?: PointHeat[];
+}
+
+export interface PointHeat {
+  position: number;
+  heat: number;
 }
 
 export interface TransientProblem extends ThermalProblem {

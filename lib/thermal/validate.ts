@@ -345,8 +345,22 @@ export function validateProblem(raw: unknown, requireHeatPath: boolean): Normali
   }
 
   const normalized: NormalizedProblem = { geometry, source, inner, outer, options, assumptions };
+  const points = validatePointSources(problem.pointSources, geometry.innerRadius, outerRadius);
+  if (points.length > 0) normalized.pointSources = points;
   if (requireHeatPath) requireSteadyHeatPath(normalized);
   return normalized;
+}
+
+/** Heat released at points of the body (types.ts pointSources): inside it, finite, not negative. */
+function validatePointSources(raw: unknown, startM: number, endM: number): { position: number; heat: number }[] {
+  if (raw === undefined) return [];
+  if (!Array.isArray(raw)) throw new ThermalInputError('pointSources', 'must be a list');
+  return raw.map((p, i) => {
+    const r = requireRecord(p, `pointSources[${i}]`);
+    const position = requireFinite(r.position, `pointSources[${i}].position`);
+    if (position < startM || position > endM) throw new ThermalInputError(`pointSources[${i}].position`, `must lie inside the body (${startM}…${endM} m)`);
+    return { position, heat: requireNonNegative(r.heat, `pointSources[${i}].heat`) };
+  });
 }
 
 /**
