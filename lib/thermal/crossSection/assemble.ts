@@ -1,28 +1,39 @@
 /**
- * Mesh and assembly of the cross-section: grid → materials → which cells form each cable →
- * diffusion terms of every face → boundary terms → fixed sources. The result is the symmetric
- * conductance matrix K (soil cells plus one node per cable circle), independent of the currents,
- * so one prepared problem solves at many currents (physics.md §12).
+ * Mesh and assembly of the cross-section: grid → materials → which cells are each cable's →
+ * diffusion terms of every face (with nodes on the circles where a face's grid line crosses one,
+ * circles.ts) → boundary terms → fixed sources. The result is the symmetric conductance matrix
+ * K over the cells and the circle nodes, and each cable's circle nodes with their weights —
+ * independent of the currents, so one prepared problem solves at many currents (physics.md §12).
  *
  * Unknowns are temperature rises above a reference T_ref = the lower of the surface (or air) and
  * the deep-ground temperature, so every boundary and source term on the right-hand side is ≥ 0;
  * solve.ts relies on that for its runaway test.
  *
- * Energy: every face adds +G to both nodes' diagonals and −G between them, so the heat one node
- * loses through a face is exactly the heat the other gains, and a cable's heat, put on its node,
- * enters the soil through its cut faces without loss or gain: the discrete balance closes to
- * the accuracy of the linear solve.
+ * Energy: every conductance adds +G to both its nodes' diagonals and −G between them, so the
+ * heat one node loses is exactly what the other gains; a cable's heat goes onto its circle nodes
+ * in weights that add up to one. The discrete balance closes to the accuracy of the linear solve.
  */
-import { cellOwners, chord, circleAxes } from './circles';
+import { cellOwners, chord, circleAxes, trapezoidShares } from './circles';
 import { centresOf, gradedFaces, type AxisSpec, type SizeTarget } from './grid';
 import { ConductanceCollector, type Csr } from './sparse';
 import { boundaryConductance, faceConductance, lineSourceShares, rectangleSourceShares, type BoundaryTerm } from './terms';
 import type { NormalizedCrossSection } from './validate';
 
 export interface BoundaryFaces {
+  /** Node next to each boundary face (a cell, or a circle node for a cable cell on the boundary). */
   node: Int32Array;
   conductance: Float64Array;
   temperatureC: number;
+}
+
+/** A cable's nodes on its circle (circles.ts). */
+export interface CableCoupling {
+  /** Unknowns of the circle nodes. */
+  nodes: Int32Array;
+  /** Trapezoid weight of each (Σ = 1). */
+  share: Float64Array;
+  /** Angle of each around the centre, radians (x across, depth down). */
+  angle: Float64Array;
 }
 
 export interface CrossSectionSystem {
@@ -35,14 +46,14 @@ export interface CrossSectionSystem {
   yc: Float64Array;
   /** W/(m·K) per cell */
   conductivity: Float64Array;
+  /** −1 for a soil cell, else the cable whose circle holds the cell's centre. */
   owner: Int32Array;
-  /** Unknown of each cell: its own for soil, its cable's node inside a circle. */
-  unknownOfCell: Int32Array;
-  soilUnknowns: number;
-  /** soil unknowns + cables */
+  /** Cells first (unknown = cell index), circle nodes after. */
   n: number;
+  cells: number;
   /** K: conduction and boundary conductances, W/(K·m). */
   matrix: Csr;
+  couplings: CableCoupling[];
   top: BoundaryFaces;
   bottom: BoundaryFaces;
   referenceC: number;
@@ -92,13 +103,31 @@ function cellConductivities(problem: NormalizedCrossSection, xc: Float64Array, y
   return k;
 }
 
-/** Start of a soil path leaving the cell: its centre, or where its line leaves the owning circle. */
-function pathStart(problem: NormalizedCrossSection, owner: number, axis: 'x' | 'y', node: number, across: number, towardsHigher: boolean): number {
-  if (owner < 0) return node;
-  const cable = problem.cables[owner];
-  const { along, across: centreAcross } = circleAxes(cable, axis);
-  const roots = chord(along, centreAcross, cable.radius, across);
-  return towardsHigher ? roots.upper : roots.lower;
+/** A point where a grid segment crosses a circle. */
+interface Crossing {
+  cable: number;
+  position: number;
+}
+
+/** Crossings on the segment from a node (owner oa) to a node (owner ob), in order along the axis. */
+function crossings(problem: NormalizedCrossSection, axis: 'x' | 'y', oa: number, ob: number, across: number): Crossing[] {
+  if (oa === ob) return [];
+  const out: Crossing[] = [];
+  const root = (c: number, upper: boolean): number => {
+    const cable = problem.cables[c];
+    const { along, across: centreAcross } = circleAxes(cable, axis);
+    const r = chord(along, centreAcross, cable.radius, across);
+    return upper ? r.upper : r.lower;
+  };
+  if (oa >= 0) out.push({ cable: oa, position: root(oa, true) });
+  if (ob >= 0) out.push({ cable: ob, position: root(ob, false) });
+  if (out.length === 2 && out[1].position < out[0].position) {
+    // Touching circles: both crossings at (about) the contact point; keep them in order.
+    const mid = 0.5 * (out[0].position + out[1].position);
+    out[0].position = mid;
+    out[1].position = mid;
+  }
+  return out;
 }
 
 export function assemble(problem: NormalizedCrossSection): CrossSectionSystem {
@@ -107,100 +136,112 @@ export function assemble(problem: NormalizedCrossSection): CrossSectionSystem {
   const yc = centresOf(yFaces);
   const nx = xc.length;
   const ny = yc.length;
+  const cells = nx * ny;
   const conductivity = cellConductivities(problem, xc, yc);
   const owner = cellOwners(problem.cables, xc, yc);
-
   const m = problem.cables.length;
-  const unknownOfCell = new Int32Array(nx * ny);
-  let soil = 0;
-  for (let cell = 0; cell < nx * ny; cell++) if (owner[cell] < 0) unknownOfCell[cell] = soil++;
   const cellsInCable = new Array<number>(m).fill(0);
-  for (let cell = 0; cell < nx * ny; cell++) {
-    if (owner[cell] >= 0) {
-      unknownOfCell[cell] = soil + owner[cell];
-      cellsInCable[owner[cell]]++;
-    }
-  }
+  for (let cell = 0; cell < cells; cell++) if (owner[cell] >= 0) cellsInCable[owner[cell]]++;
   cellsInCable.forEach((count, c) => {
     if (count === 0) throw new Error(`cables[${c}]: no cell centre lies inside its circle; the mesh is too coarse`);
   });
-  const n = soil + m;
-  const k = new ConductanceCollector(n, 2 * nx * ny);
 
-  // Diffusion terms, faces across (x) then down (depth).
+  const k = new ConductanceCollector(cells + 16 * m * problem.mesh.cellsAcrossCable * problem.mesh.refinement, 2 * cells);
+  let n = cells;
+  const circleNodes = problem.cables.map(() => ({ nodes: [] as number[], angles: [] as number[] }));
+  const addCircleNode = (c: number, x: number, y: number): number => {
+    const cable = problem.cables[c];
+    circleNodes[c].nodes.push(n);
+    circleNodes[c].angles.push(Math.atan2(y - cable.depth, x - cable.x));
+    return n++;
+  };
+  const point = (axis: 'x' | 'y', along: number, across: number): [number, number] => (axis === 'x' ? [along, across] : [across, along]);
+
+  /**
+   * The diffusion term of the face between cells a (low side) and b (high side) along `axis`:
+   * one conductance, or a chain through the circle nodes where the segment crosses a circle.
+   */
+  const face = (axis: 'x' | 'y', a: number, b: number, nodeA: number, nodeB: number, facePos: number, across: number, length: number): void => {
+    const spacing = nodeB - nodeA;
+    const piece = (from: number, to: number) =>
+      faceConductance(length, { start: from, end: to, face: facePos, kStart: conductivity[a], kEnd: conductivity[b], spacing });
+    let previousNode = a;
+    let previousPos = nodeA;
+    for (const x of crossings(problem, axis, owner[a], owner[b], across)) {
+      const [px, py] = point(axis, x.position, across);
+      const node = addCircleNode(x.cable, px, py);
+      k.connect(previousNode, node, piece(previousPos, x.position));
+      previousNode = node;
+      previousPos = x.position;
+    }
+    k.connect(previousNode, b, piece(previousPos, nodeB));
+  };
+
   for (let j = 0; j < ny; j++) {
     const length = yFaces[j + 1] - yFaces[j];
-    for (let i = 0; i + 1 < nx; i++) {
-      const a = j * nx + i;
-      const b = a + 1;
-      if (owner[a] >= 0 && owner[a] === owner[b]) continue;
-      const start = pathStart(problem, owner[a], 'x', xc[i], yc[j], true);
-      const end = pathStart(problem, owner[b], 'x', xc[i + 1], yc[j], false);
-      const g = faceConductance(length, { start, end, face: xFaces[i + 1], kStart: conductivity[a], kEnd: conductivity[b], spacing: xc[i + 1] - xc[i] });
-      k.connect(unknownOfCell[a], unknownOfCell[b], g);
-    }
+    for (let i = 0; i + 1 < nx; i++) face('x', j * nx + i, j * nx + i + 1, xc[i], xc[i + 1], xFaces[i + 1], yc[j], length);
   }
   for (let j = 0; j + 1 < ny; j++) {
-    for (let i = 0; i < nx; i++) {
-      const a = j * nx + i;
-      const b = a + nx;
-      if (owner[a] >= 0 && owner[a] === owner[b]) continue;
-      const length = xFaces[i + 1] - xFaces[i];
-      const start = pathStart(problem, owner[a], 'y', yc[j], xc[i], true);
-      const end = pathStart(problem, owner[b], 'y', yc[j + 1], xc[i], false);
-      const g = faceConductance(length, { start, end, face: yFaces[j + 1], kStart: conductivity[a], kEnd: conductivity[b], spacing: yc[j + 1] - yc[j] });
-      k.connect(unknownOfCell[a], unknownOfCell[b], g);
-    }
+    for (let i = 0; i < nx; i++) face('y', j * nx + i, (j + 1) * nx + i, yc[j], yc[j + 1], yFaces[j + 1], xc[i], xFaces[i + 1] - xFaces[i]);
   }
 
   // Boundary terms: ground surface (row 0) and deep ground (last row); the sides are adiabatic.
+  const topC = problem.surface.kind === 'isothermal' ? problem.surface.temperature : problem.surface.air;
+  const referenceC = Math.min(topC, problem.deepGround);
   const surfaceTerm: BoundaryTerm =
     problem.surface.kind === 'isothermal'
       ? { kind: 'temperature', temperatureC: problem.surface.temperature }
       : { kind: 'convective', airC: problem.surface.air, h: problem.surface.h };
-  const topC = problem.surface.kind === 'isothermal' ? problem.surface.temperature : problem.surface.air;
-  const referenceC = Math.min(topC, problem.deepGround);
-  const boundaryRhs = new Float64Array(n);
-  const boundaryRow = (j: number, faceDepth: number, term: BoundaryTerm, towardsHigher: boolean): BoundaryFaces => {
-    const node = new Int32Array(nx);
-    const conductance = new Float64Array(nx);
-    let temperatureC = 0;
+  const boundaryPairs: Array<{ node: number; conductance: number; rise: number }> = [];
+  const boundaryRow = (side: 'top' | 'bottom', j: number, faceDepth: number, term: BoundaryTerm): BoundaryFaces => {
+    const nodes = new Int32Array(nx);
+    const conductances = new Float64Array(nx);
+    const temperatureC = term.kind === 'convective' ? term.airC : term.temperatureC;
     for (let i = 0; i < nx; i++) {
       const cell = j * nx + i;
-      const start = pathStart(problem, owner[cell], 'y', yc[j], xc[i], towardsHigher);
-      const b = boundaryConductance(xFaces[i + 1] - xFaces[i], Math.abs(faceDepth - start), 2 * Math.abs(faceDepth - yc[j]), conductivity[cell], term);
-      node[i] = unknownOfCell[cell];
-      conductance[i] = b.conductance;
-      temperatureC = b.temperatureC;
-      k.ground(node[i], b.conductance);
-      boundaryRhs[node[i]] += b.conductance * (b.temperatureC - referenceC);
+      const length = xFaces[i + 1] - xFaces[i];
+      const spacing = 2 * Math.abs(faceDepth - yc[j]);
+      let node = cell;
+      let start = yc[j];
+      if (owner[cell] >= 0) {
+        // A cable cell on the boundary row: the path to the boundary leaves its circle first.
+        const cable = problem.cables[owner[cell]];
+        const r = chord(cable.depth, cable.x, cable.radius, xc[i]);
+        const crossing = side === 'top' ? r.lower : r.upper;
+        node = addCircleNode(owner[cell], xc[i], crossing);
+        k.connect(cell, node, faceConductance(length, { start: Math.min(start, crossing), end: Math.max(start, crossing), face: faceDepth, kStart: conductivity[cell], kEnd: conductivity[cell], spacing }));
+        start = crossing;
+      }
+      const b = boundaryConductance(length, Math.abs(faceDepth - start), spacing, conductivity[cell], term);
+      nodes[i] = node;
+      conductances[i] = b.conductance;
+      k.ground(node, b.conductance);
+      boundaryPairs.push({ node, conductance: b.conductance, rise: b.temperatureC - referenceC });
     }
-    return { node, conductance, temperatureC };
+    return { node: nodes, conductance: conductances, temperatureC };
   };
-  const top = boundaryRow(0, 0, surfaceTerm, false);
-  const bottom = boundaryRow(ny - 1, problem.depth, { kind: 'temperature', temperatureC: problem.deepGround }, true);
+  const top = boundaryRow('top', 0, 0, surfaceTerm);
+  const bottom = boundaryRow('bottom', ny - 1, problem.depth, { kind: 'temperature', temperatureC: problem.deepGround });
 
-  // Fixed sources.
+  const boundaryRhs = new Float64Array(n);
+  for (const p of boundaryPairs) boundaryRhs[p.node] += p.conductance * p.rise;
+
+  const couplings: CableCoupling[] = circleNodes.map((c) => ({
+    nodes: Int32Array.from(c.nodes),
+    share: trapezoidShares(c.angles),
+    angle: Float64Array.from(c.angles),
+  }));
+
+  // Fixed sources (the circles hold soil, so a source may lie anywhere but on a cable).
   const fixedSources = new Float64Array(n);
   let fixedSourceTotalW = 0;
   for (const s of problem.sources) {
     const shares = s.kind === 'line' ? lineSourceShares(xc, yc, s.x, s.depth) : rectangleSourceShares(xFaces, yFaces, s);
-    let soilWeight = 0;
-    for (const sh of shares) if (owner[sh.j * nx + sh.i] < 0) soilWeight += sh.weight;
-    for (const sh of shares) {
-      const cell = sh.j * nx + sh.i;
-      // A line source next to a circle whose neighbour centre falls inside it keeps its heat in
-      // the soil (weights renormalised); a rectangle's corner share in a cable cell goes to that
-      // cable's node. Either way the total is exactly W.
-      if (s.kind === 'line' && soilWeight > 0) {
-        if (owner[cell] < 0) fixedSources[unknownOfCell[cell]] += (s.watts * sh.weight) / soilWeight;
-      } else {
-        fixedSources[unknownOfCell[cell]] += s.watts * sh.weight;
-      }
-    }
+    for (const sh of shares) fixedSources[sh.j * nx + sh.i] += s.watts * sh.weight;
     fixedSourceTotalW += s.watts;
   }
 
+  const collector = k;
   return {
     problem,
     nx,
@@ -211,10 +252,10 @@ export function assemble(problem: NormalizedCrossSection): CrossSectionSystem {
     yc,
     conductivity,
     owner,
-    unknownOfCell,
-    soilUnknowns: soil,
     n,
-    matrix: k.build(),
+    cells,
+    matrix: collector.build(n),
+    couplings,
     top,
     bottom,
     referenceC,

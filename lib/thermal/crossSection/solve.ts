@@ -2,35 +2,37 @@
  * Steady cross-section solve (physics.md §9): prepared system (assemble.ts) → cable terms →
  * preconditioned conjugate gradients → outer iteration → energy balance.
  *
- * The system in rises θ above T_ref is (K − diag(β))·θ = b: K the conduction and boundary
- * conductances (built once), β the cables' S_p (cableModel.ts) on their nodes, b the boundary
- * terms, fixed sources and the cables' heat at T_ref. Joule heat is linear in temperature, so the
- * S_p form is exact and without ducts the second outer pass only confirms the first; with ducts
- * the duct-air resistance T4′(θm) is re-evaluated from each pass until nothing changes by more
- * than `toleranceK`.
+ * Unknowns are the rises θ above T_ref of the cells and of the circle nodes (circles.ts). Cable
+ * c puts s_c·W_c on its circle nodes and sees their weighted mean θ_s = s_cᵀθ; its 1-D radial
+ * model gives W_c = W_c(T_ref) + β_c·θ_s exactly (cableModel.ts: Joule heat is linear in T). So
+ *     (K − Σ_c β_c s_c s_cᵀ)·θ = b + Σ_c s_c·W_c(T_ref),
+ * symmetric, with off-diagonals still ≤ 0 (β ≥ 0, s ≥ 0): a Z-matrix. The rank-one terms are
+ * applied matrix-free. Without ducts nothing changes between outer passes (the second only
+ * confirms the first); with ducts T4′(θm) is re-evaluated from each pass until no rise changes
+ * by more than `toleranceK`.
  *
- * Runaway (no steady state). K is a symmetric M-matrix (off-diagonals ≤ 0, positive definite),
- * and so is K − diag(β) as long as it stays positive definite. A steady state exists exactly
- * then. Three certificates that it does not, each exact:
- *   1. b·A ≥ 1 for a cable: its own coverings cannot carry its heat at any surface temperature;
- *   2. a diagonal entry K_cc − β_c ≤ 0, or a CG curvature pᵀ(K − diag β)p ≤ 0: a direction with
- *      non-positive energy, so the matrix is not positive definite;
- *   3. a solution with a negative rise. Every term of b is ≥ 0 (T_ref is the lowest boundary
- *      temperature, sources are ≥ 0). If the matrix were positive definite, its inverse would be
- *      ≥ 0 (an M-matrix) and θ ≥ 0. If instead its smallest eigenvalue λ₁ < 0, with eigenvector
- *      v₁ > 0 (Perron–Frobenius for an irreducible Z-matrix), then v₁ᵀθ = v₁ᵀb/λ₁ < 0 and some
- *      rise must be negative: temperatures below every boundary, i.e. no physical steady state.
- * The result then carries no temperatures (physics.md §1: never a made-up value).
+ * Runaway (no steady state) — three certificates, each exact for the discrete model:
+ *   1. b·A ≥ 1 for a cable: its own coverings cannot carry its heat away at any surface
+ *      temperature;
+ *   2. a diagonal entry ≤ 0, or a CG curvature pᵀAp ≤ 0: the matrix is not positive definite;
+ *   3. a solution with a negative rise. Every term of the right-hand side is ≥ 0 (T_ref is the
+ *      lowest boundary temperature, sources are ≥ 0). Were the matrix positive definite, it
+ *      would be an M-matrix with an inverse ≥ 0, so θ ≥ 0. If its smallest eigenvalue λ₁ < 0,
+ *      with eigenvector v₁ > 0 (Perron–Frobenius for an irreducible Z-matrix), v₁ᵀθ = v₁ᵀb/λ₁ < 0
+ *      and some rise is negative: temperatures below every boundary — no physical steady state.
+ * A steady state exists exactly while the matrix is positive definite; a failed result carries
+ * no temperatures (physics.md §1: never a made-up value).
  */
 import { amgPreconditioner } from './amg';
 import { assemble, type CrossSectionSystem } from './assemble';
 import { cableChain, cableHeatLine, cableState, jouleLine, runsAwayInside, type CableChain, type JouleLine } from './cableModel';
 import { conjugateGradient, type Preconditioner } from './pcg';
 import { ic0Preconditioner, jacobiPreconditioner } from './preconditioners';
-import { multiplyShifted } from './sparse';
+import { multiply } from './sparse';
 import { cableSourceTerm } from './terms';
 import type {
   CableTemperatures,
+  CrossSectionConverged,
   CrossSectionFailed,
   CrossSectionInput,
   CrossSectionIterations,
@@ -68,34 +70,100 @@ export function prepareCrossSection(input: CrossSectionInput | unknown, precondi
   return { system, preconditioner: buildPreconditioner(system, kind), preconditionerKind: kind };
 }
 
+export interface CableTerm {
+  /** β_c = dW_c/dT_s, W/(K·m) */
+  beta: number;
+  /** W_c(T_ref), W/m */
+  heatAtReference: number;
+}
+
 export interface TangentSystem {
-  /** β per unknown (non-zero on cable nodes): the matrix is K − diag(shift). */
-  shift: Float64Array;
   rhs: Float64Array;
   chains: CableChain[];
   joules: JouleLine[];
+  terms: CableTerm[];
+  /** Index of a cable that runs away on its own (certificate 1), else −1. */
+  runawayCable: number;
 }
 
 /** The linear system of one outer pass, for duct air at `meanAirC` (one per cable). */
 export function tangentSystem(system: CrossSectionSystem, currentsA: number[], meanAirC: number[]): TangentSystem {
-  const { problem, soilUnknowns, referenceC } = system;
-  const shift = new Float64Array(system.n);
+  const { problem, referenceC } = system;
   const rhs = new Float64Array(system.n);
   for (let i = 0; i < system.n; i++) rhs[i] = system.boundaryRhs[i] + system.fixedSources[i];
   const chains: CableChain[] = [];
   const joules: JouleLine[] = [];
+  const terms: CableTerm[] = [];
+  let runawayCable = -1;
   problem.cables.forEach((cable, c) => {
     const chain = cableChain(cable, meanAirC[c], `cables[${c}]`);
     const joule = jouleLine(cable, currentsA[c]);
     chains.push(chain);
     joules.push(joule);
-    if (runsAwayInside(chain, joule)) return;
+    if (runsAwayInside(chain, joule)) {
+      if (runawayCable < 0) runawayCable = c;
+      terms.push({ beta: 0, heatAtReference: 0 });
+      return;
+    }
     const line = cableHeatLine(chain, joule, referenceC);
     const term = cableSourceTerm(line.heatAtReference, line.slope);
-    rhs[soilUnknowns + c] += term.su;
-    shift[soilUnknowns + c] = term.sp;
+    terms.push({ beta: term.sp, heatAtReference: term.su });
+    const { nodes, share } = system.couplings[c];
+    for (let f = 0; f < nodes.length; f++) rhs[nodes[f]] += share[f] * term.su;
   });
-  return { shift, rhs, chains, joules };
+  return { rhs, chains, joules, terms, runawayCable };
+}
+
+/** θ_s = s_cᵀθ: the circle's mean rise. */
+function circleMean(system: CrossSectionSystem, c: number, rises: Float64Array): number {
+  const { nodes, share } = system.couplings[c];
+  let s = 0;
+  for (let f = 0; f < nodes.length; f++) s += share[f] * rises[nodes[f]];
+  return s;
+}
+
+/** y = (K − Σ β_c s_c s_cᵀ)·x */
+export function applyTangent(system: CrossSectionSystem, terms: CableTerm[], x: Float64Array, y: Float64Array): void {
+  multiply(system.matrix, x, y);
+  terms.forEach((term, c) => {
+    if (term.beta === 0) return;
+    const { nodes, share } = system.couplings[c];
+    const g = term.beta * circleMean(system, c, x);
+    for (let f = 0; f < nodes.length; f++) y[nodes[f]] -= g * share[f];
+  });
+}
+
+/** The tangent matrix as entries (row, column, value), duplicates to be summed: for checks with a general-purpose solver. */
+export function tangentEntries(system: CrossSectionSystem, terms: CableTerm[]): { rows: number[]; cols: number[]; values: number[] } {
+  const { rowPtr, col, val } = system.matrix;
+  const rows: number[] = [];
+  const cols: number[] = [];
+  const values: number[] = [];
+  for (let i = 0; i < system.n; i++) {
+    for (let p = rowPtr[i]; p < rowPtr[i + 1]; p++) {
+      rows.push(i);
+      cols.push(col[p]);
+      values.push(val[p]);
+    }
+  }
+  terms.forEach((term, c) => {
+    if (term.beta === 0) return;
+    const { nodes, share } = system.couplings[c];
+    for (let f = 0; f < nodes.length; f++) {
+      for (let g = 0; g < nodes.length; g++) {
+        rows.push(nodes[f]);
+        cols.push(nodes[g]);
+        values.push(-term.beta * share[f] * share[g]);
+      }
+    }
+  });
+  return { rows, cols, values };
+}
+
+/** Circle rise θ_s and heat W of cable c at the solved rises. */
+export function circleOf(system: CrossSectionSystem, term: CableTerm, c: number, rises: Float64Array): { riseK: number; emittedW: number } {
+  const riseK = circleMean(system, c, rises);
+  return { riseK, emittedW: term.heatAtReference + term.beta * riseK };
 }
 
 function meshReport(system: CrossSectionSystem): CrossSectionMeshReport {
@@ -146,7 +214,7 @@ export interface SolveOverrides {
 
 export function solvePrepared(prepared: PreparedCrossSection, overrides: SolveOverrides = {}): CrossSectionResult {
   const { system } = prepared;
-  const { problem, soilUnknowns, referenceC, n } = system;
+  const { problem, referenceC, n } = system;
   const options = problem.options;
   const m = problem.cables.length;
   const currents = overrides.currentsA ?? problem.cables.map((c) => c.current);
@@ -156,40 +224,30 @@ export function solvePrepared(prepared: PreparedCrossSection, overrides: SolveOv
   const meanAir = problem.cables.map(() => referenceC);
   let lastSystem: TangentSystem | undefined;
   let converged = false;
+  const runawayField = (message: string) =>
+    failure(prepared, 'runaway', 'no steady state: the heat generated grows with temperature faster than the ground can remove it', iterations, { kind: 'field', message });
 
   for (let outer = 1; outer <= options.maxOuterIterations; outer++) {
     iterations.outer = outer;
     const tangent = tangentSystem(system, currents, meanAir);
     lastSystem = tangent;
-    for (let c = 0; c < m; c++) {
-      if (runsAwayInside(tangent.chains[c], tangent.joules[c])) {
-        return failure(prepared, 'runaway', `cables[${c}]: no steady state — its coverings cannot carry the heat away at any surface temperature`, iterations, {
-          kind: 'cable',
-          cable: c,
-          message: 'the heat generated grows with temperature faster than the cable’s own coverings can pass it',
-        });
-      }
-      const node = soilUnknowns + c;
-      if (!(system.matrix.val[system.matrix.diag[node]] - tangent.shift[node] > 0)) {
-        return failure(prepared, 'runaway', `cables[${c}]: no steady state — its heat grows with temperature faster than its surroundings remove it`, iterations, {
-          kind: 'field',
-          message: 'the tangent matrix is not positive definite (a cable node’s diagonal is not positive)',
-        });
-      }
+    if (tangent.runawayCable >= 0) {
+      const c = tangent.runawayCable;
+      return failure(prepared, 'runaway', `cables[${c}]: no steady state — its coverings cannot carry the heat away at any surface temperature`, iterations, {
+        kind: 'cable',
+        cable: c,
+        message: 'the heat generated grows with temperature faster than the cable’s own coverings can pass it',
+      });
     }
+    if (!diagonalStaysPositive(system, tangent.terms)) return runawayField('the tangent matrix is not positive definite (a diagonal entry next to a cable is not positive)');
     previous.set(rises);
-    const outcome = conjugateGradient((x, y) => multiplyShifted(system.matrix, tangent.shift, x, y), tangent.rhs, rises, prepared.preconditioner, {
+    const outcome = conjugateGradient((x, y) => applyTangent(system, tangent.terms, x, y), tangent.rhs, rises, prepared.preconditioner, {
       relativeTolerance: options.cgRelativeTolerance,
       maxIterations: options.maxCgIterations,
     });
     iterations.cg += outcome.iterations;
     iterations.cgPerOuter.push(outcome.iterations);
-    if (outcome.breakdown) {
-      return failure(prepared, 'runaway', 'no steady state: the heat generated grows with temperature faster than the ground can remove it', iterations, {
-        kind: 'field',
-        message: 'the tangent matrix is not positive definite (conjugate-gradient curvature ≤ 0)',
-      });
-    }
+    if (outcome.breakdown) return runawayField('the tangent matrix is not positive definite (conjugate-gradient curvature ≤ 0)');
     if (!outcome.converged) {
       return failure(prepared, 'not-converged', `the linear solve stopped at a relative residual of ${outcome.relativeResidual.toExponential(2)} after ${outcome.iterations} iterations`, iterations);
     }
@@ -200,15 +258,13 @@ export function solvePrepared(prepared: PreparedCrossSection, overrides: SolveOv
       if (rises[i] < smallest) smallest = rises[i];
     }
     if (smallest < -NEGATIVE_RISE_SHARE * Math.max(largest, 1e-300)) {
-      return failure(prepared, 'runaway', 'no steady state: the heat generated grows with temperature faster than the ground can remove it', iterations, {
-        kind: 'field',
-        message: 'the only solution of the tangent system lies below the boundary temperatures (its matrix is not positive definite)',
-      });
+      return runawayField('the only solution of the tangent system lies below the boundary temperatures (its matrix is not positive definite)');
     }
     let change = 0;
     for (let i = 0; i < n; i++) change = Math.max(change, Math.abs(rises[i] - previous[i]));
     problem.cables.forEach((cable, c) => {
-      meanAir[c] = cableState(cable, tangent.chains[c], tangent.joules[c], referenceC + rises[soilUnknowns + c]).meanAirC;
+      const circle = circleOf(system, tangent.terms[c], c, rises);
+      meanAir[c] = cableState(cable, tangent.chains[c], tangent.joules[c], referenceC + circle.riseK).meanAirC;
     });
     if (outer > 1 && change < options.toleranceK) {
       converged = true;
@@ -221,8 +277,9 @@ export function solvePrepared(prepared: PreparedCrossSection, overrides: SolveOv
   const tangent = lastSystem;
 
   // Results at the final temperatures; the chain uses the duct air of the last solved pass.
+  const circles = problem.cables.map((_, c) => circleOf(system, tangent.terms[c], c, rises));
   const cables: CableTemperatures[] = problem.cables.map((cable, c) => {
-    const circleC = referenceC + rises[soilUnknowns + c];
+    const circleC = referenceC + circles[c].riseK;
     const state = cableState(cable, tangent.chains[c], tangent.joules[c], circleC);
     const entry: CableTemperatures = {
       ...(cable.name !== undefined ? { name: cable.name } : {}),
@@ -244,34 +301,26 @@ export function solvePrepared(prepared: PreparedCrossSection, overrides: SolveOv
     return entry;
   });
 
-  let generated = system.fixedSourceTotalW;
-  for (const cable of cables) generated += cable.losses.totalWPerM;
-  const toSurface = boundaryOutflow(system, system.top, rises);
-  const toBottom = boundaryOutflow(system, system.bottom, rises);
-  const scale = Math.max(Math.abs(generated), Math.abs(toSurface), Math.abs(toBottom), ENERGY_SCALE_FLOOR_W);
-  const energyResidual = Math.abs(generated - toSurface - toBottom) / scale;
-  if (!(energyResidual <= options.energyTolerance)) {
-    return failure(prepared, 'not-converged', `the energy balance closes only to ${energyResidual.toExponential(2)} (demanded ${options.energyTolerance})`, iterations);
+  const heat = energyBalance(system, rises, cables);
+  if (!(heat.energyResidual <= options.energyTolerance)) {
+    return failure(prepared, 'not-converged', `the energy balance closes only to ${heat.energyResidual.toExponential(2)} (demanded ${options.energyTolerance})`, iterations);
   }
 
   const limited = cables.filter((c) => c.marginK !== undefined);
   const pool = limited.length > 0 ? limited : cables;
-  const governingCable = pool.reduce((best, c) =>
-    (limited.length > 0 ? c.marginK! < best.marginK! : c.conductorC > best.conductorC) ? c : best,
-  );
+  const governingCable = pool.reduce((best, c) => ((limited.length > 0 ? c.marginK! < best.marginK! : c.conductorC > best.conductorC) ? c : best));
 
   const { nx, ny } = system;
   const temperaturesC = new Float64Array(nx * ny);
-  for (let cell = 0; cell < nx * ny; cell++) temperaturesC[cell] = referenceC + rises[system.unknownOfCell[cell]];
+  for (let cell = 0; cell < nx * ny; cell++) temperaturesC[cell] = referenceC + rises[cell];
   let sideRise = 0;
   for (let j = 0; j < ny; j++) {
     for (const i of [0, nx - 1]) {
-      const cell = j * nx + i;
-      if (system.owner[cell] < 0) sideRise = Math.max(sideRise, rises[system.unknownOfCell[cell]]);
+      sideRise = Math.max(sideRise, rises[j * nx + i]);
     }
   }
   let circleRise = 0;
-  for (let c = 0; c < m; c++) circleRise = Math.max(circleRise, rises[soilUnknowns + c]);
+  for (let c = 0; c < m; c++) circleRise = Math.max(circleRise, circles[c].riseK);
 
   prepared.warmStart = Float64Array.from(rises);
   return {
@@ -284,7 +333,7 @@ export function solvePrepared(prepared: PreparedCrossSection, overrides: SolveOv
       conductorC: governingCable.conductorC,
       ...(governingCable.marginK !== undefined ? { marginK: governingCable.marginK } : {}),
     },
-    heat: { generatedWPerM: generated, toSurfaceWPerM: toSurface, toBottomWPerM: toBottom, energyResidual },
+    heat,
     iterations,
     mesh: meshReport(system),
     field: {
@@ -300,6 +349,30 @@ export function solvePrepared(prepared: PreparedCrossSection, overrides: SolveOv
     preconditioner: prepared.preconditionerKind,
     sideRiseRatio: circleRise > 0 ? sideRise / circleRise : 0,
   };
+}
+
+/** Certificate 2 on the diagonal: K_ii − Σ β_c s_ci² > 0 at every circle node. */
+function diagonalStaysPositive(system: CrossSectionSystem, terms: CableTerm[]): boolean {
+  const { val, diag } = system.matrix;
+  return terms.every((term, c) => {
+    const { nodes, share } = system.couplings[c];
+    for (let f = 0; f < nodes.length; f++) if (!(val[diag[nodes[f]]] - term.beta * share[f] * share[f] > 0)) return false;
+    return true;
+  });
+}
+
+/**
+ * Heat generated (every cable's losses at its solved temperature plus the fixed sources) against
+ * heat leaving through the surface and the bottom, relative to the largest term.
+ */
+function energyBalance(system: CrossSectionSystem, rises: Float64Array, cables: CableTemperatures[]): CrossSectionConverged['heat'] {
+  let generated = system.fixedSourceTotalW;
+  for (const cable of cables) generated += cable.losses.totalWPerM;
+  const toSurface = boundaryOutflow(system, system.top, rises);
+  const toBottom = boundaryOutflow(system, system.bottom, rises);
+  const scale = Math.max(Math.abs(generated), Math.abs(toSurface), Math.abs(toBottom), ENERGY_SCALE_FLOOR_W);
+  const energyResidual = Math.abs(generated - toSurface - toBottom) / scale;
+  return { generatedWPerM: generated, toSurfaceWPerM: toSurface, toBottomWPerM: toBottom, energyResidual: Number.isFinite(energyResidual) ? energyResidual : Infinity };
 }
 
 export function solveCrossSection(input: CrossSectionInput | unknown): CrossSectionResult {

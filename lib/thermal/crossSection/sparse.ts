@@ -18,13 +18,11 @@ export class ConductanceCollector {
   private cols: Int32Array;
   private vals: Float64Array;
   private count = 0;
-  readonly diagonal: Float64Array;
+  private diagonal: Float64Array;
 
-  constructor(
-    readonly n: number,
-    expectedConnections = 2 * n,
-  ) {
-    this.diagonal = new Float64Array(n);
+  /** Nodes may be added as they come: `nodes` and `expectedConnections` only size the first buffers. */
+  constructor(nodes: number, expectedConnections = 2 * nodes) {
+    this.diagonal = new Float64Array(nodes);
     this.rows = new Int32Array(2 * expectedConnections);
     this.cols = new Int32Array(2 * expectedConnections);
     this.vals = new Float64Array(2 * expectedConnections);
@@ -44,7 +42,15 @@ export class ConductanceCollector {
   }
 
   /** A conductance G between nodes u ≠ v: +G on both diagonals, −G off the diagonal. */
+  private reach(u: number): void {
+    if (u < this.diagonal.length) return;
+    const grown = new Float64Array(Math.max(2 * this.diagonal.length, u + 1));
+    grown.set(this.diagonal);
+    this.diagonal = grown;
+  }
+
   connect(u: number, v: number, g: number): void {
+    this.reach(Math.max(u, v));
     this.diagonal[u] += g;
     this.diagonal[v] += g;
     if (this.count + 2 > this.rows.length) this.grow();
@@ -60,11 +66,14 @@ export class ConductanceCollector {
 
   /** A conductance from node u to a fixed temperature (a boundary): +G on its diagonal. */
   ground(u: number, g: number): void {
+    this.reach(u);
     this.diagonal[u] += g;
   }
 
-  build(): Csr {
-    const { n, count: entries } = this;
+  /** The matrix over nodes 0 … n − 1. */
+  build(n: number): Csr {
+    this.reach(n - 1);
+    const entries = this.count;
     // Counting sort of the off-diagonal entries by row …
     const start = new Int32Array(n + 1);
     for (let k = 0; k < entries; k++) start[this.rows[k] + 1]++;

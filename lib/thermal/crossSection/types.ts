@@ -142,7 +142,7 @@ export interface CrossSectionOptions {
   /** Energy balance demanded, relative (default 1e-6). */
   energyTolerance?: number;
   maxOuterIterations?: number;
-  /** Conjugate-gradient stop: residual norm relative to the right-hand side (default 1e-11). */
+  /** Conjugate-gradient stop: residual norm relative to the right-hand side (default 1e-10). */
   cgRelativeTolerance?: number;
   maxCgIterations?: number;
   /** Default 'amg' (classical algebraic multigrid V-cycle); 'ic0' and 'jacobi' for comparison. */

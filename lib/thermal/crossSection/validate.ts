@@ -151,8 +151,6 @@ function validateCable(raw: unknown, field: string): NormalizedCable {
   const current = requireNonNegative(conductor.currentA, `${field}.conductor.currentA`);
   const r20 = requirePositive(conductor.r20OhmPerM, `${field}.conductor.r20OhmPerM`);
   const alpha20 = requireNonNegative(conductor.alpha20PerK, `${field}.conductor.alpha20PerK`);
-  // R(T) = R₂₀[1 + α(T − 20)] must stay positive over every temperature the ground can have.
-  if (alpha20 >= 1 / 293.15) throw new ThermalInputError(`${field}.conductor.alpha20PerK`, 'is too large for a conductor (R would vanish above absolute zero)');
   const acFactor = optional(conductor.acFactor, (v) => requirePositive(v, `${field}.conductor.acFactor`), 1);
   if (acFactor < 1) throw new ThermalInputError(`${field}.conductor.acFactor`, `must be at least 1 (R_ac ≥ R_dc), got ${acFactor}`);
 
@@ -318,7 +316,7 @@ function validateOptions(raw: unknown): NormalizedOptions {
     toleranceK: optional(o.toleranceK, (v) => requirePositive(v, 'options.toleranceK'), 1e-6),
     energyTolerance: optional(o.energyTolerance, (v) => requirePositive(v, 'options.energyTolerance'), 1e-6),
     maxOuterIterations: optional(o.maxOuterIterations, (v) => requirePositiveInteger(v, 'options.maxOuterIterations'), 50),
-    cgRelativeTolerance: optional(o.cgRelativeTolerance, (v) => requirePositive(v, 'options.cgRelativeTolerance'), 1e-11),
+    cgRelativeTolerance: optional(o.cgRelativeTolerance, (v) => requirePositive(v, 'options.cgRelativeTolerance'), 1e-10),
     maxCgIterations: optional(o.maxCgIterations, (v) => requirePositiveInteger(v, 'options.maxCgIterations'), 20000),
     preconditioner,
   };
@@ -339,6 +337,16 @@ export function validateCrossSection(raw: unknown): NormalizedCrossSection {
   const sources = optional(raw.heatSources, (v) => requireArray(v, 'heatSources'), []).map((s, i) =>
     validateSource(s, `heatSources[${i}]`, width, depth, cables),
   );
+  const surface = validateSurface(raw.surface);
+  const deepGround = requireTemperature(raw.deepGroundTemperatureC, 'deepGroundTemperatureC');
+  // R(T) = R₂₀[1 + α(T − 20)] must be positive at the coldest boundary, or the linear law has
+  // left the range where it describes a metal.
+  const coldest = Math.min(surface.kind === 'isothermal' ? surface.temperature : surface.air, deepGround);
+  cables.forEach((c, i) => {
+    if (!(1 + c.alpha20 * (coldest - 20) > 0)) {
+      throw new ThermalInputError(`cables[${i}].conductor.alpha20PerK`, `gives a resistance ≤ 0 at ${coldest} °C`);
+    }
+  });
   return {
     width,
     depth,
@@ -348,8 +356,8 @@ export function validateCrossSection(raw: unknown): NormalizedCrossSection {
     regions,
     cables,
     sources,
-    surface: validateSurface(raw.surface),
-    deepGround: requireTemperature(raw.deepGroundTemperatureC, 'deepGroundTemperatureC'),
+    surface,
+    deepGround,
     mesh: validateMesh(raw.mesh, width, depth),
     options: validateOptions(raw.options),
   };
