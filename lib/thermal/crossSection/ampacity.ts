@@ -57,13 +57,13 @@ export function ampacityOfPrepared(prepared: PreparedCrossSection, options: Cros
     (currentA) => {
       const currents = cables.map((c, i) => (ratedSet.has(i) ? currentA : c.current));
       const result = solvePrepared(prepared, { currentsA: currents });
-      if (result.converged) return { kind: 'value', excessK: -result.governing.marginK!, payload: result };
+      if (result.converged) return { kind: 'value', excessK: -result.governing!.marginK!, payload: result };
       if (result.status === 'runaway') return { kind: 'runaway' };
       throw new Error(`the cross-section solve failed at ${currentA} A: ${result.message}`);
     },
     { guessA, toleranceA, maxEvaluations: options.maxEvaluations ?? 60 },
   );
-  const g = root.payload.governing;
+  const g = root.payload.governing!;
   return {
     currentA: root.currentA,
     upperA: root.upperA,

@@ -15,6 +15,7 @@ export type {
   CrossSectionDuct,
   CrossSectionFailed,
   CrossSectionField,
+  CrossSectionFlag,
   CrossSectionHeat,
   CrossSectionHeatSource,
   CrossSectionInput,

@@ -34,6 +34,7 @@ import type {
   CableTemperatures,
   CrossSectionConverged,
   CrossSectionFailed,
+  CrossSectionFlag,
   CrossSectionInput,
   CrossSectionIterations,
   CrossSectionMeshReport,
@@ -308,7 +309,8 @@ export function solvePrepared(prepared: PreparedCrossSection, overrides: SolveOv
 
   const limited = cables.filter((c) => c.marginK !== undefined);
   const pool = limited.length > 0 ? limited : cables;
-  const governingCable = pool.reduce((best, c) => ((limited.length > 0 ? c.marginK! < best.marginK! : c.conductorC > best.conductorC) ? c : best));
+  const governingCable =
+    pool.length > 0 ? pool.reduce((best, c) => ((limited.length > 0 ? c.marginK! < best.marginK! : c.conductorC > best.conductorC) ? c : best)) : undefined;
 
   const { nx, ny } = system;
   const temperaturesC = new Float64Array(nx * ny);
@@ -327,12 +329,16 @@ export function solvePrepared(prepared: PreparedCrossSection, overrides: SolveOv
     converged: true,
     status: 'converged',
     cables,
-    governing: {
-      index: governingCable.index,
-      ...(governingCable.name !== undefined ? { name: governingCable.name } : {}),
-      conductorC: governingCable.conductorC,
-      ...(governingCable.marginK !== undefined ? { marginK: governingCable.marginK } : {}),
-    },
+    ...(governingCable
+      ? {
+          governing: {
+            index: governingCable.index,
+            ...(governingCable.name !== undefined ? { name: governingCable.name } : {}),
+            conductorC: governingCable.conductorC,
+            ...(governingCable.marginK !== undefined ? { marginK: governingCable.marginK } : {}),
+          },
+        }
+      : {}),
     heat,
     iterations,
     mesh: meshReport(system),
@@ -348,7 +354,44 @@ export function solvePrepared(prepared: PreparedCrossSection, overrides: SolveOv
     },
     preconditioner: prepared.preconditionerKind,
     sideRiseRatio: circleRise > 0 ? sideRise / circleRise : 0,
+    flags: resultFlags(system, circleRise > 0 ? sideRise / circleRise : 0),
   };
+}
+
+/** Below this u = 2L/D the even-flux circle and the isothermal cylinder differ by more than 0.8 %. */
+const SHALLOW_U = 4;
+/** Side-wall rise share above which the adiabatic sides may be too close. */
+const SIDE_RISE_SHARE = 0.01;
+
+function resultFlags(system: CrossSectionSystem, sideRiseRatio: number): CrossSectionFlag[] {
+  const flags: CrossSectionFlag[] = [];
+  system.problem.cables.forEach((cable, c) => {
+    const u = cable.depth / cable.radius;
+    if (u < SHALLOW_U) {
+      const isothermal = Math.log(u + Math.sqrt(u * u - 1));
+      const difference = (Math.log(2 * u) / isothermal - 1) * 100;
+      flags.push({
+        code: 'CROSS_SECTION_SHALLOW_CIRCLE',
+        severity: 'review',
+        message: `cables[${c}] is shallow for its size (2L/D = ${u.toFixed(2)}): the even-flux circle of the 2-D field gives ${difference.toFixed(1)} % more external resistance than an isothermal cylinder would`,
+      });
+    }
+    if (cable.duct?.preset) {
+      flags.push({
+        code: 'CROSS_SECTION_DUCT_CONSTANTS_FROM_MEMORY',
+        severity: 'note',
+        message: `cables[${c}]: the duct-air constants U, V, Y of '${cable.duct.preset}' are the IEC 60287-2-1 values as recalled, not read from the standard`,
+      });
+    }
+  });
+  if (sideRiseRatio > SIDE_RISE_SHARE) {
+    flags.push({
+      code: 'CROSS_SECTION_SIDE_BOUNDARY',
+      severity: 'review',
+      message: `the side walls warm by ${(sideRiseRatio * 100).toFixed(1)} % of the hottest cable surface's rise: the domain may be too narrow (or the deep ground is warmer than the surface)`,
+    });
+  }
+  return flags;
 }
 
 /** Certificate 2 on the diagonal: K_ii − Σ β_c s_ci² > 0 at every circle node. */

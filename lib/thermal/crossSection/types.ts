@@ -252,15 +252,21 @@ export interface CrossSectionConverged {
   converged: true;
   status: 'converged';
   cables: CableTemperatures[];
-  /** The governing cable: largest excess over its limit where limits are given, else hottest. */
-  governing: { index: number; name?: string; conductorC: number; marginK?: number };
+  /** The governing cable: largest excess over its limit where limits are given, else hottest (absent without cables). */
+  governing?: { index: number; name?: string; conductorC: number; marginK?: number };
   heat: CrossSectionHeat;
   iterations: CrossSectionIterations;
   mesh: CrossSectionMeshReport;
   field: CrossSectionField;
   preconditioner: PreconditionerKind;
-  /** Largest temperature rise on the side walls over the largest cable surface rise (domain check). */
+  /**
+   * Largest rise on the side walls over the largest circle rise: should be small, or the
+   * adiabatic sides are too close (it includes any background gradient between surface and deep
+   * ground, which is physical).
+   */
   sideRiseRatio: number;
+  /** Assumptions a reviewer should see. */
+  flags: CrossSectionFlag[];
 }
 
 export interface CrossSectionFailed {
@@ -274,6 +280,12 @@ export interface CrossSectionFailed {
   iterations: CrossSectionIterations;
   mesh: CrossSectionMeshReport;
   preconditioner: PreconditionerKind;
+}
+
+export interface CrossSectionFlag {
+  code: 'CROSS_SECTION_SHALLOW_CIRCLE' | 'CROSS_SECTION_SIDE_BOUNDARY' | 'CROSS_SECTION_DUCT_CONSTANTS_FROM_MEMORY';
+  severity: 'note' | 'review';
+  message: string;
 }
 
 export type CrossSectionResult = CrossSectionConverged | CrossSectionFailed;

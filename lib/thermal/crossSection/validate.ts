@@ -41,7 +41,7 @@ export interface NormalizedCable {
   proportional: Array<{ factor: number; after: number }>;
   fixed: Array<{ watts: number; after: number }>;
   dielectric?: { watts: number; inCovering: number };
-  duct?: { air: DuctAirConstants; wallResistance: number };
+  duct?: { air: DuctAirConstants; wallResistance: number; preset?: string };
   limit?: number;
 }
 
@@ -200,7 +200,11 @@ function validateCable(raw: unknown, field: string): NormalizedCable {
     const rho = requirePositive(d.wallThermalResistivityKmPerW, `${f}.wallThermalResistivityKmPerW`);
     if (!(di > outer)) throw new ThermalInputError(`${f}.innerDiameterM`, `must be larger than the cable (${outer} m)`);
     if (!(dout > di)) throw new ThermalInputError(`${f}.outerDiameterM`, 'must be larger than the inner diameter');
-    duct = { air: validateDuctAir(d.air, `${f}.air`), wallResistance: (rho / (2 * Math.PI)) * Math.log(dout / di) };
+    duct = {
+      air: validateDuctAir(d.air, `${f}.air`),
+      wallResistance: (rho / (2 * Math.PI)) * Math.log(dout / di),
+      ...(typeof d.air === 'string' ? { preset: d.air } : {}),
+    };
     radius = dout / 2;
   }
   const limit = optional(c.maxConductorTemperatureC, (v) => requireTemperature(v, `${field}.maxConductorTemperatureC`), undefined);
@@ -331,7 +335,6 @@ export function validateCrossSection(raw: unknown): NormalizedCrossSection {
   const soilConductivity = 1 / requirePositive(soil.thermalResistivityKmPerW, 'soil.thermalResistivityKmPerW');
   const regions = optional(raw.regions, (v) => requireArray(v, 'regions'), []).map((r, i) => validateRegion(r, `regions[${i}]`, width, depth));
   const cablesRaw = requireArray(raw.cables, 'cables');
-  if (cablesRaw.length === 0) throw new ThermalInputError('cables', 'must hold at least one cable');
   const cables = cablesRaw.map((c, i) => validateCable(c, `cables[${i}]`));
   checkCablePlacement(cables, width, depth);
   const sources = optional(raw.heatSources, (v) => requireArray(v, 'heatSources'), []).map((s, i) =>
