@@ -4,7 +4,8 @@
  * system (K − Σβ s sᵀ)·θ = b is taken from the solver's assembly; what is checked is that the
  * preconditioned conjugate gradients (every preconditioner) solve it, to 1e-6 K.
  */
-import { SparseMatrix, lusolve, slu } from 'mathjs';
+import * as mathjs from 'mathjs';
+import { lusolve, slu, type Matrix } from 'mathjs';
 import { describe, expect, it } from 'vitest';
 import type { CrossSectionInput } from '@/lib/thermal/crossSection';
 import { assemble } from '@/lib/thermal/crossSection/assemble';
@@ -55,6 +56,8 @@ describe('sparse direct solve (mathjs slu) of the same system', () => {
     }
     cscPtr.push(cscIndex.length);
   }
+  // mathjs exports the SparseMatrix class at run time; its type declarations leave it out.
+  const SparseMatrix = (mathjs as unknown as { SparseMatrix: new (data: { values: number[]; index: number[]; ptr: number[]; size: number[] }) => Matrix }).SparseMatrix;
   const matrix = new SparseMatrix({ values: cscValues, index: cscIndex, ptr: cscPtr, size: [n, n] });
   const lu = slu(matrix, 2, 1);
   const solved = lusolve(lu, Array.from(tangent.rhs));
