@@ -264,15 +264,19 @@ function denseCholesky(a: Csr): (b: Float64Array, x: Float64Array) => void {
   };
 }
 
+function gaussSeidelRow(rowPtr: Int32Array, col: Int32Array, val: Float64Array, diag: Int32Array, b: Float64Array, x: Float64Array, i: number): void {
+  let s = b[i];
+  const d = diag[i];
+  // Columns are sorted: the entries before and after the diagonal, without a test per entry.
+  for (let p = rowPtr[i]; p < d; p++) s -= val[p] * x[col[p]];
+  for (let p = d + 1, end = rowPtr[i + 1]; p < end; p++) s -= val[p] * x[col[p]];
+  x[i] = s / val[d];
+}
+
 function gaussSeidel(a: Csr, b: Float64Array, x: Float64Array, forward: boolean): void {
   const { n, rowPtr, col, val, diag } = a;
-  for (let step = 0; step < n; step++) {
-    const i = forward ? step : n - 1 - step;
-    let s = b[i];
-    const d = diag[i];
-    for (let p = rowPtr[i]; p < rowPtr[i + 1]; p++) if (p !== d) s -= val[p] * x[col[p]];
-    x[i] = s / val[d];
-  }
+  if (forward) for (let i = 0; i < n; i++) gaussSeidelRow(rowPtr, col, val, diag, b, x, i);
+  else for (let i = n - 1; i >= 0; i--) gaussSeidelRow(rowPtr, col, val, diag, b, x, i);
 }
 
 function applyTransfer(rows: number, m: Transfer, x: Float64Array, y: Float64Array, add: boolean): void {
