@@ -316,10 +316,9 @@ export function solvePrepared(prepared: PreparedCrossSection, overrides: SolveOv
   const temperaturesC = new Float64Array(nx * ny);
   for (let cell = 0; cell < nx * ny; cell++) temperaturesC[cell] = referenceC + rises[cell];
   let sideRise = 0;
-  for (let j = 0; j < ny; j++) {
-    for (const i of [0, nx - 1]) {
-      sideRise = Math.max(sideRise, rises[j * nx + i]);
-    }
+  for (const i of [0, nx - 1]) {
+    const background = columnBackground(system, i);
+    for (let j = 0; j < ny; j++) sideRise = Math.max(sideRise, Math.abs(rises[j * nx + i] - background[j]));
   }
   let circleRise = 0;
   for (let c = 0; c < m; c++) circleRise = Math.max(circleRise, circles[c].riseK);
@@ -358,6 +357,26 @@ export function solvePrepared(prepared: PreparedCrossSection, overrides: SolveOv
   };
 }
 
+/**
+ * Rises of one column of cells with no heat at all: 1-D conduction between the surface and the
+ * deep ground through the column's own cells (series resistances per metre of width). At a side
+ * wall the heating by the cables is what exceeds this.
+ */
+function columnBackground(system: CrossSectionSystem, i: number): Float64Array {
+  const { nx, ny, yFaces, conductivity, top, bottom, referenceC } = system;
+  const width = system.xFaces[i + 1] - system.xFaces[i];
+  const toNode = new Float64Array(ny);
+  let r = width / top.conductance[i];
+  for (let j = 0; j < ny; j++) {
+    if (j > 0) r += (yFaces[j] - yFaces[j - 1]) / (2 * conductivity[(j - 1) * nx + i]) + (yFaces[j + 1] - yFaces[j]) / (2 * conductivity[j * nx + i]);
+    toNode[j] = r;
+  }
+  const total = r + width / bottom.conductance[i];
+  const topRise = top.temperatureC - referenceC;
+  const bottomRise = bottom.temperatureC - referenceC;
+  return toNode.map((rj) => topRise + ((bottomRise - topRise) * rj) / total);
+}
+
 /** Below this u = 2L/D the even-flux circle and the isothermal cylinder differ by more than 0.8 %. */
 const SHALLOW_U = 4;
 /** Side-wall rise share above which the adiabatic sides may be too close. */
@@ -388,7 +407,7 @@ function resultFlags(system: CrossSectionSystem, sideRiseRatio: number): CrossSe
     flags.push({
       code: 'CROSS_SECTION_SIDE_BOUNDARY',
       severity: 'review',
-      message: `the side walls warm by ${(sideRiseRatio * 100).toFixed(1)} % of the hottest cable surface's rise: the domain may be too narrow (or the deep ground is warmer than the surface)`,
+      message: `the side walls warm by ${(sideRiseRatio * 100).toFixed(1)} % of the hottest cable surface's rise: the domain may be too narrow`,
     });
   }
   return flags;

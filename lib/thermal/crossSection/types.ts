@@ -260,9 +260,9 @@ export interface CrossSectionConverged {
   field: CrossSectionField;
   preconditioner: PreconditionerKind;
   /**
-   * Largest rise on the side walls over the largest circle rise: should be small, or the
-   * adiabatic sides are too close (it includes any background gradient between surface and deep
-   * ground, which is physical).
+   * Largest warming of the side walls by the heat sources (their rise above the no-heat column
+   * between surface and deep ground) over the largest circle rise: should be small, or the
+   * adiabatic sides are too close.
    */
   sideRiseRatio: number;
   /** Assumptions a reviewer should see. */
