@@ -4,10 +4,10 @@
  * Appl. Math. 128, 2001) used as the preconditioner of the conjugate gradients.
  *
  * Why algebraic and not geometric: the grid is graded towards every cable, so far from the
- * cables the cells are long and thin (aspect ratios of 100 and more) and each cable is one node
- * joined to dozens of cut faces. A point smoother on a geometric hierarchy stalls on such
+ * cables the cells are long and thin (aspect ratios of 100 and more), and the nodes on the
+ * cables' circles sit at uneven distances from their neighbours. A point smoother on a geometric hierarchy stalls on such
  * anisotropy; the algebraic coarsening follows the strong couplings instead (it coarsens along
- * the thin direction only), and it takes the cable nodes and the material jumps as they come.
+ * the thin direction only), and it takes the circle nodes and the material jumps as they come.
  *
  *   strength:       j strongly influences i if −a_ij ≥ θ·max_k(−a_ik), θ = 0.25;
  *   C/F splitting:  Ruge–Stüben first pass (largest number of strongly dependent points first);

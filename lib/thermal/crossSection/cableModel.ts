@@ -21,8 +21,8 @@
  * With W_c = a + b·T_c (a = I²R₂₀F_ac(1 − 20α), b = I²R₂₀F_acα; R(T) is linear in T) this solves
  * in closed form, T_c = (T_s + a·A + F)/(1 − b·A), and the cable's total heat is LINEAR in the
  * circle temperature: W(T_s) = W(T_ref) + β·(T_s − T_ref), β = (1 + Λ)·b/(1 − b·A) ≥ 0. The
- * solver puts β on the cable node's diagonal (the S_p of Patankar's linearisation, exact here)
- * and W(T_ref) on its right-hand side. If b·A ≥ 1 the coverings alone cannot pass the heat at any
+ * solver takes β as the cable's S_p (Patankar's linearisation, exact here) and W(T_ref) as its
+ * S_u, both spread over the circle's nodes (solve.ts). If b·A ≥ 1 the coverings alone cannot pass the heat at any
  * surface temperature: runaway inside the cable.
  */
 import { ThermalInputError } from '../errors';

@@ -1,6 +1,6 @@
 /**
- * Compressed sparse rows (CSR) for the symmetric conductance matrix: the soil cells form a
- * five-point pattern, a cable node has one entry per cut face. Columns are sorted in each row.
+ * Compressed sparse rows (CSR) for the symmetric conductance matrix: the cells form a
+ * five-point pattern, a node on a circle joins two neighbours. Columns are sorted in each row.
  */
 
 export interface Csr {
@@ -86,7 +86,7 @@ export class ConductanceCollector {
       c0[p] = this.cols[k];
       v0[p] = this.vals[k];
     }
-    // … then each row sorted by column (insertion sort: rows are short but for cable nodes),
+    // … then each row sorted by column (insertion sort: every row is short),
     // duplicates summed and the diagonal put in its place.
     const rowPtr = new Int32Array(n + 1);
     const col = new Int32Array(entries + n);

@@ -13,9 +13,9 @@
  */
 
 /**
- * Shortest soil path kept, as a share of the node spacing. A node just outside a circle would
- * give an unbounded conductance; Gibou et al. (2002) bound the distance the same way. The
- * temperature error this makes is below (share × spacing × local gradient), i.e. negligible.
+ * Shortest soil path kept, as a share of the node spacing. A circle node that falls on (or next
+ * to) a cell centre would give an unbounded conductance; Gibou et al. (2002) bound the distance
+ * the same way. The temperature error this makes is below share × spacing × local gradient.
  */
 export const MIN_PATH_SHARE = 0.01;
 
@@ -34,8 +34,8 @@ export interface SoilPath {
 /**
  * Diffusion term of one face: the conductance between its two nodes, the soil path's two parts
  * in series (harmonic mean across a material interface, exact for a 1-D flux), times the face
- * length. A node that is a cable's circle starts (or ends) its path where the grid line meets
- * the circle (circles.ts).
+ * length. Where the segment crosses a circle it is cut into pieces at the circle's node
+ * (circles.ts), each piece a path of its own.
  */
 export function faceConductance(faceLengthM: number, path: SoilPath): number {
   let { start, end } = path;
@@ -121,9 +121,9 @@ export function rectangleSourceShares(
 }
 
 /**
- * Source term of a cable node, S_u + S_p·T in rises above the reference: the cable's heat is a
- * line in its circle temperature (cableModel.ts), W = W(T_ref) + β·θ_s, so S_u = W(T_ref) goes to
- * the right-hand side and S_p = β comes off the diagonal. Exact, not a linearisation, because
+ * Source term of a cable, S_u + S_p·T in rises above the reference: the cable's heat is a line
+ * in its circle temperature (cableModel.ts), W = W(T_ref) + β·θ_s, so S_u = W(T_ref) goes to the
+ * right-hand side and S_p = β comes off the matrix (spread over the circle nodes as β·s·sᵀ). Exact, not a linearisation, because
  * R(T) is linear in T.
  */
 export function cableSourceTerm(heatAtReferenceW: number, slopeWPerK: number): { su: number; sp: number } {

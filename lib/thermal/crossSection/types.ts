@@ -207,8 +207,11 @@ export interface CrossSectionField {
   depthFacesM: Float64Array;
   xCentresM: Float64Array;
   depthCentresM: Float64Array;
-  /** °C per cell, row by row from the surface down: index = row·nx + column. Cells inside a cable
-   * circle carry that circle's (the cable's or duct's outer) surface temperature. */
+  /**
+   * °C per cell, row by row from the surface down: index = row·nx + column. Cells inside a cable
+   * circle carry the 2-D field of the soil there (the superposition's view); the cable's own
+   * temperatures are in `cables`, so a plot should draw the circles over them.
+   */
   temperaturesC: Float64Array;
   /** −1 for soil, else the index of the cable whose circle holds the cell's centre. */
   cableOfCell: Int32Array;
@@ -218,7 +221,7 @@ export interface CrossSectionMeshReport {
   nx: number;
   ny: number;
   cells: number;
-  /** Soil cells plus one node per cable. */
+  /** Cells plus the nodes on the cables' circles. */
   unknowns: number;
   smallestCellM: number;
   largestCellM: number;
