@@ -223,11 +223,25 @@ function airModel(arrangement: Arrangement, cables: GroupCable[], cand: Prepared
     row = ownRow.arrangement;
     notes.push(...ownRow.assumptions);
   } else {
-    // Not tabulated: rate as the closest tabulated arrangement that runs hotter (touching).
+    // Not tabulated: rate as the closest tabulated arrangement that runs hotter. A trefoil spaced
+    // by at least one diameter has each cable in the rising air of those below, as three cables
+    // spaced D_e in a vertical row have (that row is taken); closer, or any other row, as touching.
     const c = arrangement.circuits[0];
     const n = c.formation === 'trefoil' ? 3 : c.cableCount ?? 3;
-    row = c.formation === 'trefoil' ? 'trefoil-touching' : c.formation === 'flat-vertical' ? (n === 2 ? 'two-touching-vertical' : 'three-touching-vertical') : n === 2 ? 'two-touching-horizontal' : 'three-touching-horizontal';
-    conservativeRow = `${ownRow.reason}; rated as ${FREE_AIR_CONSTANTS[row].description}, which runs hotter`;
+    const clearance = c.spacing === 'spaced' && c.axisSpacingM !== undefined ? (c.axisSpacingM - c.externalDiameterM) / c.externalDiameterM : 0;
+    row =
+      c.formation === 'trefoil'
+        ? clearance >= 1 - 1e-9
+          ? 'three-spaced-vertical'
+          : 'trefoil-touching'
+        : c.formation === 'flat-vertical'
+          ? n === 2
+            ? 'two-touching-vertical'
+            : 'three-touching-vertical'
+          : n === 2
+            ? 'two-touching-horizontal'
+            : 'three-touching-horizontal';
+    conservativeRow = `${ownRow.reason}; rated as ${FREE_AIR_CONSTANTS[row].description}, the closest tabulated arrangement taken as a cautious stand-in (a judgement for the reviewer)`;
   }
   const uncovered = uncoveredNeighboursOf(cables);
   const others = new Set(cables.filter((k) => k.circuit !== 0).map((k) => k.circuit));

@@ -10,10 +10,14 @@ import { FlagSet, fmt } from './flags';
 import { GROUP_TEXT, MODEL_TEXT } from './flagText';
 import { cableGroupOf, type CableGroup } from './cableGroup';
 import { solveBuriedGroup, type GroupSteadyResult } from './groupSolve';
-import { buildThermalModel, type Mesh, type ThermalModel } from './model';
+import { asSingleCoreCable } from './closedForm';
+import { buildThermalModel, type CableLosses, type Mesh, type ThermalModel } from './model';
+import { screenLossFactorAt, type CircuitGeometry } from '../iec60287/rating';
+import { dielectricLoss } from '../iec60287/screens';
+import type { CablePosition } from '../iec60287/arrangement';
 import { prepareCandidate } from './prepareCandidate';
 import { conditionFlags } from './prepareConditions';
-import type { PreparedCandidate, PreparedConditions } from './prepared';
+import type { PreparedCable, PreparedCandidate, PreparedConditions } from './prepared';
 import type { Candidate } from './types';
 
 export interface SizingContext {
@@ -32,10 +36,55 @@ export interface SizingContext {
 export function sizingContext(candidate: Candidate, cond: PreparedConditions, index: number, flags = new FlagSet()): SizingContext {
   const cand = prepareCandidate(candidate, index, cond, flags);
   const group = cand.kind === 'cable' ? cableGroupOf(cand, cond) : undefined;
+  const losses = cand.kind === 'cable' && group ? cableLossesOf(cand, cond, group, flags) : undefined;
   const groupLawInAir = group !== undefined && group.model.kind === 'air' && group.model.constants !== null && cond.surfaceCoefficientWPerM2K === undefined;
   conditionFlags(cond, flags, { windCredited: !groupLawInAir });
   if (group) groupFlags(group, cond, flags);
-  return { cand, cond, ...(group ? { group } : {}), model: buildThermalModel(cand, cond, group), acFn: acFactorFunction(cand, cond), flags, solves: 0 };
+  const acFn = acFactorFunction(cand, cond);
+  if (losses) losses.acResistanceAt = (t) => ((cand.r20 / (cand.kind === 'cable' ? cand.loadedCores : 1)) * (1 + cand.alpha20 * (t - 20))) * acFn(t).factor;
+  return { cand, cond, ...(group ? { group } : {}), model: buildThermalModel(cand, cond, group, losses), acFn, flags, solves: 0 };
+}
+
+/**
+ * The screen and dielectric losses of a cable (IEC 60287-1-1 §2.2–2.3, lib/electrical/iec60287):
+ * where in the 1-D model they are released and how large, or undefined when neither counts.
+ */
+function cableLossesOf(cand: PreparedCable, cond: PreparedConditions, group: CableGroup, flags: FlagSet): CableLosses | undefined {
+  const cable = asSingleCoreCable(cand);
+  const n = cand.loadedCores;
+  const dEq = cand.conductorDiameterM * Math.sqrt(n);
+  const losses: CableLosses = { acResistanceAt: () => 0 };
+  if (cand.screen && cand.screenLayerIndex !== undefined && cond.frequencyHz > 0) {
+    const run = group.arrangement.circuits[0];
+    const circuit: CircuitGeometry = {
+      cableCount: run.formation === 'single' ? 1 : run.formation === 'trefoil' ? 3 : run.cableCount ?? 3,
+      axisSpacingM: group.layout.circuitAxisSpacingM[0],
+      formation: run.formation,
+      transposed: run.transposed ?? false,
+    };
+    const positions = circuit.cableCount === 1 ? ['alone'] : run.formation === 'trefoil' ? ['trefoil'] : circuit.cableCount === 2 ? ['pair'] : ['flat-outer', 'flat-centre'];
+    const lambdaAt = (position: string, conductorAcOhmPerM: number, screenC: number) =>
+      screenLossFactorAt({ cable, position: position as CablePosition, circuit, conductorAcResistanceOhmPerM: conductorAcOhmPerM, screenTemperatureC: screenC, frequencyHz: cond.frequencyHz }).lambda1;
+    const lambda1 = (position: string, r: number, screenC: number) =>
+      position === 'worst' ? Math.max(...positions.map((p) => lambdaAt(p, r, screenC))) : lambdaAt(position, r, screenC);
+    let radius = dEq / 2;
+    for (let i = 0; i < cand.screenLayerIndex; i++) radius += cand.layers[i].thicknessM;
+    radius += cand.layers[cand.screenLayerIndex].thicknessM / 2;
+    losses.screen = { radiusM: radius, lambda1, worstPosition: 'worst' };
+    const basis = screenLossFactorAt({ cable, position: positions[0] as CablePosition, circuit, conductorAcResistanceOhmPerM: losses.acResistanceAt(90) || cand.r20, screenTemperatureC: 70, frequencyHz: cond.frequencyHz }).basis;
+    flags.add('SCREEN_LOSSES_INCLUDED', MODEL_TEXT.screenLossesIncluded(basis));
+  }
+  const insulationOuter = dEq + 2 * cable.insulation.thicknessM;
+  const dielectric = cond.frequencyHz > 0 ? dielectricLoss({ insulation: cable.insulation.material, voltageU0V: cond.nominalVoltageV, frequencyHz: cond.frequencyHz, conductorDiameterM: dEq, insulationDiameterM: insulationOuter }) : null;
+  if (dielectric?.counts && dielectric.lossWPerM > 0) {
+    // Spread over the insulation by volume: six points at the radii that halve each sixth of its area.
+    const r0 = dEq / 2;
+    const r1 = insulationOuter / 2;
+    const radiiM = Array.from({ length: 6 }, (_, i) => Math.sqrt(r0 * r0 + ((i + 0.5) / 6) * (r1 * r1 - r0 * r0)));
+    losses.dielectric = { lossWPerM: dielectric.lossWPerM * n, radiiM };
+    flags.add('DIELECTRIC_LOSSES_INCLUDED', MODEL_TEXT.dielectricLossesIncluded(dielectric.lossWPerM * n, dielectric.reason), { lossWPerM: dielectric.lossWPerM * n });
+  }
+  return losses.screen || losses.dielectric ? losses : undefined;
 }
 
 /** What the reviewer must know of how the group was rated. */
@@ -101,7 +150,7 @@ export function solveAt(ctx: SizingContext, modelCurrentA: number, acFactor: num
     const result: GroupSteadyResult =
       group && group.model.kind === 'buried' && !group.isolated
         ? solveBuriedGroup(ctx, group, group.model, modelCurrentA, acFactor, mesh)
-        : modelCurrentA === 0
+        : modelCurrentA === 0 && ctx.model.fixedHeatWPerM === 0
           ? solveSteady(zeroFlowProblem(ctx.model.problem(0, acFactor, mesh)))
           : ctx.model.solver(mesh).at(modelCurrentA, acFactor);
     // A group's runaway (mutual heating feeding itself) comes without an onset current; only a

@@ -55,6 +55,10 @@ export const MODEL_TEXT = {
   groupRowConservative: (reason: string) => `${reason}.`,
   windNotCreditedToGroup: (speed: number) =>
     `An air speed of ${fmt(speed)} m/s was entered, but the free-air law of a group of cables is for still air, so the wind is not credited (cautious).`,
+  screenLossesIncluded: (basis: string) =>
+    `Losses in the metallic screen are included: λ₁ ${basis} (IEC 60287-1-1 §2.3, from memory), recomputed at every solve from the conductor's resistance and the screen's temperature and released at the screen.`,
+  dielectricLossesIncluded: (lossWPerM: number, reason: string) =>
+    `Dielectric losses of ${fmt(lossWPerM, 3)} W/m are included, spread over the insulation: ${reason}.`,
   otherCircuitHeatEntered: (count: number) =>
     `The heat of ${count} other circuit${count > 1 ? 's' : ''} was entered per cable rather than computed here; check it against that circuit's own rating at its current.`,
   barEdges: (factor: number) =>

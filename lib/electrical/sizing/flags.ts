@@ -50,6 +50,8 @@ const STEADY_FLAG_CODES = [
   'GROUP_ROW_CONSERVATIVE',
   'WIND_NOT_CREDITED_TO_GROUP',
   'OTHER_CIRCUIT_HEAT_ENTERED',
+  'SCREEN_LOSSES_INCLUDED',
+  'DIELECTRIC_LOSSES_INCLUDED',
 ] as const;
 
 /** Codes raised only by the optional checks beyond the steady state (sizing/beyondSteady.ts, sizing/enclosureAir.ts), never by evaluateCandidate. */
@@ -117,6 +119,8 @@ export const FLAG_REGISTRY: Readonly<Record<FlagCode, Readonly<FlagDefinition>>>
   OTHER_CIRCUITS_NOT_COVERED: { severity: 'blocker', title: 'Nearby circuits in air not rated', basis: 'IEC 60287-2-1 Table 2 covers one group; IEC 60364-5-52 Annex B grouping factors (from memory)' },
   GROUP_ROW_CONSERVATIVE: { severity: 'review', title: 'Cable spacing not tabulated: rated as touching', basis: 'IEC 60287-2-1 Table 2 (touching and the tabulated clearances only)' },
   WIND_NOT_CREDITED_TO_GROUP: { severity: 'note', title: 'Wind not credited to a group of cables', basis: 'IEC 60287-2-1 §4.2.1 free-air law is for still air' },
+  SCREEN_LOSSES_INCLUDED: { severity: 'note', title: 'Screen losses included', basis: 'IEC 60287-1-1 §2.3 (λ₁ by bonding and formation, from memory)' },
+  DIELECTRIC_LOSSES_INCLUDED: { severity: 'note', title: 'Dielectric losses included', basis: 'IEC 60287-1-1 §2.2 and Table 3 (from memory)' },
   OTHER_CIRCUIT_HEAT_ENTERED: { severity: 'review', title: 'Heat of another circuit entered by the user', basis: 'IEC 60287-2-1 §4.2.3 (superposition of the entered heat)' },
 
   OVERLOAD_LIMIT_REACHED: { severity: 'blocker', title: 'Overload reaches the limit too soon', basis: 'physics.md §6 (implicit-Euler heat balance from the steady state at the design current)' },

@@ -13,11 +13,11 @@
  * (reported as such, never as a temperature). The duct air's T₄′ (at its mean temperature) and the
  * neighbours' AC factors (at their temperatures) are settled by repeating the whole step.
  */
-import type { PreparedProblem, SteadyResult } from '../../thermal';
+import type { SteadyResult } from '../../thermal';
 import { SizingError } from '../errors';
 import { ductAirT4, type BuriedGroupModel, type CableGroup } from './cableGroup';
 import type { SizingContext } from './context';
-import { heatPerMetre, readLimits, type Mesh } from './model';
+import { heatPerMetre, readLimits, type CableSolve, type Mesh } from './model';
 
 /** Ambient step for the affine response of a cable's heat, K. */
 const RESPONSE_STEP_K = 10;
@@ -46,10 +46,10 @@ export interface GroupSolution {
 export type GroupSteadyResult = SteadyResult & { group?: GroupSolution };
 
 /** The prepared 1-D problem of one unit behind its own external resistance, cached per mesh and h. */
-function unitProblem(ctx: SizingContext, model: BuriedGroupModel, mesh: Mesh, unit: number, hWPerM2K: number): PreparedProblem {
+function unitProblem(ctx: SizingContext, model: BuriedGroupModel, mesh: Mesh, unit: number, hWPerM2K: number): CableSolve {
   const key = `${mesh}:${unit}:${hWPerM2K}`;
-  const cache = (model as BuriedGroupModel & { prepared?: Map<string, PreparedProblem> }).prepared ?? new Map<string, PreparedProblem>();
-  (model as BuriedGroupModel & { prepared?: Map<string, PreparedProblem> }).prepared = cache;
+  const cache = (model as BuriedGroupModel & { prepared?: Map<string, CableSolve> }).prepared ?? new Map<string, CableSolve>();
+  (model as BuriedGroupModel & { prepared?: Map<string, CableSolve> }).prepared = cache;
   let p = cache.get(key);
   if (!p) {
     if (cache.size > 64) cache.clear(); // duct air settling makes new h values; keep the cache small
@@ -117,6 +117,9 @@ export function solveBuriedGroup(ctx: SizingContext, group: CableGroup, model: B
   const n = units.length;
   const meanAirC = units.map(() => ground + 20);
   const airHistory = units.map(() => ({ x: Number.NaN, g: Number.NaN }));
+  const baseRise = units.map(() => 0);
+  // A closed-form circuit's screen loss: its worst member's (cautious); a cable alone: its own.
+  const positionOf = (i: number) => (units[i].members.length > 1 ? 'worst' : group.cables[units[i].cable].position);
   const factors = units.map((u) => (u.rated ? acFactor : acFactor));
   const currentOf = (i: number) => (units[i].rated ? modelCurrentA : (units[i].fixedConductorA ?? 0) * ctx.model.currentScale);
   let results: SteadyResult[] = [];
@@ -124,7 +127,7 @@ export function solveBuriedGroup(ctx: SizingContext, group: CableGroup, model: B
   let rises: number[] = [];
   let passes = 0;
   for (; passes < MAX_PASSES; passes++) {
-    const prepared: PreparedProblem[] = [];
+    const prepared: CableSolve[] = [];
     const c: number[] = [];
     const d: number[] = [];
     const t4: number[] = [];
@@ -135,12 +138,14 @@ export function solveBuriedGroup(ctx: SizingContext, group: CableGroup, model: B
       const p = unitProblem(ctx, model, mesh, i, 1 / (t4[i] * Math.PI * de));
       prepared.push(p);
       ctx.solves += 2;
-      const r0 = p.at(currentOf(i), factors[i], { outerAmbientC: ground });
+      const r0 = p.at(currentOf(i), factors[i], { outerAmbientC: ground + baseRise[i], position: positionOf(i) });
       if (!r0.converged) return r0.runaway ? runawayResult(r0) : r0;
-      const r1 = p.at(currentOf(i), factors[i], { outerAmbientC: ground + RESPONSE_STEP_K });
+      const r1 = p.at(currentOf(i), factors[i], { outerAmbientC: ground + baseRise[i] + RESPONSE_STEP_K, position: positionOf(i) });
       if (!r1.converged) return r1.runaway ? runawayResult(r1) : r1;
-      c[i] = heatPerMetre(ctx.model, r0);
-      d[i] = Math.max(0, (heatPerMetre(ctx.model, r1) - c[i]) / RESPONSE_STEP_K);
+      // W = c + d·ΔT about the last pass's rise (exactly affine without a screen; the screen's λ₁
+      // moves a little with temperature, which the passes settle).
+      d[i] = Math.max(0, (heatPerMetre(ctx.model, r1) - heatPerMetre(ctx.model, r0)) / RESPONSE_STEP_K);
+      c[i] = heatPerMetre(ctx.model, r0) - d[i] * baseRise[i];
     }
     // Each unit's rise from the others, at the member position that gets the most (cautious).
     const rowOf = units.map((u) => {
@@ -179,10 +184,12 @@ export function solveBuriedGroup(ctx: SizingContext, group: CableGroup, model: B
     let settled = true;
     for (let i = 0; i < n; i++) {
       ctx.solves++;
-      const r = prepared[i].at(currentOf(i), factors[i], { outerAmbientC: ground + rises[i] });
+      const r = prepared[i].at(currentOf(i), factors[i], { outerAmbientC: ground + rises[i], position: positionOf(i) });
       if (!r.converged) return r.runaway ? runawayResult(r) : r;
       results.push(r);
       heats.push(heatPerMetre(ctx.model, r));
+      if (Math.abs(heats[i] - w[i]) > SETTLED * Math.max(1, heats[i])) settled = false;
+      baseRise[i] = rises[i];
       // The duct air sits between the cable surface and the duct wall: its mean temperature is the
       // surface less half the drop across T₄′ (IEC 60287-2-1 §4.2.7.1 evaluates T₄′ at θ_m).
       if (model.duct) {

@@ -74,35 +74,101 @@ export interface ThermalModel {
   buriedT4?: number;
   /** The problem at a model current and AC factor. */
   problem(modelCurrentA: number, acFactor: number, mesh: Mesh): ThermalProblem;
-  /** The problem on a mesh, prepared once, solved at any model current and AC factor. */
-  solver(mesh: Mesh): PreparedSolve;
+  /** Heat released whatever the current (a cable's dielectric loss), W/m: with it, 0 A is not "no heat". */
+  fixedHeatWPerM: number;
+  /** The problem on a mesh, prepared once, solved at any model current and AC factor (a cable's screen loss settled). */
+  solver(mesh: Mesh): CableSolve;
   /**
    * The same conductor and coverings with a linear outer surface of its own, prepared once: a
    * buried cable of a group, whose external resistance T₄ gives h = 1/(T₄·π·D_e) and whose ground
    * is raised by its neighbours' heat (the ambient given per call).
    */
-  withOuterSurface(mesh: Mesh, hWPerM2K: number): PreparedProblem;
+  withOuterSurface(mesh: Mesh, hWPerM2K: number): CableSolve;
 }
 
 /** A thermal problem whose geometry and surroundings are fixed, solved at many currents. */
-export interface PreparedSolve {
-  at(modelCurrentA: number, acFactor: number): SteadyResult;
+export type PreparedSolve = CableSolve;
+
+export function buildThermalModel(c: PreparedCandidate, k: PreparedConditions, group?: CableGroup, losses?: CableLosses): ThermalModel {
+  return c.kind === 'cable' ? cableModel(c, k, group, losses) : barModel(c, k);
 }
 
-function preparedSolve(problem: ThermalProblem): PreparedSolve {
-  const prepared = prepare(problem);
-  return { at: (current, acFactor) => prepared.at(current, acFactor) };
+/**
+ * Losses of a cable besides its conductor's (IEC 60287-1-1 §2.2–2.3), released where they arise:
+ * the screen's at its mid-radius, λ₁ times the conductor's loss (λ₁ from the conductor's AC
+ * resistance and the screen's temperature, for the cable's place in its circuit); the dielectric
+ * loss spread over the insulation. Both are point sources of the 1-D model.
+ */
+export interface CableLosses {
+  screen?: { radiusM: number; lambda1: (position: string, conductorAcOhmPerM: number, screenC: number) => number; worstPosition: string };
+  dielectric?: { lossWPerM: number; radiiM: number[] };
+  /** R_ac of the model conductor per metre at a temperature. */
+  acResistanceAt: (temperatureC: number) => number;
 }
 
-export function buildThermalModel(c: PreparedCandidate, k: PreparedConditions, group?: CableGroup): ThermalModel {
-  return c.kind === 'cable' ? cableModel(c, k, group) : barModel(c, k);
+/** A prepared cable problem whose screen loss follows its conductor's: solved at a current (and ambient) for a cable's place. */
+export interface CableSolve {
+  at(modelCurrentA: number, acFactor: number, options?: { outerAmbientC?: number; position?: string }): SteadyResult;
+}
+
+const SCREEN_LOSS_SETTLED = 1e-10;
+
+/** Mean temperature of the generating (first) layer of a converged cylinder solve. */
+function conductorMeanC(result: SteadyResult): number {
+  const bound = result.layerBounds[0];
+  let sum = 0;
+  let count = 0;
+  result.positions.forEach((x, j) => {
+    if (x >= bound.from && x <= bound.to) {
+      sum += result.temperatures[j];
+      count++;
+    }
+  });
+  return count > 0 ? sum / count : result.hotSpot.temperature;
+}
+
+/** Temperature at the cell nearest a radius (the screen is thin: one cell holds it). */
+function temperatureNear(result: SteadyResult, radiusM: number): number {
+  let best = 0;
+  for (let j = 1; j < result.positions.length; j++) if (Math.abs(result.positions[j] - radiusM) < Math.abs(result.positions[best] - radiusM)) best = j;
+  return result.temperatures[best];
+}
+
+/**
+ * Solves with the screen loss settled: λ₁·W_c depends on the conductor loss W_c and on the
+ * temperatures it produces, so the heat at the screen is updated from each solve until it moves
+ * by less than 1e-10 of W_c (the coupling is weak: two or three solves).
+ */
+export function withCableLosses(prepared: PreparedProblem, losses: CableLosses | undefined): CableSolve {
+  const points = (losses?.screen ? 1 : 0) + (losses?.dielectric?.radiiM.length ?? 0);
+  if (!losses || points === 0) return { at: (current, factor, o) => prepared.at(current, factor, o?.outerAmbientC !== undefined ? { outerAmbientC: o.outerAmbientC } : undefined) };
+  const dielectric = losses.dielectric ? losses.dielectric.radiiM.map(() => losses.dielectric!.lossWPerM / losses.dielectric!.radiiM.length) : [];
+  const dielectricTotal = dielectric.reduce((a, b) => a + b, 0);
+  return {
+    at: (current, factor, o) => {
+      let screenHeat = 0;
+      let result: SteadyResult | null = null;
+      for (let pass = 0; pass < 30; pass++) {
+        const pointHeats = losses.screen ? [screenHeat, ...dielectric] : dielectric;
+        result = prepared.at(current, factor, { ...(o?.outerAmbientC !== undefined ? { outerAmbientC: o.outerAmbientC } : {}), pointHeats });
+        if (!result.converged || !losses.screen) return result;
+        const conductorW = (result.heatGeneratedWPerM ?? 0) - screenHeat - dielectricTotal;
+        const thetaC = conductorMeanC(result);
+        const lambda1 = losses.screen.lambda1(o?.position ?? losses.screen.worstPosition, losses.acResistanceAt(thetaC), temperatureNear(result, losses.screen.radiusM));
+        const next = lambda1 * Math.max(0, conductorW);
+        if (Math.abs(next - screenHeat) <= SCREEN_LOSS_SETTLED * Math.max(conductorW, 1e-9)) return result;
+        screenHeat = next;
+      }
+      return result!;
+    },
+  };
 }
 
 /** Prepared solves of the two meshes, each made on first use. */
-function solversOf(coarse: ThermalProblem, fine: ThermalProblem): (mesh: Mesh) => PreparedSolve {
-  let coarseSolve: PreparedSolve | undefined;
-  let fineSolve: PreparedSolve | undefined;
-  return (mesh) => (mesh === 'coarse' ? (coarseSolve ??= preparedSolve(coarse)) : (fineSolve ??= preparedSolve(fine)));
+function solversOf(coarse: ThermalProblem, fine: ThermalProblem, losses?: CableLosses): (mesh: Mesh) => CableSolve {
+  let coarseSolve: CableSolve | undefined;
+  let fineSolve: CableSolve | undefined;
+  return (mesh) => (mesh === 'coarse' ? (coarseSolve ??= withCableLosses(prepare(coarse), losses)) : (fineSolve ??= withCableLosses(prepare(fine), losses)));
 }
 
 function jouleSourceOf(problem: ThermalProblem): { area: number; rho20: number } {
@@ -121,7 +187,7 @@ function withCurrent(base: ThermalProblem, current: number, acFactor: number): T
  * cable enters as its equivalent conductor: diameter d_c·√n, carrying n·I with R₂₀/n, so that
  * J and the heat per metre n·I²R are those of the n loaded cores (flagged by the caller).
  */
-function cableModel(c: PreparedCable, k: PreparedConditions, group?: CableGroup): ThermalModel {
+function cableModel(c: PreparedCable, k: PreparedConditions, group?: CableGroup, losses?: CableLosses): ThermalModel {
   const airLaw = group?.model.kind === 'air' ? group.model.constants : null;
   const n = c.loadedCores;
   const dEq = c.conductorDiameterM * Math.sqrt(n);
@@ -155,6 +221,11 @@ function cableModel(c: PreparedCable, k: PreparedConditions, group?: CableGroup)
       layers: c.layers.map((l) => ({ name: l.name, thicknessM: l.thicknessM, thermalResistivityKmPerW: 1 / l.conductivityWPerMK, cells: cells.covering })),
       outer,
     });
+    const points = [
+      ...(losses?.screen ? [{ position: losses.screen.radiusM, heat: 0 }] : []),
+      ...(losses?.dielectric ? losses.dielectric.radiiM.map((position) => ({ position, heat: losses.dielectric!.lossWPerM / losses.dielectric!.radiiM.length })) : []),
+    ];
+    if (points.length > 0) problem.pointSources = points;
     if (k.surfaceCoefficientWPerM2K !== undefined && k.placement !== 'buried') {
       // A fixed combined coefficient replaces convection and radiation (flagged by the caller).
       const fixed: SurfaceBoundary = { kind: 'surface', ambient: k.ambientC, h: k.surfaceCoefficientWPerM2K, emissivity: 0 };
@@ -198,8 +269,9 @@ function cableModel(c: PreparedCable, k: PreparedConditions, group?: CableGroup)
     faces: [{ side: 'outer', exchangeAreaPerM: Math.PI * De, coveringConductance: 1 / coveringResistance, absorbedFlux: k.placement === 'buried' ? 0 : solarFlux }],
     buriedT4,
     problem: (current, acFactor, mesh) => withCurrent(mesh === 'coarse' ? coarse : fine, current, acFactor),
-    solver: solversOf(coarse, fine),
-    withOuterSurface: (mesh, hWPerM2K) => prepare({ ...(mesh === 'coarse' ? coarse : fine), outer: { kind: 'surface', ambient: k.ambientC, h: hWPerM2K, emissivity: 0 } }),
+    fixedHeatWPerM: losses?.dielectric?.lossWPerM ?? 0,
+    solver: solversOf(coarse, fine, losses),
+    withOuterSurface: (mesh, hWPerM2K) => withCableLosses(prepare({ ...(mesh === 'coarse' ? coarse : fine), outer: { kind: 'surface', ambient: k.ambientC, h: hWPerM2K, emissivity: 0 } }), losses),
   };
 }
 
@@ -277,6 +349,7 @@ function barModel(c: PreparedBar, k: PreparedConditions): ThermalModel {
       { side: 'outer', exchangeAreaPerM: w * areaFactor, coveringConductance, absorbedFlux: fluxOf(coarse.outer) },
     ],
     problem: (current, acFactor, mesh) => withCurrent(mesh === 'coarse' ? coarse : fine, current, acFactor),
+    fixedHeatWPerM: 0,
     solver: solversOf(coarse, fine),
     withOuterSurface: () => {
       throw new Error('a bar has no buried group surface');

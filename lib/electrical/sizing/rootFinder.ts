@@ -126,6 +126,9 @@ export function findLimitCurrent<T>(
     } else {
       next = Math.min(predicted * 0.98, p.i * 0.99);
       if (allowed <= 0) next = 0; // limit at or below the reference temperature: check zero current
+      // Most of the rise does not come from the current (the sun): I² prediction barely moves;
+      // look at zero current, which either is the answer or brackets the root from below.
+      if (lo === null && predicted > 0.9 * p.i) next = 0;
     }
   }
 

@@ -111,6 +111,18 @@ const cases: Record<Exclude<FlagCode, BeyondSteadyFlagCode>, () => { candidate: 
     candidate: xlpeCable(95),
     conditions: cableConditions({ installation: { kind: 'buried', depthM: 0.8, otherCircuits: [{ currentA: 200, cable: { externalDiameterM: 0.03, lossWPerM: 20 } }], circuitSpacingM: 0.3 } }),
   }),
+  SCREEN_LOSSES_INCLUDED: () => {
+    const c = xlpeCable(240);
+    c.layers = [c.layers[0], { name: 'copper wire screen', role: 'screen', thicknessM: 0.8e-3, thermalResistivityKmPerW: 0.0025 }, c.layers[1]];
+    c.screen = { material: 'copper', sectionMm2: 35, bonding: 'solid' };
+    return { candidate: c, conditions: cableConditions({ installation: { kind: 'cable-in-air' } }) };
+  },
+  // PVC insulation at U₀ = 6.35 kV: IEC 60287-1-1 Table 3 counts its dielectric loss from 6 kV (from memory).
+  DIELECTRIC_LOSSES_INCLUDED: () => {
+    const c = xlpeCable(95);
+    c.layers = [{ name: 'PVC insulation', role: 'insulation', thicknessM: 3.4e-3, thermalResistivityKmPerW: 6.0, continuousLimitC: 70, shortCircuitLimitC: 160 }, c.layers[1]];
+    return { candidate: c, conditions: cableConditions({ nominalVoltageV: 6350 }) };
+  },
   SHEATH_LOSSES_NOT_INCLUDED: () => {
     const c = xlpeCable(95);
     c.layers = [c.layers[0], { name: 'copper wire screen', role: 'screen', thicknessM: 0.5e-3, thermalResistivityKmPerW: 0.0025 }, c.layers[1]];
