@@ -184,3 +184,37 @@ export function solveComplexGeneral(
   }
   return { re: xr, im: xi };
 }
+
+/**
+ * Real dense solve A·X = B (B with `columns` right-hand sides, row-major n × columns) by Gaussian
+ * elimination with partial pivoting; A and B are copied. For the radiosity and Newton systems of
+ * the pack heat balance (tens of unknowns).
+ */
+export function solveRealGeneral(n: number, a: ArrayLike<number>, b: ArrayLike<number>, columns = 1): Float64Array {
+  const m = Float64Array.from(a);
+  const x = Float64Array.from(b);
+  for (let col = 0; col < n; col++) {
+    let pivot = col;
+    for (let r = col + 1; r < n; r++) if (Math.abs(m[r * n + col]) > Math.abs(m[pivot * n + col])) pivot = r;
+    if (!(Math.abs(m[pivot * n + col]) > 0)) throw new Error(`solveRealGeneral: matrix is singular (column ${col})`);
+    if (pivot !== col) {
+      for (let c = 0; c < n; c++) [m[pivot * n + c], m[col * n + c]] = [m[col * n + c], m[pivot * n + c]];
+      for (let c = 0; c < columns; c++) [x[pivot * columns + c], x[col * columns + c]] = [x[col * columns + c], x[pivot * columns + c]];
+    }
+    const p = m[col * n + col];
+    for (let r = col + 1; r < n; r++) {
+      const f = m[r * n + col] / p;
+      if (f === 0) continue;
+      for (let c = col; c < n; c++) m[r * n + c] -= f * m[col * n + c];
+      for (let c = 0; c < columns; c++) x[r * columns + c] -= f * x[col * columns + c];
+    }
+  }
+  for (let r = n - 1; r >= 0; r--) {
+    for (let c = 0; c < columns; c++) {
+      let s = x[r * columns + c];
+      for (let k = r + 1; k < n; k++) s -= m[r * n + k] * x[k * columns + c];
+      x[r * columns + c] = s / m[r * n + r];
+    }
+  }
+  return x;
+}

@@ -283,3 +283,36 @@ export function computeCurrentDistribution(input: CurrentDistributionInput): Cur
     method: CURRENT_DISTRIBUTION_METHOD,
   };
 }
+
+/**
+ * R_ac/R_dc of ONE isolated rectangular bar (its return far away) by the same filament method,
+ * with the mirrors about both axes (a quarter of the bar is solved). Replaces the plane-conductor
+ * lower bound for a single bar: at 50 Hz a 100 × 10 mm copper bar at 65 °C gives about 1.165,
+ * against 1.005 for the plane conductor, because the current crowds to the narrow edges.
+ */
+export function isolatedBarAcFactor(args: {
+  widthM: number;
+  thicknessM: number;
+  resistivityOhmM: number;
+  frequencyHz: number;
+  mesh?: FilamentMeshOptions;
+}): { acFactor: number; unknowns: number; mesh: Required<FilamentMeshOptions> } {
+  const widthM = requirePositive(args.widthM, 'widthM');
+  const thicknessM = requirePositive(args.thicknessM, 'thicknessM');
+  const rho = requirePositive(args.resistivityOhmM, 'resistivityOhmM');
+  const frequencyHz = requireRange(args.frequencyHz, 'frequencyHz', 0, 1000);
+  const auto = defaultMesh(widthM, thicknessM, skinDepth(rho, frequencyHz));
+  const mesh: Required<FilamentMeshOptions> = {
+    cellsAcrossThickness: args.mesh?.cellsAcrossThickness ?? auto.cellsAcrossThickness,
+    cellsAlongWidth: args.mesh?.cellsAlongWidth ?? auto.cellsAlongWidth,
+    beta: args.mesh?.beta ?? auto.beta,
+  };
+  if (frequencyHz === 0) return { acFactor: 1, unknowns: 0, mesh };
+  const cells = meshRectangle(
+    { cxM: thicknessM / 4, cyM: widthM / 4, sizeXM: thicknessM / 2, sizeYM: widthM / 2 },
+    { cellsX: Math.max(1, Math.ceil(mesh.cellsAcrossThickness / 2)), cellsY: Math.max(1, mesh.cellsAlongWidth / 2), gradingX: 'high', gradingY: 'high', beta: mesh.beta },
+  );
+  const filaments: Filament[] = cells.map((c) => ({ ...c, resistivityOhmM: rho, group: 0, tag: 0 }));
+  const s = solveFilaments({ filaments, groupCurrents: [{ re: 1, im: 0 }], frequencyHz, mirror: { x: true, y: true } });
+  return { acFactor: s.totalLossWPerM / (rho / (widthM * thicknessM)), unknowns: filaments.length, mesh };
+}
