@@ -13,7 +13,15 @@
  */
 import { ElectricalInputError, requireFinite, requirePositive, requireRange, requireTemperature } from '../errors';
 import { MU0 } from '../materials';
-import { solveFilaments, meshRectangle, type Complex, type Filament } from './filaments';
+import {
+  meshRectangle,
+  prepareFilamentSystem,
+  solveFilaments,
+  solvePreparedFilaments,
+  type Complex,
+  type Filament,
+  type PreparedFilamentSystem,
+} from './filaments';
 import type { BusbarRectangle, PreparedBusbarSystem } from './geometry';
 
 export interface BusbarConductorData {
@@ -132,24 +140,45 @@ function keptHalf(bar: BusbarRectangle): { rect: BusbarRectangle; cut: boolean }
   return { rect: { cxM: bar.cxM, cyM: top / 2, sizeXM: bar.sizeXM, sizeYM: top }, cut: true };
 }
 
-export function computeCurrentDistribution(input: CurrentDistributionInput): CurrentDistributionResult {
-  const { system } = input;
-  const rho20 = requirePositive(input.conductor?.rho20OhmM, 'conductor.rho20OhmM');
-  const alpha20 = requireRange(input.conductor?.alpha20PerK, 'conductor.alpha20PerK', 0, 0.01);
-  const temperatures = barTemperatures(input.barTemperaturesC, system.bars.length);
-  const resistivity = temperatures.map((t, i) => {
+function resistivitiesAt(rho20: number, alpha20: number, temperatures: readonly number[]): number[] {
+  return temperatures.map((t, i) => {
     const factor = 1 + alpha20 * (t - 20);
     if (factor <= 0) throw new ElectricalInputError(`barTemperaturesC[${i}]`, 'is below the range of the linear resistance law');
     return rho20 * factor;
   });
-  const excitation = input.excitation;
-  if (excitation?.kind !== 'three-phase' && excitation?.kind !== 'dc') {
-    throw new ElectricalInputError('excitation.kind', "must be 'three-phase' or 'dc'");
-  }
-  const phaseCurrentA = requireFinite(excitation.phaseCurrentA, 'excitation.phaseCurrentA');
-  if (phaseCurrentA < 0) throw new ElectricalInputError('excitation.phaseCurrentA', 'must not be negative');
-  const frequencyHz = excitation.kind === 'three-phase' ? requireRange(excitation.frequencyHz, 'excitation.frequencyHz', 0, 1000) : 0;
+}
 
+export interface PreparedCurrentDistribution {
+  readonly system: PreparedBusbarSystem;
+  readonly conductor: Readonly<BusbarConductorData>;
+  readonly frequencyHz: number;
+  readonly mesh: Required<FilamentMeshOptions>;
+  /** Bar temperatures the factorisation was made at, °C. */
+  readonly referenceTemperaturesC: readonly number[];
+  readonly skinDepthM: number;
+  readonly filaments: readonly Filament[];
+  readonly cutBar: readonly boolean[];
+  readonly filamentSystem: PreparedFilamentSystem;
+}
+
+/**
+ * Meshes every bar and factors the filament system once, at the given bar temperatures. Solves at
+ * other bar temperatures (within a few tens of kelvin) then reuse the factorisation
+ * (`solveCurrentDistribution`); `computeCurrentDistribution` does both in one call.
+ */
+export function prepareCurrentDistribution(input: {
+  system: PreparedBusbarSystem;
+  conductor: BusbarConductorData;
+  frequencyHz: number;
+  barTemperaturesC: number | readonly number[];
+  mesh?: FilamentMeshOptions;
+}): PreparedCurrentDistribution {
+  const { system } = input;
+  const rho20 = requirePositive(input.conductor?.rho20OhmM, 'conductor.rho20OhmM');
+  const alpha20 = requireRange(input.conductor?.alpha20PerK, 'conductor.alpha20PerK', 0, 0.01);
+  const frequencyHz = requireRange(input.frequencyHz, 'excitation.frequencyHz', 0, 1000);
+  const temperatures = barTemperatures(input.barTemperaturesC, system.bars.length);
+  const resistivity = resistivitiesAt(rho20, alpha20, temperatures);
   const meanRho = resistivity.reduce((s, r) => s + r, 0) / resistivity.length;
   const delta = skinDepth(meanRho, frequencyHz);
   const auto = defaultMesh(system.barWidthM, system.barThicknessM, delta);
@@ -168,51 +197,81 @@ export function computeCurrentDistribution(input: CurrentDistributionInput): Cur
 
   // Filaments of the kept half (y ≥ 0) of every bar.
   const filaments: Filament[] = [];
+  const cutBar = system.bars.map(() => false);
   system.bars.forEach((bar, barIndex) => {
     const kept = keptHalf(bar);
     if (kept === null) return;
-    const edge = system.arrangement === 'edge';
-    const alongWidthCells = mesh.cellsAlongWidth;
-    const thicknessCells = mesh.cellsAcrossThickness;
+    cutBar[barIndex] = kept.cut;
     const cells =
-      edge
+      system.arrangement === 'edge'
         ? meshRectangle(kept.rect, {
-            cellsX: thicknessCells,
-            cellsY: alongWidthCells / 2,
+            cellsX: mesh.cellsAcrossThickness,
+            cellsY: mesh.cellsAlongWidth / 2,
             gradingX: 'both',
             gradingY: 'high',
             beta: mesh.beta,
           })
         : meshRectangle(kept.rect, {
-            cellsX: alongWidthCells,
-            cellsY: kept.cut ? Math.max(1, Math.ceil(thicknessCells / 2)) : thicknessCells,
+            cellsX: mesh.cellsAlongWidth,
+            cellsY: kept.cut ? Math.max(1, Math.ceil(mesh.cellsAcrossThickness / 2)) : mesh.cellsAcrossThickness,
             gradingX: 'both',
             gradingY: kept.cut ? 'high' : 'both',
             beta: mesh.beta,
           });
     for (const c of cells) filaments.push({ ...c, resistivityOhmM: resistivity[barIndex], group: bar.groupIndex, tag: barIndex });
   });
+  const filamentSystem = prepareFilamentSystem({ filaments, groupCount: system.groups.length, frequencyHz, mirror: { y: true } });
+  return {
+    system,
+    conductor: { rho20OhmM: rho20, alpha20PerK: alpha20 },
+    frequencyHz,
+    mesh,
+    referenceTemperaturesC: temperatures,
+    skinDepthM: delta,
+    filaments,
+    cutBar,
+    filamentSystem,
+  };
+}
+
+/** The current distribution at the given bar temperatures and phase current, on a prepared system. */
+export function solveCurrentDistribution(
+  prepared: PreparedCurrentDistribution,
+  input: { barTemperaturesC: number | readonly number[]; phaseCurrentA: number; dc?: boolean },
+): CurrentDistributionResult {
+  const { system, filaments } = prepared;
+  const temperatures = barTemperatures(input.barTemperaturesC, system.bars.length);
+  const resistivity = resistivitiesAt(prepared.conductor.rho20OhmM, prepared.conductor.alpha20PerK, temperatures);
+  const phaseCurrentA = requireFinite(input.phaseCurrentA, 'excitation.phaseCurrentA');
+  if (phaseCurrentA < 0) throw new ElectricalInputError('excitation.phaseCurrentA', 'must not be negative');
+  const dc = prepared.frequencyHz === 0;
 
   const groupCurrents: Complex[] = system.groups.map((g, i) => {
     if (g.name === 'N' || g.name === 'PE') return { re: 0, im: 0 };
-    if (excitation.kind === 'dc') return { re: phaseCurrentA, im: 0 };
+    if (dc) return { re: phaseCurrentA, im: 0 };
     const angle = (-2 * Math.PI * i) / 3; // L1 0°, L2 −120°, L3 −240° = +120°
     return { re: phaseCurrentA * Math.cos(angle), im: phaseCurrentA * Math.sin(angle) };
   });
 
-  const solution = solveFilaments({ filaments, groupCurrents, frequencyHz, mirror: { y: true } });
+  const changed = temperatures.some((t, k) => t !== prepared.referenceTemperaturesC[k]);
+  const solution = solvePreparedFilaments(
+    prepared.filamentSystem,
+    groupCurrents,
+    changed ? filaments.map((f) => resistivity[f.tag]) : undefined,
+  );
 
   // Aggregate per bar. A bar wholly below the axis is the image of one above it (same x, −y).
-  const sumRe = new Float64Array(system.bars.length);
-  const sumIm = new Float64Array(system.bars.length);
-  const loss = new Float64Array(system.bars.length);
-  const halfRe = new Float64Array(system.bars.length);
-  const halfIm = new Float64Array(system.bars.length);
-  const halfLoss = new Float64Array(system.bars.length);
+  const n = system.bars.length;
+  const sumRe = new Float64Array(n);
+  const sumIm = new Float64Array(n);
+  const loss = new Float64Array(n);
+  const halfRe = new Float64Array(n);
+  const halfIm = new Float64Array(n);
+  const halfLoss = new Float64Array(n);
   filaments.forEach((f, i) => {
     halfRe[f.tag] += solution.currentRe[i];
     halfIm[f.tag] += solution.currentIm[i];
-    halfLoss[f.tag] += solution.filamentLossWPerM[i] / 2; // loss of the filament alone (not its image)
+    halfLoss[f.tag] += solution.filamentLossWPerM[i] / 2; // the filament alone, not its image
   });
   system.bars.forEach((bar, k) => {
     const kept = keptHalf(bar);
@@ -222,27 +281,23 @@ export function computeCurrentDistribution(input: CurrentDistributionInput): Cur
       sumRe[k] = halfRe[mirror.index];
       sumIm[k] = halfIm[mirror.index];
       loss[k] = halfLoss[mirror.index];
-    } else if (kept.cut) {
-      sumRe[k] = 2 * halfRe[k];
-      sumIm[k] = 2 * halfIm[k];
-      loss[k] = 2 * halfLoss[k];
     } else {
-      sumRe[k] = halfRe[k];
-      sumIm[k] = halfIm[k];
-      loss[k] = halfLoss[k];
+      const f = prepared.cutBar[k] ? 2 : 1;
+      sumRe[k] = f * halfRe[k];
+      sumIm[k] = f * halfIm[k];
+      loss[k] = f * halfLoss[k];
     }
   });
 
   const bars: BarCurrentResult[] = system.bars.map((bar, k) => {
     const currentA = Math.hypot(sumRe[k], sumIm[k]);
     const rdcOhmPerM = resistivity[k] / (bar.widthM * bar.thicknessM);
-    const group = system.groups[bar.groupIndex];
     const phase = groupCurrents[bar.groupIndex];
     const phaseMagnitude = Math.hypot(phase.re, phase.im);
     const carries = currentA > 1e-9 * Math.max(phaseCurrentA, 1e-30);
     return {
       index: k,
-      group: group.name,
+      group: system.groups[bar.groupIndex].name,
       positionInPack: bar.positionInPack,
       currentA,
       angleDeg: (Math.atan2(sumIm[k], sumRe[k]) * 180) / Math.PI,
@@ -277,11 +332,26 @@ export function computeCurrentDistribution(input: CurrentDistributionInput): Cur
     totalLossWPerM: solution.totalLossWPerM,
     filamentCount: filaments.length * 2,
     unknowns: filaments.length,
-    mesh,
-    skinDepthM: delta,
+    mesh: prepared.mesh,
+    skinDepthM: prepared.skinDepthM,
     powerBalanceResidual: solution.powerBalanceResidual,
     method: CURRENT_DISTRIBUTION_METHOD,
   };
+}
+
+export function computeCurrentDistribution(input: CurrentDistributionInput): CurrentDistributionResult {
+  const excitation = input.excitation;
+  if (excitation?.kind !== 'three-phase' && excitation?.kind !== 'dc') {
+    throw new ElectricalInputError('excitation.kind', "must be 'three-phase' or 'dc'");
+  }
+  const prepared = prepareCurrentDistribution({
+    system: input.system,
+    conductor: input.conductor,
+    frequencyHz: excitation.kind === 'three-phase' ? excitation.frequencyHz : 0,
+    barTemperaturesC: input.barTemperaturesC,
+    mesh: input.mesh,
+  });
+  return solveCurrentDistribution(prepared, { barTemperaturesC: input.barTemperaturesC, phaseCurrentA: excitation.phaseCurrentA });
 }
 
 /**

@@ -18,7 +18,7 @@
  * and its row of L' sums the images' inductances. This is exact, not an approximation.
  */
 import { MU0 } from '../materials';
-import { factorComplexSymmetric, solveComplexGeneral, solveComplexSymmetric } from './complexDense';
+import { factorComplexSymmetric, solveComplexGeneral, solveComplexSymmetric, type ComplexSymmetricFactor } from './complexDense';
 import type { BusbarRectangle } from './geometry';
 import {
   logMeanDistanceExactOf,
@@ -142,42 +142,126 @@ function assembleInductance(filaments: readonly Filament[], mirror: { x: boolean
   }
 }
 
-/** Solves the filament currents for the imposed group currents. */
-export function solveFilaments(problem: FilamentProblem): FilamentSolution {
+export interface PreparedFilamentSystem {
+  readonly filaments: readonly Filament[];
+  readonly groupCount: number;
+  readonly frequencyHz: number;
+  readonly multiplicity: number;
+  /** Resistance per metre of each filament the factorisation was made with, Ω/m. */
+  readonly baseResistance: Float64Array;
+  /** L·D·Lᵀ of Z = R + jωL (null at DC). */
+  readonly factor: ComplexSymmetricFactor | null;
+}
+
+/** Validates and factors Z = R + jωL once; `solvePreparedFilaments` then solves for any currents. */
+export function prepareFilamentSystem(problem: Omit<FilamentProblem, 'groupCurrents'> & { groupCount: number }): PreparedFilamentSystem {
   const mirror = { x: problem.mirror?.x === true, y: problem.mirror?.y === true };
-  checkProblem(problem, mirror);
+  checkProblem({ ...problem, groupCurrents: new Array(problem.groupCount).fill({ re: 0, im: 0 }) }, mirror);
   const filaments = problem.filaments;
   const n = filaments.length;
-  const groups = problem.groupCurrents.length;
-  const multiplicity = (mirror.x ? 2 : 1) * (mirror.y ? 2 : 1);
   const omega = 2 * Math.PI * problem.frequencyHz;
-  const resistance = filaments.map((f) => f.resistivityOhmM / (f.sizeXM * f.sizeYM));
+  const baseResistance = Float64Array.from(filaments, (f) => f.resistivityOhmM / (f.sizeXM * f.sizeYM));
+  let factor: ComplexSymmetricFactor | null = null;
+  if (omega > 0) {
+    const zRe = new Float64Array(n * n);
+    const zIm = new Float64Array(n * n);
+    assembleInductance(filaments, mirror, (omega * MU0) / (2 * Math.PI), zIm);
+    for (let i = 0; i < n; i++) zRe[i * n + i] = baseResistance[i];
+    factor = factorComplexSymmetric(n, zRe, zIm);
+  }
+  return {
+    filaments,
+    groupCount: problem.groupCount,
+    frequencyHz: problem.frequencyHz,
+    multiplicity: (mirror.x ? 2 : 1) * (mirror.y ? 2 : 1),
+    baseResistance,
+    factor,
+  };
+}
+
+/** Largest |Δρ/ρ| for which the factorisation is reused; beyond it the caller should prepare again. */
+export const REUSE_RESISTIVITY_CHANGE = 0.3;
+
+/**
+ * Solves (R′ + jωL)·x = b with the factorisation of (R + jωL), R′ = R + ΔR diagonal, by the
+ * fixed point x ← (R + jωL)⁻¹·(b − ΔR·x). It contracts at a rate at most max|ΔR_i/R_i|:
+ * R^−½(R + jωL)R^−½ = I + jS with S real symmetric is normal with eigenvalues 1 + jλ, so
+ * ‖R^½(R + jωL)⁻¹R^½‖ ≤ 1 (this module's own short argument).
+ */
+function solveShifted(
+  factor: ComplexSymmetricFactor,
+  deltaR: Float64Array | null,
+  bRe: Float64Array,
+  bIm: Float64Array,
+): { re: Float64Array; im: Float64Array; iterations: number } {
+  const n = bRe.length;
+  const xRe = bRe.slice();
+  const xIm = bIm.slice();
+  solveComplexSymmetric(factor, xRe, xIm);
+  if (deltaR === null) return { re: xRe, im: xIm, iterations: 0 };
+  const rhsRe = new Float64Array(n);
+  const rhsIm = new Float64Array(n);
+  for (let iteration = 1; iteration <= 200; iteration++) {
+    for (let i = 0; i < n; i++) {
+      rhsRe[i] = bRe[i] - deltaR[i] * xRe[i];
+      rhsIm[i] = bIm[i] - deltaR[i] * xIm[i];
+    }
+    solveComplexSymmetric(factor, rhsRe, rhsIm);
+    let change = 0;
+    let size = 0;
+    for (let i = 0; i < n; i++) {
+      change = Math.max(change, Math.abs(rhsRe[i] - xRe[i]), Math.abs(rhsIm[i] - xIm[i]));
+      size = Math.max(size, Math.abs(rhsRe[i]), Math.abs(rhsIm[i]));
+    }
+    xRe.set(rhsRe);
+    xIm.set(rhsIm);
+    if (change <= 1e-12 * size) return { re: xRe, im: xIm, iterations: iteration };
+  }
+  throw new Error('filament solve: the resistivity update did not converge');
+}
+
+/**
+ * Filament currents for the imposed group currents; `resistivityOhmM` (per filament) replaces the
+ * resistivities the system was prepared with (each within REUSE_RESISTIVITY_CHANGE of it).
+ */
+export function solvePreparedFilaments(
+  prepared: PreparedFilamentSystem,
+  groupCurrents: readonly Complex[],
+  resistivityOhmM?: ArrayLike<number>,
+): FilamentSolution & { refinementIterations: number } {
+  const { filaments, multiplicity, factor } = prepared;
+  const n = filaments.length;
+  const groups = prepared.groupCount;
+  if (groupCurrents.length !== groups) throw new Error(`filament solve: ${groups} group currents expected`);
+  let resistance = prepared.baseResistance;
+  let deltaR: Float64Array | null = null;
+  if (resistivityOhmM !== undefined) {
+    if (resistivityOhmM.length !== n) throw new Error('filament solve: one resistivity per filament expected');
+    resistance = Float64Array.from(filaments, (f, i) => resistivityOhmM[i] / (f.sizeXM * f.sizeYM));
+    deltaR = Float64Array.from(resistance, (r, i) => r - prepared.baseResistance[i]);
+    const largest = Math.max(...deltaR.map((d, i) => Math.abs(d) / prepared.baseResistance[i]));
+    if (!(largest <= REUSE_RESISTIVITY_CHANGE)) throw new Error('filament solve: resistivities moved too far from the prepared ones; prepare again');
+  }
 
   // Columns X_g = Z⁻¹·b_g, b_g = 1 on the filaments of group g; stored as groups × n.
   const xRe = new Float64Array(groups * n);
   const xIm = new Float64Array(groups * n);
-  if (omega === 0) {
-    // Z = R: each filament takes V/R'.
+  let refinementIterations = 0;
+  if (factor === null) {
+    // DC: Z = R, each filament takes V/R′.
     filaments.forEach((f, i) => {
       xRe[f.group * n + i] = 1 / resistance[i];
     });
   } else {
-    const zRe = new Float64Array(n * n);
-    const zIm = new Float64Array(n * n);
-    assembleInductance(filaments, mirror, (omega * MU0) / (2 * Math.PI), zIm);
-    for (let i = 0; i < n; i++) zRe[i * n + i] = resistance[i];
-    const factor = factorComplexSymmetric(n, zRe, zIm);
-    const colRe = new Float64Array(n);
-    const colIm = new Float64Array(n);
     for (let g = 0; g < groups; g++) {
-      colRe.fill(0);
-      colIm.fill(0);
+      const bRe = new Float64Array(n);
       filaments.forEach((f, i) => {
-        if (f.group === g) colRe[i] = 1;
+        if (f.group === g) bRe[i] = 1;
       });
-      solveComplexSymmetric(factor, colRe, colIm);
-      xRe.set(colRe, g * n);
-      xIm.set(colIm, g * n);
+      const x = solveShifted(factor, deltaR, bRe, new Float64Array(n));
+      refinementIterations = Math.max(refinementIterations, x.iterations);
+      xRe.set(x.re, g * n);
+      xIm.set(x.im, g * n);
     }
   }
 
@@ -195,8 +279,8 @@ export function solveFilaments(problem: FilamentProblem): FilamentSolution {
     groups,
     sRe,
     sIm,
-    problem.groupCurrents.map((c) => c.re),
-    problem.groupCurrents.map((c) => c.im),
+    groupCurrents.map((c) => c.re),
+    groupCurrents.map((c) => c.im),
   );
 
   const currentRe = new Float64Array(n);
@@ -220,12 +304,19 @@ export function solveFilaments(problem: FilamentProblem): FilamentSolution {
   }
   let supplied = 0;
   for (let g = 0; g < groups; g++) {
-    const c = problem.groupCurrents[g];
+    const c = groupCurrents[g];
     supplied += v.re[g] * c.re + v.im[g] * c.im; // Re(V·conj(I))
   }
   const groupVoltage = Array.from({ length: groups }, (_, g) => ({ re: v.re[g], im: v.im[g] }));
   const powerBalanceResidual = totalLossWPerM > 0 ? Math.abs(totalLossWPerM - supplied) / totalLossWPerM : 0;
-  return { currentRe, currentIm, filamentLossWPerM, multiplicity, groupVoltage, totalLossWPerM, powerBalanceResidual };
+  return { currentRe, currentIm, filamentLossWPerM, multiplicity, groupVoltage, totalLossWPerM, powerBalanceResidual, refinementIterations };
+}
+
+
+/** Solves the filament currents for the imposed group currents (prepare and solve in one). */
+export function solveFilaments(problem: FilamentProblem): FilamentSolution {
+  const prepared = prepareFilamentSystem({ ...problem, groupCount: problem.groupCurrents.length });
+  return solvePreparedFilaments(prepared, problem.groupCurrents);
 }
 
 // ---------------------------------------------------------------------------------------------

@@ -11,8 +11,9 @@
  */
 import { ElectricalInputError, requireTemperature } from '../errors';
 import {
-  computeCurrentDistribution,
   isolatedBarAcFactor,
+  prepareCurrentDistribution,
+  solveCurrentDistribution,
   type BusbarConductorData,
   type CurrentDistributionResult,
   type FilamentMeshOptions,
@@ -42,8 +43,10 @@ export interface BusbarRatingResult {
   /** Current distribution at the ampacity and the bar temperatures found. */
   distribution: CurrentDistributionResult;
   heat: PackHeatResult;
-  /** Filament solves done (one per pass of the coupling loop). */
-  filamentSolves: number;
+  /** Passes of the coupling loop (one current distribution each). */
+  couplingPasses: number;
+  /** Factorisations of the filament system (the other passes reuse one). */
+  factorisations: number;
   flags: BusbarFlag[];
 }
 
@@ -60,6 +63,7 @@ function ampacityAtFrozenDistribution(
   referenceC: Float64Array,
   alpha20: number,
   limitC: number,
+  guessA?: number,
 ): { currentA: number; result: PackHeatResult } {
   const n = unitLoss.length;
   let warm: Float64Array | undefined;
@@ -80,10 +84,19 @@ function ampacityAtFrozenDistribution(
   // First guess: every bar at the limit gives off Σ Q_k(limit); the losses there are I²·Σ c_k.
   const atLimit = packHeatOut(heat, new Float64Array(n).fill(limitC)).total.reduce((s, q) => s + q, 0);
   const lossAtLimit = unitLoss.reduce((s, c, k) => s + (c * (1 + alpha20 * (limitC - 20))) / (1 + alpha20 * (referenceC[k] - 20)), 0);
-  let hi = Math.sqrt(atLimit / lossAtLimit);
-  let hiResult = solveAt(hi);
   let lo = 0;
   let fLo = heat.ambientC - limitC;
+  if (guessA !== undefined) {
+    // A previous pass's answer: bracket tightly below it.
+    const below = solveAt(0.995 * guessA);
+    if (below.converged && below.hottestC < limitC) {
+      lo = 0.995 * guessA;
+      fLo = below.hottestC - limitC;
+    }
+  }
+  let hi = guessA !== undefined ? 1.005 * guessA : Math.sqrt(atLimit / lossAtLimit);
+  if (hi <= lo) hi = 1.5 * lo;
+  let hiResult = solveAt(hi);
   let fHi = hiResult.converged ? hiResult.hottestC - limitC : Number.POSITIVE_INFINITY;
   for (let expand = 0; fHi < 0 && expand < 40; expand++) {
     lo = hi;
@@ -139,24 +152,35 @@ export function rateBusbarSystem(input: BusbarRatingInput): BusbarRatingResult {
   const heat = preparePackHeat(input.system, input.conditions);
   if (!(limitC > heat.ambientC)) throw new ElectricalInputError('conditions.limitC', `must be above the ambient ${heat.ambientC} °C`);
   const n = input.system.bars.length;
+  const frequencyHz = input.excitation.kind === 'dc' ? 0 : input.excitation.frequencyHz;
   let reference = new Float64Array(n).fill(limitC);
-  let solves = 0;
+  // One factorisation at the limit temperature serves every pass (each bar's resistivity moves by
+  // a few per cent at most); a pass far from it prepares afresh.
+  let prepared = prepareCurrentDistribution({ system: input.system, conductor: input.conductor, frequencyHz, barTemperaturesC: limitC, mesh: input.mesh });
+  let factorisations = 1;
+  let guessA: number | undefined;
   for (let pass = 0; pass < MAX_COUPLING_PASSES; pass++) {
-    const unit = computeCurrentDistribution({
-      system: input.system,
-      conductor: input.conductor,
-      barTemperaturesC: Array.from(reference),
-      excitation: input.excitation.kind === 'dc' ? { kind: 'dc', phaseCurrentA: 1 } : { kind: 'three-phase', frequencyHz: input.excitation.frequencyHz, phaseCurrentA: 1 },
-      mesh: input.mesh,
-    });
-    solves++;
+    const far = reference.some((t, k) => Math.abs(t - prepared.referenceTemperaturesC[k]) > 40);
+    if (far) {
+      prepared = prepareCurrentDistribution({ system: input.system, conductor: input.conductor, frequencyHz, barTemperaturesC: Array.from(reference), mesh: input.mesh });
+      factorisations++;
+    }
+    const unit = solveCurrentDistribution(prepared, { barTemperaturesC: Array.from(reference), phaseCurrentA: 1 });
     const unitLoss = Float64Array.from(unit.bars, (b) => b.lossWPerM);
-    const { currentA, result } = ampacityAtFrozenDistribution(heat, unitLoss, reference, input.conductor.alpha20PerK, limitC);
+    const { currentA, result } = ampacityAtFrozenDistribution(heat, unitLoss, reference, input.conductor.alpha20PerK, limitC, guessA);
+    guessA = currentA;
     const found = Float64Array.from(result.bars, (b) => b.temperatureC);
     const moved = Math.max(...found.map((t, k) => Math.abs(t - reference[k])));
     if (moved < COUPLING_TOLERANCE_K || pass === MAX_COUPLING_PASSES - 1) {
       // The distribution was solved at `reference`, within 0.01 K of `found`: report it scaled.
-      return { ampacityA: currentA, distribution: scaleDistribution(unit, currentA), heat: result, filamentSolves: solves, flags: result.flags };
+      return {
+        ampacityA: currentA,
+        distribution: scaleDistribution(unit, currentA),
+        heat: result,
+        couplingPasses: pass + 1,
+        factorisations,
+        flags: result.flags,
+      };
     }
     reference = found;
   }

@@ -1,6 +1,11 @@
 import { describe, expect, it } from 'vitest';
 import { ElectricalInputError } from '@/lib/electrical/errors';
-import { computeCurrentDistribution, type CurrentDistributionInput } from '@/lib/electrical/busbar/currentDistribution';
+import {
+  computeCurrentDistribution,
+  prepareCurrentDistribution,
+  solveCurrentDistribution,
+  type CurrentDistributionInput,
+} from '@/lib/electrical/busbar/currentDistribution';
 import { meshRectangle, solveFilaments, type Filament } from '@/lib/electrical/busbar/filaments';
 import { prepareBusbarSystem, type BusbarSystemInput } from '@/lib/electrical/busbar/geometry';
 
@@ -127,6 +132,20 @@ describe('current sharing in a pack (filament method)', () => {
     expect(n[0].currentA).toBeCloseTo(n[1].currentA, 6);
     expect(Math.abs(n[0].angleDeg - n[1].angleDeg)).toBeCloseTo(180, 6);
     expect(r.groups[3].acFactor).toBeNull();
+  });
+
+  it('reusing one factorisation at other bar temperatures gives the same currents as factoring afresh', () => {
+    const temperatures = [50, 58, 71, 62, 66, 49, 70, 55, 60];
+    const mesh = { cellsAcrossThickness: 4, cellsAlongWidth: 20 };
+    const prepared = prepareCurrentDistribution({ system: system(), conductor: COPPER, frequencyHz: 50, barTemperaturesC: 65, mesh });
+    const reused = solveCurrentDistribution(prepared, { barTemperaturesC: temperatures, phaseCurrentA: 3000 });
+    const fresh = run({ barTemperaturesC: temperatures, mesh });
+    reused.bars.forEach((b, k) => {
+      expect(b.currentA / fresh.bars[k].currentA).toBeCloseTo(1, 10);
+      expect(b.lossWPerM / fresh.bars[k].lossWPerM).toBeCloseTo(1, 10);
+    });
+    // Far from the prepared temperatures the reuse is refused rather than stretched.
+    expect(() => solveCurrentDistribution(prepared, { barTemperaturesC: 400, phaseCurrentA: 3000 })).toThrow(/prepare again/);
   });
 
   it('refuses bad input naming the field', () => {
