@@ -1,6 +1,6 @@
 import { complex, lusolve, matrix, type Complex as MathComplex, type Matrix } from 'mathjs';
 import { describe, expect, it } from 'vitest';
-import { factorComplexSymmetric, solveComplexGeneral, solveComplexSymmetric } from '@/lib/electrical/busbar/complexDense';
+import { factorComplexSymmetric, solveComplexGeneral, solveComplexSymmetric, solveRealGeneral } from '@/lib/electrical/busbar/complexDense';
 
 /** Deterministic pseudo-random numbers in [−1, 1) (a 32-bit LCG, Numerical Recipes constants). */
 function generator(seed: number): () => number {
@@ -74,5 +74,21 @@ describe('general complex solve with partial pivoting — checked against mathjs
 
   it('refuses a singular matrix', () => {
     expect(() => solveComplexGeneral(2, [1, 2, 2, 4], [0, 0, 0, 0], [1, 1], [0, 0])).toThrow(/singular/);
+  });
+});
+
+describe('real solve with several right-hand sides — checked against mathjs lusolve', () => {
+  it('random 9 × 9 system, 3 right-hand sides, zero leading entry', () => {
+    const random = generator(4242);
+    const n = 9;
+    const a = Float64Array.from({ length: n * n }, random);
+    a[0] = 0;
+    const b = Float64Array.from({ length: n * 3 }, random);
+    const x = solveRealGeneral(n, a, b, 3);
+    const rows = Array.from({ length: n }, (_, i) => Array.from(a.slice(i * n, i * n + n)));
+    for (let c = 0; c < 3; c++) {
+      const expected = (lusolve(rows, Array.from({ length: n }, (_, i) => b[i * 3 + c])) as number[][]).map((r) => r[0]);
+      expected.forEach((v, i) => expect(x[i * 3 + c]).toBeCloseTo(v, 10));
+    }
   });
 });
