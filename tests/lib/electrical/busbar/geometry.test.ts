@@ -26,7 +26,7 @@ describe('bus-bar system geometry', () => {
   it('lays out three packs of four bars on edge: pitch t + gap, packs centred at −a, 0, +a', () => {
     const s = prepareBusbarSystem(FOUR_BY_100x10);
     expect(s.bars).toHaveLength(12);
-    // Pack of 4 × 10 mm with 10 mm gaps: 70 mm across; bar centres at ±5 mm and ±25 mm... pitch 20 mm.
+    // Pack of 4 × 10 mm with 10 mm gaps: 70 mm across; pitch 20 mm, bar centres at ±10 mm and ±30 mm.
     expect(s.packSizeXM).toBeCloseTo(0.07, 15);
     expect(s.phaseClearanceM).toBeCloseTo(0.13, 15);
     const l2 = s.bars.filter((b) => b.group === 'L2').map((b) => b.cxM);
