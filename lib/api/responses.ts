@@ -143,6 +143,34 @@ export const evaluationOkSchema = z
     ampacity: ampacityResultSchema,
     profile: profileSchema.nullable(),
     group: groupSchema.optional(),
+    pack: z
+      .object({
+        bars: z.array(z.object({ phase: z.string(), positionInPack: finite, shareOfPhase: finite, currentA: finite, lossWPerM: finite, temperatureC: finite, acFactor: finite.nullable() })),
+        hottest: z.object({ phase: z.string(), positionInPack: finite, temperatureC: finite }),
+        acFactor: finite,
+        method: z.string(),
+      })
+      .optional()
+      .meta({ id: 'BusbarPackResult', description: 'A pack of bars at the design current: each bar\'s share of its phase current, loss and temperature (filament method, pack heat balance).' }),
+    forces: z
+      .object({
+        method: z.string(),
+        kappa: finite,
+        peakCurrentA: finite,
+        mainForceN: finite,
+        totalStressPa: finite,
+        yieldStrengthPa: finite,
+        stressRatio: finite,
+        subConductorStressRatio: finite.nullable(),
+        supportForceAN: finite,
+        supportForceBN: finite,
+        supportForceRatio: finite.nullable(),
+        passes: z.boolean(),
+        largestSupportSpacingM: finite,
+        largestSupportSpacingLimitedBy: z.string(),
+      })
+      .optional()
+      .meta({ id: 'ShortCircuitForces', description: 'IEC 60865-1 forces and stresses of the bus-bar system for the prospective fault.' }),
     flags: z.array(flagSchema),
     solves: finite,
     isSmallestPassing: z.boolean().optional(),

@@ -36,7 +36,7 @@ export type { LimitEvaluation, LimitRoot } from './sizing/rootFinder';
 
 // ── Sizing (physics.md §5) ──
 export { ampacity, evaluateCandidate, compareCandidates, AMPACITY_TOLERANCE_A, CROSS_CHECK_LIMIT_PERCENT, NEAR_RUNAWAY_RATIO } from './sizing/evaluate';
-export { BEYOND_STEADY_FLAG_CODES, FLAG_CODES, FLAG_REGISTRY, makeFlag } from './sizing/flags';
+export { BEYOND_STEADY_FLAG_CODES, FLAG_CODES, FLAG_REGISTRY, makeFlag, RETIRED_FLAG_CODES } from './sizing/flags';
 export type { BeyondSteadyFlagCode } from './sizing/flags';
 export type { AssumptionFlag, FlagCode, FlagDefinition, FlagSeverity } from './sizing/flags';
 export {

@@ -3,7 +3,9 @@
  * Cables: IEC 60287-1-1 §2.1 skin and proximity. Bars: the maker's ratio, or the plane-conductor
  * solution (a lower bound, flagged).
  */
-import { acResistanceOf, barAcResistanceRatioOf, dcResistance } from '../resistance';
+import { acResistanceOf } from '../resistance';
+import { CURRENT_DISTRIBUTION_METHOD } from '../busbar';
+import { singleBarAcFactor, type BusbarSystemModel } from './busbarSystem';
 import { DEFAULT_TEXT, MODEL_TEXT } from './flagText';
 import { FlagSet } from './flags';
 import type { PreparedCandidate, PreparedConditions } from './prepared';
@@ -20,19 +22,19 @@ export interface AcFactorDetail {
 
 export type AcFactorFunction = (temperatureC: number, flags?: FlagSet) => AcFactorDetail;
 
-export function acFactorFunction(c: PreparedCandidate, k: PreparedConditions): AcFactorFunction {
+export function acFactorFunction(c: PreparedCandidate, k: PreparedConditions, busbar?: BusbarSystemModel): AcFactorFunction {
   if (k.frequencyHz === 0) return () => ({ factor: 1, method: 'direct current' });
   if (c.kind === 'bar') {
     if (c.acResistanceRatio !== undefined) {
       const ratio = c.acResistanceRatio;
       return () => ({ factor: ratio, method: "bar maker's R_ac/R_dc" });
     }
-    const w = c.widthM;
-    const t = c.thicknessM;
+    if (!busbar) throw new Error('a bar needs its bus-bar system for its AC resistance');
+    const factorAt = singleBarAcFactor(busbar, k.ambientC, c.contactLimit.temperatureC);
     return (temperatureC, flags) => {
-      const r = barAcResistanceRatioOf(dcResistance(c.r20, c.alpha20, temperatureC), w, t, k.frequencyHz);
-      flags?.add('AC_FACTOR_LOWER_BOUND', MODEL_TEXT.barAcLowerBound(r.ratio), { ratio: r.ratio });
-      return { factor: r.ratio, method: r.method, skinDepthM: r.skinDepthM };
+      const factor = factorAt(temperatureC);
+      flags?.add('BAR_AC_FACTOR_COMPUTED', MODEL_TEXT.barAcFactorComputed(factor, !busbar.phaseSpacingAssumed), { ratio: factor });
+      return { factor, method: CURRENT_DISTRIBUTION_METHOD };
     };
   }
   const dc = c.conductorDiameterM;

@@ -84,6 +84,10 @@ function evaluated(candidate: Candidate, conditions: Conditions): CandidateEvalu
 function transientModel(candidate: Candidate, conditions: Conditions, evaluation: CandidateEvaluationOk, flags: FlagSet) {
   const ctx = sizingContext(candidate, prepareConditions(conditions), 0);
   const { cand, cond, model } = ctx;
+  if (ctx.busbar?.pack) {
+    // The runs over time use the one-bar slab; a pack's bars share heat and current unequally.
+    throw new ElectricalInputError('candidate.barsPerPhase', 'the checks over time are for one bar per phase; a pack of bars is rated in the steady state only');
+  }
   const acFactor = ctx.acFn(evaluation.limit.temperatureC).factor;
   const base = model.problem(0, acFactor, 'coarse');
   const metal = CONDUCTOR_VOLUMETRIC_HEAT_CAPACITY[cand.material];
@@ -215,6 +219,9 @@ export function alongRunCheck(candidate: Candidate, conditions: Conditions, inpu
   const limitC = evaluation.limit.temperatureC;
   if (cand.kind !== 'bar' || (cond.placement !== 'bar-on-edge' && cond.placement !== 'bar-flat')) {
     throw new ElectricalInputError('conditions.installation', 'the run along the length needs a bar on edge or laid flat');
+  }
+  if (cand.barsPerPhase > 1) {
+    throw new ElectricalInputError('candidate.barsPerPhase', 'the run along the length is for one bar per phase; a pack of bars is rated in the steady state only');
   }
   const acFactor = ctx.acFn(limitC).factor;
   const r = solveBarRun({

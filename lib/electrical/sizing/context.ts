@@ -11,6 +11,7 @@ import { GROUP_TEXT, MODEL_TEXT } from './flagText';
 import { cableGroupOf, type CableGroup } from './cableGroup';
 import { solveBuriedGroup, type GroupSteadyResult } from './groupSolve';
 import { asSingleCoreCable } from './closedForm';
+import { busbarSystemOf, type BusbarSystemModel } from './busbarSystem';
 import { buildThermalModel, type CableLosses, type Mesh, type ThermalModel } from './model';
 import { screenLossFactorAt, type CircuitGeometry } from '../iec60287/rating';
 import { dielectricLoss } from '../iec60287/screens';
@@ -25,6 +26,8 @@ export interface SizingContext {
   cond: PreparedConditions;
   /** The cross-section of a cable circuit (its runs, the circuits beside it); bars have none. */
   group?: CableGroup;
+  /** The three-phase system a bar belongs to; a pack is rated on it instead of the slab. */
+  busbar?: BusbarSystemModel;
   model: ThermalModel;
   acFn: AcFactorFunction;
   flags: FlagSet;
@@ -40,9 +43,14 @@ export function sizingContext(candidate: Candidate, cond: PreparedConditions, in
   const groupLawInAir = group !== undefined && group.model.kind === 'air' && group.model.constants !== null && cond.surfaceCoefficientWPerM2K === undefined;
   conditionFlags(cond, flags, { windCredited: !groupLawInAir });
   if (group) groupFlags(group, cond, flags);
-  const acFn = acFactorFunction(cand, cond);
+  const busbar = cand.kind === 'bar' ? busbarSystemOf(cand, cond) : undefined;
+  if (busbar?.phaseSpacingAssumed && cand.kind === 'bar' && cond.frequencyHz > 0) {
+    if (busbar.pack) flags.add('PHASE_SPACING_ASSUMED', MODEL_TEXT.phaseSpacingAssumed(busbar.system.phaseSpacingM), { phaseSpacingM: busbar.system.phaseSpacingM });
+    else if (cand.acResistanceRatio === undefined) flags.add('PHASE_SPACING_ASSUMED', MODEL_TEXT.isolatedBarAssumed());
+  }
+  const acFn = acFactorFunction(cand, cond, busbar);
   if (losses) losses.acResistanceAt = (t) => ((cand.r20 / (cand.kind === 'cable' ? cand.loadedCores : 1)) * (1 + cand.alpha20 * (t - 20))) * acFn(t).factor;
-  return { cand, cond, ...(group ? { group } : {}), model: buildThermalModel(cand, cond, group, losses), acFn, flags, solves: 0 };
+  return { cand, cond, ...(group ? { group } : {}), ...(busbar ? { busbar } : {}), model: buildThermalModel(cand, cond, group, losses), acFn, flags, solves: 0 };
 }
 
 /**

@@ -11,6 +11,8 @@ import { dcResistance } from '../resistance';
 import { ampacityCheck, AMPACITY_TOLERANCE_A, CROSS_CHECK_LIMIT_PERCENT } from './checks/ampacity';
 import { costsCheck } from './checks/costs';
 import { designPointCheck, NEAR_RUNAWAY_RATIO, SOIL_DRYING_SURFACE_C, solveAtCircuitCurrent, thermalAtDesign } from './checks/designPoint';
+import { forcesCheck } from './checks/forces';
+import { packAmpacityCheck, packAt, packThermalAtDesign } from './checks/pack';
 import { shortCircuitCheck } from './checks/shortCircuit';
 import { voltageDropCheck } from './checks/voltageDrop';
 import { sizingContext, type SizingContext } from './context';
@@ -43,13 +45,26 @@ export interface EvaluatedCandidate {
   context: SizingContext;
 }
 
-function runChecks(ctx: SizingContext): CandidateEvaluationOk {
-  const { cand, cond, flags, model } = ctx;
+/** The thermal checks of a bus-bar pack (system model) or of one conductor (finite-volume model). */
+function thermalChecks(ctx: SizingContext) {
+  if (ctx.busbar?.pack) {
+    const amp = packAmpacityCheck(ctx, ctx.busbar);
+    const at = packThermalAtDesign(ctx, ctx.busbar, amp);
+    return { amp, thermal: at.thermal, acFactor: at.pack?.acFactor ?? amp.acFactor, profile: at.profile, pack: at.pack, point: null };
+  }
   const amp = ampacityCheck(ctx);
   const design = designPointCheck(ctx, amp);
   const thermal = thermalAtDesign(ctx, design, amp);
+  return { amp, thermal, acFactor: design.acFactor, profile: design.point ? profileOf(ctx.model, design.point.result) : null, pack: null, point: design.point };
+}
+
+function runChecks(ctx: SizingContext): CandidateEvaluationOk {
+  const { cand, cond, flags, model } = ctx;
+  const { amp, thermal, acFactor, profile, pack, point } = thermalChecks(ctx);
+  const design = { point };
   const voltageDrop = voltageDropCheck(ctx);
   const shortCircuit = shortCircuitCheck(ctx, thermal.hotSpotC);
+  const forces = forcesCheck(ctx);
   const costs = costsCheck(ctx, thermal.lossPerConductorWPerM);
 
   const list = flags.list();
@@ -80,7 +95,7 @@ function runChecks(ctx: SizingContext): CandidateEvaluationOk {
     marginPercent: thermal.marginPercent,
     ampacityA,
     utilisation: ampacityA > 0 ? cond.designCurrentA / ampacityA : cond.designCurrentA > 0 ? Number.MAX_VALUE : 0,
-    acFactor: design.acFactor,
+    acFactor,
     conductorC: thermal.conductorC,
     resistanceOhmPerM: thermal.resistanceOhmPerM,
     lossPerConductorWPerM: thermal.lossPerConductorWPerM,
@@ -95,8 +110,10 @@ function runChecks(ctx: SizingContext): CandidateEvaluationOk {
     lossCostPresentValue: costs.lossCostPresentValue,
     lifeCycleCost: costs.lifeCycleCost,
     ampacity: amp,
-    profile: design.point ? profileOf(model, design.point.result) : null,
+    profile,
     ...(group ? { group } : {}),
+    ...(pack ? { pack } : {}),
+    ...(forces ? { forces } : {}),
     flags: list,
     solves: ctx.solves,
   };
@@ -144,6 +161,7 @@ export function evaluateCandidate(candidate: Candidate, conditions: Conditions, 
  * parabola is discretised (the ampacity search relies on the same mesh). Null past runaway.
  */
 export function hotSpotAtCurrent(ctx: SizingContext, evaluation: CandidateEvaluationOk, circuitA: number): number | null {
+  if (ctx.busbar?.pack) return packAt(ctx, ctx.busbar, circuitA)?.state.heat.hottestC ?? null;
   const limitC = evaluation.limit.temperatureC;
   const share = evaluation.ampacityA > 0 ? Math.min(4, (circuitA / evaluation.ampacityA) ** 2) : 1;
   const startC = ctx.model.referenceC + (limitC - ctx.model.referenceC) * share;
@@ -159,6 +177,13 @@ export function hotSpotAtCurrent(ctx: SizingContext, evaluation: CandidateEvalua
 export function designPointOnly(candidate: Candidate, conditions: Conditions): { hotSpotC: number | null; lossWPerM: number | null; limitC: number } {
   const ctx = sizingContext(candidate, prepareConditions(conditions), 0);
   const limitC = ctx.cand.contactLimit.temperatureC;
+  if (ctx.busbar?.pack) {
+    const at = packAt(ctx, ctx.busbar, ctx.cond.designCurrentA);
+    if (!at) return { hotSpotC: null, lossWPerM: null, limitC };
+    const derating = ctx.cond.groupingFactor * ctx.cond.enclosureFactor;
+    const total = at.state.distribution.totalLossWPerM * derating * derating * ctx.cand.parallel;
+    return { hotSpotC: at.state.heat.hottestC, lossWPerM: total, limitC };
+  }
   const design = solveAtCircuitCurrent(ctx, ctx.cond.designCurrentA, limitC);
   if (!design.point) return { hotSpotC: null, lossWPerM: null, limitC };
   const { limits, result } = design.point;

@@ -65,6 +65,18 @@ export const MODEL_TEXT = {
     `The heat leaving the bar's narrow edges is lumped onto its wide faces by scaling their area by (w + t)/w = ${fmt(factor, 4)}.`,
   multiBarInnerFaces: (barsPerPhase: number) =>
     `Each of the ${barsPerPhase} bars per phase is modelled with both faces free, and the current is assumed to divide equally; inner faces of a pack lose less heat and AC current crowds into the outer bars, so the real pack runs hotter.`,
+  barAcFactorComputed: (ratio: number, system: boolean) =>
+    `R_ac/R_dc = ${fmt(ratio, 4)} from the current distribution over the bar's cross-section (filament method: skin effect and crowding at the edges${system ? ', and the other phases at the entered spacing, the worst phase taken' : ', the bar alone'}).`,
+  phaseSpacingAssumed: (spacingM: number) =>
+    `No phase spacing was entered: the phases are taken ${fmt(spacingM * 1000, 3)} mm apart, centre to centre (a clearance of one bar width), for the current sharing and the forces; enter the real spacing.`,
+  isolatedBarAssumed: () =>
+    "No phase spacing was entered: the bar's AC resistance is that of a bar alone — the other phases' proximity, which raises it, is left out; enter the phase spacing.",
+  packRated: (bars: number, hottest: string) =>
+    `The ${bars} bars of each phase are rated as a pack: each bar's share of the phase current from the filament method, each bar's heat balance with its gaps as channels (Bar-Cohen & Rohsenow) and radiation between the faces (view factors); ${hottest} governs.`,
+  barShortCircuitLimitDefaulted: (limitC: number) =>
+    `No short-circuit temperature was given for the bar and its supports: ${fmt(limitC, 3)} °C is assumed (a common limit for bare copper or aluminium bars, from memory); check the supports' and joints' rating.`,
+  forcesNotChecked: () =>
+    'A fault is entered but the supports are not described (support span and how the bars are held): the short-circuit forces of IEC 60865-1 were not checked.',
   barAcLowerBound: (ratio: number) =>
     `R_ac/R_dc = ${fmt(ratio, 4)} comes from the plane-conductor skin-effect formula, which ignores current crowding at the bar edges and the proximity of other bars and phases, so the true ratio is higher; enter the bar maker's ratio or accept this lower bound.`,
   acFormulaRange: (xs: number, xp: number | null) =>

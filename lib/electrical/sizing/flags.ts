@@ -8,6 +8,8 @@
  *   blocker — the candidate fails; a sheet built on it cannot be approved.
  * Every uncertainty listed in physics.md §5 maps to at least one code here.
  */
+import { BUSBAR_FLAG_CODES, BUSBAR_FLAG_DEFINITIONS } from '../busbar/flags';
+
 export type FlagSeverity = 'note' | 'review' | 'blocker';
 
 /** Codes the steady evaluation (evaluateCandidate) raises. */
@@ -52,6 +54,12 @@ const STEADY_FLAG_CODES = [
   'OTHER_CIRCUIT_HEAT_ENTERED',
   'SCREEN_LOSSES_INCLUDED',
   'DIELECTRIC_LOSSES_INCLUDED',
+  'BAR_AC_FACTOR_COMPUTED',
+  'PHASE_SPACING_ASSUMED',
+  'PACK_RATED_AS_SYSTEM',
+  'BAR_SHORT_CIRCUIT_LIMIT_DEFAULTED',
+  'FORCES_NOT_CHECKED',
+  ...BUSBAR_FLAG_CODES,
 ] as const;
 
 /** Codes raised only by the optional checks beyond the steady state (sizing/beyondSteady.ts, sizing/enclosureAir.ts), never by evaluateCandidate. */
@@ -70,6 +78,12 @@ export const BEYOND_STEADY_FLAG_CODES = [
 
 export const FLAG_CODES = [...STEADY_FLAG_CODES, ...BEYOND_STEADY_FLAG_CODES] as const;
 
+/**
+ * Codes no evaluation raises any more — the method they qualified was replaced (bars' AC factor
+ * and packs are computed since solver 0.2.0) — kept so that stored sheets read and show them.
+ */
+export const RETIRED_FLAG_CODES = ['AC_FACTOR_LOWER_BOUND', 'MULTI_BAR_INNER_FACES'] as const;
+
 export type FlagCode = (typeof FLAG_CODES)[number];
 export type BeyondSteadyFlagCode = (typeof BEYOND_STEADY_FLAG_CODES)[number];
 
@@ -80,6 +94,9 @@ export interface FlagDefinition {
   /** Where the concern comes from (physics.md section or the standard). */
   basis: string;
 }
+
+// The bus-bar system's codes (lib/electrical/busbar/flags.ts) keep their severities there.
+const BUSBAR_FLAG_REGISTRY = BUSBAR_FLAG_DEFINITIONS;
 
 export const FLAG_REGISTRY: Readonly<Record<FlagCode, Readonly<FlagDefinition>>> = Object.freeze({
   AMBIENT_ASSUMED: { severity: 'review', title: 'Ambient temperature assumed', basis: 'physics.md §5 (ambient); IEC 60364-5-52 reference ambients 30 °C air, 20 °C ground (from memory)' },
@@ -119,6 +136,12 @@ export const FLAG_REGISTRY: Readonly<Record<FlagCode, Readonly<FlagDefinition>>>
   OTHER_CIRCUITS_NOT_COVERED: { severity: 'blocker', title: 'Nearby circuits in air not rated', basis: 'IEC 60287-2-1 Table 2 covers one group; IEC 60364-5-52 Annex B grouping factors (from memory)' },
   GROUP_ROW_CONSERVATIVE: { severity: 'review', title: 'Cable spacing not tabulated: rated as touching', basis: 'IEC 60287-2-1 Table 2 (touching and the tabulated clearances only)' },
   WIND_NOT_CREDITED_TO_GROUP: { severity: 'note', title: 'Wind not credited to a group of cables', basis: 'IEC 60287-2-1 §4.2.1 free-air law is for still air' },
+  BAR_AC_FACTOR_COMPUTED: { severity: 'note', title: 'Bar AC resistance computed from the current distribution', basis: 'filament (partial-inductance) method; Hoer & Love (1965) / Grover (1946) mutual inductances' },
+  PHASE_SPACING_ASSUMED: { severity: 'review', title: 'Phase spacing of the bars assumed', basis: 'physics.md §10 (current sharing and forces depend on it)' },
+  PACK_RATED_AS_SYSTEM: { severity: 'note', title: 'Bars rated as a pack', basis: 'physics.md §10: current sharing by the filament method; channels by Bar-Cohen & Rohsenow (1984); radiation by view factors' },
+  BAR_SHORT_CIRCUIT_LIMIT_DEFAULTED: { severity: 'review', title: 'Short-circuit temperature of the bar assumed', basis: 'common practice for bare bars (from memory)' },
+  FORCES_NOT_CHECKED: { severity: 'review', title: 'Short-circuit forces not checked', basis: 'IEC 60865-1 (needs the support span and arrangement)' },
+  ...BUSBAR_FLAG_REGISTRY,
   SCREEN_LOSSES_INCLUDED: { severity: 'note', title: 'Screen losses included', basis: 'IEC 60287-1-1 §2.3 (λ₁ by bonding and formation, from memory)' },
   DIELECTRIC_LOSSES_INCLUDED: { severity: 'note', title: 'Dielectric losses included', basis: 'IEC 60287-1-1 §2.2 and Table 3 (from memory)' },
   OTHER_CIRCUIT_HEAT_ENTERED: { severity: 'review', title: 'Heat of another circuit entered by the user', basis: 'IEC 60287-2-1 §4.2.3 (superposition of the entered heat)' },

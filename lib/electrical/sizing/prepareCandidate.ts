@@ -214,7 +214,9 @@ function prepareBar(cand: BarCandidate, p: CommonPrep): PreparedBar {
   const widthM = requireRange(cand.widthM, f('widthM'), 0, 1, { minExclusive: true });
   const thicknessM = requireRange(cand.thicknessM, f('thicknessM'), 0, 0.2, { minExclusive: true });
   const barsPerPhase = cand.barsPerPhase === undefined ? 1 : requireInteger(cand.barsPerPhase, f('barsPerPhase'), 1, 20);
-  if (cand.barGapM !== undefined) requireNonNegative(cand.barGapM, f('barGapM'));
+  // A pack's bars need a gap between them (they would be one thicker bar otherwise).
+  const barGapM = cand.barGapM === undefined ? thicknessM : barsPerPhase > 1 ? requireRange(cand.barGapM, f('barGapM'), 0, 1, { minExclusive: true }) : requireNonNegative(cand.barGapM, f('barGapM'));
+  const yieldStrengthPa = cand.yieldStrengthPa === undefined ? undefined : requireRange(cand.yieldStrengthPa, f('yieldStrengthPa'), 1e6, 2e9);
   const acResistanceRatio = cand.acResistanceRatio === undefined ? undefined : requireRange(cand.acResistanceRatio, f('acResistanceRatio'), 1, 10);
   const terminal = limitOf(cand.terminalLimitC, f('terminalLimitC'));
   const ratings: Rating[] = [];
@@ -251,7 +253,6 @@ function prepareBar(cand: BarCandidate, p: CommonPrep): PreparedBar {
       flags.add('EMISSIVITY_ASSUMED', cand.coating ? DEFAULT_TEXT.coatingEmissivity(DEFAULT_COATED_BAR_EMISSIVITY) : DEFAULT_TEXT.bareBarEmissivity(DEFAULT_BARE_BAR_EMISSIVITY));
     }
     flags.add('BAR_EDGES_LUMPED', MODEL_TEXT.barEdges((widthM + thicknessM) / widthM));
-    if (barsPerPhase > 1) flags.add('MULTI_BAR_INNER_FACES', MODEL_TEXT.multiBarInnerFaces(barsPerPhase), { barsPerPhase });
     if (p.parallel > 1) flags.add('PARALLEL_SHARING_ASSUMED', MODEL_TEXT.barParallelSharing(p.parallel), { parallel: p.parallel });
     if (acResistanceRatio !== undefined && conditions.frequencyHz > 0) {
       flags.add('AC_FACTOR_USER_ENTERED', ENTERED_TEXT.barAcRatio(acResistanceRatio), { ratio: acResistanceRatio });
@@ -282,6 +283,8 @@ function prepareBar(cand: BarCandidate, p: CommonPrep): PreparedBar {
     widthM,
     thicknessM,
     barsPerPhase,
+    barGapM,
     ...(acResistanceRatio !== undefined ? { acResistanceRatio } : {}),
+    ...(yieldStrengthPa !== undefined ? { yieldStrengthPa } : {}),
   };
 }

@@ -14,7 +14,8 @@ import { toMoney } from '../economics';
 import { DEFAULT_TEXT, ENTERED_TEXT, SHORT_CIRCUIT_TEXT } from './flagText';
 import { FlagSet } from './flags';
 import type { PreparedConditions } from './prepared';
-import type { BuriedSurroundings, CableArrangement, Conditions, EconomicsInputs, OtherCircuit } from './types';
+import { prepareBusbarSystemConditions } from './busbarSystem';
+import type { BusbarSystemConditions, BuriedSurroundings, CableArrangement, Conditions, EconomicsInputs, OtherCircuit } from './types';
 
 /** Reference ambients when none is entered (flagged AMBIENT_ASSUMED). */
 export const DEFAULT_AIR_AMBIENT_CABLE_C = 30; // IEC 60364-5-52 reference ambient for air (from memory)
@@ -109,6 +110,8 @@ export function prepareConditions(c: Conditions): PreparedConditions {
       },
     };
   });
+  const busbarSystem = prepareBusbarSystemConditions((inst as { system?: BusbarSystemConditions }).system, f('installation.system'));
+  if (busbarSystem && placement !== 'bar-on-edge' && placement !== 'bar-flat') throw new ElectricalInputError(f('installation.system'), 'a bus-bar system is for bars');
   if (placement !== 'buried' && (arrangement.duct !== undefined || arrangement.backfill !== undefined)) {
     throw new ElectricalInputError(f(arrangement.duct !== undefined ? 'installation.duct' : 'installation.backfill'), 'ducts and backfill are for buried cables');
   }
@@ -194,6 +197,7 @@ export function prepareConditions(c: Conditions): PreparedConditions {
     // Ducts and backfill are checked with the whole cross-section, where the cable's size is known.
     duct: arrangement.duct,
     backfill: arrangement.backfill,
+    ...(busbarSystem ? { busbarSystem } : {}),
     buried,
     windSpeedMPerS,
     solar,

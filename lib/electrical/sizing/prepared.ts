@@ -4,7 +4,7 @@
  * validates nothing again.
  */
 import type { ConductorMaterial, ConductorMaterialConstants } from '../materials';
-import type { BarCandidate, BuriedSurroundings, CableCandidate, CableScreen, Conditions, EconomicsInputs, GoverningLimit, OtherCircuit } from './types';
+import type { BarCandidate, BusbarSystemConditions, BuriedSurroundings, CableCandidate, CableScreen, Conditions, EconomicsInputs, GoverningLimit, OtherCircuit } from './types';
 
 export type Placement = 'cable-in-air' | 'bar-on-edge' | 'bar-flat' | 'buried';
 
@@ -33,6 +33,8 @@ export interface PreparedConditions {
   otherCircuits: OtherCircuit[];
   transposed: boolean;
   duct?: NonNullable<BuriedSurroundings['duct']>;
+  /** The bus-bar system a bar belongs to (phase spacing, supports), when described. */
+  busbarSystem?: BusbarSystemConditions;
   backfill?: NonNullable<BuriedSurroundings['backfill']>;
   buried?: { depthM: number; soilResistivityKmPerW: number; soilAssumed: boolean; groundAssumed: boolean };
   windSpeedMPerS: number;
@@ -103,7 +105,10 @@ export interface PreparedBar extends PreparedCommon {
   widthM: number;
   thicknessM: number;
   barsPerPhase: number;
+  /** Clear gap between the bars of a pack, m (default the bar thickness). */
+  barGapM: number;
   acResistanceRatio?: number;
+  yieldStrengthPa?: number;
 }
 
 export type PreparedCandidate = PreparedCable | PreparedBar;

@@ -109,6 +109,8 @@ export interface BarCandidate extends CandidateCommon {
   terminalLimitC?: number;
   /** Highest short-circuit temperature of the bar and its supports, °C. */
   shortCircuitLimitC?: number;
+  /** 0.2 % proof strength R_p0.2 of the bar material, Pa (for the IEC 60865-1 stress check; a default per material otherwise, flagged). */
+  yieldStrengthPa?: number;
 }
 
 export type Candidate = CableCandidate | BarCandidate;
@@ -152,10 +154,35 @@ export interface BuriedSurroundings {
   backfill?: { widthM: number; heightM: number; centreDepthM: number; resistivityKmPerW: number };
 }
 
+/** The three-phase system a bus bar is part of (physics.md §10; IEC 60865-1 for the forces). */
+export interface BusbarSystemConditions {
+  /** Centre of one phase's pack to the centre of the next, m. */
+  phaseSpacingM: number;
+  /** Span between supports, m. */
+  supportSpacingM?: number;
+  /** Distance between the spacers tying a pack's bars, m (default the support spacing). */
+  spacerSpacingM?: number;
+  /** How the bars are held (IEC 60865-1 Table 3): needed, with the support span and a fault, for the force check. */
+  supports?: 'single-span-both-simply-supported' | 'single-span-fixed-and-simply-supported' | 'single-span-both-fixed' | 'continuous-two-spans' | 'continuous-three-or-more-spans';
+  /** Rated bending strength of one support, N. */
+  supportStrengthN?: number;
+  /** R/X of the short-circuit impedance (peak factor κ, IEC 60909-0), or κ itself. */
+  rOverX?: number;
+  kappa?: number;
+  /** Section modulus of a stiffened pack about its bending axis, m³ (IEC 60865-1; flagged); default the bars alone. */
+  mainSectionModulusM3?: number;
+  /**
+   * 'per-bar' (default, cautious): each bar of a pack at its own temperature, heat between them by
+   * radiation only. 'per-pack': the bars bonded by conducting spacers to one temperature (the
+   * optimistic bound; flagged).
+   */
+  packNodes?: 'per-bar' | 'per-pack';
+}
+
 export type Installation =
   | ({ kind: 'cable-in-air' } & CableArrangement)
-  | { kind: 'bar-on-edge' }
-  | { kind: 'bar-flat' }
+  | { kind: 'bar-on-edge'; system?: BusbarSystemConditions }
+  | { kind: 'bar-flat'; system?: BusbarSystemConditions }
   | ({
       kind: 'buried';
       /** Depth of the cable axis, m. */
@@ -172,6 +199,7 @@ export type Installation =
       deratingFactor: number;
       /** How the conductor lies inside. */
       inside: 'cable-in-air' | 'bar-on-edge' | 'bar-flat';
+      system?: BusbarSystemConditions;
     } & CableArrangement);
 
 export interface EconomicsInputs {
@@ -355,6 +383,10 @@ export interface CandidateEvaluationOk {
   profile: HeatProfile | null;
   /** The cross-section that was rated (cables only): where every cable lies and how hot it runs. */
   group?: GroupResult;
+  /** A bus-bar pack at the design current: every bar's share of its phase current, loss and temperature. */
+  pack?: PackResult;
+  /** The short-circuit forces of IEC 60865-1 on a bus-bar system, when the supports are described and a fault entered. */
+  forces?: ForcesResult;
   flags: AssumptionFlag[];
   solves: number;
   isSmallestPassing?: boolean;
@@ -411,4 +443,31 @@ export interface Comparison {
   evaluations: CandidateEvaluation[];
   smallestPassingIndex: number | null;
   lowestLifeCycleCostPassingIndex: number | null;
+}
+
+export interface PackResult {
+  bars: Array<{ phase: string; positionInPack: number; shareOfPhase: number; currentA: number; lossWPerM: number; temperatureC: number; acFactor: number | null }>;
+  hottest: { phase: string; positionInPack: number; temperatureC: number };
+  /** The worst phase's R_ac/R_dc, the unequal sharing included. */
+  acFactor: number;
+  method: string;
+}
+
+export interface ForcesResult {
+  method: string;
+  kappa: number;
+  peakCurrentA: number;
+  mainForceN: number;
+  totalStressPa: number;
+  yieldStrengthPa: number;
+  /** σ_tot/(q·R_p0.2): ≤ 1 passes. */
+  stressRatio: number;
+  subConductorStressRatio: number | null;
+  supportForceAN: number;
+  supportForceBN: number;
+  /** Largest force over the rated support strength (null when none given). */
+  supportForceRatio: number | null;
+  passes: boolean;
+  largestSupportSpacingM: number;
+  largestSupportSpacingLimitedBy: string;
 }

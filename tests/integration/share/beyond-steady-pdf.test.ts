@@ -26,7 +26,8 @@ const OVER_TIME_HEADING = 'Over time (chosen candidate)';
 const ALONG_RUN_HEADING = 'Along the run (chosen candidate)';
 
 /** 2 × 100 × 10 mm copper bars per phase (test input). */
-const bar = testCopperBar(100, 10, { barsPerPhase: 2 });
+// One bar per phase: the checks over time and along the run model one bar (a pack is rated in the steady state only).
+const bar = testCopperBar(100, 10);
 
 function barInputs(checksOn: boolean): SheetInputs {
   const inputs = defaultSheetInputs('bar-on-edge');

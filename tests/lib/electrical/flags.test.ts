@@ -5,6 +5,7 @@ import {
   evaluateCandidate,
   FLAG_CODES,
   FLAG_REGISTRY,
+  RETIRED_FLAG_CODES,
   type Candidate,
   type BeyondSteadyFlagCode,
   type Conditions,
@@ -22,10 +23,18 @@ function codesOf(candidate: Candidate, conditions: Conditions): FlagCode[] {
   return e.flags.map((f) => f.code);
 }
 
-// The optional checks over time and along the run raise their own codes (tests/lib/electrical/beyond-steady.test.ts).
-const STEADY_CODES = FLAG_CODES.filter((c) => !(BEYOND_STEADY_FLAG_CODES as readonly FlagCode[]).includes(c)) as Exclude<FlagCode, BeyondSteadyFlagCode>[];
+// The optional checks over time and along the run raise their own codes (tests/lib/electrical/beyond-steady.test.ts);
+// retired codes are only read from stored sheets.
+type Retired = (typeof RETIRED_FLAG_CODES)[number];
+const STEADY_CODES = FLAG_CODES.filter(
+  (c) => !(BEYOND_STEADY_FLAG_CODES as readonly FlagCode[]).includes(c) && !(RETIRED_FLAG_CODES as readonly FlagCode[]).includes(c),
+) as Exclude<FlagCode, BeyondSteadyFlagCode | Retired>[];
 
-const cases: Record<Exclude<FlagCode, BeyondSteadyFlagCode>, () => { candidate: Candidate; conditions: Conditions }> = {
+/** A three-phase system of 100 × 10 mm copper bars 200 mm apart on supports 1 m apart, with a 50 kA fault. */
+const system = (extra: Record<string, unknown> = {}) => ({ phaseSpacingM: 0.2, supportSpacingM: 1, supports: 'continuous-three-or-more-spans' as const, ...extra });
+const barFault = { currentA: 50_000, durationS: 0.5 };
+
+const cases: Record<Exclude<FlagCode, BeyondSteadyFlagCode | Retired>, () => { candidate: Candidate; conditions: Conditions }> = {
   AMBIENT_ASSUMED: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ ambientC: undefined }) }),
   GROUPING_DERATING_ENTERED: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ groupingFactor: 0.8 }) }),
   ENCLOSURE_DERATING_ENTERED: () => ({
@@ -45,7 +54,6 @@ const cases: Record<Exclude<FlagCode, BeyondSteadyFlagCode>, () => { candidate: 
   WIND_COOLING_CREDITED: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ windSpeedMPerS: 2 }) }),
   EMISSIVITY_ASSUMED: () => ({ candidate: xlpeCable(95, { emissivity: undefined }), conditions: cableConditions() }),
   SOLAR_ABSORPTIVITY_ASSUMED: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ solar: { irradianceWPerM2: 1000 } }) }),
-  AC_FACTOR_LOWER_BOUND: () => ({ candidate: copperBar(0.1, 0.01), conditions: barConditions() }),
   AC_FACTOR_USER_ENTERED: () => ({ candidate: copperBar(0.1, 0.01, { acResistanceRatio: 1.06 }), conditions: barConditions() }),
   // 400 Hz on a 300 mm² conductor: x_s² = 8π·400·1e-7/R' ≈ 12, x_s ≈ 3.5 > 2.8.
   AC_FORMULA_OUT_OF_RANGE: () => ({ candidate: xlpeCable(300), conditions: cableConditions({ frequencyHz: 400, designCurrentA: 100 }) }),
@@ -77,7 +85,6 @@ const cases: Record<Exclude<FlagCode, BeyondSteadyFlagCode>, () => { candidate: 
   SHORT_CIRCUIT_LONG_DURATION: () => ({ candidate: xlpeCable(240), conditions: cableConditions({ fault: { currentA: 2_000, durationS: 8 } }) }),
   MULTICORE_APPROXIMATION: () => ({ candidate: xlpeCable(95, { cores: 4 }), conditions: cableConditions() }),
   DATA_FROM_MEMORY: () => ({ candidate: xlpeCable(95, { sourceNotes: ['R20 from IEC 60228 Table 2, from memory'] }), conditions: cableConditions() }),
-  MULTI_BAR_INNER_FACES: () => ({ candidate: copperBar(0.1, 0.01, { barsPerPhase: 2 }), conditions: barConditions() }),
   PARALLEL_SHARING_ASSUMED: () => ({ candidate: xlpeCable(95, { parallel: 2 }), conditions: cableConditions() }),
   BAR_EDGES_LUMPED: () => ({ candidate: copperBar(0.1, 0.01), conditions: barConditions() }),
   BURIED_SOIL_ASSUMED: () => ({
@@ -123,6 +130,38 @@ const cases: Record<Exclude<FlagCode, BeyondSteadyFlagCode>, () => { candidate: 
     c.layers = [{ name: 'PVC insulation', role: 'insulation', thicknessM: 3.4e-3, thermalResistivityKmPerW: 6.0, continuousLimitC: 70, shortCircuitLimitC: 160 }, c.layers[1]];
     return { candidate: c, conditions: cableConditions({ nominalVoltageV: 6350 }) };
   },
+  BAR_AC_FACTOR_COMPUTED: () => ({ candidate: copperBar(0.1, 0.01), conditions: barConditions() }),
+  PHASE_SPACING_ASSUMED: () => ({ candidate: copperBar(0.1, 0.01), conditions: barConditions() }),
+  PACK_RATED_AS_SYSTEM: () => ({ candidate: copperBar(0.1, 0.01, { barsPerPhase: 2, barGapM: 0.01 }), conditions: barConditions({ installation: { kind: 'bar-on-edge', system: system() } }) }),
+  BAR_SHORT_CIRCUIT_LIMIT_DEFAULTED: () => ({ candidate: copperBar(0.1, 0.01, { shortCircuitLimitC: undefined }), conditions: barConditions({ fault: { currentA: 20_000, durationS: 0.5 } }) }),
+  FORCES_NOT_CHECKED: () => ({ candidate: copperBar(0.1, 0.01), conditions: barConditions({ fault: { currentA: 20_000, durationS: 0.5 } }) }),
+  // A 1 mm gap: the channel's Ra′ falls below the Bar-Cohen & Rohsenow range.
+  BUSBAR_CHANNEL_OUT_OF_RANGE: () => ({ candidate: copperBar(0.1, 0.01, { barsPerPhase: 2, barGapM: 0.001 }), conditions: barConditions({ installation: { kind: 'bar-on-edge', system: system() } }) }),
+  // A 60 mm gap: the channel would cool better than a free plate; it is capped there.
+  BUSBAR_CHANNEL_LIMITED_TO_PLATE: () => ({ candidate: copperBar(0.1, 0.01, { barsPerPhase: 2, barGapM: 0.06 }), conditions: barConditions({ installation: { kind: 'bar-on-edge', system: system({ phaseSpacingM: 0.4 }) } }) }),
+  BUSBAR_FLAT_GAP_NO_CONVECTION: () => ({ candidate: copperBar(0.1, 0.01, { barsPerPhase: 2, barGapM: 0.01 }), conditions: barConditions({ installation: { kind: 'bar-flat', system: system() } }) }),
+  BUSBAR_FLAT_SLOT_RADIATION_TO_ROOM: () => ({ candidate: copperBar(0.1, 0.01, { barsPerPhase: 2, barGapM: 0.01 }), conditions: barConditions({ installation: { kind: 'bar-flat', system: system() } }) }),
+  BUSBAR_EDGE_CONVECTION: () => ({ candidate: copperBar(0.1, 0.01, { barsPerPhase: 2, barGapM: 0.01 }), conditions: barConditions({ installation: { kind: 'bar-on-edge', system: system() } }) }),
+  // A 20 mm pair laid flat: L = w/2 = 10 mm puts Ra below the 1e4 where the horizontal-plate
+  // correlations start (Incropera ch. 9).
+  BUSBAR_PLATE_OUT_OF_RANGE: () => ({ candidate: copperBar(0.02, 0.005, { barsPerPhase: 2, barGapM: 0.005 }), conditions: barConditions({ designCurrentA: 100, installation: { kind: 'bar-flat', system: system({ phaseSpacingM: 0.08 }) } }) }),
+  BUSBAR_BARS_ISOTHERMAL: () => ({ candidate: copperBar(0.1, 0.01, { barsPerPhase: 2, barGapM: 0.01 }), conditions: barConditions({ installation: { kind: 'bar-on-edge', system: system() } }) }),
+  BUSBAR_PACK_ISOTHERMAL: () => ({ candidate: copperBar(0.1, 0.01, { barsPerPhase: 2, barGapM: 0.01 }), conditions: barConditions({ installation: { kind: 'bar-on-edge', system: system({ packNodes: 'per-pack' }) } }) }),
+  // 40 kA through one 100 × 10 mm pair at 200 °C ambient: no steady state at the design current.
+  BUSBAR_NO_STEADY_STATE: () => ({ candidate: copperBar(0.1, 0.01, { barsPerPhase: 2, barGapM: 0.01, terminalLimitC: 400 }), conditions: barConditions({ designCurrentA: 40_000, installation: { kind: 'bar-on-edge', system: system() } }) }),
+  BUSBAR_KAPPA_DEFAULTED: () => ({ candidate: copperBar(0.1, 0.01), conditions: barConditions({ fault: barFault, installation: { kind: 'bar-on-edge', system: system() } }) }),
+  BUSBAR_DYNAMIC_FACTORS_DEFAULTED: () => ({ candidate: copperBar(0.1, 0.01), conditions: barConditions({ fault: barFault, installation: { kind: 'bar-on-edge', system: system() } }) }),
+  BUSBAR_YIELD_STRENGTH_DEFAULTED: () => ({ candidate: copperBar(0.1, 0.01), conditions: barConditions({ fault: barFault, installation: { kind: 'bar-on-edge', system: system() } }) }),
+  BUSBAR_SECTION_MODULUS_NO_STIFFENING: () => ({ candidate: copperBar(0.1, 0.01, { barsPerPhase: 2, barGapM: 0.01 }), conditions: barConditions({ fault: barFault, installation: { kind: 'bar-on-edge', system: system() } }) }),
+  BUSBAR_SECTION_MODULUS_ENTERED: () => ({ candidate: copperBar(0.1, 0.01), conditions: barConditions({ fault: barFault, installation: { kind: 'bar-on-edge', system: system({ mainSectionModulusM3: 5e-6 }) } }) }),
+  BUSBAR_MAIN_DISTANCE_FROM_ENVELOPE: () => ({ candidate: copperBar(0.1, 0.01, { barsPerPhase: 2, barGapM: 0.01 }), conditions: barConditions({ fault: barFault, installation: { kind: 'bar-on-edge', system: system() } }) }),
+  BUSBAR_STRESS_EXCEEDED: () => ({ candidate: copperBar(0.1, 0.01), conditions: barConditions({ fault: { currentA: 80_000, durationS: 0.5 }, installation: { kind: 'bar-on-edge', system: system() } }) }),
+  BUSBAR_SUB_CONDUCTOR_STRESS_EXCEEDED: () => ({
+    candidate: copperBar(0.1, 0.005, { barsPerPhase: 2, barGapM: 0.005 }),
+    conditions: barConditions({ fault: { currentA: 80_000, durationS: 0.5 }, installation: { kind: 'bar-on-edge', system: system({ spacerSpacingM: 1 }) } }),
+  }),
+  BUSBAR_SUPPORT_FORCE_EXCEEDED: () => ({ candidate: copperBar(0.1, 0.01), conditions: barConditions({ fault: barFault, installation: { kind: 'bar-on-edge', system: system({ supportStrengthN: 1000 }) } }) }),
+  BUSBAR_SUPPORT_STRENGTH_NOT_GIVEN: () => ({ candidate: copperBar(0.1, 0.01), conditions: barConditions({ fault: barFault, installation: { kind: 'bar-on-edge', system: system() } }) }),
   SHEATH_LOSSES_NOT_INCLUDED: () => {
     const c = xlpeCable(95);
     c.layers = [c.layers[0], { name: 'copper wire screen', role: 'screen', thicknessM: 0.5e-3, thermalResistivityKmPerW: 0.0025 }, c.layers[1]];

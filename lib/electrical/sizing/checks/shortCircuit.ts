@@ -1,14 +1,22 @@
 /** Check: short-circuit withstand by the IEC 60949 adiabatic method. */
 import { adiabaticK, minimumSection, shortCircuitFinalTemperature } from '../../shortCircuit';
 import type { SizingContext } from '../context';
-import { SHORT_CIRCUIT_TEXT } from '../flagText';
+import { MODEL_TEXT, SHORT_CIRCUIT_TEXT } from '../flagText';
+
+/** Short-circuit temperature of a bare copper or aluminium bar and its supports when none is given, °C (common practice, from memory). */
+export const BARE_BAR_SHORT_CIRCUIT_LIMIT_C = 200;
 import type { ShortCircuitCheck } from '../types';
 
 export function shortCircuitCheck(ctx: SizingContext, hotSpotC: number | null): ShortCircuitCheck {
   const { cand, cond, flags } = ctx;
   const fault = cond.fault;
   if (!fault) return { checked: false, reason: 'no fault current and duration entered' };
-  const scLimit = cand.shortCircuitLimitC;
+  let scLimit = cand.shortCircuitLimitC;
+  if (scLimit === undefined && cand.kind === 'bar') {
+    // A bare bar's fault limit is its metal's and its supports': a default, said so.
+    scLimit = BARE_BAR_SHORT_CIRCUIT_LIMIT_C;
+    flags.add('BAR_SHORT_CIRCUIT_LIMIT_DEFAULTED', MODEL_TEXT.barShortCircuitLimitDefaulted(scLimit), { limitC: scLimit });
+  }
   if (scLimit === undefined) {
     flags.add('SHORT_CIRCUIT_NOT_CHECKED', SHORT_CIRCUIT_TEXT.noLimit(cand.kind));
     return { checked: false, reason: 'no short-circuit temperature limit for the covering', currentA: fault.currentA, durationS: fault.durationS };
