@@ -6,14 +6,15 @@ import { devMailboxEnabled } from '@/server/mail/mailbox';
 const catcher = { MAIL_CATCHER_URL: 'http://127.0.0.1:2580' };
 
 describe('devMailboxEnabled', () => {
-  it('production: off unless AMPWARDEN_DEV_MAILBOX=1', () => {
-    expect(devMailboxEnabled({ ...catcher, NODE_ENV: 'production' })).toBe(false);
-    expect(devMailboxEnabled({ ...catcher, NODE_ENV: 'production', AMPWARDEN_DEV_MAILBOX: 'true' })).toBe(false);
-    expect(devMailboxEnabled({ ...catcher, NODE_ENV: 'production', AMPWARDEN_DEV_MAILBOX: '1' })).toBe(true);
+  it('production (and any mode but development): off unless AMPWARDEN_DEV_MAILBOX=1', () => {
+    expect(devMailboxEnabled(catcher, 'production')).toBe(false);
+    expect(devMailboxEnabled({ ...catcher, AMPWARDEN_DEV_MAILBOX: 'true' }, 'production')).toBe(false);
+    expect(devMailboxEnabled(catcher, 'test')).toBe(false);
+    expect(devMailboxEnabled({ ...catcher, AMPWARDEN_DEV_MAILBOX: '1' }, 'production')).toBe(true);
   });
   it('development: on with the mail catcher, off without it or when switched off', () => {
-    expect(devMailboxEnabled({ ...catcher, NODE_ENV: 'development' })).toBe(true);
-    expect(devMailboxEnabled({ NODE_ENV: 'development' })).toBe(false);
-    expect(devMailboxEnabled({ ...catcher, NODE_ENV: 'development', AMPWARDEN_DEV_MAILBOX: '0' })).toBe(false);
+    expect(devMailboxEnabled(catcher, 'development')).toBe(true);
+    expect(devMailboxEnabled({}, 'development')).toBe(false);
+    expect(devMailboxEnabled({ ...catcher, AMPWARDEN_DEV_MAILBOX: '0' }, 'development')).toBe(false);
   });
 });
