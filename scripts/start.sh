@@ -117,15 +117,16 @@ start_service() {
 # A service that dies is started again: after 1 s, doubling up to 60 s while it keeps dying within
 # a minute of its start; one that ran longer starts again after 1 s.
 supervise() {
-  local name pid status ran
+  local name pid status ran previous
   for name in "${SERVICES[@]}"; do
     pid=${PID_OF[$name]:-}
     if [ -n "$pid" ] && ! kill -0 "$pid" 2>/dev/null; then
       status=0
       wait "$pid" 2>/dev/null || status=$?
       ran=$((SECONDS - ${STARTED_AT[$name]:-0}))
-      if [ "$ran" -ge 60 ]; then BACKOFF_OF[$name]=1; else BACKOFF_OF[$name]=$(( ${BACKOFF_OF[$name]:-0} == 0 ? 1 : ${BACKOFF_OF[$name]} * 2 )); fi
-      [ "${BACKOFF_OF[$name]}" -gt 60 ] && BACKOFF_OF[$name]=60
+      previous=${BACKOFF_OF[$name]:-0}
+      if [ "$ran" -ge 60 ] || [ "$previous" = 0 ]; then BACKOFF_OF[$name]=1; else BACKOFF_OF[$name]=$((previous * 2)); fi
+      if [ "${BACKOFF_OF[$name]}" -gt 60 ]; then BACKOFF_OF[$name]=60; fi
       PID_OF[$name]=""
       DUE_AT[$name]=$((SECONDS + ${BACKOFF_OF[$name]}))
       log_line "$name (pid $pid) exited with status $status after ${ran} s; starting it again in ${BACKOFF_OF[$name]} s"

@@ -88,9 +88,10 @@ describe('npm start', () => {
       AMPWARDEN_DATA_DIR: dataDir,
       NEXT_DIST_DIR: process.env.NEXT_DIST_DIR ?? '.next',
     });
-    child = spawn('npm', ['start'], { env, stdio: ['ignore', 'pipe', 'pipe'] });
-    child.stdout?.on('data', (chunk) => (output += chunk));
-    child.stderr?.on('data', (chunk) => (output += chunk));
+    const npm = spawn('npm', ['start'], { env: env as NodeJS.ProcessEnv, stdio: ['ignore', 'pipe', 'pipe'] });
+    child = npm;
+    npm.stdout?.on('data', (chunk) => (output += chunk));
+    npm.stderr?.on('data', (chunk) => (output += chunk));
     const log = () => output;
     const app = `http://127.0.0.1:${appPort}`;
 
@@ -112,8 +113,8 @@ describe('npm start', () => {
     // The worker's own log says so too.
     expect(fs.readFileSync(path.join(dataDir, 'worker.log'), 'utf8')).toMatch(/worker \(pid \d+\) exited/);
 
-    process.kill(child.pid!, 'SIGTERM');
-    await until('npm start to exit', () => child!.exitCode !== null || child!.signalCode !== null, 60_000, log);
+    process.kill(npm.pid!, 'SIGTERM');
+    await until('npm start to exit', () => npm.exitCode !== null || npm.signalCode !== null, 60_000, log);
     await until('every service to stop', async () => !alive(secondWorker) && !(await portOpen(appPort)) && !(await portOpen(mailPort)) && !(await portOpen(pgPort)), 30_000, log);
     expect(output).toMatch(/ampwarden: stopped/);
   });
