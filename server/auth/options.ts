@@ -64,6 +64,10 @@ export function authOptions(): NextAuthOptions {
           token.epoch = signedIn.sessionEpoch;
           token.sid = randomUUID();
           token.authAt = Math.floor(Date.now() / 1000);
+        } else if (typeof token.sid !== 'string') {
+          // A cookie from before sessions had ids, refreshed: it gets one now, and its eight hours start now.
+          token.sid = randomUUID();
+          token.authAt = Math.floor(Date.now() / 1000);
         }
         return token;
       },
