@@ -17,6 +17,13 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { isPermissive, licenceOf } from './lib/licences';
 
+interface InstalledPackage {
+  name: string;
+  version: string;
+  licence: string;
+  dir: string;
+}
+
 function productionTree(): InstalledPackage[] {
   let out: string;
   try {
