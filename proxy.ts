@@ -1,15 +1,17 @@
 /**
- * The first, coarse gate: anonymous visitors of workspace pages go to /sign-in, signed-in
- * visitors of the landing page go to /projects. It only reads the session cookie; the real checks
+ * The first, coarse gate: pages answer 503 "Database unavailable" while PostgreSQL cannot be
+ * reached (server/http/databaseGate.ts); anonymous visitors of workspace pages go to /sign-in,
+ * signed-in visitors of the landing page go to /projects. It only reads the session cookie; the real checks
  * (active member, session epoch, role, team) happen on the server in every page data load, route
  * handler and server action (server/auth/session.ts, server/http/api.ts, server/auth/actions.ts).
  */
 import { NextResponse, type NextRequest } from 'next/server';
 import { decode } from 'next-auth/jwt';
 import { sessionCookieName } from '@/server/auth/cookies';
+import { databaseReachable, databaseUnavailablePage } from '@/server/http/databaseGate';
 
-/** Paths anyone may open: landing, sign-in and its helpers, share links, APIs (they answer 401 themselves). */
-const PUBLIC_PREFIXES = ['/sign-in', '/sign-out', '/invite/', '/reset', '/share/', '/api/', '/dev/mailbox'];
+/** Paths anyone may open: landing, sign-in and its helpers, share links, APIs (they answer 401 themselves). /dev/mailbox is for signed-in admins. */
+const PUBLIC_PREFIXES = ['/sign-in', '/sign-out', '/invite/', '/reset', '/share/', '/api/'];
 
 function isPublic(pathname: string): boolean {
   return pathname === '/' || PUBLIC_PREFIXES.some((prefix) => pathname === prefix.replace(/\/$/, '') || pathname.startsWith(prefix));
@@ -28,6 +30,8 @@ async function hasSessionToken(request: NextRequest): Promise<boolean> {
 
 export async function proxy(request: NextRequest) {
   const { pathname, search } = request.nextUrl;
+  // Pages (and the server actions posted to them) need the database; the API answers its own 503.
+  if (pathname !== '/' && !pathname.startsWith('/api/') && !(await databaseReachable())) return databaseUnavailablePage();
   // Server actions answer 401/403 themselves (authorizeAction); a redirect would hide that status.
   if (request.headers.has('next-action')) return NextResponse.next();
   if (pathname === '/') {

@@ -43,6 +43,8 @@ export AMPWARDEN_TEST_TMP=$TMP_DIR
 SMTP_PORT=$(pick_port 25250)
 MAIL_HTTP_PORT=$(pick_port 25800)
 export SMTP_HOST=127.0.0.1 SMTP_PORT MAIL_CATCHER_URL="http://127.0.0.1:$MAIL_HTTP_PORT" MAIL_FROM="Ampwarden <no-reply@ampwarden.invalid>"
+# /dev/mailbox for signed-in admins, explicitly (the production build refuses it otherwise).
+export AMPWARDEN_DEV_MAILBOX=1
 setsid node --import tsx scripts/mail-catcher.ts --smtp-port "$SMTP_PORT" --http-port "$MAIL_HTTP_PORT" >"$TMP_DIR/mail.log" 2>&1 &
 PIDS+=($!)
 

@@ -19,7 +19,7 @@ import {
   type StoredRow,
 } from '@/lib/catalogue/schemas';
 import { columnByField } from '@/lib/catalogue/columns';
-import { readCatalogueFile, validateRecords, type ImportProblem } from '@/lib/catalogue/files';
+import { readCatalogueFile, validateRecords, type ImportProblem, type RawRecord } from '@/lib/catalogue/files';
 import { getDb, type Executor } from '../client';
 import {
   catalogueCableBuildLayers,
@@ -366,8 +366,11 @@ export interface ImportPreview {
 const PREVIEW_SAMPLE_ROWS = 50;
 
 /** Reads and checks a file against the team's catalogue: every problem with its row and column. */
-async function checkImport(tx: Executor, teamId: string, kind: CatalogueKind, file: { fileName: string; bytes: Uint8Array }) {
-  const records = await readCatalogueFile(kind, file.fileName, file.bytes);
+/** Reads an uploaded catalogue file; the routes pass the off-thread reader (server/files/uploadReader.ts). */
+export type CatalogueFileReader = (kind: CatalogueKind, fileName: string, bytes: Uint8Array) => Promise<RawRecord[]>;
+
+async function checkImport(tx: Executor, teamId: string, kind: CatalogueKind, file: { fileName: string; bytes: Uint8Array }, read: CatalogueFileReader) {
+  const records = await read(kind, file.fileName, file.bytes);
   const { rows, problems } = validateRecords(kind, records);
   const maps = await keyMaps(tx, teamId);
   for (const { row, value } of rows) {
@@ -383,9 +386,9 @@ async function checkImport(tx: Executor, teamId: string, kind: CatalogueKind, fi
  * Step 1 of an import: reads the file (refusing what cannot be a catalogue sheet: FileRefusal),
  * validates every row and keeps the original file with an import record. Changes no catalogue row.
  */
-export async function previewImport(teamId: string, actorId: string, kind: CatalogueKind, file: ImportFile): Promise<ImportPreview> {
+export async function previewImport(teamId: string, actorId: string, kind: CatalogueKind, file: ImportFile, read: CatalogueFileReader = readCatalogueFile): Promise<ImportPreview> {
   return getDb().transaction(async (tx) => {
-    const { records, rows, problems } = await checkImport(tx, teamId, kind, file);
+    const { records, rows, problems } = await checkImport(tx, teamId, kind, file, read);
     const table = TABLES[kind];
     const rowsWithProblems = new Set(problems.map((p) => p.row));
     const keys = rows.filter((r) => !rowsWithProblems.has(r.row)).map((r) => (r.value as { key: string }).key);
@@ -431,7 +434,7 @@ export async function previewImport(teamId: string, actorId: string, kind: Catal
  * Step 2: re-reads the kept file, re-validates against the catalogue as it is now, and writes
  * every row in one transaction — or none (ImportProblemsError) when any row has a problem.
  */
-export async function commitImport(teamId: string, actorId: string, importId: string) {
+export async function commitImport(teamId: string, actorId: string, importId: string, read: CatalogueFileReader = readCatalogueFile) {
   if (!z.uuid().safeParse(importId).success) throw new CatalogueNotFoundError('No such import.');
   return getDb().transaction(async (tx) => {
     const [record] = await tx
@@ -442,7 +445,7 @@ export async function commitImport(teamId: string, actorId: string, importId: st
     if (!record) throw new CatalogueNotFoundError('No such import.');
     if (record.status === 'committed') throw new CatalogueConflictError('This file has already been imported.');
     const bytes = new Uint8Array(record.content);
-    const { rows, problems, maps } = await checkImport(tx, teamId, record.kind, { fileName: record.fileName, bytes });
+    const { rows, problems, maps } = await checkImport(tx, teamId, record.kind, { fileName: record.fileName, bytes }, read);
     if (problems.length) throw new ImportProblemsError(problems);
     const { inserted, updated } = await upsertRows(tx, teamId, record.kind, rows.map((r) => r.value), maps);
     await tx.update(catalogueImports).set({ status: 'committed', committedAt: new Date() }).where(eq(catalogueImports.id, record.id));

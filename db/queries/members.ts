@@ -1,9 +1,16 @@
 import { and, asc, desc, eq, gt, isNull, sql } from 'drizzle-orm';
 import { getDb, type Executor } from '../client';
-import { invitations, teams, users } from '../schema';
+import { recordAudit } from './audit';
+import { invitations, revokedSessions, teams, users } from '../schema';
 
-/** The row behind a session: the user with their team's name, or null when gone. */
-export async function findSessionRow(userId: string, tx: Executor = getDb()) {
+/**
+ * The row behind a session: the user with their team's name, or null when gone. `revoked` says
+ * whether this session id was ended by signing out (false for a session without an id).
+ */
+export async function findSessionRow(userId: string, sessionId?: string, tx: Executor = getDb()) {
+  const revoked = sessionId
+    ? sql<boolean>`exists (select 1 from ${revokedSessions} where ${revokedSessions.sessionId} = ${sessionId})`
+    : sql<boolean>`false`;
   const [row] = await tx
     .select({
       id: users.id,
@@ -15,11 +22,43 @@ export async function findSessionRow(userId: string, tx: Executor = getDb()) {
       unitSystem: users.unitSystem,
       active: users.active,
       sessionEpoch: users.sessionEpoch,
+      revoked,
     })
     .from(users)
     .innerJoin(teams, eq(teams.id, users.teamId))
     .where(eq(users.id, userId));
   return row ?? null;
+}
+
+/**
+ * Ends one session at sign-out: its id joins the revoked list until the session would have
+ * expired anyway (rows past that are cleared on the way). A session without an id (issued before
+ * sessions had one) cannot be named, so all of the user's sessions of that epoch end instead.
+ * Audited in the same transaction.
+ */
+export async function endSession(session: { userId: string; epoch: number; sessionId?: string; expiresAt: Date }) {
+  await getDb().transaction(async (tx) => {
+    await tx.delete(revokedSessions).where(sql`${revokedSessions.expiresAt} < now()`);
+    const [owner] = await tx.select({ teamId: users.teamId }).from(users).where(eq(users.id, session.userId));
+    // A user who is gone has no session left to end.
+    if (!owner) return;
+    if (session.sessionId) {
+      await tx.insert(revokedSessions).values({ sessionId: session.sessionId, userId: session.userId, expiresAt: session.expiresAt }).onConflictDoNothing();
+    } else {
+      await tx
+        .update(users)
+        .set({ sessionEpoch: sql`${users.sessionEpoch} + 1` })
+        .where(and(eq(users.id, session.userId), eq(users.sessionEpoch, session.epoch)));
+    }
+    await recordAudit(tx, {
+      teamId: owner.teamId,
+      actorId: session.userId,
+      action: 'session.sign_out',
+      entity: 'user',
+      entityId: session.userId,
+      detail: { scope: session.sessionId ? 'this session' : 'every session of this epoch' },
+    });
+  });
 }
 
 /** For sign-in only: looks the account up by e-mail across teams (e-mail is unique). */
@@ -82,3 +121,17 @@ export async function listPendingInvitations(teamId: string, tx: Executor = getD
     .where(and(eq(invitations.teamId, teamId), isNull(invitations.acceptedAt), isNull(invitations.revokedAt), gt(invitations.expiresAt, sql`now()`)))
     .orderBy(desc(invitations.createdAt));
 }
+
+/**
+ * Every address this team has mail for: its members, the people it invited, and the recipients of
+ * sheets it sent by e-mail (the audit log keeps them). Lower case. For the local mailbox, which
+ * shows an admin only their own team's mail.
+ */
+export async function teamMailAddresses(teamId: string, tx: Executor = getDb()): Promise<Set<string>> {
+  const rows = await tx.execute<{ address: string }>(sql`
+    select lower(email) as address from users where team_id = ${teamId}
+    union select lower(email) from invitations where team_id = ${teamId}
+    union select lower(detail->>'to') from audit_log where team_id = ${teamId} and action = 'sheet.email' and detail ? 'to'`);
+  return new Set(rows.rows.map((r) => r.address));
+}
+

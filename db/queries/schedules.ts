@@ -22,6 +22,7 @@ import {
   type ConductorFamily,
   type ResultLine,
   type ScheduleProblem,
+  type ScheduleRecord,
   type ScheduleRow,
 } from '../../lib/schedule';
 import { SOLVER_VERSION } from '../../lib/electrical/version';
@@ -464,11 +465,18 @@ export async function completeScheduleIfDone(scheduleId: string): Promise<boolea
  * with what was found. Throws ScheduleFileRefusal (lib/schedule) for files that are not a
  * schedule at all; row problems are stored, not thrown.
  */
-export async function previewScheduleUpload(teamId: string, actorId: string, scheduleId: string, file: { fileName: string; mediaType: string; bytes: Uint8Array }) {
+export async function previewScheduleUpload(
+  teamId: string,
+  actorId: string,
+  scheduleId: string,
+  file: { fileName: string; mediaType: string; bytes: Uint8Array },
+  // The route passes the off-thread reader (server/files/uploadReader.ts); scripts and tests read in place.
+  read: (fileName: string, bytes: Uint8Array) => Promise<ScheduleRecord[]> = readScheduleFile,
+) {
   const summary = await getSchedule(teamId, scheduleId);
   if (!summary) throw notFound();
   if (summary.status !== 'draft') throw new ScheduleOperationError(409, 'already_queued', 'This schedule has been queued; its file can no longer be replaced. Start a new schedule for another file.');
-  const records = await readScheduleFile(file.fileName, file.bytes);
+  const records = await read(file.fileName, file.bytes);
   const families = await loadTeamFamilies(teamId);
   const validated = validateScheduleRecords(records, families);
   await storeSchedulePreview(teamId, actorId, scheduleId, { ...file, rows: validated.rows, problems: validated.problems, fileRowCount: records.length });

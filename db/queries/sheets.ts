@@ -8,7 +8,7 @@
  */
 import { aliasedTable, and, asc, desc, eq, ne, sql } from 'drizzle-orm';
 import { getDb, type Executor } from '../client';
-import { auditLog, projects, sheetFlagAcknowledgements, sheets, users } from '../schema';
+import { auditLog, projects, sheetContributions, sheetFlagAcknowledgements, sheets, users } from '../schema';
 import { recordAudit } from './audit';
 import {
   approvalReadiness,
@@ -65,7 +65,21 @@ const sheetColumns = {
   createdAt: sheets.createdAt,
   updatedAt: sheets.updatedAt,
   newerRevisionId: sql<string | null>`(select n.id from ${sheets} n where n.previous_revision_id = ${sheets.id} limit 1)`,
+  editorIds: contributorsOf('edited'),
+  submitterIds: contributorsOf('submitted'),
 };
+
+function contributorsOf(kind: 'edited' | 'submitted') {
+  return sql<string[]>`(select coalesce(json_agg(c.user_id order by c.first_at), '[]'::json) from ${sheetContributions} c where c.sheet_id = ${sheets.id} and c.kind = ${kind})`;
+}
+
+/** Records that this person edited or submitted this revision (once per person and kind; the last time is kept). */
+async function recordContribution(tx: Executor, teamId: string, sheetId: string, userId: string, kind: 'edited' | 'submitted') {
+  await tx
+    .insert(sheetContributions)
+    .values({ teamId, sheetId, userId, kind })
+    .onConflictDoUpdate({ target: [sheetContributions.sheetId, sheetContributions.userId, sheetContributions.kind], set: { lastAt: sql`now()` } });
+}
 
 
 async function loadSheetRow(teamId: string, sheetId: string, tx: Executor) {
@@ -161,14 +175,21 @@ export async function listSheetsForProject(teamId: string, projectId: string): P
   return rows.map(listItem);
 }
 
-/** Sheets waiting for review that this user may review (not their own). */
+/** Sheets waiting for review that this user may review (not their own, nor ones they edited or submitted). */
 export async function listReviewQueue(teamId: string, reviewerId: string): Promise<SheetListItem[]> {
   const rows = await getDb()
     .select(listColumns)
     .from(sheets)
     .innerJoin(projects, eq(projects.id, sheets.projectId))
     .leftJoin(authors, eq(authors.id, sheets.authorId))
-    .where(and(eq(sheets.teamId, teamId), eq(sheets.status, 'in_review'), ne(sheets.authorId, reviewerId)))
+    .where(
+      and(
+        eq(sheets.teamId, teamId),
+        eq(sheets.status, 'in_review'),
+        ne(sheets.authorId, reviewerId),
+        sql`not exists (select 1 from ${sheetContributions} c where c.sheet_id = ${sheets.id} and c.user_id = ${reviewerId})`,
+      ),
+    )
     .orderBy(asc(sheets.updatedAt));
   return rows.map(listItem);
 }
@@ -204,6 +225,7 @@ export async function createSheet(teamId: string, actor: Actor, input: NewSheet)
         authorId: actor.userId,
       })
       .returning({ id: sheets.id, version: sheets.version });
+    await recordContribution(tx, teamId, sheet.id, actor.userId, 'edited');
     await tx.update(projects).set({ updatedAt: new Date() }).where(eq(projects.id, input.projectId));
     await recordAudit(tx, {
       teamId,
@@ -255,8 +277,14 @@ export async function saveSheet(teamId: string, actor: Actor, sheetId: string, s
       .where(and(eq(sheets.teamId, teamId), eq(sheets.id, sheetId), eq(sheets.version, save.expectedVersion)))
       .returning({ version: sheets.version });
     if (updated.length === 0) {
-      throw conflict(current, save.inputs);
+      // The save that won committed after our read above: answer with the row as it is now (a
+      // statement of its own sees that commit under READ COMMITTED), so that "take theirs" loads
+      // what was really saved, not what this request read before.
+      const latest = await getSheet(teamId, sheetId, tx);
+      if (!latest) throw notFound();
+      throw conflict(latest, save.inputs);
     }
+    await recordContribution(tx, teamId, sheetId, actor.userId, 'edited');
     await recordAudit(tx, {
       teamId,
       actorId: actor.userId,
@@ -333,6 +361,7 @@ export async function transitionSheet(
       })
       .where(and(eq(sheets.teamId, teamId), eq(sheets.id, sheetId)))
       .returning({ version: sheets.version, status: sheets.status });
+    if (action === 'submit') await recordContribution(tx, teamId, sheetId, actor.userId, 'submitted');
     await recordAudit(tx, {
       teamId,
       actorId: actor.userId,
@@ -410,6 +439,7 @@ export async function reviseSheet(teamId: string, actor: Actor, sheetId: string)
         authorId: actor.userId,
       })
       .returning({ id: sheets.id, revision: sheets.revision });
+    await recordContribution(tx, teamId, created.id, actor.userId, 'edited');
     await recordAudit(tx, {
       teamId,
       actorId: actor.userId,

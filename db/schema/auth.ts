@@ -48,3 +48,20 @@ export const signInLimits = pgTable('sign_in_limits', {
   points: integer('points').notNull().default(0),
   expire: bigint('expire', { mode: 'number' }),
 });
+
+/**
+ * Sessions ended by signing out before their JWT expired. A session cookie carries its own id
+ * (`sid`, server/auth/options.ts); getSessionUser refuses an id listed here, so a copy of the
+ * cookie stops working the moment its owner signs out. A row is needed only until the session
+ * would have ended anyway (`expires_at`), and is deleted after that.
+ */
+export const revokedSessions = pgTable(
+  'revoked_sessions',
+  {
+    sessionId: uuid('session_id').primaryKey(),
+    userId: uuid('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+    revokedAt: timestamp('revoked_at', { withTimezone: true }).notNull().defaultNow(),
+    expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
+  },
+  (t) => [index('revoked_sessions_expires_idx').on(t.expiresAt)],
+);

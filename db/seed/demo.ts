@@ -4,9 +4,10 @@
  * run finds what it would insert and changes nothing.
  */
 import bcrypt from 'bcryptjs';
-import { and, eq } from 'drizzle-orm';
+import { and, eq, inArray } from 'drizzle-orm';
 import type { Db } from '../client';
 import { projects, teams, users } from '../schema';
+import { hashPassword, needsRehash } from '../../server/auth/password';
 
 export const DEMO_TEAM = { slug: 'harrow-fell', name: 'Harrow Fell Consulting (demo)' } as const;
 /** For local use only; printed in the README. */
@@ -37,7 +38,8 @@ export async function seedDemo(db: Db): Promise<SeedReport> {
       [team] = await tx.insert(teams).values(DEMO_TEAM).returning();
       report.teamCreated = true;
     }
-    const passwordHash = await bcrypt.hash(DEMO_PASSWORD, 10);
+    // The same bcrypt cost as every other hash (server/auth/password.ts), so that sign-in timing does not single out demo accounts.
+    const passwordHash = await hashPassword(DEMO_PASSWORD);
     for (const user of DEMO_USERS) {
       const inserted = await tx
         .insert(users)
@@ -45,6 +47,16 @@ export async function seedDemo(db: Db): Promise<SeedReport> {
         .onConflictDoNothing()
         .returning({ id: users.id });
       report.usersCreated += inserted.length;
+    }
+    // Demo accounts seeded earlier with another cost, still on the demo password, get the current one.
+    const seeded = await tx
+      .select({ id: users.id, passwordHash: users.passwordHash })
+      .from(users)
+      .where(inArray(users.email, DEMO_USERS.map((u) => u.email)));
+    for (const row of seeded) {
+      if (row.passwordHash && needsRehash(row.passwordHash) && (await bcrypt.compare(DEMO_PASSWORD, row.passwordHash))) {
+        await tx.update(users).set({ passwordHash }).where(eq(users.id, row.id));
+      }
     }
     const [designer] = await tx.select().from(users).where(eq(users.email, DEMO_USERS[1].email));
     const existing = await tx

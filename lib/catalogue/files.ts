@@ -6,8 +6,8 @@
  * Works on bytes (Uint8Array), not on Node buffers or browser Files, so it runs on either side.
  */
 import ExcelJS from 'exceljs';
-import Papa from 'papaparse';
 import { z } from 'zod';
+import { tableCsv } from '../files/csv';
 import { columnProblems, FileRefusal, keyRowsByHeader, readSpreadsheet, type SpreadsheetFormat, type UploadRules } from '../files/spreadsheet';
 import { CATALOGUE_COLUMNS, KIND_LABELS, columnByField, columnByHeader, type ColumnSpec } from './columns';
 import { ROW_SCHEMAS, type CatalogueKind, type CatalogueRowByKind } from './schemas';
@@ -19,7 +19,7 @@ export { FileRefusal };
 
 export type ImportFormat = SpreadsheetFormat;
 
-const CATALOGUE_UPLOAD: UploadRules = { maxBytes: MAX_IMPORT_BYTES, what: 'catalogue file', sizeAdvice: 'Split it into smaller files.' };
+const CATALOGUE_UPLOAD: UploadRules = { maxBytes: MAX_IMPORT_BYTES, maxRows: MAX_IMPORT_ROWS, what: 'catalogue file', rowNoun: 'rows', sizeAdvice: 'Split it into smaller files.' };
 
 export interface ImportProblem {
   /** Row number as a spreadsheet shows it: the header is row 1, the first data row is row 2. */
@@ -131,10 +131,10 @@ function tableOf(kind: CatalogueKind, rows: ReadonlyArray<Record<string, unknown
   return { headers: columns.map((c) => c.header), body: rows.map((row) => columns.map((c) => cellFor(c, row[c.field]))) };
 }
 
-/** CSV in the import layout (SI units, decimal strings exactly as stored). */
+/** CSV in the import layout (SI units, decimal strings exactly as stored), through the shared writer (formula cells made inert). */
 export function writeCsv(kind: CatalogueKind, rows: ReadonlyArray<Record<string, unknown>>): string {
   const { headers, body } = tableOf(kind, rows);
-  return Papa.unparse({ fields: headers, data: body.map((r) => r.map((v) => v ?? '')) }, { newline: '\r\n' });
+  return tableCsv(headers, body);
 }
 
 /**

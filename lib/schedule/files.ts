@@ -4,7 +4,7 @@
  * Works on bytes (Uint8Array), so it runs in the browser and on the server alike.
  */
 import ExcelJS from 'exceljs';
-import Papa from 'papaparse';
+import { tableCsv } from '../files/csv';
 import { columnProblems, FileRefusal, keyRowsByHeader, readSpreadsheet, type UploadRules } from '../files/spreadsheet';
 import { columnByHeader, normaliseHeader, SCHEDULE_COLUMNS } from './columns';
 
@@ -16,7 +16,9 @@ export { FileRefusal as ScheduleFileRefusal };
 
 const SCHEDULE_UPLOAD: UploadRules = {
   maxBytes: MAX_SCHEDULE_BYTES,
+  maxRows: MAX_SCHEDULE_ROWS,
   what: 'schedule',
+  rowNoun: 'circuits',
   typeAdvice: 'Download the template to start from.',
   sizeAdvice: 'Split it into smaller schedules.',
 };
@@ -62,8 +64,9 @@ export interface Table {
   rows: Array<Array<string | number | null>>;
 }
 
+/** Through the shared CSV writer (lib/files/csv.ts): a circuit tag such as "=cmd()" cannot run as a formula. */
 export function tableToCsv(table: Table): string {
-  return Papa.unparse({ fields: table.headers, data: table.rows.map((r) => r.map((v) => v ?? '')) }, { newline: '\r\n' });
+  return tableCsv(table.headers, table.rows);
 }
 
 export async function tableToXlsx(table: Table, sheetName: string, notes?: Array<[string, string]>): Promise<Uint8Array> {

@@ -26,6 +26,10 @@ export interface SheetRecord {
   version: number;
   authorId: string;
   authorName: string | null;
+  /** Who saved inputs of this revision, the author included; nobody among them may approve it. */
+  editorIds: string[];
+  /** Who submitted this revision for review; nobody among them may approve it. */
+  submitterIds: string[];
   reviewerId: string | null;
   reviewerName: string | null;
   approvedAt: Date | null;

@@ -6,9 +6,14 @@
  *     ▲                 │  │
  *     └────withdraw─────┘  └──return──▶ returned ──submit──▶ in_review
  *
- * Pure: the caller passes what the user may do (`can`) and whether they wrote the sheet, so
- * the same rules run on the server (authoritative) and in the browser (to show only the buttons
- * that will work).
+ * Pure: the caller passes what the user may do (`can`) and who wrote, edited and submitted the
+ * revision, so the same rules run on the server (authoritative) and in the browser (to show only
+ * the buttons that will work).
+ *
+ * Review independence: nobody approves a revision they edited or submitted, nor acknowledges its
+ * flags (which is part of approving it) — not even an admin, who holds every right. The author
+ * may not review their own sheet at all. Returning a sheet approves nothing, so an editor or
+ * submitter who holds the reviewer right may still return it with a comment.
  */
 export type SheetStatus = 'draft' | 'in_review' | 'approved' | 'returned';
 export type SheetAction = 'edit' | 'submit' | 'withdraw' | 'approve' | 'return' | 'acknowledge' | 'revise';
@@ -22,6 +27,10 @@ export interface Actor {
 export interface SheetForTransition {
   status: SheetStatus;
   authorId: string;
+  /** Everyone who saved inputs of this revision (db: sheet_contributions `edited`). */
+  editorIds?: readonly string[];
+  /** Everyone who submitted this revision for review (db: sheet_contributions `submitted`). */
+  submitterIds?: readonly string[];
   /** Set when a newer revision of this sheet exists: only the newest revision may be revised again. */
   hasNewerRevision?: boolean;
 }
@@ -93,6 +102,15 @@ export function decide(action: SheetAction, sheet: SheetForTransition, actor: Ac
     case 'return':
     case 'acknowledge':
       if (isAuthor) return deny('own_sheet', 'A reviewer may not review a sheet they authored.');
+      if (action !== 'return') {
+        const signOff = action === 'approve' ? 'approve it' : 'acknowledge its flags';
+        if (sheet.editorIds?.includes(actor.userId)) {
+          return deny('own_sheet', `You edited this revision, so you may not ${signOff}: another reviewer must.`);
+        }
+        if (sheet.submitterIds?.includes(actor.userId)) {
+          return deny('own_sheet', `You submitted this revision for review, so you may not ${signOff}: another reviewer must.`);
+        }
+      }
       if (action === 'approve') {
         if (!readiness) return deny('not_ready', 'The sheet has no server result to approve.');
         if (!readiness.hasChosenCandidate) return deny('not_ready', 'No candidate is chosen on this sheet.');

@@ -2,7 +2,7 @@
  * The verification report as rows (one per compared quantity) and as CSV, shared by the page's
  * download button and the PDF route, so the two files say the same thing.
  */
-import Papa from 'papaparse';
+import { tableCsv, toCsv } from '../files/csv';
 import { describeTolerance } from './run';
 import { METHOD_AREA_LABELS, type CaseResult } from './types';
 
@@ -88,14 +88,12 @@ export interface ReportMeta {
 export function reportCsv(results: readonly CaseResult[], meta: ReportMeta): string {
   const summary = summarise(results);
   const rows = reportRows(results);
-  const table = Papa.unparse(
-    {
-      fields: ['case id', 'case', 'method', 'source', 'basis', 'quantity', 'unit', 'reference', 'Ampwarden', 'deviation', 'relative deviation', 'tolerance', 'result', 'note'],
-      data: rows.map((row) => [row.caseId, row.case, row.area, row.source, row.basis, row.quantity, row.unit, row.reference, row.ampwarden, row.deviation, row.relativeDeviation, row.tolerance, row.result, row.note]),
-    },
-    { newline: '\r\n', escapeFormulae: true },
+  // The shared CSV writer (lib/files/csv.ts) makes formula-leading cells inert, as every export does.
+  const table = tableCsv(
+    ['case id', 'case', 'method', 'source', 'basis', 'quantity', 'unit', 'reference', 'Ampwarden', 'deviation', 'relative deviation', 'tolerance', 'result', 'note'],
+    rows.map((row) => [row.caseId, row.case, row.area, row.source, row.basis, row.quantity, row.unit, row.reference, row.ampwarden, row.deviation, row.relativeDeviation, row.tolerance, row.result, row.note]),
   );
-  const heading = Papa.unparse(
+  const heading = toCsv(
     [
       ['Ampwarden verification report'],
       ['generated', meta.generatedAt],
@@ -103,7 +101,6 @@ export function reportCsv(results: readonly CaseResult[], meta: ReportMeta): str
       ['cases passed', `${summary.passed} of ${summary.cases}`],
       ['caution', 'An engineering aid: results depend on the listed assumptions and must be checked and signed by a qualified, licensed engineer.'],
     ],
-    { newline: '\r\n' },
   );
   return `${heading}\r\n\r\n${table}\r\n`;
 }

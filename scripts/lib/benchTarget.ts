@@ -5,6 +5,7 @@
  * and the server's memory read from /proc.
  */
 import { execFileSync } from 'node:child_process';
+import { randomUUID } from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import { gzipSync } from 'node:zlib';
@@ -61,7 +62,11 @@ export async function prepareTarget(): Promise<BenchTarget> {
   const member = pair.member;
   const sheet = { id: pair.sheetId };
   const created = await createTeamApiToken(member.teamId, member.id, { name: `load test ${new Date().toISOString()}`, scopes: ['calc'], requestsPerMinute: 100_000 });
-  const jwt = await encode({ secret, token: { sub: member.id, teamId: member.teamId, role: member.role, epoch: member.sessionEpoch, name: member.name, email: member.email } });
+  // The claims a real sign-in gives (server/auth/options.ts), session id and sign-in time included.
+  const jwt = await encode({
+    secret,
+    token: { sub: member.id, teamId: member.teamId, role: member.role, epoch: member.sessionEpoch, sid: randomUUID(), authAt: Math.floor(Date.now() / 1000), name: member.name, email: member.email },
+  });
   const cookieName = appUrl.startsWith('https://') ? '__Secure-next-auth.session-token' : 'next-auth.session-token';
   const port = new URL(appUrl).port || (appUrl.startsWith('https://') ? '443' : '80');
   return {

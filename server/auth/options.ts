@@ -1,14 +1,19 @@
 /**
  * next-auth 4 configuration: e-mail + password (Credentials provider), JWT sessions carrying the
- * user id, team id, role and the user's session epoch. The token alone is never trusted for
- * access: getSessionUser (session.ts) re-reads the user row on every request.
+ * user id, team id, role, the user's session epoch, the session's own id and the sign-in time.
+ * The token alone is never trusted for access: getSessionUser (session.ts) re-reads the user row
+ * and the revoked sessions on every request. Signing out revokes the session's id, so that a copy
+ * of the cookie taken before opens nothing afterwards.
  */
+import { randomUUID } from 'node:crypto';
 import type { NextAuthOptions } from 'next-auth';
+import { endSession } from '@/db/queries/members';
 import CredentialsProvider from 'next-auth/providers/credentials';
 import { clientAddressFrom } from '@/server/limits/signIn';
 import { isSafeLocalPath } from '@/server/http/localPath';
 import { SESSION_MAX_AGE_S, sessionCookieName, usesSecureCookies } from './cookies';
 import { LIMITED_PREFIX, verifySignIn } from './credentials';
+import { readClaims, sessionEndsAt } from './session';
 
 export function authOptions(): NextAuthOptions {
   const secure = usesSecureCookies();
@@ -24,6 +29,14 @@ export function authOptions(): NextAuthOptions {
       },
     },
     pages: { signIn: '/sign-in', error: '/sign-in', signOut: '/sign-out' },
+    events: {
+      // Awaited by next-auth before it clears the cookie; an error here is logged by next-auth (SIGNOUT_ERROR).
+      async signOut({ token }) {
+        const claims = readClaims(token as Record<string, unknown> | null);
+        if (!claims) return;
+        await endSession({ userId: claims.sub, epoch: claims.epoch, sessionId: claims.sid, expiresAt: sessionEndsAt(claims) });
+      },
+    },
     providers: [
       CredentialsProvider({
         id: 'credentials',
@@ -49,6 +62,12 @@ export function authOptions(): NextAuthOptions {
           token.teamId = signedIn.teamId;
           token.role = signedIn.role;
           token.epoch = signedIn.sessionEpoch;
+          token.sid = randomUUID();
+          token.authAt = Math.floor(Date.now() / 1000);
+        } else if (typeof token.sid !== 'string') {
+          // A cookie from before sessions had ids, refreshed: it gets one now, and its eight hours start now.
+          token.sid = randomUUID();
+          token.authAt = Math.floor(Date.now() / 1000);
         }
         return token;
       },

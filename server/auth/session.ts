@@ -1,7 +1,8 @@
 /**
  * Who is asking: the signed-in user behind the next-auth JWT cookie, re-read from the database on
- * every request so that a deactivated member, a changed role or a bumped session epoch (password
- * change, deactivation) takes effect at once rather than when the token expires.
+ * every request so that a deactivated member, a changed role, a bumped session epoch (password
+ * change, deactivation) or a signed-out session (its id revoked) takes effect at once rather than
+ * when the token expires.
  */
 import { cache } from 'react';
 import { cookies, headers } from 'next/headers';
@@ -9,7 +10,7 @@ import { forbidden, redirect } from 'next/navigation';
 import { decode } from 'next-auth/jwt';
 import { findSessionRow } from '@/db/queries/members';
 import { can, isRole, type Permission, type Role } from '@/lib/auth/permissions';
-import { sessionCookieName } from './cookies';
+import { SESSION_MAX_AGE_S, sessionCookieName } from './cookies';
 import { isSafeLocalPath } from '@/server/http/localPath';
 
 export interface SessionUser {
@@ -28,20 +29,35 @@ export interface SessionClaims {
   teamId: string;
   role: Role;
   epoch: number;
+  /** This session's own id, so that signing out can end it alone (revoked_sessions). */
+  sid?: string;
+  /** When the member signed in (Unix seconds): a session lasts SESSION_MAX_AGE_S from then, however often it is refreshed. */
+  authAt?: number;
 }
+
+const SESSION_ID_PATTERN = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 export function readClaims(token: Record<string, unknown> | null): SessionClaims | null {
   if (!token) return null;
-  const { sub, teamId, role, epoch } = token;
+  const { sub, teamId, role, epoch, sid, authAt } = token;
   if (typeof sub !== 'string' || typeof teamId !== 'string' || !isRole(role) || typeof epoch !== 'number') return null;
-  return { sub, teamId, role, epoch };
+  if (sid !== undefined && (typeof sid !== 'string' || !SESSION_ID_PATTERN.test(sid))) return null;
+  if (authAt !== undefined && (typeof authAt !== 'number' || !Number.isFinite(authAt))) return null;
+  return { sub, teamId, role, epoch, ...(sid !== undefined ? { sid } : {}), ...(authAt !== undefined ? { authAt } : {}) };
+}
+
+/** When a session ends at the latest: SESSION_MAX_AGE_S after sign-in (or from now, for a session that does not say). */
+export function sessionEndsAt(claims: Pick<SessionClaims, 'authAt'>, nowMs = Date.now()): Date {
+  const fromS = claims.authAt ?? Math.floor(nowMs / 1000);
+  return new Date((fromS + SESSION_MAX_AGE_S) * 1000);
 }
 
 /** Checks the claims against the user's current row; null when the session no longer holds. */
 export async function resolveSessionUser(claims: SessionClaims | null): Promise<SessionUser | null> {
   if (!claims) return null;
-  const row = await findSessionRow(claims.sub);
-  if (!row || !row.active || row.sessionEpoch !== claims.epoch || row.teamId !== claims.teamId) return null;
+  if (claims.authAt !== undefined && sessionEndsAt(claims).getTime() <= Date.now()) return null;
+  const row = await findSessionRow(claims.sub, claims.sid);
+  if (!row || !row.active || row.revoked || row.sessionEpoch !== claims.epoch || row.teamId !== claims.teamId) return null;
   return {
     id: row.id,
     teamId: row.teamId,

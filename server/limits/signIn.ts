@@ -86,17 +86,5 @@ function worst(a: LimitState, b: LimitState): LimitState {
   return { limited: a.limited || b.limited, retryAfterS: Math.max(a.retryAfterS, b.retryAfterS) };
 }
 
-/**
- * The client address of a request. The last X-Forwarded-For entry is the one added by the nearest
- * proxy (Next's own server appends the socket address); earlier entries are whatever the client sent.
- */
-export function clientAddressFrom(headers: { get(name: string): string | null } | Record<string, string | string[] | undefined>): string {
-  const read = (name: string): string | null => {
-    if (typeof (headers as { get?: unknown }).get === 'function') return (headers as { get(name: string): string | null }).get(name);
-    const value = (headers as Record<string, string | string[] | undefined>)[name];
-    return Array.isArray(value) ? value.join(',') : (value ?? null);
-  };
-  const forwarded = read('x-forwarded-for');
-  const last = forwarded?.split(',').map((part) => part.trim()).filter(Boolean).pop();
-  return last || read('x-real-ip') || 'unknown';
-}
+/** The client address of a request: the socket address unless it is a configured proxy (server/http/clientAddress.ts). */
+export { clientAddressFrom } from '@/server/http/clientAddress';

@@ -1,6 +1,7 @@
 /** Renders the PDF sizing sheet of a saved sheet to bytes (server only). */
 import { createElement, type ReactElement } from 'react';
 import { renderToBuffer, type DocumentProps } from '@react-pdf/renderer';
+import { downloadResponse } from '@/server/http/download';
 import { registerPdfFonts } from './fonts';
 import { SizingSheetDocument, type PdfSheet } from './SizingSheetDocument';
 
@@ -16,13 +17,6 @@ export function sheetFileStem(sheet: { circuitTag: string; revision: number }): 
   return `sizing-sheet-${tag}-rev${sheet.revision}`;
 }
 
-export function pdfResponse(body: Buffer, stem: string, disposition: 'inline' | 'attachment' = 'inline'): Response {
-  return new Response(new Uint8Array(body), {
-    headers: {
-      'Content-Type': 'application/pdf',
-      'Content-Disposition': `${disposition}; filename="${stem}.pdf"`,
-      'Cache-Control': 'private, no-store',
-      'X-Robots-Tag': 'noindex, nofollow',
-    },
-  });
+export function pdfResponse(body: Uint8Array, stem: string, disposition: 'inline' | 'attachment' = 'inline'): Response {
+  return downloadResponse(body, { fileName: `${stem}.pdf`, kind: 'pdf', disposition, headers: { 'x-robots-tag': 'noindex, nofollow' } });
 }

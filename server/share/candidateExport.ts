@@ -4,10 +4,11 @@
  * A few lines above the table say which sheet, which solver and that the caution applies.
  */
 import ExcelJS from 'exceljs';
-import Papa from 'papaparse';
 import { CAUTION_TEXT } from '@/lib/caution';
 import { CANDIDATE_EXPORT_COLUMNS, candidateRecords, formatDate } from '@/lib/sheet/sheetTables';
 import type { SheetRecord } from '@/db/queries/sheets';
+import { tableCsv, toCsv } from '@/lib/files/csv';
+import { downloadResponse } from '@/server/http/download';
 import { STATUS_LABELS } from '@/lib/sheet/stateMachine';
 
 export type ExportFormat = 'csv' | 'xlsx';
@@ -30,12 +31,10 @@ export function candidateTable(sheet: SheetRecord): { headers: string[]; rows: (
   };
 }
 
-/** The about lines, an empty line, then the table (RFC 4180 quoting by papaparse). */
+/** The about lines, an empty line, then the table (the shared CSV writer: RFC 4180, formula cells made inert). */
 export function candidatesCsv(sheet: SheetRecord): string {
-  const about = Papa.unparse(aboutLines(sheet), { newline: '\r\n' });
   const table = candidateTable(sheet);
-  const body = Papa.unparse({ fields: table.headers, data: table.rows.map((row) => row.map((v) => v ?? '')) }, { newline: '\r\n' });
-  return `${about}\r\n\r\n${body}\r\n`;
+  return `${toCsv(aboutLines(sheet))}\r\n\r\n${tableCsv(table.headers, table.rows)}\r\n`;
 }
 
 /** Sheet "Candidates" holds the table alone (so it sorts and filters); sheet "About" the rest. */
@@ -57,10 +56,5 @@ export async function candidatesXlsx(sheet: SheetRecord): Promise<Uint8Array> {
 }
 
 export function exportResponse(body: string | Uint8Array, stem: string, format: ExportFormat): Response {
-  const type = format === 'csv' ? 'text/csv; charset=utf-8' : 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet';
-  // A BOM so that spreadsheet programs read the CSV (units such as mm², °C) as UTF-8.
-  const payload = typeof body === 'string' ? `\uFEFF${body}` : body;
-  return new Response(payload as BodyInit, {
-    headers: { 'content-type': type, 'content-disposition': `attachment; filename="${stem}.${format}"`, 'cache-control': 'private, no-store' },
-  });
+  return downloadResponse(body, { fileName: `${stem}.${format}`, kind: format });
 }

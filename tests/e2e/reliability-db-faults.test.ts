@@ -155,4 +155,29 @@ describe('PostgreSQL stopped during requests', () => {
     expect(acknowledged.length).toBeGreaterThanOrEqual(48);
     expect(lost).toEqual([]);
   });
+
+  // Issue 19 (Low): pages say so too, with 503, instead of a 500 error page; and they come back.
+  it('while PostgreSQL is down, pages answer 503 "Database unavailable"; afterwards they open again', async () => {
+    const page = (path: string) => fetch(`${app.url}${path}`, { headers: { cookie }, redirect: 'manual', signal: AbortSignal.timeout(30_000) });
+    expect((await page('/projects')).status).toBe(200);
+    await cluster.stopImmediately();
+    try {
+      // The page gate keeps a good answer for at most a second (server/http/databaseGate.ts).
+      await sleep(1500);
+      for (const path of ['/projects', `/sheets/${randomUUID()}`, '/catalogue']) {
+        const response = await page(path);
+        expect(response.status, path).toBe(503);
+        expect(response.headers.get('retry-after')).toBe('5');
+        expect(await response.text(), path).toMatch(/Database unavailable/);
+      }
+    } finally {
+      await cluster.start();
+    }
+    let status = 0;
+    for (let attempt = 0; attempt < 120 && status !== 200; attempt += 1) {
+      status = (await page('/projects')).status;
+      if (status !== 200) await sleep(250);
+    }
+    expect(status).toBe(200);
+  });
 });

@@ -93,12 +93,13 @@ export class AppProcess {
     readonly log: () => string,
   ) {}
 
-  static async start(databaseUrl: string): Promise<AppProcess> {
+  /** `env` adds to or overrides the environment of the test run (e.g. a setting under test). */
+  static async start(databaseUrl: string, env: Record<string, string> = {}): Promise<AppProcess> {
     const port = await freePort();
     const url = `http://127.0.0.1:${port}`;
     let output = '';
     const child = spawn(path.resolve('node_modules/.bin/next'), ['start', '-p', String(port), '-H', '127.0.0.1'], {
-      env: { ...process.env, DATABASE_URL: databaseUrl, NEXTAUTH_URL: url, APP_URL: url, PORT: String(port) },
+      env: { ...process.env, DATABASE_URL: databaseUrl, NEXTAUTH_URL: url, APP_URL: url, PORT: String(port), ...env },
       detached: true,
       stdio: ['ignore', 'pipe', 'pipe'],
     });

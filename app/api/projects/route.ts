@@ -1,13 +1,14 @@
 import { createProject, listProjects } from '@/db/queries/projects';
 import { apiHandler, ApiError } from '@/server/http/api';
 import { createProjectBodySchema } from '../sheets/_shared/sheetApi';
+import { readJsonBody } from '@/server/http/body';
 
 export const GET = apiHandler({ permission: 'team:read' }, async (_req, { user }) => {
   return Response.json({ projects: await listProjects(user!.teamId) });
 });
 
 export const POST = apiHandler({ permission: 'project:write' }, async (req, { user }) => {
-  const body = createProjectBodySchema.parse(await req.json());
+  const body = await readJsonBody(req, createProjectBodySchema);
   try {
     const project = await createProject(user!.teamId, user!.id, body);
     return Response.json({ project }, { status: 201 });

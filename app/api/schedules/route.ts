@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { createSchedule } from '@/db/queries/schedules';
 import { apiHandler } from '@/server/http/api';
 import { scheduleOperation } from './_shared/scheduleApi';
+import { readJsonBody } from '@/server/http/body';
 
 const createScheduleBodySchema = z.object({
   projectId: z.string().trim().min(1, 'Project is required'),
@@ -10,7 +11,7 @@ const createScheduleBodySchema = z.object({
 
 /** A new, empty schedule in a project; the file is uploaded to /api/schedules/[id]/file. */
 export const POST = apiHandler({ permission: 'schedule:write' }, async (req, { user }) => {
-  const body = createScheduleBodySchema.parse(await req.json());
+  const body = await readJsonBody(req, createScheduleBodySchema);
   return scheduleOperation(async () => {
     const schedule = await createSchedule(user!.teamId, user!.id, body);
     return Response.json({ schedule }, { status: 201 });

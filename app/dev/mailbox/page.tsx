@@ -1,6 +1,9 @@
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { Wordmark } from '@/components/shell/Wordmark';
+import { teamMailAddresses } from '@/db/queries/members';
+import { requirePageUser } from '@/server/auth/session';
+import { devMailboxEnabled } from '@/server/mail/mailbox';
 
 export const metadata = { title: 'Mailbox (local)' };
 export const dynamic = 'force-dynamic';
@@ -33,17 +36,21 @@ function Linkified({ text }: { text: string }) {
 }
 
 /**
- * The messages the app sent while the local mail catcher is in use (npm start, npm test). Open
- * to anyone who reaches the app then, because an invited person must read their link before they
- * can sign in; it does not exist (404) when MAIL_CATCHER_URL is not set, as in production.
+ * The messages the app sent while the local mail catcher is in use (npm start, npm test). They
+ * hold reset and invitation links, so: only in a local development mode (server/mail/mailbox.ts;
+ * 404 otherwise, as in production), only for a signed-in admin (anyone else is sent to sign in or
+ * gets 403), and only the mail of that admin's own team. An invited person gets their link from
+ * the admin who invited them, as they would pass on a link that arrived by real mail.
  */
 export default async function MailboxPage() {
   const catcherUrl = process.env.MAIL_CATCHER_URL;
-  if (!catcherUrl) notFound();
+  if (!catcherUrl || !devMailboxEnabled()) notFound();
+  const admin = await requirePageUser('members:manage');
+  const ours = await teamMailAddresses(admin.teamId);
   let messages: CaughtMessage[] | null = null;
   try {
     const response = await fetch(`${catcherUrl.replace(/\/$/, '')}/messages`, { cache: 'no-store' });
-    if (response.ok) messages = (await response.json()) as CaughtMessage[];
+    if (response.ok) messages = ((await response.json()) as CaughtMessage[]).filter((m) => m.to.some((to) => ours.has(to.trim().toLowerCase())));
   } catch {
     messages = null;
   }
@@ -59,7 +66,7 @@ export default async function MailboxPage() {
       </header>
       <main className="mx-auto max-w-4xl px-6 py-8">
         <h1 className="text-title">Mailbox</h1>
-        <p className="mt-2 text-ink-600">Mail the app sent on this machine. Nothing here left the computer; newest first.</p>
+        <p className="mt-2 text-ink-600">Mail the app sent on this machine to {admin.teamName}: its members, the people it invited and the recipients of its sheets. Nothing here left the computer; newest first.</p>
         {messages === null ? (
           <p role="alert" className="mt-6 rounded-md border border-over/40 bg-over-light px-3 py-2 text-over-dark">
             The mail catcher at {catcherUrl} does not answer. It runs with npm start; restart it if it stopped.

@@ -6,6 +6,7 @@ import { closeDb, getDb } from '@/db/client';
 import { signInLimits, users } from '@/db/schema';
 import { verifySignIn } from '@/server/auth/credentials';
 import { ACCOUNT_LIMIT, ADDRESS_LIMIT, clientAddressFrom, recordFailedSignIn } from '@/server/limits/signIn';
+import { PEER_ADDRESS_HEADER, trustedProxies } from '@/server/http/clientAddress';
 import { createTestTeam, createTestUser, TEST_PASSWORD } from '../../helpers/fixtures';
 
 let teamId: string;
@@ -75,9 +76,11 @@ describe('sign-in limits', () => {
     expect(await verifySignIn({ email: user.email, password: TEST_PASSWORD }, address())).toEqual({ ok: false, reason: 'invalid' });
   });
 
-  it('takes the address the nearest proxy added (the last X-Forwarded-For entry)', () => {
-    expect(clientAddressFrom(new Headers({ 'x-forwarded-for': '203.0.113.9, 127.0.0.1' }))).toBe('127.0.0.1');
-    expect(clientAddressFrom({ 'x-forwarded-for': '203.0.113.9' })).toBe('203.0.113.9');
-    expect(clientAddressFrom({ 'x-real-ip': '192.0.2.4' })).toBe('192.0.2.4');
+  // Issue 19 item 2 replaced the earlier rule (the last X-Forwarded-For entry, which a client can
+  // write itself): the socket address counts unless the socket is a configured proxy.
+  it('takes the socket address; forwarded headers only from a configured proxy', () => {
+    expect(clientAddressFrom(new Headers({ [PEER_ADDRESS_HEADER]: '127.0.0.1', 'x-forwarded-for': '203.0.113.9' }), trustedProxies(''))).toBe('127.0.0.1');
+    expect(clientAddressFrom({ [PEER_ADDRESS_HEADER]: '127.0.0.1', 'x-forwarded-for': '203.0.113.9' }, trustedProxies('127.0.0.1'))).toBe('203.0.113.9');
+    expect(clientAddressFrom({ [PEER_ADDRESS_HEADER]: '192.0.2.8', 'x-real-ip': '192.0.2.4' }, trustedProxies(''))).toBe('192.0.2.8');
   });
 });

@@ -1,5 +1,6 @@
 /** Shared pieces of the catalogue route handlers: the kind from the path and our errors as API errors. */
 import { ApiError } from '@/server/http/api';
+import { downloadResponse } from '@/server/http/download';
 import { isCatalogueKind, type CatalogueKind } from '@/lib/catalogue/schemas';
 import { KIND_LABELS } from '@/lib/catalogue/columns';
 import { FileRefusal } from '@/lib/catalogue/files';
@@ -28,17 +29,9 @@ export function catalogueErrorResponse(error: unknown): Response {
   throw error;
 }
 
+/** A catalogue file through the shared download helper (BOM on CSV, RFC 6266 file name). */
 export function fileResponse(body: Uint8Array | string, fileName: string, format: 'csv' | 'xlsx'): Response {
-  const type = format === 'csv' ? 'text/csv; charset=utf-8' : 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet';
-  // A BOM so that spreadsheet programs read the CSV (units such as mm², Ω) as UTF-8.
-  const payload = typeof body === 'string' ? `\uFEFF${body}` : body;
-  return new Response(payload as BodyInit, {
-    headers: {
-      'content-type': type,
-      'content-disposition': `attachment; filename="${fileName}"`,
-      'cache-control': 'no-store',
-    },
-  });
+  return downloadResponse(body, { fileName, kind: format });
 }
 
 export function fileBaseName(kind: CatalogueKind): string {

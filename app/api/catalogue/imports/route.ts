@@ -2,6 +2,7 @@ import { ApiError, apiHandler } from '@/server/http/api';
 import { isCatalogueKind } from '@/lib/catalogue/schemas';
 import { MAX_IMPORT_BYTES } from '@/lib/catalogue/files';
 import { listImports, previewImport } from '@/db/queries/catalogue';
+import { readCatalogueFileOffThread } from '@/server/files/uploadReader';
 import { catalogueErrorResponse } from '../_shared/catalogueApi';
 
 export const dynamic = 'force-dynamic';
@@ -30,11 +31,13 @@ export const POST = apiHandler({ permission: 'catalogue:write' }, async (req, { 
   const file = form.get('file');
   if (!(file instanceof File)) throw new ApiError(400, 'invalid_input', 'Choose a CSV or XLSX file to import.', 'file');
   try {
-    const preview = await previewImport(user!.teamId, user!.id, kind, {
-      fileName: file.name || 'upload',
-      mediaType: file.type,
-      bytes: new Uint8Array(await file.arrayBuffer()),
-    });
+    const preview = await previewImport(
+      user!.teamId,
+      user!.id,
+      kind,
+      { fileName: file.name || 'upload', mediaType: file.type, bytes: new Uint8Array(await file.arrayBuffer()) },
+      readCatalogueFileOffThread,
+    );
     return Response.json(preview, { status: 201 });
   } catch (error) {
     return catalogueErrorResponse(error);

@@ -2,6 +2,7 @@
 import { ScheduleOperationError } from '@/db/queries/schedules';
 import { ScheduleFileRefusal } from '@/lib/schedule';
 import { ApiError } from '@/server/http/api';
+import { downloadResponse } from '@/server/http/download';
 
 export async function scheduleOperation(operation: () => Promise<Response>): Promise<Response> {
   try {
@@ -22,12 +23,7 @@ export function exportFormat(url: string): 'csv' | 'xlsx' | null {
   return format;
 }
 
-/** A file download; the name is made safe for the header. */
+/** A file download through the shared helper (server/http/download.ts: RFC 6266 file names). */
 export function download(body: string | Uint8Array, fileName: string, format: 'csv' | 'xlsx'): Response {
-  const safe = fileName.replace(/[^A-Za-z0-9._ -]+/g, '_').slice(0, 120) || 'schedule';
-  const type = format === 'csv' ? 'text/csv; charset=utf-8' : 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet';
-  const payload = typeof body === 'string' ? `\uFEFF${body}` : body;
-  return new Response(payload as BodyInit, {
-    headers: { 'content-type': type, 'content-disposition': `attachment; filename="${safe}"`, 'cache-control': 'no-store' },
-  });
+  return downloadResponse(body, { fileName, kind: format });
 }

@@ -2,7 +2,8 @@ import { z } from 'zod';
 import { getSheet, saveSheet } from '@/db/queries/sheets';
 import { sheetInputsSchema } from '@/lib/sheet';
 import { apiHandler, ApiError } from '@/server/http/api';
-import { sheetActor, sheetOperation } from '../_shared/sheetApi';
+import { expectedVersionSchema, sheetActor, sheetOperation } from '../_shared/sheetApi';
+import { readJsonBody } from '@/server/http/body';
 
 export const GET = apiHandler({ permission: 'team:read' }, async (_req, { user, params }) => {
   const sheet = await getSheet(user!.teamId, params.sheetId);
@@ -11,7 +12,7 @@ export const GET = apiHandler({ permission: 'team:read' }, async (_req, { user, 
 });
 
 const saveBodySchema = z.object({
-  expectedVersion: z.number().int().positive(),
+  expectedVersion: expectedVersionSchema,
   inputs: sheetInputsSchema,
   title: z.string().trim().min(1, 'Title is required').max(200).optional(),
   circuitTag: z.string().trim().min(1, 'Circuit tag is required').max(40).optional(),
@@ -19,7 +20,7 @@ const saveBodySchema = z.object({
 
 /** Saves inputs and the chosen candidate; the result snapshot is computed here, not taken from the client. */
 export const PUT = apiHandler({ permission: 'sheet:write' }, async (req, { user, params }) => {
-  const body = saveBodySchema.parse(await req.json());
+  const body = await readJsonBody(req, saveBodySchema);
   return sheetOperation(async () => {
     const saved = await saveSheet(user!.teamId, sheetActor(user!), params.sheetId, body);
     return Response.json(saved);

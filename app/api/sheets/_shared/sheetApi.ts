@@ -6,6 +6,7 @@ import { z } from 'zod';
 import { SheetOperationError } from '@/db/queries/sheets';
 import { can, type Role } from '@/lib/auth/permissions';
 import type { Actor } from '@/lib/sheet';
+import { INT4_MAX } from '@/server/http/body';
 
 export function sheetActor(user: { id: string; role: Role }): Actor {
   return { userId: user.id, can: (permission) => can(user.role, permission) };
@@ -22,6 +23,13 @@ export async function sheetOperation(operation: () => Promise<Response>): Promis
     throw error;
   }
 }
+
+/** A sheet's saved version (an integer column): bounded, so that a huge number is a 400, not a database error. */
+export const expectedVersionSchema = z
+  .number({ error: 'expectedVersion must be a number' })
+  .int('expectedVersion must be a whole number')
+  .positive('expectedVersion must be at least 1')
+  .max(INT4_MAX, `expectedVersion must be at most ${INT4_MAX}`);
 
 export const commentSchema = z.string().trim().max(2000, 'A comment must be at most 2000 characters');
 

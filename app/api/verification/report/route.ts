@@ -14,6 +14,7 @@ import { createElement, type ReactElement } from 'react';
 import { renderToBuffer, type DocumentProps } from '@react-pdf/renderer';
 import { z } from 'zod';
 import { apiHandler } from '@/server/http/api';
+import { downloadResponse } from '@/server/http/download';
 import { reportCsv, runCase, verificationCases, type CaseResult } from '@/lib/verification';
 import { registerReportFonts, VerificationReportDocument } from '@/server/pdf/VerificationReportDocument';
 
@@ -59,14 +60,8 @@ export const GET = apiHandler({ permission: 'authenticated' }, async (req) => {
   const { format } = querySchema.parse({ format: req.nextUrl.searchParams.get('format') ?? undefined });
   const r = report();
   const stem = `ampwarden-verification-${r.day}`;
-  const headers = { 'Cache-Control': 'private, no-store' };
   if (format === 'csv') {
-    return new Response(reportCsv(r.results, { generatedAt: r.generatedAt, where: 'on the server' }), {
-      headers: { ...headers, 'Content-Type': 'text/csv; charset=utf-8', 'Content-Disposition': `attachment; filename="${stem}.csv"` },
-    });
+    return downloadResponse(reportCsv(r.results, { generatedAt: r.generatedAt, where: 'on the server' }), { fileName: `${stem}.csv`, kind: 'csv' });
   }
-  const body = await pdfOf(r);
-  return new Response(new Uint8Array(body), {
-    headers: { ...headers, 'Content-Type': 'application/pdf', 'Content-Disposition': `attachment; filename="${stem}.pdf"` },
-  });
+  return downloadResponse(new Uint8Array(await pdfOf(r)), { fileName: `${stem}.pdf`, kind: 'pdf' });
 });

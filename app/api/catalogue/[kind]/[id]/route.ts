@@ -2,6 +2,7 @@ import { apiHandler } from '@/server/http/api';
 import { rowPatchSchema } from '@/lib/catalogue/schemas';
 import { deleteCatalogueRow, updateCatalogueRow } from '@/db/queries/catalogue';
 import { catalogueErrorResponse, kindFrom } from '../../_shared/catalogueApi';
+import { readJsonBody } from '@/server/http/body';
 
 export const dynamic = 'force-dynamic';
 
@@ -11,7 +12,7 @@ export const dynamic = 'force-dynamic';
  */
 export const PATCH = apiHandler({ permission: 'catalogue:write' }, async (req, { user, params }) => {
   const kind = kindFrom(params);
-  const body = rowPatchSchema.parse(await req.json().catch(() => ({})));
+  const body = await readJsonBody(req, rowPatchSchema, { optional: true });
   try {
     const row = await updateCatalogueRow(user!.teamId, user!.id, kind, params.id, body.changes);
     return Response.json({ row });

@@ -1,6 +1,8 @@
 import { getSchedule, getScheduleFile, previewScheduleUpload } from '@/db/queries/schedules';
 import { MAX_SCHEDULE_BYTES } from '@/lib/schedule';
 import { apiHandler, ApiError } from '@/server/http/api';
+import { downloadResponse } from '@/server/http/download';
+import { readScheduleFileOffThread } from '@/server/files/uploadReader';
 import { scheduleOperation } from '../../_shared/scheduleApi';
 
 /** Upload (multipart field "file"): reads and checks every row; nothing is queued here. */
@@ -22,7 +24,13 @@ export const POST = apiHandler({ permission: 'schedule:write' }, async (req, { u
   if (!(file instanceof File)) throw new ApiError(400, 'invalid_input', 'Choose a CSV or XLSX file to upload.', 'file');
   const bytes = new Uint8Array(await file.arrayBuffer());
   return scheduleOperation(async () => {
-    const preview = await previewScheduleUpload(user!.teamId, user!.id, params.scheduleId, { fileName: file.name || 'schedule', mediaType: file.type || 'application/octet-stream', bytes });
+    const preview = await previewScheduleUpload(
+      user!.teamId,
+      user!.id,
+      params.scheduleId,
+      { fileName: file.name || 'schedule', mediaType: file.type || 'application/octet-stream', bytes },
+      readScheduleFileOffThread,
+    );
     return Response.json({ preview });
   });
 });
@@ -31,8 +39,5 @@ export const POST = apiHandler({ permission: 'schedule:write' }, async (req, { u
 export const GET = apiHandler({ permission: 'team:read' }, async (_req, { user, params }) => {
   const stored = await getScheduleFile(user!.teamId, params.scheduleId);
   if (!stored || !stored.content) throw new ApiError(404, 'not_found', 'No such schedule file.');
-  const safe = (stored.fileName ?? 'schedule').replace(/[^A-Za-z0-9._ -]+/g, '_');
-  return new Response(new Uint8Array(stored.content) as BodyInit, {
-    headers: { 'content-type': 'application/octet-stream', 'content-disposition': `attachment; filename="${safe}"`, 'cache-control': 'no-store' },
-  });
+  return downloadResponse(new Uint8Array(stored.content), { fileName: stored.fileName ?? 'schedule', kind: 'original' });
 });

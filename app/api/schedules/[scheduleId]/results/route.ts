@@ -1,5 +1,6 @@
 import { getSchedule, listScheduleResults } from '@/db/queries/schedules';
 import { EXPORT_CAUTION, resultsTable, tableToCsv, tableToXlsx, totalsOf } from '@/lib/schedule';
+import { toCsv } from '@/lib/files/csv';
 import { apiHandler, ApiError } from '@/server/http/api';
 import { download, exportFormat } from '../../_shared/scheduleApi';
 
@@ -14,7 +15,7 @@ export const GET = apiHandler({ permission: 'team:read' }, async (req, { user, p
   const base = `${schedule.name} results`;
   if (format === 'csv') {
     // The caution travels with the figures, as the last line of the file.
-    return download(`${tableToCsv(table)}\r\n\r\n"${EXPORT_CAUTION.replace(/"/g, '""')}"\r\n`, `${base}.csv`, 'csv');
+    return download(`${tableToCsv(table)}\r\n\r\n${toCsv([[EXPORT_CAUTION]])}\r\n`, `${base}.csv`, 'csv');
   }
   const notes: Array<[string, string]> = [
     ['caution', EXPORT_CAUTION],

@@ -9,19 +9,32 @@ import { getSheet } from '@/db/queries/sheets';
 import { STATUS_LABELS } from '@/lib/sheet/stateMachine';
 import { apiHandler, ApiError } from '@/server/http/api';
 import { appBaseUrl, sendMail } from '@/server/mail/send';
-import { renderSheetPdf, sheetFileStem } from '@/server/pdf/renderSheetPdf';
+import { SHARE_MAIL_LIMIT, shareMailRetryAfterS } from '@/server/limits/shareMail';
+import { sheetPdf } from '@/server/pdf/pdfRenderer';
+import { sheetFileStem } from '@/server/pdf/renderSheetPdf';
 import { sheetMail } from '@/server/share/mail';
 import { emailSheetBodySchema } from '@/server/share/schemas';
+import { readJsonBody } from '@/server/http/body';
 
 export const runtime = 'nodejs';
 export const dynamic = 'force-dynamic';
 
 export const POST = apiHandler({ permission: 'sheet:share' }, async (req, { user, params }) => {
-  const body = emailSheetBodySchema.parse(await req.json().catch(() => ({})));
+  const body = await readJsonBody(req, emailSheetBodySchema, { optional: true });
   const sheet = await getSheet(user!.teamId, params.sheetId);
   if (!sheet) throw new ApiError(404, 'not_found', 'No such sizing sheet.');
   // The PDF is rendered before anything is recorded, so a rendering failure leaves no trace of a send.
-  const pdf = body.attachPdf ? await renderSheetPdf(sheet) : undefined;
+  const retryAfterS = await shareMailRetryAfterS(user!.id);
+  if (retryAfterS !== null) {
+    throw new ApiError(
+      429,
+      'rate_limited',
+      `You have sent ${SHARE_MAIL_LIMIT.points} sheets by e-mail in the last hour, the limit per member; try again in ${Math.ceil(retryAfterS / 60)} min, or share a link instead.`,
+      undefined,
+      { 'retry-after': String(retryAfterS) },
+    );
+  }
+  const pdf = body.attachPdf ? Buffer.from(await sheetPdf(sheet)) : undefined;
   const base = appBaseUrl();
   const share = await createMailedShare(user!.teamId, user!.id, sheet.id, { to: body.to, message: body.message, pdfAttached: body.attachPdf, expiresInDays: body.expiresInDays });
   if (!share) throw new ApiError(404, 'not_found', 'No such sizing sheet.');

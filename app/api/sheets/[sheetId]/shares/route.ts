@@ -6,6 +6,7 @@
 import { createShare, listShares } from '@/db/queries/shares';
 import { createShareBodySchema } from '@/server/share/schemas';
 import { apiHandler, ApiError } from '@/server/http/api';
+import { readJsonBody } from '@/server/http/body';
 
 export const dynamic = 'force-dynamic';
 
@@ -16,7 +17,7 @@ export const GET = apiHandler({ permission: 'sheet:share' }, async (_req, { user
 });
 
 export const POST = apiHandler({ permission: 'sheet:share' }, async (req, { user, params }) => {
-  const body = createShareBodySchema.parse(await req.json().catch(() => ({})));
+  const body = await readJsonBody(req, createShareBodySchema, { optional: true });
   const created = await createShare(user!.teamId, user!.id, params.sheetId, { expiresInDays: body.expiresInDays });
   if (!created) throw new ApiError(404, 'not_found', 'No such sizing sheet.');
   return Response.json(

@@ -1,12 +1,13 @@
 import { z } from 'zod';
 import { transitionSheet } from '@/db/queries/sheets';
 import { apiHandler } from '@/server/http/api';
-import { commentSchema, sheetActor, sheetOperation } from '../../_shared/sheetApi';
+import { commentSchema, expectedVersionSchema, sheetActor, sheetOperation } from '../../_shared/sheetApi';
+import { readJsonBody } from '@/server/http/body';
 
 const bodySchema = z.object({
   action: z.enum(['submit', 'withdraw', 'approve', 'return']),
   comment: commentSchema.optional(),
-  expectedVersion: z.number().int().positive().optional(),
+  expectedVersion: expectedVersionSchema.optional(),
 });
 
 /**
@@ -15,7 +16,7 @@ const bodySchema = z.object({
  * sheet, 409 for the wrong state, a standing blocker or unacknowledged review flags.
  */
 export const POST = apiHandler({ permission: 'team:read' }, async (req, { user, params }) => {
-  const body = bodySchema.parse(await req.json());
+  const body = await readJsonBody(req, bodySchema);
   return sheetOperation(async () => {
     const updated = await transitionSheet(user!.teamId, sheetActor(user!), params.sheetId, body.action, body);
     return Response.json(updated);

@@ -1,5 +1,6 @@
 import { apiHandler } from '@/server/http/api';
 import { commitImport } from '@/db/queries/catalogue';
+import { readCatalogueFileOffThread } from '@/server/files/uploadReader';
 import { catalogueErrorResponse } from '../../../_shared/catalogueApi';
 
 export const dynamic = 'force-dynamic';
@@ -10,7 +11,7 @@ export const dynamic = 'force-dynamic';
  */
 export const POST = apiHandler({ permission: 'catalogue:write' }, async (_req, { user, params }) => {
   try {
-    return Response.json(await commitImport(user!.teamId, user!.id, params.importId));
+    return Response.json(await commitImport(user!.teamId, user!.id, params.importId, readCatalogueFileOffThread));
   } catch (error) {
     return catalogueErrorResponse(error);
   }

@@ -1,4 +1,5 @@
 import { ApiError, apiHandler } from '@/server/http/api';
+import { downloadResponse } from '@/server/http/download';
 import { getImportFile } from '@/db/queries/catalogue';
 
 export const dynamic = 'force-dynamic';
@@ -7,8 +8,5 @@ export const dynamic = 'force-dynamic';
 export const GET = apiHandler({ permission: 'catalogue:write' }, async (_req, { user, params }) => {
   const file = await getImportFile(user!.teamId, params.importId);
   if (!file) throw new ApiError(404, 'not_found', 'No such import.');
-  const safeName = file.fileName.replace(/["\\\r\n]/g, '_');
-  return new Response(new Uint8Array(file.content), {
-    headers: { 'content-type': 'application/octet-stream', 'content-disposition': `attachment; filename="${safeName}"`, 'cache-control': 'no-store' },
-  });
+  return downloadResponse(new Uint8Array(file.content), { fileName: file.fileName, kind: 'original' });
 });

@@ -1,3 +1,0 @@
-export default function Loading() {
-  return <p className="text-ink-500" role="status">Loading projects…</p>;
-}
