@@ -7,7 +7,7 @@ import bcrypt from 'bcryptjs';
 import { and, eq, inArray } from 'drizzle-orm';
 import type { Db } from '../client';
 import { projects, teams, users } from '../schema';
-import { hashPassword, needsRehash } from '../../server/auth/password';
+import { hashPassword, needsRehash } from '../../lib/auth/password';
 
 export const DEMO_TEAM = { slug: 'harrow-fell', name: 'Harrow Fell Consulting (demo)' } as const;
 /** For local use only; printed in the README. */

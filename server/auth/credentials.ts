@@ -6,7 +6,7 @@ import { z } from 'zod';
 import { findSignInRow } from '@/db/queries/members';
 import { checkSignInAllowed, clearAccountFailures, recordFailedSignIn } from '@/server/limits/signIn';
 import type { Role } from '@/lib/auth/permissions';
-import { verifyPassword } from './password';
+import { verifyPassword } from '@/lib/auth/password';
 
 export const signInSchema = z.object({
   email: z.string().trim().toLowerCase().email('Enter an e-mail address.').max(320),

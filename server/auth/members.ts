@@ -14,7 +14,7 @@ import { appBaseUrl, sendMail } from '@/server/mail/send';
 import { invitationMail, passwordResetMail } from '@/server/mail/templates';
 import { clearAccountFailures } from '@/server/limits/signIn';
 import { ROLES, type Role } from '@/lib/auth/permissions';
-import { hashPassword, passwordSchema } from './password';
+import { hashPassword, passwordSchema } from '@/lib/auth/password';
 import type { SessionUser } from './session';
 import { hashLinkToken, INVITATION_LIFETIME_MS, looksLikeLinkToken, newLinkToken, RESET_LIFETIME_MS, type LinkState } from '@/lib/auth/linkTokens';
 

@@ -37,7 +37,7 @@ type Layer = (typeof LAYERS)[number];
  * package.json "browser" field) that bundlers pick for the client; @noble/hashes is SHA-256 in plain
  * JavaScript (lib/auth/linkTokens.ts).
  */
-const LIB_PACKAGES = new Set(['zod', 'decimal.js', 'papaparse', 'exceljs', '@noble/hashes']);
+const LIB_PACKAGES = new Set(['zod', 'decimal.js', 'papaparse', 'exceljs', '@noble/hashes', 'bcryptjs']);
 
 /** Node.js's own modules, with and without the `node:` prefix (fs, path, crypto, os…). */
 const NODE_BUILTINS = new Set(builtinModules.flatMap((name) => [name, `node:${name}`, name.split('/')[0]]));

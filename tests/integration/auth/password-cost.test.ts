@@ -7,7 +7,7 @@ import { eq, inArray } from 'drizzle-orm';
 import { closeDb, getDb } from '@/db/client';
 import { users } from '@/db/schema';
 import { DEMO_PASSWORD, DEMO_USERS, seedDemo } from '@/db/seed/demo';
-import { BCRYPT_COST, hashPassword, unusedPasswordHash } from '@/server/auth/password';
+import { BCRYPT_COST, hashPassword, unusedPasswordHash } from '@/lib/auth/password';
 
 afterAll(() => closeDb());
 
