@@ -6,6 +6,7 @@
 import { ElectricalInputError, requireInteger, requireNonNegative, requireRange } from '../errors';
 import { materialConstants, type ConductorMaterialConstants } from '../materials';
 import { toMoney } from '../economics';
+import { checkBound } from '../../inputBounds';
 import { DEFAULT_TEXT, ENTERED_TEXT, MODEL_TEXT } from './flagText';
 import { FlagSet, fmt } from './flags';
 import type { PreparedBar, PreparedCable, PreparedCandidate, PreparedConditions, PreparedLayer } from './prepared';
@@ -72,8 +73,8 @@ export function prepareCandidate(candidate: Candidate, index: number, conditions
   if (candidate === null || typeof candidate !== 'object') throw new ElectricalInputError(base, 'must be an object');
   const constants = materialConstants(candidate.material, f('material'));
   const alpha20 = candidate.alpha20PerK === undefined ? constants.alpha20PerK : requireRange(candidate.alpha20PerK, f('alpha20PerK'), 0, 0.01);
-  const r20 = requireRange(candidate.r20OhmPerM, f('r20OhmPerM'), 0, 1, { minExclusive: true });
-  const parallel = candidate.parallel === undefined ? 1 : requireInteger(candidate.parallel, f('parallel'), 1, 100);
+  const r20 = checkBound('r20OhmPerM', candidate.r20OhmPerM, f('r20OhmPerM'));
+  const parallel = candidate.parallel === undefined ? 1 : checkBound('parallel', candidate.parallel, f('parallel'));
   const id = candidate.id ?? `candidate-${index + 1}`;
   if (candidate.costs !== undefined) {
     if (candidate.costs.conductorPricePerKg !== undefined) toMoney(candidate.costs.conductorPricePerKg, f('costs.conductorPricePerKg'));
@@ -94,16 +95,16 @@ function prepareCable(cand: CableCandidate, p: CommonPrep): PreparedCable {
   if (conditions.placement === 'bar-on-edge' || conditions.placement === 'bar-flat') {
     throw new ElectricalInputError('conditions.installation.kind', `a cable cannot be installed as '${conditions.placement}'`);
   }
-  const sectionMm2 = requireRange(cand.sectionMm2, f('sectionMm2'), 0, 5000, { minExclusive: true });
-  const dc = requireRange(cand.conductorDiameterM, f('conductorDiameterM'), 0, 0.2, { minExclusive: true });
-  const cores = cand.cores === undefined ? 1 : requireInteger(cand.cores, f('cores'), 1, 5);
+  const sectionMm2 = checkBound('sectionMm2', cand.sectionMm2, f('sectionMm2'));
+  const dc = checkBound('conductorDiameterM', cand.conductorDiameterM, f('conductorDiameterM'));
+  const cores = cand.cores === undefined ? 1 : checkBound('cores', cand.cores, f('cores'));
   if (!Array.isArray(cand.layers) || cand.layers.length === 0) {
     throw new ElectricalInputError(f('layers'), 'a cable needs at least its insulation layer');
   }
   const emissivityAssumed = cand.emissivity === undefined;
-  const emissivity = emissivityAssumed ? DEFAULT_CABLE_EMISSIVITY : requireRange(cand.emissivity, f('emissivity'), 0, 1);
-  const ks = cand.ks === undefined ? undefined : requireRange(cand.ks, f('ks'), 0, 1.5, { minExclusive: true });
-  const kp = cand.kp === undefined ? undefined : requireRange(cand.kp, f('kp'), 0, 1.5, { minExclusive: true });
+  const emissivity = emissivityAssumed ? DEFAULT_CABLE_EMISSIVITY : checkBound('emissivity', cand.emissivity, f('emissivity'));
+  const ks = cand.ks === undefined ? undefined : checkBound('ks', cand.ks, f('ks'));
+  const kp = cand.kp === undefined ? undefined : checkBound('kp', cand.kp, f('kp'));
 
   const layers: PreparedLayer[] = [];
   const shortCircuitLimits: (number | undefined)[] = [];
@@ -111,8 +112,8 @@ function prepareCable(cand: CableCandidate, p: CommonPrep): PreparedCable {
   cand.layers.forEach((l, k) => {
     const lf = (n: string) => f(`layers[${k}].${n}`);
     if (l === null || typeof l !== 'object') throw new ElectricalInputError(f(`layers[${k}]`), 'must be an object');
-    const thicknessM = requireRange(l.thicknessM, lf('thicknessM'), 0, 0.5, { minExclusive: true });
-    const rhoT = requireRange(l.thermalResistivityKmPerW, lf('thermalResistivityKmPerW'), 0, 1e4, { minExclusive: true });
+    const thicknessM = checkBound('layerThicknessM', l.thicknessM, lf('thicknessM'));
+    const rhoT = checkBound('thermalResistivityKmPerW', l.thermalResistivityKmPerW, lf('thermalResistivityKmPerW'));
     const limit = limitOf(l.continuousLimitC, lf('continuousLimitC'));
     shortCircuitLimits.push(limitOf(l.shortCircuitLimitC, lf('shortCircuitLimitC')));
     if (l.role === 'screen' || l.role === 'armour') hasMetallicLayer = true;
@@ -211,13 +212,13 @@ function prepareBar(cand: BarCandidate, p: CommonPrep): PreparedBar {
   if (conditions.placement === 'buried' || conditions.placement === 'cable-in-air') {
     throw new ElectricalInputError('conditions.installation.kind', `a bus bar cannot be installed as '${conditions.placement}'`);
   }
-  const widthM = requireRange(cand.widthM, f('widthM'), 0, 1, { minExclusive: true });
-  const thicknessM = requireRange(cand.thicknessM, f('thicknessM'), 0, 0.2, { minExclusive: true });
-  const barsPerPhase = cand.barsPerPhase === undefined ? 1 : requireInteger(cand.barsPerPhase, f('barsPerPhase'), 1, 20);
+  const widthM = checkBound('barWidthM', cand.widthM, f('widthM'));
+  const thicknessM = checkBound('barThicknessM', cand.thicknessM, f('thicknessM'));
+  const barsPerPhase = cand.barsPerPhase === undefined ? 1 : checkBound('barsPerPhase', cand.barsPerPhase, f('barsPerPhase'));
   // A pack's bars need a gap between them (they would be one thicker bar otherwise).
   const barGapM = cand.barGapM === undefined ? thicknessM : barsPerPhase > 1 ? requireRange(cand.barGapM, f('barGapM'), 0, 1, { minExclusive: true }) : requireNonNegative(cand.barGapM, f('barGapM'));
   const yieldStrengthPa = cand.yieldStrengthPa === undefined ? undefined : requireRange(cand.yieldStrengthPa, f('yieldStrengthPa'), 1e6, 2e9);
-  const acResistanceRatio = cand.acResistanceRatio === undefined ? undefined : requireRange(cand.acResistanceRatio, f('acResistanceRatio'), 1, 10);
+  const acResistanceRatio = cand.acResistanceRatio === undefined ? undefined : checkBound('acResistanceRatio', cand.acResistanceRatio, f('acResistanceRatio'));
   const terminal = limitOf(cand.terminalLimitC, f('terminalLimitC'));
   const ratings: Rating[] = [];
   const layers: PreparedLayer[] = [];
@@ -234,16 +235,16 @@ function prepareBar(cand: BarCandidate, p: CommonPrep): PreparedBar {
     layers.push({
       name,
       role: 'coating',
-      thicknessM: requireRange(c.thicknessM, cf('thicknessM'), 0, 0.05, { minExclusive: true }),
-      conductivityWPerMK: 1 / requireRange(c.thermalResistivityKmPerW, cf('thermalResistivityKmPerW'), 0, 1e4, { minExclusive: true }),
+      thicknessM: checkBound('coatingThicknessM', c.thicknessM, cf('thicknessM')),
+      conductivityWPerMK: 1 / checkBound('thermalResistivityKmPerW', c.thermalResistivityKmPerW, cf('thermalResistivityKmPerW')),
       contact: true,
     });
     if (coatingLimit !== undefined) ratings.push({ c: coatingLimit, source: 'coating', layer: name });
     emissivityAssumed = c.emissivity === undefined;
-    emissivity = emissivityAssumed ? DEFAULT_COATED_BAR_EMISSIVITY : requireRange(c.emissivity, cf('emissivity'), 0, 1);
+    emissivity = emissivityAssumed ? DEFAULT_COATED_BAR_EMISSIVITY : checkBound('emissivity', c.emissivity, cf('emissivity'));
   } else {
     emissivityAssumed = cand.emissivity === undefined;
-    emissivity = emissivityAssumed ? DEFAULT_BARE_BAR_EMISSIVITY : requireRange(cand.emissivity, f('emissivity'), 0, 1);
+    emissivity = emissivityAssumed ? DEFAULT_BARE_BAR_EMISSIVITY : checkBound('emissivity', cand.emissivity, f('emissivity'));
   }
   if (terminal !== undefined) ratings.push({ c: terminal, source: 'terminal' });
   const contactLimit = lowestRating(underUserLimit(ratings, conditions, flags), f('terminalLimitC'));

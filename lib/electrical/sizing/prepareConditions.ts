@@ -11,6 +11,7 @@ import {
   requireTemperature,
 } from '../errors';
 import { toMoney } from '../economics';
+import { checkBound, checkOptionalBound } from '../../inputBounds';
 import { DEFAULT_TEXT, ENTERED_TEXT, SHORT_CIRCUIT_TEXT } from './flagText';
 import { FlagSet } from './flags';
 import type { PreparedConditions } from './prepared';
@@ -36,18 +37,18 @@ function optional<T>(value: T | undefined | null, check: (v: T) => number): numb
 export function prepareConditions(c: Conditions): PreparedConditions {
   if (c === null || typeof c !== 'object') throw new ElectricalInputError('conditions', 'must be an object');
   const f = (name: string) => `conditions.${name}`;
-  const designCurrentA = requireNonNegative(c.designCurrentA, f('designCurrentA'));
-  const frequencyHz = requireRange(c.frequencyHz, f('frequencyHz'), 0, 1000);
+  const designCurrentA = checkBound('currentA', c.designCurrentA, f('designCurrentA'));
+  const frequencyHz = checkBound('frequencyHz', c.frequencyHz, f('frequencyHz'));
   if (c.phases !== 1 && c.phases !== 3) throw new ElectricalInputError(f('phases'), `must be 1 or 3 (got ${String(c.phases)})`);
-  const nominalVoltageV = requirePositive(c.nominalVoltageV, f('nominalVoltageV'));
-  const lengthM = requireNonNegative(c.lengthM, f('lengthM'));
-  const powerFactor = requireRange(c.powerFactor, f('powerFactor'), 0, 1);
-  const reactanceOhmPerM = optional(c.reactanceOhmPerM, (v) => requireNonNegative(v, f('reactanceOhmPerM')));
-  const maxVoltageDropPercent = optional(c.maxVoltageDropPercent, (v) => requireRange(v, f('maxVoltageDropPercent'), 0, 100, { minExclusive: true }));
-  const windSpeedMPerS = c.windSpeedMPerS === undefined ? 0 : requireRange(c.windSpeedMPerS, f('windSpeedMPerS'), 0, 60);
+  const nominalVoltageV = checkBound('nominalVoltageV', c.nominalVoltageV, f('nominalVoltageV'));
+  const lengthM = checkBound('lengthM', c.lengthM, f('lengthM'));
+  const powerFactor = checkBound('powerFactor', c.powerFactor, f('powerFactor'));
+  const reactanceOhmPerM = checkOptionalBound('reactanceOhmPerM', c.reactanceOhmPerM, f('reactanceOhmPerM'));
+  const maxVoltageDropPercent = checkOptionalBound('maxVoltageDropPercent', c.maxVoltageDropPercent, f('maxVoltageDropPercent'));
+  const windSpeedMPerS = c.windSpeedMPerS === undefined ? 0 : checkBound('windSpeedMPerS', c.windSpeedMPerS, f('windSpeedMPerS'));
   const groupingFactor =
-    c.groupingFactor === undefined ? 1 : requireRange(c.groupingFactor, f('groupingFactor'), 0, 1, { minExclusive: true });
-  const userLimitC = optional(c.temperatureLimitC, (v) => requireRange(v, f('temperatureLimitC'), -50, 1000));
+    c.groupingFactor === undefined ? 1 : checkBound('groupingFactor', c.groupingFactor, f('groupingFactor'));
+  const userLimitC = checkOptionalBound('temperatureLimitC', c.temperatureLimitC, f('temperatureLimitC'));
   const surfaceCoefficientWPerM2K = optional(c.surfaceCoefficientWPerM2K, (v) =>
     requireRange(v, f('surfaceCoefficientWPerM2K'), 0, 1e5, { minExclusive: true }),
   );
@@ -65,11 +66,11 @@ export function prepareConditions(c: Conditions): PreparedConditions {
       break;
     case 'buried': {
       placement = 'buried';
-      const depthM = requirePositive(inst.depthM, f('installation.depthM'));
+      const depthM = checkBound('depthM', inst.depthM, f('installation.depthM'));
       const soilAssumed = inst.soilResistivityKmPerW === undefined;
       const soilResistivityKmPerW = soilAssumed
         ? DEFAULT_SOIL_RESISTIVITY_KM_PER_W
-        : requireRange(inst.soilResistivityKmPerW, f('installation.soilResistivityKmPerW'), 0.1, 20);
+        : checkBound('soilResistivityKmPerW', inst.soilResistivityKmPerW, f('installation.soilResistivityKmPerW'));
       buried = { depthM, soilResistivityKmPerW, soilAssumed, groundAssumed: inst.groundC === undefined };
       break;
     }
@@ -78,7 +79,7 @@ export function prepareConditions(c: Conditions): PreparedConditions {
         throw new ElectricalInputError(f('installation.inside'), `must be 'cable-in-air', 'bar-on-edge' or 'bar-flat'`);
       }
       placement = inst.inside;
-      enclosureFactor = requireRange(inst.deratingFactor, f('installation.deratingFactor'), 0, 1, { minExclusive: true });
+      enclosureFactor = checkBound('enclosureDerating', inst.deratingFactor, f('installation.deratingFactor'));
       break;
     default:
       throw new ElectricalInputError(
@@ -91,7 +92,7 @@ export function prepareConditions(c: Conditions): PreparedConditions {
   if (formation !== 'trefoil' && formation !== 'flat' && formation !== 'flat-vertical') {
     throw new ElectricalInputError(f('installation.formation'), `must be 'trefoil', 'flat' or 'flat-vertical'`);
   }
-  const spacingM = optional(arrangement.spacingM as number | undefined, (v) => requirePositive(v, f('installation.spacingM')));
+  const spacingM = checkOptionalBound('spacingM', arrangement.spacingM, f('installation.spacingM'));
   const circuitSpacingM = optional(arrangement.circuitSpacingM, (v) => requireRange(v, f('installation.circuitSpacingM'), 0, 50, { minExclusive: true }));
   const circuitRow = arrangement.circuitRow ?? 'horizontal';
   if (circuitRow !== 'horizontal' && circuitRow !== 'vertical') throw new ElectricalInputError(f('installation.circuitRow'), `must be 'horizontal' or 'vertical'`);
@@ -100,7 +101,7 @@ export function prepareConditions(c: Conditions): PreparedConditions {
   const otherCircuits: OtherCircuit[] = others.map((o, i) => {
     const of = (n: string) => f(`installation.otherCircuits[${i}].${n}`);
     if (o === null || typeof o !== 'object') throw new ElectricalInputError(f(`installation.otherCircuits[${i}]`), 'must be an object');
-    const currentA = requireRange(o.currentA, of('currentA'), 0, 20000);
+    const currentA = checkBound('currentA', o.currentA, of('currentA'));
     if (o.cable === undefined) return { currentA };
     return {
       currentA,
@@ -123,19 +124,19 @@ export function prepareConditions(c: Conditions): PreparedConditions {
     if (g === undefined) {
       ambientC = DEFAULT_GROUND_C;
       ambientAssumed = true;
-    } else ambientC = requireTemperature(g, f('installation.groundC'));
+    } else ambientC = checkBound('groundC', g, f('installation.groundC'));
   } else if (c.ambientC === undefined) {
     ambientC = placement === 'cable-in-air' ? DEFAULT_AIR_AMBIENT_CABLE_C : DEFAULT_AIR_AMBIENT_BAR_C;
     ambientAssumed = true;
   } else {
-    ambientC = requireRange(c.ambientC, f('ambientC'), -60, 200);
+    ambientC = checkBound('ambientC', c.ambientC, f('ambientC'));
   }
 
   let solar: PreparedConditions['solar'];
   if (c.solar !== undefined) {
-    const irradianceWPerM2 = requireRange(c.solar.irradianceWPerM2, f('solar.irradianceWPerM2'), 0, 1500);
+    const irradianceWPerM2 = checkBound('irradianceWPerM2', c.solar.irradianceWPerM2, f('solar.irradianceWPerM2'));
     const absorptivityAssumed = c.solar.absorptivity === undefined;
-    const absorptivity = absorptivityAssumed ? DEFAULT_SOLAR_ABSORPTIVITY : requireRange(c.solar.absorptivity, f('solar.absorptivity'), 0, 1);
+    const absorptivity = absorptivityAssumed ? DEFAULT_SOLAR_ABSORPTIVITY : checkBound('solarAbsorptivity', c.solar.absorptivity, f('solar.absorptivity'));
     if (irradianceWPerM2 > 0) solar = { irradianceWPerM2, absorptivity, absorptivityAssumed };
   }
   if (solar && placement === 'buried') throw new ElectricalInputError(f('solar'), 'a buried cable receives no sun');
@@ -148,8 +149,8 @@ export function prepareConditions(c: Conditions): PreparedConditions {
       throw new ElectricalInputError(f('fault.initialFrom'), `must be 'limit' or 'operating'`);
     }
     fault = {
-      currentA: requirePositive(c.fault.currentA, f('fault.currentA')),
-      durationS: requireRange(c.fault.durationS, f('fault.durationS'), 0, 60, { minExclusive: true }),
+      currentA: checkBound('faultCurrentA', c.fault.currentA, f('fault.currentA')),
+      durationS: checkBound('faultDurationS', c.fault.durationS, f('fault.durationS')),
       initialFrom,
     };
   }
@@ -160,16 +161,16 @@ export function prepareConditions(c: Conditions): PreparedConditions {
   let economics: EconomicsInputs | undefined;
   if (c.economics !== undefined) {
     const e = c.economics;
-    requireRange(e.lossLoadFactor, f('economics.lossLoadFactor'), 0, 1);
-    if (e.hoursPerYear !== undefined) requireRange(e.hoursPerYear, f('economics.hoursPerYear'), 0, 8784);
+    checkBound('lossLoadFactor', e.lossLoadFactor, f('economics.lossLoadFactor'));
+    if (e.hoursPerYear !== undefined) checkBound('hoursPerYear', e.hoursPerYear, f('economics.hoursPerYear'));
     toMoney(e.energyPricePerKWh, f('economics.energyPricePerKWh'));
     if (e.demandChargePerKWYear !== undefined) toMoney(e.demandChargePerKWYear, f('economics.demandChargePerKWYear'));
-    if (e.loadGrowthPercent !== undefined) requireRange(e.loadGrowthPercent, f('economics.loadGrowthPercent'), -100, 100, { minExclusive: true });
+    if (e.loadGrowthPercent !== undefined) checkBound('loadGrowthPercent', e.loadGrowthPercent, f('economics.loadGrowthPercent'));
     if (e.energyPriceGrowthPercent !== undefined) {
-      requireRange(e.energyPriceGrowthPercent, f('economics.energyPriceGrowthPercent'), -100, 100, { minExclusive: true });
+      checkBound('energyPriceGrowthPercent', e.energyPriceGrowthPercent, f('economics.energyPriceGrowthPercent'));
     }
-    requireRange(e.discountRatePercent, f('economics.discountRatePercent'), -100, 100, { minExclusive: true });
-    requireInteger(e.years, f('economics.years'), 0, 200);
+    checkBound('discountRatePercent', e.discountRatePercent, f('economics.discountRatePercent'));
+    checkBound('years', e.years, f('economics.years'));
     economics = e;
   }
 
