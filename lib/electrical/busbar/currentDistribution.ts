@@ -101,7 +101,7 @@ export const CURRENT_DISTRIBUTION_METHOD =
   'filament (partial-inductance) method: long rectangular filaments, L′ from the exact geometric mean distance of rectangles ' +
   '(Maxwell; Grover 1946; long-bar limit of Hoer & Love 1965), each phase current imposed';
 
-function skinDepth(rhoOhmM: number, frequencyHz: number): number {
+export function skinDepth(rhoOhmM: number, frequencyHz: number): number {
   return frequencyHz > 0 ? Math.sqrt(rhoOhmM / (Math.PI * frequencyHz * MU0)) : Number.POSITIVE_INFINITY;
 }
 

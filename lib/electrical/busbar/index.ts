@@ -15,7 +15,7 @@ export type {
   PreparedBusbarSystem,
 } from './geometry';
 
-export { computeCurrentDistribution, defaultMesh, isolatedBarAcFactor, prepareCurrentDistribution, solveCurrentDistribution, CURRENT_DISTRIBUTION_METHOD } from './currentDistribution';
+export { computeCurrentDistribution, defaultMesh, isolatedBarAcFactor, prepareCurrentDistribution, skinDepth, solveCurrentDistribution, CURRENT_DISTRIBUTION_METHOD } from './currentDistribution';
 export type {
   BarCurrentResult,
   BusbarConductorData,

@@ -13,7 +13,10 @@
  * edit of the design current does not repeat them.
  */
 import {
+  defaultMesh,
   isolatedBarAcFactor,
+  skinDepth,
+  type FilamentMeshOptions,
   prepareBusbarSystem,
   prepareCurrentDistribution,
   preparePackHeat,
@@ -48,6 +51,10 @@ export interface BusbarSystemModel {
   ambientC: number;
   /** The candidate's pack is modelled bar by bar (two or more bars per phase). */
   pack: boolean;
+  /** The filament mesh per bar (the default from the skin depth, coarsened to the budget). */
+  mesh: Required<FilamentMeshOptions>;
+  /** Set when the mesh had to be coarsened below the default to stay within the budget. */
+  meshCoarsened: boolean;
   thermalNodes: 'per-bar' | 'per-pack';
 }
 
@@ -87,8 +94,12 @@ export function busbarSystemOf(cand: PreparedBar, cond: PreparedConditions): Bus
     if (e instanceof ElectricalInputError) throw new ElectricalInputError(`conditions.installation.system.${e.field}`, e.message.replace(/^[^:]*: /, ''));
     throw e;
   }
+  const rho = cand.r20 * cand.widthM * cand.thicknessM;
+  const { mesh, coarsened } = meshWithinBudget(system, rho * (1 + cand.alpha20 * (cand.contactLimit.temperatureC - 20)), cond.frequencyHz);
   return {
     system,
+    mesh,
+    meshCoarsened: coarsened,
     phaseSpacingAssumed: given === undefined,
     conductor: { rho20OhmM: cand.r20 * cand.widthM * cand.thicknessM, alpha20PerK: cand.alpha20 },
     frequencyHz: cond.frequencyHz,
@@ -97,6 +108,23 @@ export function busbarSystemOf(cand: PreparedBar, cond: PreparedConditions): Bus
     pack: cand.barsPerPhase > 1,
     thermalNodes: given?.packNodes ?? 'per-bar',
   };
+}
+
+/**
+ * Filaments a solve may take (the phases' bars, before the mirror halves them): the dense complex
+ * system costs n³, so a very wide, thin or many-bar system would take minutes. Within the budget
+ * the skin-depth mesh of the bus-bar module stands; beyond it the cells along the width, then
+ * across the thickness, are reduced (flagged: a coarser mesh sees less of the edge crowding).
+ */
+export const FILAMENT_BUDGET = 1600;
+
+function meshWithinBudget(system: PreparedBusbarSystem, resistivityOhmM: number, frequencyHz: number): { mesh: Required<FilamentMeshOptions>; coarsened: boolean } {
+  const mesh = defaultMesh(system.barWidthM, system.barThicknessM, frequencyHz > 0 ? skinDepth(resistivityOhmM, frequencyHz) : Number.POSITIVE_INFINITY);
+  const bars = system.bars.length;
+  if (bars * mesh.cellsAcrossThickness * mesh.cellsAlongWidth <= FILAMENT_BUDGET) return { mesh, coarsened: false };
+  const along = Math.max(4, Math.floor(FILAMENT_BUDGET / (bars * mesh.cellsAcrossThickness)));
+  const across = bars * mesh.cellsAcrossThickness * along > FILAMENT_BUDGET ? Math.max(2, Math.floor(FILAMENT_BUDGET / (bars * along))) : mesh.cellsAcrossThickness;
+  return { mesh: { ...mesh, cellsAlongWidth: along, cellsAcrossThickness: across }, coarsened: true };
 }
 
 function keyOf(m: BusbarSystemModel, extra: string): string {
@@ -116,9 +144,9 @@ export function singleBarAcFactor(m: BusbarSystemModel, lowC: number, highC: num
     cached(keyOf(m, `single:${m.phaseSpacingAssumed ? 'isolated' : 'system'}:${t.toFixed(3)}`), () => {
       if (m.phaseSpacingAssumed) {
         const rho = m.conductor.rho20OhmM * (1 + m.conductor.alpha20PerK * (t - 20));
-        return isolatedBarAcFactor({ widthM: m.system.barWidthM, thicknessM: m.system.barThicknessM, resistivityOhmM: rho, frequencyHz: m.frequencyHz }).acFactor;
+        return isolatedBarAcFactor({ widthM: m.system.barWidthM, thicknessM: m.system.barThicknessM, resistivityOhmM: rho, frequencyHz: m.frequencyHz, mesh: m.mesh }).acFactor;
       }
-      const prepared = prepareCurrentDistribution({ system: m.system, conductor: m.conductor, frequencyHz: m.frequencyHz, barTemperaturesC: t });
+      const prepared = prepareCurrentDistribution({ system: m.system, conductor: m.conductor, frequencyHz: m.frequencyHz, barTemperaturesC: t, mesh: m.mesh });
       const d = solveCurrentDistribution(prepared, { barTemperaturesC: t, phaseCurrentA: 1 });
       return Math.max(...d.groups.map((g) => g.acFactor ?? 1));
     });
@@ -135,6 +163,7 @@ export function packAmpacity(m: BusbarSystemModel, limitC: number): { currentA: 
       conductor: m.conductor,
       conditions: { ambientC: m.ambientC, emissivity: m.emissivity, limitC, thermalNodes: m.thermalNodes },
       excitation: m.frequencyHz === 0 ? { kind: 'dc' } : { kind: 'three-phase', frequencyHz: m.frequencyHz },
+      mesh: m.mesh,
     }),
   );
   return { currentA: r.ampacityA, state: { heat: r.heat, distribution: r.distribution }, flags: r.flags };
@@ -148,7 +177,7 @@ export function packAmpacity(m: BusbarSystemModel, limitC: number): { currentA: 
 export function packStateAt(m: BusbarSystemModel, phaseCurrentA: number, startC: number): PackState | null {
   const n = m.system.bars.length;
   // The filament system is factorised at some temperatures; far from them (over 40 K) it is made afresh.
-  const prepareAt = (t: readonly number[]) => prepareCurrentDistribution({ system: m.system, conductor: m.conductor, frequencyHz: m.frequencyHz, barTemperaturesC: t });
+  const prepareAt = (t: readonly number[]) => prepareCurrentDistribution({ system: m.system, conductor: m.conductor, frequencyHz: m.frequencyHz, barTemperaturesC: t, mesh: m.mesh });
   let prepared = cached(keyOf(m, `prepared:${startC}`), () => prepareAt(new Array<number>(n).fill(startC)));
   const heat = cached(keyOf(m, `heat:${m.ambientC}:${m.emissivity}:${m.thermalNodes}`), () => preparePackHeat(m.system, { ambientC: m.ambientC, emissivity: m.emissivity, thermalNodes: m.thermalNodes }));
   let temperatures = new Array<number>(n).fill(startC);

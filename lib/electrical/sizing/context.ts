@@ -48,6 +48,9 @@ export function sizingContext(candidate: Candidate, cond: PreparedConditions, in
     if (busbar.pack) flags.add('PHASE_SPACING_ASSUMED', MODEL_TEXT.phaseSpacingAssumed(busbar.system.phaseSpacingM), { phaseSpacingM: busbar.system.phaseSpacingM });
     else if (cand.acResistanceRatio === undefined) flags.add('PHASE_SPACING_ASSUMED', MODEL_TEXT.isolatedBarAssumed());
   }
+  if (busbar?.meshCoarsened && cond.frequencyHz > 0 && (busbar.pack || (cand.kind === 'bar' && cand.acResistanceRatio === undefined))) {
+    flags.add('FILAMENT_MESH_COARSENED', MODEL_TEXT.filamentMeshCoarsened(busbar.mesh.cellsAcrossThickness, busbar.mesh.cellsAlongWidth));
+  }
   const acFn = acFactorFunction(cand, cond, busbar);
   if (losses) losses.acResistanceAt = (t) => ((cand.r20 / (cand.kind === 'cable' ? cand.loadedCores : 1)) * (1 + cand.alpha20 * (t - 20))) * acFn(t).factor;
   return { cand, cond, ...(group ? { group } : {}), ...(busbar ? { busbar } : {}), model: buildThermalModel(cand, cond, group, losses), acFn, flags, solves: 0 };

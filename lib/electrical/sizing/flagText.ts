@@ -69,6 +69,8 @@ export const MODEL_TEXT = {
     `R_ac/R_dc = ${fmt(ratio, 4)} from the current distribution over the bar's cross-section (filament method: skin effect and crowding at the edges${system ? ', and the other phases at the entered spacing, the worst phase taken' : ', the bar alone'}).`,
   phaseSpacingAssumed: (spacingM: number) =>
     `No phase spacing was entered: the phases are taken ${fmt(spacingM * 1000, 3)} mm apart, centre to centre (a clearance of one bar width), for the current sharing and the forces; enter the real spacing.`,
+  filamentMeshCoarsened: (across: number, along: number) =>
+    `This bar system is wide, thin or large for the filament method: its mesh was limited to ${across} × ${along} filaments per bar, which sees less of the crowding at the edges, so R_ac/R_dc and the outer bars' shares may be understated by a few per cent; check against the bar maker's data.`,
   isolatedBarAssumed: () =>
     "No phase spacing was entered: the bar's AC resistance is that of a bar alone — the other phases' proximity, which raises it, is left out; enter the phase spacing.",
   packRated: (bars: number, hottest: string) =>

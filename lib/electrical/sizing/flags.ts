@@ -59,6 +59,7 @@ const STEADY_FLAG_CODES = [
   'PACK_RATED_AS_SYSTEM',
   'BAR_SHORT_CIRCUIT_LIMIT_DEFAULTED',
   'FORCES_NOT_CHECKED',
+  'FILAMENT_MESH_COARSENED',
   ...BUSBAR_FLAG_CODES,
 ] as const;
 
@@ -140,6 +141,7 @@ export const FLAG_REGISTRY: Readonly<Record<FlagCode, Readonly<FlagDefinition>>>
   PHASE_SPACING_ASSUMED: { severity: 'review', title: 'Phase spacing of the bars assumed', basis: 'physics.md §10 (current sharing and forces depend on it)' },
   PACK_RATED_AS_SYSTEM: { severity: 'note', title: 'Bars rated as a pack', basis: 'physics.md §10: current sharing by the filament method; channels by Bar-Cohen & Rohsenow (1984); radiation by view factors' },
   BAR_SHORT_CIRCUIT_LIMIT_DEFAULTED: { severity: 'review', title: 'Short-circuit temperature of the bar assumed', basis: 'common practice for bare bars (from memory)' },
+  FILAMENT_MESH_COARSENED: { severity: 'review', title: 'Filament mesh of the bars coarsened', basis: 'filament method: the mesh limited to keep the solve within seconds' },
   FORCES_NOT_CHECKED: { severity: 'review', title: 'Short-circuit forces not checked', basis: 'IEC 60865-1 (needs the support span and arrangement)' },
   ...BUSBAR_FLAG_REGISTRY,
   SCREEN_LOSSES_INCLUDED: { severity: 'note', title: 'Screen losses included', basis: 'IEC 60287-1-1 §2.3 (λ₁ by bonding and formation, from memory)' },

@@ -136,6 +136,8 @@ const cases: Record<Exclude<FlagCode, BeyondSteadyFlagCode | Retired>, () => { c
   BAR_SHORT_CIRCUIT_LIMIT_DEFAULTED: () => ({ candidate: copperBar(0.1, 0.01, { shortCircuitLimitC: undefined }), conditions: barConditions({ fault: { currentA: 20_000, durationS: 0.5 } }) }),
   FORCES_NOT_CHECKED: () => ({ candidate: copperBar(0.1, 0.01), conditions: barConditions({ fault: { currentA: 20_000, durationS: 0.5 } }) }),
   // A 1 mm gap: the channel's Ra′ falls below the Bar-Cohen & Rohsenow range.
+  // Four 900 × 2 mm bars per phase: the skin-depth mesh would take ~9,000 filaments.
+  FILAMENT_MESH_COARSENED: () => ({ candidate: copperBar(0.9, 0.002, { barsPerPhase: 4, barGapM: 0.01 }), conditions: barConditions({ installation: { kind: 'bar-on-edge', system: system({ phaseSpacingM: 0.3 }) } }) }),
   BUSBAR_CHANNEL_OUT_OF_RANGE: () => ({ candidate: copperBar(0.1, 0.01, { barsPerPhase: 2, barGapM: 0.001 }), conditions: barConditions({ installation: { kind: 'bar-on-edge', system: system() } }) }),
   // A 60 mm gap: the channel would cool better than a free plate; it is capped there.
   BUSBAR_CHANNEL_LIMITED_TO_PLATE: () => ({ candidate: copperBar(0.1, 0.01, { barsPerPhase: 2, barGapM: 0.06 }), conditions: barConditions({ installation: { kind: 'bar-on-edge', system: system({ phaseSpacingM: 0.4 }) } }) }),

@@ -59,7 +59,8 @@ function packResultOf(m: BusbarSystemModel, state: PackState, runA: number, ctx:
   return {
     bars,
     hottest: { phase: hot.group, positionInPack: hot.positionInPack, temperatureC: state.heat.hottestC },
-    acFactor: Math.max(...state.distribution.groups.map((g) => g.acFactor ?? 1)),
+    // (null or not finite where the current is all but zero: the ratio is a property of the geometry, 1 then)
+    acFactor: Math.max(1, ...state.distribution.groups.map((g) => (g.acFactor !== null && Number.isFinite(g.acFactor) ? g.acFactor : 1))),
     method: MODEL_TEXT.packRated(system.barsPerPhase, `the ${ordinal(hot.positionInPack + 1)} bar of phase ${hot.group}`),
   };
 }
