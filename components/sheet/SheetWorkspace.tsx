@@ -5,7 +5,7 @@
  * the review panel and history. Inputs re-compute in the browser at once; saving sends the inputs
  * and the server computes and stores its own snapshot.
  */
-import { useCallback, useEffect, useMemo, useState } from 'react';
+import { memo, useCallback, useDeferredValue, useEffect, useMemo, useState } from 'react';
 import Link from 'next/link';
 import { useRouter } from 'next/navigation';
 import { useForm, schemaResolver } from '@mantine/form';
@@ -36,6 +36,12 @@ import { InputsForm } from './InputsForm';
 import { ResultStrip } from './ResultStrip';
 import { StatusBadge } from './StatusBadge';
 import { useLiveComputation } from './useLiveComputation';
+
+// The plots and the grid are the slow part of a render (Plotly, AG Grid): they take the new result
+// in a deferred render, so that the result strip shows a keystroke's result at once.
+const DeferredProfilePlot = memo(ProfilePlot);
+const DeferredHotSpotCurvePlot = memo(HotSpotCurvePlot);
+const DeferredCandidateGrid = memo(CandidateGrid);
 
 /** A value as it arrives through JSON: dates become ISO strings, the rest keeps its shape. */
 type ThroughJson<T> = T extends Date ? string : T extends object ? { [K in keyof T]: ThroughJson<T[K]> } : T;
@@ -210,8 +216,13 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
   );
 
   const lastReturnComment = [...(historyQuery.data ?? [])].reverse().find((h) => h.action === 'sheet.return')?.detail.comment as string | undefined;
-  const rows = candidateRows(values.candidates, evaluations, values.chosenCandidateId, units);
-  const limits = Object.fromEntries((evaluations ?? []).filter((e): e is CandidateEvaluationOk => e.ok).map((e) => [e.id, e.limit.temperatureC]));
+  const rows = useDeferredValue(useMemo(() => candidateRows(values.candidates, evaluations, values.chosenCandidateId, units), [values.candidates, evaluations, values.chosenCandidateId, units]));
+  const deferredCurves = useDeferredValue(live.curves);
+  const deferredProfile = useDeferredValue(focusedOk?.profile ?? null);
+  const deferredDesignCurrentA = useDeferredValue(values.circuit.designCurrentA);
+  const limits = useDeferredValue(
+    useMemo(() => Object.fromEntries((evaluations ?? []).filter((e): e is CandidateEvaluationOk => e.ok).map((e) => [e.id, e.limit.temperatureC])), [evaluations]),
+  );
   const placement = values.installation.kind === 'enclosure' ? values.installation.enclosureInside : values.installation.kind;
   const preferredKind = placement === 'bar-on-edge' || placement === 'bar-flat' ? 'bar' : 'cable';
   const mismatched = values.candidates.filter((c) => !installationSuits(values.installation.kind, c.kind, values.installation.enclosureInside));
@@ -378,9 +389,9 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
           ) : (
             <div className="grid gap-3 xl:grid-cols-2">
               <section className="panel p-2" aria-label="Heat-balance profile">
-                {focusedOk?.profile ? (
-                  <ProfilePlot
-                    profile={focusedOk.profile}
+                {focusedOk && deferredProfile ? (
+                  <DeferredProfilePlot
+                    profile={deferredProfile}
                     limitC={focusedOk.limit.temperatureC}
                     limitLabel={focusedOk.limit.layer ?? focusedOk.limit.source}
                     units={units}
@@ -391,8 +402,8 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
                 )}
               </section>
               <section className="panel p-2" aria-label="Hot spot versus current">
-                {live.curves.length > 0 ? (
-                  <HotSpotCurvePlot curves={live.curves} designCurrentA={values.circuit.designCurrentA} limits={limits} units={units} />
+                {deferredCurves.length > 0 ? (
+                  <DeferredHotSpotCurvePlot curves={deferredCurves} designCurrentA={deferredDesignCurrentA} limits={limits} units={units} />
                 ) : (
                   <p className="p-4 text-caption text-ink-500">{live.computing ? 'Computing the curves…' : 'The curves appear when the candidates have results.'}</p>
                 )}
@@ -418,7 +429,7 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
                 </p>
               ) : null}
               {values.chosenCandidateId === null ? <p className="mb-2 text-caption text-ink-600">No candidate chosen yet: choose one in the first column before submitting the sheet.</p> : null}
-              <CandidateGrid rows={rows} units={units} focusedId={focusedId} onFocus={setFocusedId} onChoose={chooseCandidate} onRemove={removeCandidate} editable={editable} />
+              <DeferredCandidateGrid rows={rows} units={units} focusedId={focusedId} onFocus={setFocusedId} onChoose={chooseCandidate} onRemove={removeCandidate} editable={editable} />
             </section>
           ) : null}
 
