@@ -12,6 +12,7 @@ import { ampacityCheck, AMPACITY_TOLERANCE_A, CROSS_CHECK_LIMIT_PERCENT } from '
 import { costsCheck } from './checks/costs';
 import { designPointCheck, NEAR_RUNAWAY_RATIO, SOIL_DRYING_SURFACE_C, solveAtCircuitCurrent, thermalAtDesign } from './checks/designPoint';
 import { forcesCheck } from './checks/forces';
+import { protectionCheck } from './checks/protection';
 import { packAmpacityCheck, packAt, packThermalAtDesign } from './checks/pack';
 import { shortCircuitCheck } from './checks/shortCircuit';
 import { voltageDropCheck } from './checks/voltageDrop';
@@ -65,6 +66,7 @@ function runChecks(ctx: SizingContext): CandidateEvaluationOk {
   const voltageDrop = voltageDropCheck(ctx);
   const shortCircuit = shortCircuitCheck(ctx, thermal.hotSpotC);
   const forces = forcesCheck(ctx);
+  const protection = protectionCheck(ctx, amp.current, thermal.conductorC);
   const costs = costsCheck(ctx, thermal.lossPerConductorWPerM);
 
   const list = flags.list();
@@ -114,6 +116,7 @@ function runChecks(ctx: SizingContext): CandidateEvaluationOk {
     ...(group ? { group } : {}),
     ...(pack ? { pack } : {}),
     ...(forces ? { forces } : {}),
+    ...(protection ? { protection } : {}),
     flags: list,
     solves: ctx.solves,
   };

@@ -120,3 +120,16 @@ export const GROUP_TEXT = {
   buried: (cables: number, notes: string[]) =>
     `The ${cables} cables in the ground heat one another: each is rated with the others' heat by superposition with images (IEC 60287-2-1 §4.2.3), every cable's heat at its own temperature, the hottest cable governing.${notes.length ? ` ${notes.join('; ')}.` : ''}`,
 } as const;
+
+export const PROTECTION_TEXT = {
+  noAmpacity: () => 'The circuit may carry no current at all, so no protective device can be coordinated with it (IEC 60364-4-43 §433.1).',
+  notCoordinated: (text: string, left: number, right: number, smallestA: number | undefined) =>
+    `Overload protection does not coordinate (IEC 60364-4-43 §433.1): ${text} fails, ${fmt(left, 4)} A against ${fmt(right, 4)} A.${smallestA !== undefined ? ` The smallest device of the series that coordinates is ${fmt(smallestA, 4)} A.` : ' No device of the series coordinates with this conductor: a larger conductor is needed.'}`,
+  tooSlow: (faultA: number, requiredS: number, operatingS: number | undefined) =>
+    `Automatic disconnection fails (IEC 60364-4-41 §411): the earth-fault current of ${fmt(faultA, 4)} A ${operatingS === undefined ? 'does not operate the device by its data' : `operates the device in ${fmt(operatingS, 3)} s`}, where ${fmt(requiredS, 3)} s is required.`,
+  assumptions: (items: string[]) => `The disconnection check rests on: ${items.join('; ')}.`,
+  peTooSmall: (installedMm2: number, requiredMm2: number, governing: string) =>
+    `The protective conductor of ${fmt(installedMm2, 3)} mm² is below the ${fmt(requiredMm2, 3)} mm² required (IEC 60364-5-54 §543.1, the ${governing} rule governing).`,
+  disconnectionNotChecked: () =>
+    'The source impedance or the protective conductor was not given, so automatic disconnection (IEC 60364-4-41 §411) and the protective conductor (IEC 60364-5-54 §543.1) were not checked.',
+} as const;

@@ -60,6 +60,11 @@ const STEADY_FLAG_CODES = [
   'BAR_SHORT_CIRCUIT_LIMIT_DEFAULTED',
   'FORCES_NOT_CHECKED',
   'FILAMENT_MESH_COARSENED',
+  'PROTECTION_OVERLOAD_NOT_COORDINATED',
+  'PROTECTION_DISCONNECTION_TOO_SLOW',
+  'PROTECTION_ASSUMPTIONS',
+  'PROTECTIVE_CONDUCTOR_TOO_SMALL',
+  'DISCONNECTION_NOT_CHECKED',
   ...BUSBAR_FLAG_CODES,
 ] as const;
 
@@ -141,6 +146,11 @@ export const FLAG_REGISTRY: Readonly<Record<FlagCode, Readonly<FlagDefinition>>>
   PHASE_SPACING_ASSUMED: { severity: 'review', title: 'Phase spacing of the bars assumed', basis: 'physics.md §10 (current sharing and forces depend on it)' },
   PACK_RATED_AS_SYSTEM: { severity: 'note', title: 'Bars rated as a pack', basis: 'physics.md §10: current sharing by the filament method; channels by Bar-Cohen & Rohsenow (1984); radiation by view factors' },
   BAR_SHORT_CIRCUIT_LIMIT_DEFAULTED: { severity: 'review', title: 'Short-circuit temperature of the bar assumed', basis: 'common practice for bare bars (from memory)' },
+  PROTECTION_OVERLOAD_NOT_COORDINATED: { severity: 'blocker', title: 'Overload protection does not coordinate', basis: 'IEC 60364-4-43 §433.1' },
+  PROTECTION_DISCONNECTION_TOO_SLOW: { severity: 'blocker', title: 'Earth fault not disconnected in time', basis: 'IEC 60364-4-41 §411 (Table 41.1)' },
+  PROTECTION_ASSUMPTIONS: { severity: 'review', title: 'Assumptions of the disconnection check', basis: 'IEC 60364-4-41 §411; IEC 60909-0 c_min' },
+  PROTECTIVE_CONDUCTOR_TOO_SMALL: { severity: 'blocker', title: 'Protective conductor too small', basis: 'IEC 60364-5-54 §543.1' },
+  DISCONNECTION_NOT_CHECKED: { severity: 'review', title: 'Automatic disconnection not checked', basis: 'IEC 60364-4-41 §411 (needs the source impedance and the protective conductor)' },
   FILAMENT_MESH_COARSENED: { severity: 'review', title: 'Filament mesh of the bars coarsened', basis: 'filament method: the mesh limited to keep the solve within seconds' },
   FORCES_NOT_CHECKED: { severity: 'review', title: 'Short-circuit forces not checked', basis: 'IEC 60865-1 (needs the support span and arrangement)' },
   ...BUSBAR_FLAG_REGISTRY,

@@ -16,6 +16,7 @@ import { DEFAULT_TEXT, ENTERED_TEXT, SHORT_CIRCUIT_TEXT } from './flagText';
 import { FlagSet } from './flags';
 import type { PreparedConditions } from './prepared';
 import { prepareBusbarSystemConditions } from './busbarSystem';
+import { prepareProtection } from './checks/protection';
 import type { BusbarSystemConditions, BuriedSurroundings, CableArrangement, Conditions, EconomicsInputs, OtherCircuit } from './types';
 
 /** Reference ambients when none is entered (flagged AMBIENT_ASSUMED). */
@@ -111,6 +112,7 @@ export function prepareConditions(c: Conditions): PreparedConditions {
       },
     };
   });
+  const protection = prepareProtection(c.protection, f('protection'));
   const busbarSystem = prepareBusbarSystemConditions((inst as { system?: BusbarSystemConditions }).system, f('installation.system'));
   if (busbarSystem && placement !== 'bar-on-edge' && placement !== 'bar-flat') throw new ElectricalInputError(f('installation.system'), 'a bus-bar system is for bars');
   if (placement !== 'buried' && (arrangement.duct !== undefined || arrangement.backfill !== undefined)) {
@@ -199,6 +201,7 @@ export function prepareConditions(c: Conditions): PreparedConditions {
     duct: arrangement.duct,
     backfill: arrangement.backfill,
     ...(busbarSystem ? { busbarSystem } : {}),
+    ...(protection ? { protection } : {}),
     buried,
     windSpeedMPerS,
     solar,

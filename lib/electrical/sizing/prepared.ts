@@ -4,7 +4,7 @@
  * validates nothing again.
  */
 import type { ConductorMaterial, ConductorMaterialConstants } from '../materials';
-import type { BarCandidate, BusbarSystemConditions, BuriedSurroundings, CableCandidate, CableScreen, Conditions, EconomicsInputs, GoverningLimit, OtherCircuit } from './types';
+import type { BarCandidate, ProtectionConditions, BusbarSystemConditions, BuriedSurroundings, CableCandidate, CableScreen, Conditions, EconomicsInputs, GoverningLimit, OtherCircuit } from './types';
 
 export type Placement = 'cable-in-air' | 'bar-on-edge' | 'bar-flat' | 'buried';
 
@@ -33,6 +33,7 @@ export interface PreparedConditions {
   otherCircuits: OtherCircuit[];
   transposed: boolean;
   duct?: NonNullable<BuriedSurroundings['duct']>;
+  protection?: ProtectionConditions;
   /** The bus-bar system a bar belongs to (phase spacing, supports), when described. */
   busbarSystem?: BusbarSystemConditions;
   backfill?: NonNullable<BuriedSurroundings['backfill']>;

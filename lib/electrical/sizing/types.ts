@@ -5,6 +5,8 @@
 import type { ConductorMaterial } from '../materials';
 import type { MoneyInput } from '../economics';
 import type { AssumptionFlag } from './flags';
+import type { ProtectiveDevice } from '../protection';
+import type { ProtectionResult } from './checks/protection';
 
 // ───────────────────────────── Candidate ─────────────────────────────
 
@@ -251,6 +253,29 @@ export interface Conditions {
   /** A fixed combined (convection + radiation) surface coefficient, W/(m²·K), replacing the correlations (flagged). */
   surfaceCoefficientWPerM2K?: number;
   economics?: EconomicsInputs;
+  /** The circuit's protective device and earth-fault loop (physics.md §11); without it those checks are not run (flagged). */
+  protection?: ProtectionConditions;
+}
+
+/** Protection of the circuit (IEC 60364-4-41, -4-43, -5-54; lib/electrical/protection). */
+export interface ProtectionConditions {
+  device: ProtectiveDevice;
+  /** Ratings to search for the smallest coordinated device (an adjustable breaker's settings); default the standard series. */
+  deviceSeriesA?: number[];
+  systemEarthing?: 'TN' | 'TT';
+  /** A final circuit (Table 41.1 times) or a distribution circuit (5 s TN, 1 s TT); default distribution. */
+  circuit?: 'final' | 'distribution';
+  /** Impedance of the source up to the circuit's origin (transformer and upstream cables), Ω. */
+  source?: { resistanceOhm: number; reactanceOhm?: number } | { impedanceOhm: number };
+  /** TT: R_A + R_B of the earth electrodes, Ω. */
+  earthElectrodesOhm?: number;
+  /** The protective conductor of the circuit (length: the route's). */
+  protectiveConductor?: {
+    sectionMm2: number;
+    material?: ConductorMaterial;
+    insulation?: 'pvc-70' | 'pvc-90' | 'thermosetting-90';
+    arrangement?: 'in-cable-or-bunched' | 'separate';
+  };
 }
 
 // ───────────────────────────── Results ─────────────────────────────
@@ -387,6 +412,8 @@ export interface CandidateEvaluationOk {
   pack?: PackResult;
   /** The short-circuit forces of IEC 60865-1 on a bus-bar system, when the supports are described and a fault entered. */
   forces?: ForcesResult;
+  /** Overload coordination, automatic disconnection and the protective conductor (when a device is given). */
+  protection?: ProtectionResult;
   flags: AssumptionFlag[];
   solves: number;
   isSmallestPassing?: boolean;

@@ -164,6 +164,23 @@ const cases: Record<Exclude<FlagCode, BeyondSteadyFlagCode | Retired>, () => { c
   }),
   BUSBAR_SUPPORT_FORCE_EXCEEDED: () => ({ candidate: copperBar(0.1, 0.01), conditions: barConditions({ fault: barFault, installation: { kind: 'bar-on-edge', system: system({ supportStrengthN: 1000 }) } }) }),
   BUSBAR_SUPPORT_STRENGTH_NOT_GIVEN: () => ({ candidate: copperBar(0.1, 0.01), conditions: barConditions({ fault: barFault, installation: { kind: 'bar-on-edge', system: system() } }) }),
+  // A 630 A breaker on a 95 mm² cable (I_n > I_z).
+  PROTECTION_OVERLOAD_NOT_COORDINATED: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ protection: { device: { kind: 'breaker-iec60898-1', curve: 'C', ratedCurrentA: 630 } } }) }),
+  DISCONNECTION_NOT_CHECKED: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ protection: { device: { kind: 'breaker-iec60898-1', curve: 'C', ratedCurrentA: 250 } } }) }),
+  // 600 m of 95 mm² with a 16 mm² protective conductor: the earth-fault current stays below the C250's 2500 A.
+  PROTECTION_DISCONNECTION_TOO_SLOW: () => ({
+    candidate: xlpeCable(95),
+    conditions: cableConditions({ lengthM: 600, protection: { device: { kind: 'breaker-iec60898-1', curve: 'C', ratedCurrentA: 250 }, source: { resistanceOhm: 0.01, reactanceOhm: 0.02 }, protectiveConductor: { sectionMm2: 16 } } }),
+  }),
+  // A source given only as |Z| is added arithmetically (an assumption said so).
+  PROTECTION_ASSUMPTIONS: () => ({
+    candidate: xlpeCable(95),
+    conditions: cableConditions({ lengthM: 40, protection: { device: { kind: 'breaker-iec60898-1', curve: 'C', ratedCurrentA: 250 }, source: { impedanceOhm: 0.02 }, protectiveConductor: { sectionMm2: 50 } } }),
+  }),
+  PROTECTIVE_CONDUCTOR_TOO_SMALL: () => ({
+    candidate: xlpeCable(95),
+    conditions: cableConditions({ lengthM: 20, protection: { device: { kind: 'breaker-iec60898-1', curve: 'C', ratedCurrentA: 250 }, source: { resistanceOhm: 0.005, reactanceOhm: 0.01 }, protectiveConductor: { sectionMm2: 1.5 } } }),
+  }),
   SHEATH_LOSSES_NOT_INCLUDED: () => {
     const c = xlpeCable(95);
     c.layers = [c.layers[0], { name: 'copper wire screen', role: 'screen', thicknessM: 0.5e-3, thermalResistivityKmPerW: 0.0025 }, c.layers[1]];
