@@ -145,10 +145,10 @@ export const evaluationOkSchema = z
     group: groupSchema.optional(),
     protection: z
       .object({
-        coordination: z.looseObject({}).nullable(),
-        smallestRating: z.looseObject({}).nullable(),
-        disconnection: z.looseObject({}).nullable(),
-        protectiveConductor: z.looseObject({}).nullable(),
+        coordination: z.unknown(),
+        smallestRating: z.unknown(),
+        disconnection: z.unknown(),
+        protectiveConductor: z.unknown(),
       })
       .optional()
       .meta({ id: 'ProtectionResult', description: 'Overload coordination (IEC 60364-4-43 §433.1), automatic disconnection (IEC 60364-4-41 §411) and the protective conductor (IEC 60364-5-54 §543.1), each with its numbers and verdict.' }),
