@@ -43,6 +43,9 @@ export interface CandidateGridRow {
   cost: string | null;
   lifeCycleCost: string | null;
   flags: string;
+  /** "centre cable of this circuit, 88.7 °C" in the user's units; '' for bars or results without a group. */
+  governing: string;
+  groupMethod: string;
   state: string;
   stateKey: 'within' | 'tight' | 'over' | 'error';
   passes: boolean;
@@ -53,8 +56,15 @@ export interface CandidateGridRow {
 
 const SHORT_CIRCUIT_CELL: Record<string, string> = { passes: '✔ passes', fails: '✖ fails', 'not checked': 'not checked', '': '—' };
 
-export function candidateRows(candidates: SheetCandidate[], evaluations: CandidateEvaluation[] | null, chosenId: string | null, units: UnitSystem): CandidateGridRow[] {
-  const records = candidateRecords(candidates, { evaluations: evaluations ?? [], chosenCandidateId: chosenId }, 'Computing…');
+export function candidateRows(
+  candidates: SheetCandidate[],
+  evaluations: CandidateEvaluation[] | null,
+  chosenId: string | null,
+  units: UnitSystem,
+  otherLabels: readonly string[] = [],
+  missing = 'Computing…',
+): CandidateGridRow[] {
+  const records = candidateRecords(candidates, { evaluations: evaluations ?? [], chosenCandidateId: chosenId }, missing, otherLabels);
   return records.map((r) => {
     const counts = r.flagCounts;
     return {
@@ -73,6 +83,8 @@ export function candidateRows(candidates: SheetCandidate[], evaluations: Candida
       massKg: r.massKg,
       cost: r.materialCost,
       lifeCycleCost: r.lifeCycleCost,
+      governing: r.governingCable === null ? '' : `${r.governingCable}${r.governingCableC === null ? '' : `, ${formatNumber(convertFromSi(r.governingCableC, 'temperature', units), 4)} ${unitLabel('temperature', units)}`}`,
+      groupMethod: r.groupMethod ?? '',
       flags: `${counts.blocker ? `${counts.blocker} ✖ ` : ''}${counts.review ? `${counts.review} ▲ ` : ''}${counts.note ? `${counts.note} i` : ''}`.trim(),
       state: r.state,
       stateKey: r.stateKey,
@@ -155,6 +167,14 @@ export function CandidateGrid({
       { headerName: 'Mass (kg)', field: 'massKg', width: 96, type: 'numericColumn', valueFormatter: num(4) },
       { headerName: 'Cost', field: 'cost', width: 96, type: 'numericColumn', valueFormatter: (p) => p.value ?? '—' },
       { headerName: 'Life-cycle cost', field: 'lifeCycleCost', width: 118, type: 'numericColumn', valueFormatter: (p) => p.value ?? '—' },
+      {
+        headerName: 'Governing cable',
+        field: 'governing',
+        width: 230,
+        tooltipValueGetter: (p) => (p.data?.groupMethod ? `Rated as a group: ${p.data.groupMethod}` : undefined),
+        valueFormatter: (p) => (p.value ? String(p.value) : '—'),
+      },
+      { headerName: 'Group rated by', field: 'groupMethod', width: 230, valueFormatter: (p) => (p.value ? String(p.value) : '—') },
       { headerName: 'Flags', field: 'flags', width: 96, headerTooltip: '✖ blocker, ▲ review, i note' },
       { headerName: 'Marked', field: 'marks', width: 170, valueFormatter: (p) => (p.value as string[]).join(' · '), cellClass: 'font-medium text-within-dark' },
       ...(editable
