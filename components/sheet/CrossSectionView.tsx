@@ -1,8 +1,9 @@
 'use client';
 /**
  * The cross-section that was rated, to scale with its dimensions (geometry: lib/sheet/crossSectionDrawing).
- * Each cable carries its temperatures as a title (shown on hover and read by assistive technology);
- * the governing cable is ringed as well as coloured, so it shows without colour.
+ * Each cable carries its temperatures as a title (shown on hover); the same figures are in the
+ * table beside the drawing for keyboard and screen-reader users. The governing cable is ringed as
+ * well as coloured, so it shows without colour.
  */
 import { crossSectionDrawing, type DrawingInput, type Primitive } from '@/lib/sheet/crossSectionDrawing';
 
@@ -35,8 +36,6 @@ function shape(p: Primitive, key: number, titles: readonly string[] | undefined)
           strokeDasharray={p.role === 'duct' ? '3 2' : undefined}
           data-testid={title ? `cross-section-cable-${p.cable}` : undefined}
           data-role={p.role}
-          tabIndex={title ? 0 : undefined}
-          aria-label={title}
         >
           {title ? <title>{title}</title> : null}
         </circle>

@@ -40,7 +40,7 @@ export function GroupPanel({ evaluation, units, otherLabels = [] }: { evaluation
           titles={titles}
           caption={governing ? governingText(governing, t) : undefined}
         />
-        <div className="min-w-0 overflow-x-auto">
+        <div className="min-w-0">
           <table className="w-full text-caption" data-testid="group-cables">
             <caption className="mb-1 text-left text-ink-600">Every cable at {formatNumber(evaluation.designCurrentA, 4)} A</caption>
             <thead>

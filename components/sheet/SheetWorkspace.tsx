@@ -267,13 +267,14 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
           {editable ? (
             <>
               <span className="text-caption text-ink-500" data-testid="save-state" aria-live="polite">
-                {save.isPending ? 'Saving…' : dirty ? 'Unsaved changes' : 'All changes saved'}
+                {save.isPending ? 'Saving…' : dirty ? 'Unsaved changes' : reEvaluation ? 'Saved with an earlier method: save to re-evaluate' : 'All changes saved'}
               </span>
               <button
                 type="button"
                 className="btn-primary"
                 data-testid="save-button"
-                disabled={!dirty || save.isPending || live.invalid || refusal !== null}
+                // A result saved by an earlier method may be saved again as it stands, to store the current one.
+                disabled={(!dirty && !reEvaluation) || save.isPending || live.invalid || refusal !== null}
                 title={refusal ? `Not saved while the cables do not lie as entered: ${refusalSentence(refusal)}` : undefined}
                 onClick={() => save.mutate(undefined)}
               >
