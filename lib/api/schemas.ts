@@ -179,7 +179,7 @@ const otherCircuitSchema = z
       .optional()
       .meta({ description: 'Its cable when it is not the candidate’s own. Absent: the same cable as the candidate, solved at its own current.' }),
   })
-  .meta({ id: 'OtherCircuit', description: 'A circuit lying beside the one being sized (same trench or route), in one row with it.' });
+  .meta({ description: 'A circuit lying beside the one being sized (same trench or route), in one row with it.' });
 
 const arrangement = {
   formation: z
@@ -203,7 +203,7 @@ const buriedSurroundings = {
       outerDiameterM: bounded('ductOuterDiameterM'),
     })
     .optional()
-    .meta({ id: 'Duct', description: 'Every cable in its own duct (IEC 60287-2-1 §4.2.7.1–4.2.7.3).' }),
+    .meta({ description: 'Every cable in its own duct (IEC 60287-2-1 §4.2.7.1–4.2.7.3).' }),
   backfill: z
     .strictObject({
       widthM: bounded('backfillWidthM'),
@@ -212,7 +212,7 @@ const buriedSurroundings = {
       resistivityKmPerW: bounded('backfillResistivityKmPerW'),
     })
     .optional()
-    .meta({ id: 'Backfill', description: 'A rectangular backfill or concrete bank of its own resistivity, centred on the cables (IEC 60287-2-1 §4.2.7.4).' }),
+    .meta({ description: 'A rectangular backfill or concrete bank of its own resistivity, centred on the cables (IEC 60287-2-1 §4.2.7.4).' }),
 };
 
 export const installationSchema = z
