@@ -6,7 +6,7 @@
  */
 import type { CandidateEvaluationOk } from '@/lib/electrical/sizing/types';
 import { cableTitle, drawingInputOf, governingCableOf, governingText, groupCableRows, groupMethodWords } from '@/lib/sheet/groupWords';
-import { formatNumber, formatQuantity, type UnitSystem } from '@/lib/units';
+import { convertFromSi, formatNumber, formatQuantity, unitLabel, type UnitSystem } from '@/lib/units';
 import { CrossSectionView } from './CrossSectionView';
 
 export function GroupPanel({ evaluation, units, otherLabels = [] }: { evaluation: CandidateEvaluationOk; units: UnitSystem; otherLabels?: readonly string[] }) {
@@ -22,7 +22,9 @@ export function GroupPanel({ evaluation, units, otherLabels = [] }: { evaluation
   const governing = governingCableOf(group, otherLabels);
   const rows = groupCableRows(group, otherLabels);
   const titles = group.cables.map((_, i) => cableTitle(group, i, otherLabels, t));
-  const len = (m: number) => formatQuantity(m * 1000, 'lengthMm', units, { digits: 4 });
+  const len = (m: number) => formatNumber(convertFromSi(m * 1000, 'lengthMm', units), 4);
+  const deg = (c: number) => formatNumber(convertFromSi(c, 'temperature', units), 4);
+  const tUnit = unitLabel('temperature', units);
   return (
     <section className="panel p-3" aria-labelledby="group-heading" data-testid="group-panel">
       <h2 id="group-heading" className="text-body font-semibold">
@@ -46,10 +48,10 @@ export function GroupPanel({ evaluation, units, otherLabels = [] }: { evaluation
             <thead>
               <tr className="text-left text-ink-500">
                 <th scope="col" className="pr-2 font-medium">Cable</th>
-                <th scope="col" className="pr-2 text-right font-medium">Across, up</th>
-                <th scope="col" className="pr-2 text-right font-medium">Conductor</th>
-                <th scope="col" className="pr-2 text-right font-medium">Surface</th>
-                <th scope="col" className="text-right font-medium">Heat</th>
+                <th scope="col" className="pr-2 text-right font-medium">Across, up ({unitLabel('lengthMm', units)})</th>
+                <th scope="col" className="pr-2 text-right font-medium">Conductor ({tUnit})</th>
+                <th scope="col" className="pr-2 text-right font-medium">Surface ({tUnit})</th>
+                <th scope="col" className="text-right font-medium">Heat ({unitLabel('powerWPerM', units)})</th>
               </tr>
             </thead>
             <tbody>
@@ -61,12 +63,12 @@ export function GroupPanel({ evaluation, units, otherLabels = [] }: { evaluation
                     {r.governs ? ' (governs)' : ''}
                     <span className="block text-ink-500">{r.role}</span>
                   </th>
-                  <td className="num pr-2 text-right">
+                  <td className="num whitespace-nowrap pr-2 text-right">
                     {len(r.xM)}, {len(r.yM)}
                   </td>
-                  <td className="num pr-2 text-right">{r.conductorC === null ? '—' : t(r.conductorC)}</td>
-                  <td className="num pr-2 text-right">{r.surfaceC === null ? '—' : t(r.surfaceC)}</td>
-                  <td className="num text-right">{r.heatWPerM === null ? '—' : formatQuantity(r.heatWPerM, 'powerWPerM', units, { digits: 3 })}</td>
+                  <td className="num whitespace-nowrap pr-2 text-right">{r.conductorC === null ? '—' : deg(r.conductorC)}</td>
+                  <td className="num whitespace-nowrap pr-2 text-right">{r.surfaceC === null ? '—' : deg(r.surfaceC)}</td>
+                  <td className="num whitespace-nowrap text-right">{r.heatWPerM === null ? '—' : formatNumber(convertFromSi(r.heatWPerM, 'powerWPerM', units), 3)}</td>
                 </tr>
               ))}
             </tbody>

@@ -3,6 +3,7 @@ import type { CandidateEvaluation } from '@/lib/electrical/sizing/types';
 import { formatNumber, formatQuantity, type UnitSystem } from '@/lib/units';
 import { failureWords, thermalState } from '@/lib/sheet/candidateRow';
 import { governingCableOf, governingText } from '@/lib/sheet/groupWords';
+import { plainMessage } from '@/lib/sheet/arrangementCheck';
 import { RESULT_STATES } from './resultState';
 
 const LIMIT_SOURCES: Record<string, string> = { insulation: 'insulation', coating: 'coating', terminal: 'joints and terminals', user: 'your own limit', layer: 'covering' };
@@ -43,7 +44,7 @@ export function ResultStrip({
     return (
       <div className={`panel border-2 p-3 ${RESULT_STATES.over.box}`} data-testid="result-strip" role="status">
         <p className={`font-semibold ${RESULT_STATES.over.text}`}>✖ {evaluation.label}: could not be evaluated</p>
-        <p className="text-body text-ink-800">{evaluation.error.message}</p>
+        <p className="text-body text-ink-800">{evaluation.error.field ? plainMessage(evaluation.error.message, evaluation.error.field) : evaluation.error.message}</p>
       </div>
     );
   }

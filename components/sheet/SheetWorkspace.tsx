@@ -38,7 +38,7 @@ import { StatusBadge } from './StatusBadge';
 import { useLiveComputation } from './useLiveComputation';
 import { GroupPanel } from './GroupPanel';
 import { ReEvaluationNotice } from './ReEvaluationNotice';
-import { arrangementRefusalOf, refusalSentence } from '@/lib/sheet/arrangementCheck';
+import { arrangementRefusalOf, plainMessage, refusalSentence } from '@/lib/sheet/arrangementCheck';
 import { reEvaluationOf } from '@/lib/sheet/reEvaluation';
 
 /** A value as it arrives through JSON: dates become ISO strings, the rest keeps its shape. */
@@ -455,7 +455,7 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
           ) : null}
 
           {live.computation && !live.computation.ok && editable ? (
-            <p role="alert" className="field-error">The circuit could not be computed: {live.computation.error.message}</p>
+            <p role="alert" className="field-error">The circuit could not be computed: {live.computation.error.field ? plainMessage(live.computation.error.message, live.computation.error.field) : live.computation.error.message}</p>
           ) : null}
 
           <SharePanel sheetId={sheetId} canShare={can(user.role, 'sheet:share')} dirty={dirty} />

@@ -120,7 +120,8 @@ export function crossSectionDrawing(input: DrawingInput, width: number, height: 
   if (input.circuitAxisSpacingM && first.length > 1) {
     const a = first[0];
     const b = first[1];
-    const yTop = Y(Math.max(a.yM, b.yM) + a.envelopeDiameterM / 2) - 10;
+    // Above the whole circuit (a trefoil's apex would otherwise sit on the line).
+    const yTop = Y(Math.max(...first.map((c) => c.yM + c.envelopeDiameterM / 2))) - 10;
     p.push({ kind: 'line', x1: X(a.xM), y1: yTop, x2: X(b.xM), y2: yTop, role: 'dimension' });
     p.push({ kind: 'text', x: (X(a.xM) + X(b.xM)) / 2, y: yTop - 3, text: `s = ${mm(input.circuitAxisSpacingM)}`, anchor: 'middle', role: 'dimension' });
   }

@@ -10,6 +10,7 @@ import { describeArrangement, sectionPerPhaseMm2, type SheetCandidate } from '@/
 import type { SheetInputs } from '@/lib/sheet/schema';
 import { formatNumber, formatQuantity } from '@/lib/units';
 import { candidateRow, type CandidateRow, type ComparisonMarks, type ResultState } from './candidateRow';
+import { plainMessage } from './arrangementCheck';
 import { FORMATION_WORDS, governingCableOf, groupMethodWords, otherCircuitWords } from './groupWords';
 
 export interface InputRow {
@@ -223,7 +224,7 @@ export function candidateRecords(candidates: SheetCandidate[], results: Candidat
         governingCable: null,
         governingCableC: null,
         groupMethod: null,
-        error: e && !e.ok ? e.error.message : null,
+        error: e && !e.ok ? (e.error.field ? plainMessage(e.error.message, e.error.field) : e.error.message) : null,
       };
     }
     const row = candidateRow(e, results ?? {}, otherLabels);

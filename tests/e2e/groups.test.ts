@@ -20,7 +20,7 @@ import { defaultSheetInputs, type SheetInputs } from '@/lib/sheet';
 import { computeSheet } from '@/lib/sheet/compute';
 import { cableTitle, governingCableOf, governingText } from '@/lib/sheet/groupWords';
 import { figuresText, reEvaluationOf } from '@/lib/sheet/reEvaluation';
-import { formatQuantity } from '@/lib/units';
+import { formatNumber, formatQuantity } from '@/lib/units';
 import { signInInBrowser } from './sheet-steps';
 import { appUrl, launchBrowser, screenshot } from '../helpers/browser';
 import { createTestTeam, createTestUser } from '../helpers/fixtures';
@@ -100,11 +100,11 @@ describe('the cross-section on the sheet', () => {
     for (let i = 0; i < group.cables.length; i++) {
       await expect(page.getByTestId(`cross-section-cable-${i}`).locator('title').textContent()).resolves.toBe(cableTitle(group, i, ['Pump house feeder'], t));
     }
-    await page.getByTestId(`cross-section-cable-${governing.cable}`).hover();
+    await page.getByTestId(`cross-section-cable-${governing.cable}`).hover({ force: true });
     await expect(page.getByTestId('cross-section').locator('[data-role="governing"]').count()).resolves.toBe(1);
     // The table beside the drawing: every cable's conductor temperature.
     const table = await page.getByTestId('group-cables').innerText();
-    for (const cable of group.cables) expect(table).toContain(t(cable.conductorC as number));
+    for (const cable of group.cables) expect(table).toContain(formatNumber(cable.conductorC as number, 4));
     expect(table).toContain('centre cable of other circuit 1 (Pump house feeder)');
     // The grid names the governing cable too.
     await expect.poll(() => page.getByTestId('candidate-grid').innerText(), { timeout: 30_000 }).toContain(governing.words);
