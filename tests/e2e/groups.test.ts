@@ -71,9 +71,14 @@ describe('the cross-section on the sheet', () => {
 
     // Keyboard: choose the formation with the keyboard, type the spacings.
     await page.locator('#formation').focus();
-    await page.locator('#formation').selectOption('flat');
-    await page.getByTestId('input-spacing').fill('70');
-    await page.getByTestId('add-other-circuit').click();
+    await page.keyboard.press('ArrowDown'); // trefoil → flat, horizontal row
+    await expect.poll(() => page.locator('#formation').inputValue()).toBe('flat');
+    await page.keyboard.press('Tab'); // on to the axis spacing
+    await expect(page.evaluate(() => document.activeElement?.getAttribute('data-testid'))).resolves.toBe('input-spacing');
+    await page.keyboard.type('70');
+    await page.getByTestId('add-other-circuit').focus();
+    await page.keyboard.press('Enter');
+    await page.locator('#other-label-0').waitFor();
     await page.locator('#other-label-0').fill('Pump house feeder');
     await page.getByTestId('other-current-0').fill('200');
     await page.getByTestId('input-circuit-spacing').fill('300');
