@@ -154,6 +154,14 @@ export function CandidateGrid({
       { headerName: 'Margin (%)', field: 'marginPercent', width: 92, type: 'numericColumn', valueFormatter: num(3) },
       { headerName: 'Ampacity (A)', field: 'ampacity', width: 106, type: 'numericColumn', valueFormatter: num(4) },
       {
+        headerName: 'Governing cable',
+        field: 'governing',
+        width: 230,
+        tooltipValueGetter: (p) => (p.data?.groupMethod ? `Rated as a group: ${p.data.groupMethod}` : undefined),
+        valueFormatter: (p) => (p.value ? String(p.value) : '—'),
+      },
+      { headerName: 'Group rated by', field: 'groupMethod', width: 230, valueFormatter: (p) => (p.value ? String(p.value) : '—') },
+      {
         headerName: 'Utilisation (%)',
         field: 'utilisation',
         width: 132,
@@ -167,14 +175,6 @@ export function CandidateGrid({
       { headerName: 'Mass (kg)', field: 'massKg', width: 96, type: 'numericColumn', valueFormatter: num(4) },
       { headerName: 'Cost', field: 'cost', width: 96, type: 'numericColumn', valueFormatter: (p) => p.value ?? '—' },
       { headerName: 'Life-cycle cost', field: 'lifeCycleCost', width: 118, type: 'numericColumn', valueFormatter: (p) => p.value ?? '—' },
-      {
-        headerName: 'Governing cable',
-        field: 'governing',
-        width: 230,
-        tooltipValueGetter: (p) => (p.data?.groupMethod ? `Rated as a group: ${p.data.groupMethod}` : undefined),
-        valueFormatter: (p) => (p.value ? String(p.value) : '—'),
-      },
-      { headerName: 'Group rated by', field: 'groupMethod', width: 230, valueFormatter: (p) => (p.value ? String(p.value) : '—') },
       { headerName: 'Flags', field: 'flags', width: 96, headerTooltip: '✖ blocker, ▲ review, i note' },
       { headerName: 'Marked', field: 'marks', width: 170, valueFormatter: (p) => (p.value as string[]).join(' · '), cellClass: 'font-medium text-within-dark' },
       ...(editable
@@ -208,6 +208,8 @@ export function CandidateGrid({
         rowClassRules={{ 'font-semibold': (p) => p.data?.id === focusedId }}
         suppressCellFocus={false}
         animateRows={false}
+        // A handful of rows: every column is rendered, so the governing cable and the flags are in the page (and its text) even when scrolled off.
+        suppressColumnVirtualisation
         domLayout="autoHeight"
       />
     </div>
