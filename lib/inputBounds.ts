@@ -108,6 +108,55 @@ export const INPUT_BOUNDS = {
   groundC: { label: 'Ground temperature', unit: '°C', min: -60, max: 200, basis: 'The ambient range; undisturbed ground lies near 5–25 °C (common practice).' },
   enclosureDerating: { label: 'Enclosure derating', unit: '', min: 0, minExclusive: true, max: 1, basis: 'A factor on the ampacity; 0 would allow no current.' },
 
+  // ───────────── the cross-section: other circuits, ducts, backfill (physics.md §8) ─────────────
+  // The ranges are those lib/electrical/sizing/prepareConditions.ts and the arrangement schema
+  // (lib/electrical/iec60287/arrangementSchema.ts) accept, so that an edge refuses what the
+  // library would refuse, with the same field named.
+  circuitSpacingM: {
+    label: 'Circuit spacing',
+    unit: 'm',
+    min: 0,
+    minExclusive: true,
+    max: 50,
+    basis: 'Centre to centre between neighbouring circuits of one row; the library takes (0, 50] m (prepareConditions.ts).',
+  },
+  otherCircuitCurrentA: {
+    label: 'Other circuit current',
+    unit: 'A',
+    min: 0,
+    max: 20_000,
+    basis: 'Current per phase of a circuit beside the one being sized; the library and the arrangement schema take 0…20 000 A.',
+  },
+  otherCableDiameterM: {
+    label: 'Other circuit cable diameter',
+    unit: 'm',
+    min: 0,
+    minExclusive: true,
+    max: 0.3,
+    basis: 'Overall diameter D_e of one cable of another circuit; the arrangement schema takes up to 0.3 m.',
+  },
+  otherCableLossWPerM: {
+    label: 'Heat per cable of the other circuit',
+    unit: 'W/m',
+    min: 0,
+    max: 1000,
+    basis: 'Joule (and screen) heat of ONE cable of another circuit at its current, from that circuit’s own rating; the library takes 0…1000 W/m.',
+  },
+  ductInnerDiameterM: { label: 'Duct inner diameter', unit: 'm', min: 0, minExclusive: true, max: 1, basis: 'The arrangement schema takes up to 1 m.' },
+  ductOuterDiameterM: { label: 'Duct outer diameter', unit: 'm', min: 0, minExclusive: true, max: 1.2, basis: 'The arrangement schema takes up to 1.2 m.' },
+  backfillWidthM: { label: 'Backfill width', unit: 'm', min: 0, minExclusive: true, max: 10, basis: 'A backfill or duct bank; the arrangement schema takes up to 10 m.' },
+  backfillHeightM: { label: 'Backfill height', unit: 'm', min: 0, minExclusive: true, max: 10, basis: 'A backfill or duct bank; the arrangement schema takes up to 10 m.' },
+  backfillCentreDepthM: { label: 'Backfill centre depth', unit: 'm', min: 0, minExclusive: true, max: 20, basis: 'Depth of the bank’s centre; the depth range.' },
+  backfillResistivityKmPerW: {
+    label: 'Backfill thermal resistivity',
+    unit: 'K·m/W',
+    min: 0.1,
+    max: 20,
+    basis: 'Sand-cement and concrete lie near 0.7–1.2 K·m/W (IEC 60287-3-1, from memory); the soil range.',
+  },
+  screenSectionMm2: { label: 'Screen section', unit: 'mm²', min: 0, minExclusive: true, max: 5000, basis: 'Metallic cross-section of one cable’s screen or sheath; the library takes up to 5000 mm².' },
+  screenR20OhmPerM: { label: 'Screen resistance at 20 °C', unit: 'Ω/m', min: 0, minExclusive: true, max: 1, basis: 'Of one cable’s screen, from the maker; the library takes up to 1 Ω/m.' },
+
   // ───────────── limits ─────────────
   temperatureLimitC: { label: 'Own temperature limit', ...TEMPERATURE_LIMIT },
   groupingFactor: { label: 'Grouping factor', unit: '', min: 0, minExclusive: true, max: 1, basis: 'A derating factor (IEC 60364-5-52 Table B.52.17 style); 0 would allow no current.' },

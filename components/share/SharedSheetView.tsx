@@ -5,7 +5,7 @@
  * candidate grid (a row click shows that candidate above) and the inputs with units. Nothing here
  * links to any other page of the team; nothing can be changed.
  */
-import { useState } from 'react';
+import { useMemo, useState } from 'react';
 import { ProfilePlot } from '@/components/plots/ProfilePlot';
 import { HotSpotCurvePlot } from '@/components/plots/HotSpotCurvePlot';
 import { CandidateGrid, candidateRows } from '@/components/sheet/CandidateGrid';
@@ -14,6 +14,10 @@ import { CheckFlagList } from '@/components/sheet/checkParts';
 import { FlagsPanel } from '@/components/sheet/FlagsPanel';
 import { ResultStrip } from '@/components/sheet/ResultStrip';
 import { useLiveComputation } from '@/components/sheet/useLiveComputation';
+import { GroupPanel } from '@/components/sheet/GroupPanel';
+import { ReEvaluationNotice } from '@/components/sheet/ReEvaluationNotice';
+import { arrangementSentences } from '@/lib/sheet/groupWords';
+import { reEvaluationOf } from '@/lib/sheet/reEvaluation';
 import type { CandidateEvaluationOk } from '@/lib/electrical/sizing/types';
 import type { OptionalCheckReport } from '@/lib/sheet/optionalChecksReport';
 import type { SheetInputs } from '@/lib/sheet/schema';
@@ -67,7 +71,10 @@ export function SharedSheetView({ sheet }: { sheet: SharedSheet }) {
   const isChosen = focusedId !== null && focusedId === snapshot?.chosenCandidateId;
   // The curves are not stored: they are drawn in this browser from the saved inputs, by the same library.
   const live = useLiveComputation(sheet.inputs, { enabled: sheet.inputs.candidates.length > 0, withCurves: true });
-  const rows = candidateRows(sheet.inputs.candidates, evaluations, snapshot?.chosenCandidateId ?? null, 'si');
+  const otherLabels = sheet.inputs.installation.otherCircuits.map((o) => o.label);
+  const rows = candidateRows(sheet.inputs.candidates, evaluations, snapshot?.chosenCandidateId ?? null, 'si', otherLabels, 'No saved result');
+  const reEvaluation = useMemo(() => reEvaluationOf(sheet.inputs, snapshot), [sheet.inputs, snapshot]);
+  const arrangement = arrangementSentences(sheet.inputs);
   const limits = Object.fromEntries((evaluations ?? []).filter((e): e is CandidateEvaluationOk => e.ok).map((e) => [e.id, e.limit.temperatureC]));
   const flags = isChosen ? (snapshot?.chosenFlags ?? []) : (focusedOk?.flags ?? []);
   const inputs = inputRows(sheet.inputs);
@@ -75,6 +82,16 @@ export function SharedSheetView({ sheet }: { sheet: SharedSheet }) {
   return (
     <div className="grid gap-4 lg:grid-cols-[300px_minmax(0,1fr)]">
       <aside className="panel self-start p-3" aria-labelledby="inputs-heading">
+        {arrangement.length > 0 ? (
+          <div className="mb-2" data-testid="shared-arrangement">
+            <h2 className="text-body font-semibold">Arrangement</h2>
+            {arrangement.map((line) => (
+              <p key={line} className="text-caption text-ink-800">
+                {line}
+              </p>
+            ))}
+          </div>
+        ) : null}
         <h2 id="inputs-heading" className="text-body font-semibold">Inputs (SI units)</h2>
         <table className="mt-1 w-full text-caption" data-testid="shared-inputs">
           <tbody>
@@ -94,8 +111,9 @@ export function SharedSheetView({ sheet }: { sheet: SharedSheet }) {
       </aside>
 
       <div className="min-w-0 space-y-3">
+        {reEvaluation ? <ReEvaluationNotice reEvaluation={reEvaluation} units="si" /> : null}
         <div className="sticky top-0 z-10 -mx-1 bg-paper px-1 pb-1 pt-0.5">
-          <ResultStrip evaluation={focused} units="si" source={`saved result of ${formatDate(snapshot?.computedAt)}`} chosen={isChosen} />
+          <ResultStrip evaluation={focused} units="si" source={`saved result of ${formatDate(snapshot?.computedAt)}`} chosen={isChosen} otherLabels={otherLabels} />
         </div>
         <FlagsPanel
           flags={flags}
@@ -106,6 +124,7 @@ export function SharedSheetView({ sheet }: { sheet: SharedSheet }) {
           pendingCode={null}
         />
         {focusedOk ? <ChecksPanel evaluation={focusedOk} units="si" lengthM={sheet.inputs.circuit.lengthM} /> : null}
+        {focusedOk && focusedOk.kind === 'cable' ? <GroupPanel evaluation={focusedOk} units="si" otherLabels={otherLabels} /> : null}
         {sheet.optionalChecks.length > 0 ? <OptionalChecks reports={sheet.optionalChecks} /> : null}
         {sheet.inputs.candidates.length > 0 ? (
           <div className="grid gap-3 xl:grid-cols-2">

@@ -43,6 +43,9 @@ export interface CandidateGridRow {
   cost: string | null;
   lifeCycleCost: string | null;
   flags: string;
+  /** "centre cable of this circuit, 88.7 °C" in the user's units; '' for bars or results without a group. */
+  governing: string;
+  groupMethod: string;
   state: string;
   stateKey: 'within' | 'tight' | 'over' | 'error';
   passes: boolean;
@@ -53,8 +56,15 @@ export interface CandidateGridRow {
 
 const SHORT_CIRCUIT_CELL: Record<string, string> = { passes: '✔ passes', fails: '✖ fails', 'not checked': 'not checked', '': '—' };
 
-export function candidateRows(candidates: SheetCandidate[], evaluations: CandidateEvaluation[] | null, chosenId: string | null, units: UnitSystem): CandidateGridRow[] {
-  const records = candidateRecords(candidates, { evaluations: evaluations ?? [], chosenCandidateId: chosenId }, 'Computing…');
+export function candidateRows(
+  candidates: SheetCandidate[],
+  evaluations: CandidateEvaluation[] | null,
+  chosenId: string | null,
+  units: UnitSystem,
+  otherLabels: readonly string[] = [],
+  missing = 'Computing…',
+): CandidateGridRow[] {
+  const records = candidateRecords(candidates, { evaluations: evaluations ?? [], chosenCandidateId: chosenId }, missing, otherLabels);
   return records.map((r) => {
     const counts = r.flagCounts;
     return {
@@ -73,6 +83,8 @@ export function candidateRows(candidates: SheetCandidate[], evaluations: Candida
       massKg: r.massKg,
       cost: r.materialCost,
       lifeCycleCost: r.lifeCycleCost,
+      governing: r.governingCable === null ? '' : `${r.governingCable}${r.governingCableC === null ? '' : `, ${formatNumber(convertFromSi(r.governingCableC, 'temperature', units), 4)} ${unitLabel('temperature', units)}`}`,
+      groupMethod: r.groupMethod ?? '',
       flags: `${counts.blocker ? `${counts.blocker} ✖ ` : ''}${counts.review ? `${counts.review} ▲ ` : ''}${counts.note ? `${counts.note} i` : ''}`.trim(),
       state: r.state,
       stateKey: r.stateKey,
@@ -142,6 +154,14 @@ export function CandidateGrid({
       { headerName: 'Margin (%)', field: 'marginPercent', width: 92, type: 'numericColumn', valueFormatter: num(3) },
       { headerName: 'Ampacity (A)', field: 'ampacity', width: 106, type: 'numericColumn', valueFormatter: num(4) },
       {
+        headerName: 'Governing cable',
+        field: 'governing',
+        width: 230,
+        tooltipValueGetter: (p) => (p.data?.groupMethod ? `Rated as a group: ${p.data.groupMethod}` : undefined),
+        valueFormatter: (p) => (p.value ? String(p.value) : '—'),
+      },
+      { headerName: 'Group rated by', field: 'groupMethod', width: 230, valueFormatter: (p) => (p.value ? String(p.value) : '—') },
+      {
         headerName: 'Utilisation (%)',
         field: 'utilisation',
         width: 132,
@@ -188,6 +208,8 @@ export function CandidateGrid({
         rowClassRules={{ 'font-semibold': (p) => p.data?.id === focusedId }}
         suppressCellFocus={false}
         animateRows={false}
+        // A handful of rows: every column is rendered, so the governing cable and the flags are in the page (and its text) even when scrolled off.
+        suppressColumnVirtualisation
         domLayout="autoHeight"
       />
     </div>

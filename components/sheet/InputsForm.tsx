@@ -5,6 +5,7 @@ import { DEFAULT_SOURCES, type SheetInputs } from '@/lib/sheet/schema';
 import { displayText, type SheetNumericField } from '@/lib/sheet/formUnits';
 import type { UnitSystem } from '@/lib/units';
 import { NumberField } from './NumberField';
+import { ArrangementInputs } from './ArrangementInputs';
 
 type Form = UseFormReturnType<SheetInputs>;
 
@@ -21,7 +22,21 @@ function getIn(values: SheetInputs, path: string): unknown {
   return path.split('.').reduce<unknown>((v, key) => (v as Record<string, unknown> | undefined)?.[key], values);
 }
 
-export function InputsForm({ form, units, disabled }: { form: Form; units: UnitSystem; disabled: boolean }) {
+export function InputsForm({
+  form,
+  units,
+  disabled,
+  externalErrors = {},
+  arrangementProblem = null,
+}: {
+  form: Form;
+  units: UnitSystem;
+  disabled: boolean;
+  /** Errors the library raised for fields of the form (an arrangement that does not fit), by field path. */
+  externalErrors?: Record<string, string>;
+  /** The same in one sentence, shown at the top of the installation. */
+  arrangementProblem?: string | null;
+}) {
   const values = form.values;
   const num = (field: SheetNumericField, label: string, extra: { help?: string; nullable?: boolean; placeholder?: string; testId?: string } = {}) => (
     <NumberField
@@ -31,7 +46,7 @@ export function InputsForm({ form, units, disabled }: { form: Form; units: UnitS
       units={units}
       value={getIn(values, field) as number | null}
       onChange={(v) => form.setFieldValue(field, v as never)}
-      error={form.errors[field] as string | undefined}
+      error={(form.errors[field] as string | undefined) ?? externalErrors[field]}
       disabled={disabled}
       {...extra}
     />
@@ -134,25 +149,19 @@ export function InputsForm({ form, units, disabled }: { form: Form; units: UnitS
               {num('installation.enclosureDerating', 'Enclosure derating factor', { help: DEFAULT_SOURCES.enclosureDerating })}
             </>
           ) : null}
-          {cables ? (
-            <div className="grid grid-cols-2 gap-2">
-              <div>
-                <label htmlFor="formation" className="field-label">Cables of the circuit</label>
-                <select id="formation" className="field-input py-1" value={values.installation.formation} onChange={(e) => form.setFieldValue('installation.formation', e.target.value as 'trefoil' | 'flat')}>
-                  <option value="trefoil">Trefoil</option>
-                  <option value="flat">Flat</option>
-                </select>
-              </div>
-              {num('installation.spacingM', 'Axis spacing', { nullable: true, placeholder: 'touching' })}
-            </div>
+          {cables && arrangementProblem ? (
+            <p role="alert" className="rounded border border-over bg-over-light px-2 py-1 text-caption text-over-dark" data-testid="arrangement-problem">
+              ✖ {arrangementProblem}
+            </p>
           ) : null}
           {buried ? (
             <>
-              {num('installation.depthM', 'Depth to the cable axis', { help: DEFAULT_SOURCES.depthM })}
+              {num('installation.depthM', 'Depth to the cable axis', { help: DEFAULT_SOURCES.depthM, testId: 'input-depth' })}
               {num('installation.soilResistivityKmPerW', 'Soil thermal resistivity', { nullable: true, help: DEFAULT_SOURCES.soilResistivityKmPerW })}
               {num('installation.groundC', 'Ground temperature', { nullable: true, help: DEFAULT_SOURCES.groundC })}
             </>
           ) : null}
+          {cables ? <ArrangementInputs form={form} units={units} disabled={disabled} externalErrors={externalErrors} /> : null}
           {num('limits.groupingFactor', 'Grouping factor', { help: DEFAULT_SOURCES.groupingFactor })}
         </Section>
 

@@ -2,6 +2,8 @@
 import type { CandidateEvaluation } from '@/lib/electrical/sizing/types';
 import { formatNumber, formatQuantity, type UnitSystem } from '@/lib/units';
 import { failureWords, thermalState } from '@/lib/sheet/candidateRow';
+import { governingCableOf, governingText } from '@/lib/sheet/groupWords';
+import { plainMessage } from '@/lib/sheet/arrangementCheck';
 import { RESULT_STATES } from './resultState';
 
 const LIMIT_SOURCES: Record<string, string> = { insulation: 'insulation', coating: 'coating', terminal: 'joints and terminals', user: 'your own limit', layer: 'covering' };
@@ -21,8 +23,11 @@ export function ResultStrip({
   units,
   source,
   chosen,
+  otherLabels = [],
 }: {
   evaluation: CandidateEvaluation | null;
+  /** Names of the other circuits on the sheet, for the governing cable's words. */
+  otherLabels?: readonly string[];
   units: UnitSystem;
   /** Where the numbers come from: the live computation or the stored server snapshot. */
   source: string;
@@ -39,7 +44,7 @@ export function ResultStrip({
     return (
       <div className={`panel border-2 p-3 ${RESULT_STATES.over.box}`} data-testid="result-strip" role="status">
         <p className={`font-semibold ${RESULT_STATES.over.text}`}>✖ {evaluation.label}: could not be evaluated</p>
-        <p className="text-body text-ink-800">{evaluation.error.message}</p>
+        <p className="text-body text-ink-800">{evaluation.error.field ? plainMessage(evaluation.error.message, evaluation.error.field) : evaluation.error.message}</p>
       </div>
     );
   }
@@ -48,6 +53,7 @@ export function ResultStrip({
   const state = evaluation.passes ? thermal.state : 'over';
   const word = evaluation.passes ? thermal.word : failureWords(evaluation);
   const look = RESULT_STATES[state];
+  const governing = evaluation.group ? governingCableOf(evaluation.group, otherLabels) : null;
   const t = (c: number | null) => (c === null ? '—' : formatQuantity(c, 'temperature', units, { digits: 4 }));
   const margin =
     evaluation.marginK === null
@@ -71,6 +77,11 @@ export function ResultStrip({
         <Figure label="Margin" value={margin} testId="margin" />
         <Figure label="Ampacity" value={`${formatNumber(evaluation.ampacityA, 4)} A`} testId="ampacity" />
       </div>
+      {governing ? (
+        <p className="mt-1 text-caption text-ink-700" data-testid="result-governing">
+          {governingText(governing, t)}
+        </p>
+      ) : null}
     </div>
   );
 }

@@ -36,6 +36,10 @@ import { InputsForm } from './InputsForm';
 import { ResultStrip } from './ResultStrip';
 import { StatusBadge } from './StatusBadge';
 import { useLiveComputation } from './useLiveComputation';
+import { GroupPanel } from './GroupPanel';
+import { ReEvaluationNotice } from './ReEvaluationNotice';
+import { arrangementRefusalOf, plainMessage, refusalSentence } from '@/lib/sheet/arrangementCheck';
+import { reEvaluationOf } from '@/lib/sheet/reEvaluation';
 
 // The plots and the grid are the slow part of a render (Plotly, AG Grid): they take the new result
 // in a deferred render, so that the result strip shows a keystroke's result at once.
@@ -119,6 +123,19 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
   }, [values.candidates, values.chosenCandidateId, focusedId]);
   const focused = evaluations?.find((e) => e.id === focusedId) ?? null;
   const focusedOk = focused && focused.ok ? focused : null;
+  const otherLabels = useMemo(() => values.installation.otherCircuits.map((o) => o.label), [values.installation.otherCircuits]);
+
+  // A cross-section the library refuses (overlapping cables, a duct too small…) is shown on its
+  // field and cannot be saved; the server refuses it too.
+  const refusal = editable && live.computation && !live.invalid ? (live.computation.ok ? arrangementRefusalOf(live.computation.comparison.evaluations) : arrangementRefusalOf([], live.computation.error)) : null;
+  const externalErrors = refusal ? { [refusal.field]: refusal.message } : {};
+
+  // A result saved by an earlier method is kept, and marked, with the chosen candidate computed now beside it.
+  const reEvaluation = useMemo(
+    () => reEvaluationOf(sheet.inputs, sheet.result),
+    // eslint-disable-next-line react-hooks/exhaustive-deps -- the saved copy changes with its version and snapshot
+    [sheet.version, sheet.result?.computedAt, sheet.result?.solverVersion],
+  );
 
   const [conflict, setConflict] = useState<Conflict | null>(null);
   const [notice, setNotice] = useState<{ tone: 'ok' | 'error'; text: string } | null>(null);
@@ -216,7 +233,9 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
   );
 
   const lastReturnComment = [...(historyQuery.data ?? [])].reverse().find((h) => h.action === 'sheet.return')?.detail.comment as string | undefined;
-  const rows = useDeferredValue(useMemo(() => candidateRows(values.candidates, evaluations, values.chosenCandidateId, units), [values.candidates, evaluations, values.chosenCandidateId, units]));
+  const rows = useDeferredValue(
+    useMemo(() => candidateRows(values.candidates, evaluations, values.chosenCandidateId, units, otherLabels), [values.candidates, evaluations, values.chosenCandidateId, units, otherLabels]),
+  );
   const deferredCurves = useDeferredValue(live.curves);
   const deferredProfile = useDeferredValue(focusedOk?.profile ?? null);
   const deferredDesignCurrentA = useDeferredValue(values.circuit.designCurrentA);
@@ -261,9 +280,17 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
           {editable ? (
             <>
               <span className="text-caption text-ink-500" data-testid="save-state" aria-live="polite">
-                {save.isPending ? 'Saving…' : dirty ? 'Unsaved changes' : 'All changes saved'}
+                {save.isPending ? 'Saving…' : dirty ? 'Unsaved changes' : reEvaluation ? 'Saved with an earlier method: save to re-evaluate' : 'All changes saved'}
               </span>
-              <button type="button" className="btn-primary" data-testid="save-button" disabled={!dirty || save.isPending || live.invalid} onClick={() => save.mutate(undefined)}>
+              <button
+                type="button"
+                className="btn-primary"
+                data-testid="save-button"
+                // A result saved by an earlier method may be saved again as it stands, to store the current one.
+                disabled={(!dirty && !reEvaluation) || save.isPending || live.invalid || refusal !== null}
+                title={refusal ? `Not saved while the cables do not lie as entered: ${refusalSentence(refusal)}` : undefined}
+                onClick={() => save.mutate(undefined)}
+              >
                 Save
               </button>
             </>
@@ -294,6 +321,7 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
       </header>
 
       <CautionNotice compact />
+      {reEvaluation ? <ReEvaluationNotice reEvaluation={reEvaluation} units={units} /> : null}
       {sheet.status === 'approved' ? (
         <p className="rounded-md border border-within bg-within-light px-3 py-1.5 text-body text-within-dark">
           ✔ Approved{sheet.approvedAt ? ` on ${sheet.approvedAt.slice(0, 10)}` : ''} by {sheet.reviewerName ?? 'a reviewer'}. The sheet is frozen; {mayRevise ? 'start a new revision to change it.' : 'a designer can start a new revision.'}
@@ -333,12 +361,12 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
               {sheet.status === 'in_review' ? 'In review: inputs are read-only.' : sheet.status === 'approved' ? 'Approved: inputs are frozen.' : 'Your role reads this sheet; designers edit it.'}
             </p>
           ) : null}
-          <InputsForm form={form} units={units} disabled={!editable} />
+          <InputsForm form={form} units={units} disabled={!editable} externalErrors={externalErrors} arrangementProblem={refusal ? `The cables do not lie as entered: ${refusalSentence(refusal)}` : null} />
         </aside>
 
         <div className="min-w-0 space-y-3">
           <div className="sticky top-0 z-10 -mx-1 bg-paper px-1 pb-1 pt-0.5">
-            <ResultStrip evaluation={focused ?? null} units={units} source={live.computing && editable ? 'computing…' : sourceWords} chosen={focusedId !== null && focusedId === values.chosenCandidateId} />
+            <ResultStrip evaluation={focused ?? null} units={units} source={live.computing && editable ? 'computing…' : sourceWords} chosen={focusedId !== null && focusedId === values.chosenCandidateId} otherLabels={otherLabels} />
           </div>
           <FlagsPanel
             flags={chosenFlags}
@@ -369,6 +397,8 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
           ) : null}
 
           {focusedOk ? <ChecksPanel evaluation={focusedOk} units={units} lengthM={values.circuit.lengthM} /> : null}
+
+          {focusedOk && focusedOk.kind === 'cable' ? <GroupPanel evaluation={focusedOk} units={units} otherLabels={otherLabels} /> : null}
 
           {values.candidates.length > 0 ? <BeyondSteadyPanel form={form} editable={editable} candidateId={focusedOk ? focusedOk.id : null} units={units} /> : null}
 
@@ -438,7 +468,7 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
           ) : null}
 
           {live.computation && !live.computation.ok && editable ? (
-            <p role="alert" className="field-error">The circuit could not be computed: {live.computation.error.message}</p>
+            <p role="alert" className="field-error">The circuit could not be computed: {live.computation.error.field ? plainMessage(live.computation.error.message, live.computation.error.field) : live.computation.error.message}</p>
           ) : null}
 
           <SharePanel sheetId={sheetId} canShare={can(user.role, 'sheet:share')} dirty={dirty} />

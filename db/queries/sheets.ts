@@ -22,13 +22,15 @@ import {
   type SheetInputs,
   type SheetStatus,
 } from '../../lib/sheet';
+import { arrangementRefusalOf, refusalSentence } from '../../lib/sheet/arrangementCheck';
+import type { ResultSnapshot } from '../../lib/sheet/snapshot';
 import type { SheetListItem, SheetRecord } from '../../lib/sheet/records';
 
 export type { SheetListItem, SheetRecord };
 
 export class SheetOperationError extends Error {
   constructor(
-    readonly status: 403 | 404 | 409,
+    readonly status: 400 | 403 | 404 | 409,
     readonly code: string,
     message: string,
     readonly detail?: Record<string, unknown>,
@@ -253,9 +255,24 @@ export function changedSections(before: SheetInputs, after: SheetInputs): string
   return [...keys].filter((key) => JSON.stringify(before[key]) !== JSON.stringify(after[key]));
 }
 
+/**
+ * A cross-section the library refuses for a candidate on the sheet (cables overlapping, not
+ * fitting their ducts, outside the backfill) is a mistake in the inputs: the save is refused with
+ * the field named, and nothing is written.
+ */
+function refuseBadArrangement(snapshot: ResultSnapshot): void {
+  const refusal = arrangementRefusalOf(snapshot.evaluations, snapshot.error);
+  if (!refusal) return;
+  throw new SheetOperationError(400, 'invalid_arrangement', `Not saved: the cables do not lie as entered. ${refusalSentence(refusal)}.`, {
+    fieldPath: refusal.field,
+    issues: [{ path: refusal.field, message: refusal.message }],
+  });
+}
+
 export async function saveSheet(teamId: string, actor: Actor, sheetId: string, save: SheetSave) {
   // The heat balance runs before the transaction: no row lock is held while the solver works.
   const snapshot = buildSnapshot(save.inputs);
+  refuseBadArrangement(snapshot);
   return getDb().transaction(async (tx) => {
     const current = await getSheet(teamId, sheetId, tx);
     if (!current) throw notFound();

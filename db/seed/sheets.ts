@@ -112,7 +112,9 @@ function chillerFeeder(): DemoSheet {
   inputs.circuit = { ...inputs.circuit, designCurrentA: 630, lengthM: 85 };
   inputs.fault = { checked: true, currentA: 30000, durationS: 0.2 };
   inputs.environment = { ...inputs.environment, ambientC: 35 };
-  inputs.installation = { ...inputs.installation, formation: 'trefoil' };
+  // Two runs per phase for the smaller sizes: each run a touching trefoil, the runs 150 mm apart
+  // centre to centre on the ladder (about four cable diameters, so more than two diameters clear).
+  inputs.installation = { ...inputs.installation, formation: 'trefoil', spacingM: null, circuitSpacingM: 0.15, circuitRow: 'horizontal' };
   inputs.candidates = [
     singleCore({ id: 'cu-xlpe-2x185', material: 'copper', sectionMm2: 185, r20OhmPerKm: 0.0991, conductorDiameterMm: 15.9, insulation: 'XLPE', insulationMm: 1.6, sheathMm: 1.8, parallel: 2, pricePerM: '38.00' }),
     singleCore({ id: 'cu-xlpe-2x240', material: 'copper', sectionMm2: 240, r20OhmPerKm: 0.0754, conductorDiameterMm: 18.0, insulation: 'XLPE', insulationMm: 1.7, sheathMm: 1.9, parallel: 2, pricePerM: '49.00' }),
@@ -127,7 +129,18 @@ function evFeeder(): DemoSheet {
   const inputs = defaultSheetInputs('buried');
   inputs.circuit = { ...inputs.circuit, designCurrentA: 250, lengthM: 140, maxVoltageDropPercent: 3 };
   inputs.fault = { checked: true, currentA: 12000, durationS: 0.4 };
-  inputs.installation = { ...inputs.installation, depthM: 0.8, soilResistivityKmPerW: null, groundC: 15 };
+  // In the same trench as the feeder to the second charger pillar (same cable, 120 A), 300 mm apart.
+  inputs.installation = {
+    ...inputs.installation,
+    depthM: 0.8,
+    soilResistivityKmPerW: null,
+    groundC: 15,
+    formation: 'trefoil',
+    spacingM: null,
+    otherCircuits: [{ label: 'EV charger pillar 2 feeder', currentA: 120, sameCable: true, externalDiameterM: null, lossWPerM: null }],
+    circuitSpacingM: 0.3,
+    circuitRow: 'horizontal',
+  };
   inputs.economics = { ...inputs.economics, included: true, lossLoadFactor: 0.35, energyPricePerKWh: '0.18', years: 20 };
   inputs.candidates = [
     singleCore({ id: 'al-xlpe-150', material: 'aluminium', sectionMm2: 150, r20OhmPerKm: 0.206, conductorDiameterMm: 14.0, insulation: 'XLPE', insulationMm: 1.4, sheathMm: 1.8, parallel: 1, pricePerM: '9.50' }),
@@ -135,7 +148,7 @@ function evFeeder(): DemoSheet {
     singleCore({ id: 'al-xlpe-240', material: 'aluminium', sectionMm2: 240, r20OhmPerKm: 0.125, conductorDiameterMm: 18.0, insulation: 'XLPE', insulationMm: 1.7, sheathMm: 1.9, parallel: 1, pricePerM: '14.10' }),
   ];
   inputs.chosenCandidateId = 'al-xlpe-150';
-  inputs.notes = 'Main switchboard to the EV charger pillar across the yard, direct in ground (demo).';
+  inputs.notes = 'Main switchboard to the EV charger pillar across the yard, direct in ground, in one trench with the pillar 2 feeder (demo).';
   return {
     circuitTag: 'KY-MSB-EV1',
     title: 'EV charger feeder across the yard',
@@ -150,7 +163,8 @@ function refrigerationFeeder(): DemoSheet {
   inputs.circuit = { ...inputs.circuit, designCurrentA: 160, lengthM: 45 };
   inputs.fault = { checked: true, currentA: 8000, durationS: 0.4 };
   inputs.environment = { ...inputs.environment, ambientC: 35, outdoorSun: true, irradianceWPerM2: 1000, solarAbsorptivity: null };
-  inputs.installation = { ...inputs.installation, formation: 'flat' };
+  // A flat row of touching single cores on the roof tray, nothing else on that tray.
+  inputs.installation = { ...inputs.installation, formation: 'flat', spacingM: null };
   inputs.candidates = [
     singleCore({ id: 'cu-pvc-50', material: 'copper', sectionMm2: 50, r20OhmPerKm: 0.387, conductorDiameterMm: 8.2, insulation: 'PVC', insulationMm: 1.4, sheathMm: 1.6, parallel: 1, pricePerM: '9.80' }),
     singleCore({ id: 'cu-xlpe-70', material: 'copper', sectionMm2: 70, r20OhmPerKm: 0.268, conductorDiameterMm: 9.8, insulation: 'XLPE', insulationMm: 1.1, sheathMm: 1.6, parallel: 1, pricePerM: '14.60' }),

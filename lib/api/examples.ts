@@ -5,7 +5,9 @@
  * - conductor diameter ≈ 1.2·√S mm, 1.7 mm XLPE and 1.8 mm PVC for 0.6/1 kV (common practice);
  * - ρ_T of XLPE 3.5 and PVC 5.0 K·m/W: IEC 60287-2-1 Table 1 (from memory);
  * - XLPE 90 °C continuous, 250 °C short circuit (common practice);
- * - copper bar R20 from ρ20 = 1.7241e-8 Ω·m (IEC 60287-1-1 Table 1) over the nominal area.
+ * - copper bar R20 from ρ20 = 1.7241e-8 Ω·m (IEC 60287-1-1 Table 1) over the nominal area;
+ * - R20 of 185 and 240 mm²: IEC 60228 Table 2 maxima, 0.0991 and 0.0754 Ω/km (from memory);
+ * - soil 1.2 K·m/W and 20 °C ground: plausible site values (inputs, not references).
  */
 import type { AmpacityRequest, EvaluateRequest } from './schemas';
 
@@ -42,6 +44,35 @@ export const EXAMPLE_EVALUATE_REQUEST: EvaluateRequest = {
     fault: { currentA: 10000, durationS: 0.2 },
   },
   candidates: [xlpeCable(95, 0.193), xlpeCable(120, 0.153)],
+};
+
+/**
+ * A buried circuit beside another one (physics.md §8): three single cores flat, 70 mm apart,
+ * 0.8 m deep, with a second circuit of the same cable at 200 A, 350 mm centre to centre.
+ */
+export const EXAMPLE_BURIED_GROUP_REQUEST: EvaluateRequest = {
+  conditions: {
+    designCurrentA: 300,
+    frequencyHz: 50,
+    phases: 3,
+    nominalVoltageV: 230,
+    lengthM: 120,
+    powerFactor: 0.9,
+    maxVoltageDropPercent: 4,
+    installation: {
+      kind: 'buried',
+      depthM: 0.8,
+      soilResistivityKmPerW: 1.2,
+      groundC: 20,
+      formation: 'flat',
+      spacingM: 0.07,
+      otherCircuits: [{ currentA: 200 }],
+      circuitSpacingM: 0.35,
+      circuitRow: 'horizontal',
+    },
+    fault: { currentA: 10000, durationS: 0.2 },
+  },
+  candidates: [xlpeCable(185, 0.0991), xlpeCable(240, 0.0754)],
 };
 
 export const EXAMPLE_AMPACITY_REQUEST: AmpacityRequest = {

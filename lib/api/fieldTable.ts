@@ -65,10 +65,8 @@ function typeAndAllowed(schema: Schema): { type: string; allowed: string } {
   return { type: schema.type ?? 'value', allowed: '' };
 }
 
-/** Rows for every field of an object schema, nested objects and list items included. */
-export function fieldRows(schemaId: string, prefix = ''): FieldRow[] {
-  const document = buildOpenApiDocument() as { components: { schemas: Record<string, Schema> } };
-  const components = document.components.schemas;
+/** Rows for every field of an object schema at `path`, nested objects and list items included. */
+function walkRows(root: Schema, prefix: string, components: Record<string, Schema>): FieldRow[] {
   const rows: FieldRow[] = [];
   const walk = (raw: Schema, path: string, parentRequired: boolean) => {
     const schema = resolve(raw, components);
@@ -88,11 +86,18 @@ export function fieldRows(schemaId: string, prefix = ''): FieldRow[] {
       if (itemObject) walk(resolve(property.items!, components), `${fieldPath}[]`, true);
     }
   };
-  walk(components[schemaId], prefix, true);
+  walk(root, prefix, true);
   return rows;
 }
 
-/** The alternatives of a `oneOf` schema (installation kinds), each with its own rows. */
+/** Rows for every field of an object schema, nested objects and list items included. */
+export function fieldRows(schemaId: string, prefix = ''): FieldRow[] {
+  const document = buildOpenApiDocument() as { components: { schemas: Record<string, Schema> } };
+  const components = document.components.schemas;
+  return walkRows(components[schemaId], prefix, components);
+}
+
+/** The alternatives of a `oneOf` schema (installation kinds), each with its own rows (nested objects and lists included). */
 export function variantRows(schemaId: string, prefix: string): { kind: string; rows: FieldRow[] }[] {
   const document = buildOpenApiDocument() as { components: { schemas: Record<string, Schema> } };
   const components = document.components.schemas;
@@ -100,11 +105,6 @@ export function variantRows(schemaId: string, prefix: string): { kind: string; r
   return variants.map((variant) => {
     const resolved = resolve(variant, components);
     const kind = String(resolved.properties?.kind?.const ?? '');
-    const rows: FieldRow[] = [];
-    for (const [name, property] of Object.entries(resolved.properties ?? {})) {
-      const { type, allowed } = typeAndAllowed(resolve(property, components));
-      rows.push({ path: `${prefix}.${name}`, type, allowed, required: (resolved.required ?? []).includes(name), description: property.description ?? '' });
-    }
-    return { kind, rows };
+    return { kind, rows: walkRows(resolved, prefix, components) };
   });
 }

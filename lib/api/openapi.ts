@@ -7,7 +7,7 @@
 import { z } from 'zod';
 import { API_VERSION, DEFAULT_REQUESTS_PER_MINUTE, MAX_CANDIDATES_PER_REQUEST, MAX_REQUEST_BYTES } from './limits';
 import { ampacityRequestSchema, evaluateRequestSchema } from './schemas';
-import { EXAMPLE_AMPACITY_REQUEST, EXAMPLE_EVALUATE_REQUEST } from './examples';
+import { EXAMPLE_AMPACITY_REQUEST, EXAMPLE_BURIED_GROUP_REQUEST, EXAMPLE_EVALUATE_REQUEST } from './examples';
 import { ampacityResponseSchema, errorResponseSchema, evaluateResponseSchema, flagsResponseSchema } from './responses';
 
 type JsonObject = Record<string, unknown>;
@@ -79,7 +79,21 @@ export function buildOpenApiDocument(): JsonObject {
           summary: 'Evaluate candidates at the design current and compare them',
           description:
             'For each candidate: hot spot at the design current, governing limit and margin, ampacity, losses, voltage drop, short-circuit check, costs when prices are given, and the assumption flags. Marks the smallest passing candidate and the passing one with the lowest life-cycle cost.',
-          requestBody: { required: true, content: { 'application/json': { schema: evaluateRequest, example: EXAMPLE_EVALUATE_REQUEST } } },
+          requestBody: {
+            required: true,
+            content: {
+              'application/json': {
+                schema: evaluateRequest,
+                examples: {
+                  cablesInAir: { summary: 'Two cable sizes in free air, flat and spaced', value: EXAMPLE_EVALUATE_REQUEST },
+                  buriedBesideAnotherCircuit: {
+                    summary: 'A buried flat circuit beside another circuit of the same cable',
+                    value: EXAMPLE_BURIED_GROUP_REQUEST,
+                  },
+                },
+              },
+            },
+          },
           responses: {
             '200': { description: 'One result per candidate, in order.', content: { 'application/json': { schema: evaluateResponse } } },
             ...calcErrors,

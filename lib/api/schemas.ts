@@ -115,6 +115,25 @@ export const cableCandidateSchema = z
     emissivity: bounded('emissivity').optional(),
     ks: bounded('ks').optional(),
     kp: bounded('kp').optional(),
+    screen: z
+      .strictObject({
+        material: z.enum(['copper', 'aluminium', 'lead'], { error: "Screen material must be 'copper', 'aluminium' or 'lead'" }),
+        sectionMm2: bounded('screenSectionMm2').optional(),
+        r20OhmPerM: bounded('screenR20OhmPerM').optional(),
+        bonding: z.enum(['solid', 'single-point', 'cross-bonded'], { error: "Screen bonding must be 'solid', 'single-point' or 'cross-bonded'" }),
+      })
+      .refine((screen) => screen.sectionMm2 !== undefined || screen.r20OhmPerM !== undefined, { message: 'Give the screen section (sectionMm2) or its resistance at 20 °C (r20OhmPerM)', path: ['sectionMm2'] })
+      .optional()
+      .meta({
+        id: 'CableScreen',
+        description:
+          "The metallic screen or sheath of a single-core cable (its place and thickness: the layer with role 'screen'). With it the screen losses λ₁ of IEC 60287-1-1 §2.3 are computed for the bonding and formation; without it they are left out and flagged.",
+      }),
+  })
+  .superRefine((cable, ctx) => {
+    if (cable.screen && !cable.layers.some((l) => l.role === 'screen')) {
+      ctx.addIssue({ code: 'custom', path: ['screen'], message: "A screen needs its place among the layers: give one layer the role 'screen'" });
+    }
   })
   .meta({ id: 'CableCandidate', description: 'A cable: one conductor and its coverings listed from the conductor outwards.' });
 
@@ -149,9 +168,51 @@ export const candidateSchema = z
 
 // ───────────────────────────── conditions ─────────────────────────────
 
+const otherCircuitSchema = z
+  .strictObject({
+    currentA: bounded('otherCircuitCurrentA').meta({ description: 'Its current per phase, A.' }),
+    cable: z
+      .strictObject({
+        externalDiameterM: bounded('otherCableDiameterM').meta({ description: 'Overall diameter D_e of one of its cables, m.' }),
+        lossWPerM: bounded('otherCableLossWPerM').meta({ description: 'Heat ONE of its cables gives off at that current, W/m (from its own rating; flagged as entered).' }),
+      })
+      .optional()
+      .meta({ description: 'Its cable when it is not the candidate’s own. Absent: the same cable as the candidate, solved at its own current.' }),
+  })
+  .meta({ description: 'A circuit lying beside the one being sized (same trench or route), in one row with it.' });
+
 const arrangement = {
-  formation: z.enum(['trefoil', 'flat'], { error: "Formation must be 'trefoil' or 'flat'" }).optional(),
-  spacingM: bounded('spacingM').optional(),
+  formation: z
+    .enum(['trefoil', 'flat', 'flat-vertical'], { error: "Formation must be 'trefoil', 'flat' or 'flat-vertical'" })
+    .optional()
+    .meta({ description: "How the circuit's single-core cables lie (default trefoil); 'flat' is a horizontal row, 'flat-vertical' a vertical one." }),
+  spacingM: bounded('spacingM').optional().meta({ description: 'Axis-to-axis spacing of the circuit’s cables, m (default touching). Less than the cable diameter is refused as an overlap.' }),
+  circuitSpacingM: bounded('circuitSpacingM')
+    .optional()
+    .meta({ description: 'Centre-to-centre spacing between the circuit’s parallel runs and the other circuits, which lie in one row beside it, m (default touching).' }),
+  circuitRow: z.enum(['horizontal', 'vertical'], { error: "circuitRow must be 'horizontal' or 'vertical'" }).optional().meta({ description: 'Direction of that row (default horizontal; vertical rows run downward).' }),
+  otherCircuits: z.array(otherCircuitSchema).max(23, 'At most 23 other circuits').optional(),
+  transposed: z.boolean().optional().meta({ description: 'Flat formation: phases transposed along the route (screen losses).' }),
+};
+
+const buriedSurroundings = {
+  duct: z
+    .strictObject({
+      material: z.enum(['pvc', 'pe', 'earthenware', 'fibre-in-air', 'fibre-in-concrete', 'metallic'], { error: "Duct material must be 'pvc', 'pe', 'earthenware', 'fibre-in-air', 'fibre-in-concrete' or 'metallic'" }),
+      innerDiameterM: bounded('ductInnerDiameterM'),
+      outerDiameterM: bounded('ductOuterDiameterM'),
+    })
+    .optional()
+    .meta({ description: 'Every cable in its own duct (IEC 60287-2-1 §4.2.7.1–4.2.7.3).' }),
+  backfill: z
+    .strictObject({
+      widthM: bounded('backfillWidthM'),
+      heightM: bounded('backfillHeightM'),
+      centreDepthM: bounded('backfillCentreDepthM'),
+      resistivityKmPerW: bounded('backfillResistivityKmPerW'),
+    })
+    .optional()
+    .meta({ description: 'A rectangular backfill or concrete bank of its own resistivity, centred on the cables (IEC 60287-2-1 §4.2.7.4).' }),
 };
 
 export const installationSchema = z
@@ -167,6 +228,7 @@ export const installationSchema = z
         soilResistivityKmPerW: bounded('soilResistivityKmPerW').optional(),
         groundC: bounded('groundC').optional(),
         ...arrangement,
+        ...buriedSurroundings,
       }),
       z.strictObject({
         kind: z.literal('enclosure'),
@@ -223,13 +285,17 @@ const conditionsShape = {
 };
 
 /** Cross-field rules the library also enforces, stated here so that the error names the field. */
-function conditionRules(value: { installation: { kind: string }; solar?: { irradianceWPerM2: number }; windSpeedMPerS?: number; raiseMaterialLimit?: boolean; temperatureLimitC?: number }, ctx: z.RefinementCtx) {
+function conditionRules(value: { installation: { kind: string; duct?: { innerDiameterM: number; outerDiameterM: number } }; solar?: { irradianceWPerM2: number }; windSpeedMPerS?: number; raiseMaterialLimit?: boolean; temperatureLimitC?: number }, ctx: z.RefinementCtx) {
   if (value.raiseMaterialLimit && value.temperatureLimitC === undefined) {
     ctx.addIssue({ code: 'custom', path: ['temperatureLimitC'], message: 'Own temperature limit is required when raiseMaterialLimit is set' });
   }
   if (value.installation.kind === 'buried') {
     if (value.solar && value.solar.irradianceWPerM2 > 0) ctx.addIssue({ code: 'custom', path: ['solar'], message: 'A buried cable receives no sun' });
     if ((value.windSpeedMPerS ?? 0) > 0) ctx.addIssue({ code: 'custom', path: ['windSpeedMPerS'], message: 'A buried cable is not cooled by wind' });
+    const duct = value.installation.duct;
+    if (duct && !(duct.outerDiameterM > duct.innerDiameterM)) {
+      ctx.addIssue({ code: 'custom', path: ['installation', 'duct', 'outerDiameterM'], message: 'Duct outer diameter must be larger than its inner diameter' });
+    }
   }
 }
 

@@ -24,6 +24,9 @@ export interface ScheduleColumn {
 export const INSTALLATION_WORDS = ['cable in air', 'buried', 'bar on edge', 'bar flat'] as const;
 export type InstallationWord = (typeof INSTALLATION_WORDS)[number];
 
+/** How a cable circuit's single cores lie (physics.md §8); the sheet's formations in words. */
+export const FORMATION_WORDS = ['trefoil', 'flat', 'flat vertical'] as const;
+
 export type ScheduleField =
   | 'circuitTag'
   | 'from'
@@ -43,7 +46,12 @@ export type ScheduleField =
   | 'maxVoltageDropPercent'
   | 'maxParallel'
   | 'groupingFactor'
-  | 'temperatureLimitC';
+  | 'temperatureLimitC'
+  | 'formation'
+  | 'spacingMm'
+  | 'otherCircuits'
+  | 'otherCircuitCurrentA'
+  | 'circuitSpacingMm';
 
 export const SCHEDULE_COLUMNS: readonly ScheduleColumn[] = [
   { field: 'circuitTag', header: 'circuit tag', type: 'text', required: true, example: 'F-101', hint: 'Your name for the circuit, unique within the file (at most 64 characters).' },
@@ -64,7 +72,13 @@ export const SCHEDULE_COLUMNS: readonly ScheduleColumn[] = [
   { field: 'maxVoltageDropPercent', header: 'max voltage drop (%)', type: 'number', required: false, example: 4, hint: 'Allowed voltage drop, % of U₀. Empty: the drop is reported but does not fail a size.' },
   { field: 'maxParallel', header: 'max parallel runs', type: 'integer', required: false, example: 1, hint: 'Cables in parallel per phase (or bars per phase for bar families) the sizing may use, 1 to 8. Empty means 1.' },
   { field: 'temperatureLimitC', header: 'temperature limit (°C)', type: 'number', required: false, example: '', hint: 'A limit of your own (joints, terminals, neighbouring equipment) that caps the material limits. Required for bar families, whose bare bars have no insulation limit.' },
-  { field: 'groupingFactor', header: 'grouping factor', type: 'number', required: false, example: '', hint: 'Derating for nearby circuits, 0 < f ≤ 1 (e.g. from IEC 60364-5-52 tables). Empty means 1 (no grouping); an entered factor is flagged for review.' },
+  { field: 'groupingFactor', header: 'grouping factor', type: 'number', required: false, example: '', hint: 'Derating for nearby circuits in air that no method here covers, 0 < f ≤ 1 (e.g. from IEC 60364-5-52 tables). Empty means 1; an entered factor is flagged for review. The circuit’s own cables and the other circuits of the next columns are computed, not derated.' },
+  // The cross-section (cables only): how the circuit lies and what lies beside it (physics.md §8).
+  { field: 'formation', header: 'formation', type: 'enum', required: false, example: 'trefoil', options: FORMATION_WORDS, hint: 'Cables only: how the single-core cables of the circuit lie — trefoil, flat (a horizontal row) or flat vertical. Empty means trefoil. The group is rated as it lies.' },
+  { field: 'spacingMm', header: 'axis spacing (mm)', type: 'number', required: false, example: '', hint: 'Cables only: axis-to-axis spacing of the circuit’s cables. Empty means touching.' },
+  { field: 'otherCircuits', header: 'other circuits', type: 'integer', required: false, example: '', hint: `Cables only: how many other circuits lie beside this one in the same trench or route, in one row (0 to 23). Each is taken to have the same cable as the size being tried, at the current of the next column. Empty means none.` },
+  { field: 'otherCircuitCurrentA', header: 'other circuit current (A)', type: 'number', required: false, example: '', hint: `Current per phase of each of the other circuits, at most ${INPUT_BOUNDS.otherCircuitCurrentA.max} A; required when there are other circuits.` },
+  { field: 'circuitSpacingMm', header: 'circuit spacing (mm)', type: 'number', required: false, example: '', hint: 'Centre to centre between the circuit’s parallel runs and the other circuits, side by side. Empty means touching.' },
 ];
 
 /** Headers compare case-insensitively with runs of white space collapsed (U₀ and U0 alike). */

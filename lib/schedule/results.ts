@@ -4,6 +4,7 @@
  */
 import { Money } from '../electrical/economics';
 import { shortCircuitWord, type ShortCircuitWord } from '../sheet/candidateRow';
+import { formatNumber } from '../units';
 import type { CircuitSizing } from './size';
 import type { ScheduleRow } from './row';
 import type { Table } from './files';
@@ -34,6 +35,10 @@ export interface ResultLine {
   lossW: number | null;
   massKg: number | null;
   materialCost: string | null;
+  /** The governing cable of the rated cross-section in words, with its conductor temperature ("centre cable of this circuit, 88.7 °C"); null for bars, unsized rows and rows sized before groups. */
+  governingCable: string | null;
+  /** How the group was rated, in a few words (candidateRow). */
+  groupMethod: string | null;
   blockerFlags: number;
   reviewFlags: number;
   noteFlags: number;
@@ -76,6 +81,8 @@ export function resultLine(row: ScheduleRow, familyLabel: string, sizing: Circui
     lossW: shown?.lossW ?? null,
     massKg: shown?.massKg ?? null,
     materialCost: shown?.materialCost ?? null,
+    governingCable: shown?.governingCable ? `${shown.governingCable}${shown.governingCableC != null ? `, ${formatNumber(shown.governingCableC, 3)} °C` : ''}` : null,
+    groupMethod: shown?.groupMethod ?? null,
     blockerFlags: count('blocker'),
     reviewFlags: shown ? count('review') : 0,
     noteFlags: shown ? count('note') : 0,
@@ -148,6 +155,8 @@ const EXPORT_COLUMNS: Array<[string, (l: ResultLine) => string | number | null]>
   ['losses (W)', (l) => round(l.lossW, 1)],
   ['conductor mass (kg)', (l) => round(l.massKg, 1)],
   ['material cost', (l) => l.materialCost],
+  ['governing cable', (l) => l.governingCable],
+  ['group rated by', (l) => l.groupMethod],
   ['flags needing review', (l) => l.reviewFlags],
   ['flags', (l) => l.flagText],
   ['remark', (l) => l.remark],

@@ -5,7 +5,7 @@
  */
 import { z } from 'zod';
 import { INPUT_BOUNDS } from '../inputBounds';
-import { columnByField, headerOf, INSTALLATION_WORDS, normaliseHeader, SCHEDULE_COLUMNS, type ScheduleField } from './columns';
+import { columnByField, FORMATION_WORDS, headerOf, INSTALLATION_WORDS, normaliseHeader, SCHEDULE_COLUMNS, type ScheduleField } from './columns';
 import { findFamily } from './families';
 
 export type ScheduleInstallation = 'cable-in-air' | 'buried' | 'bar-on-edge' | 'bar-flat';
@@ -101,6 +101,26 @@ const installationCell = z.unknown().transform((raw, ctx): ScheduleInstallation 
   return value;
 });
 
+export type ScheduleFormation = 'trefoil' | 'flat' | 'flat-vertical';
+const FORMATION_OF: Record<(typeof FORMATION_WORDS)[number], ScheduleFormation> = { trefoil: 'trefoil', flat: 'flat', 'flat vertical': 'flat-vertical' };
+
+const formationCell = z.unknown().transform((raw, ctx): ScheduleFormation | null => {
+  if (isBlank(raw)) return null;
+  const word = String(raw).trim().toLowerCase().replace(/[\s_-]+/g, ' ');
+  const value = FORMATION_OF[word as keyof typeof FORMATION_OF];
+  if (!value) {
+    ctx.addIssue({ code: 'custom', message: `must be one of: ${FORMATION_WORDS.join(', ')} (got "${String(raw).trim()}")` });
+    return z.NEVER;
+  }
+  return value;
+});
+
+/** A bound of the table in mm for a value the table holds in m. */
+const inMm = (bound: NumberBounds & { min: number; max: number }): NumberBounds => inUnitOf(bound, 1e-3);
+
+/** Fields of the cross-section, which only cable families take. */
+export const ARRANGEMENT_FIELDS = ['formation', 'spacingMm', 'otherCircuits', 'otherCircuitCurrentA', 'circuitSpacingMm'] as const satisfies readonly ScheduleField[];
+
 /** The row as typed values, keyed by field. SI units; kA and the empty cells kept as entered (null). */
 export const scheduleRowSchema = z
   .object({
@@ -125,6 +145,12 @@ export const scheduleRowSchema = z
     maxParallel: optional({ min: 1, max: 8, integer: true }),
     groupingFactor: optional(INPUT_BOUNDS.groupingFactor),
     temperatureLimitC: optional(INPUT_BOUNDS.temperatureLimitC),
+    formation: formationCell,
+    spacingMm: optional(inMm(INPUT_BOUNDS.spacingM)),
+    // Not a validity bound of the library's own: the sheet's and the library's limit of other circuits in one row.
+    otherCircuits: optional({ min: 0, max: 23, integer: true }),
+    otherCircuitCurrentA: optional(INPUT_BOUNDS.otherCircuitCurrentA),
+    circuitSpacingMm: optional(inMm(INPUT_BOUNDS.circuitSpacingM)),
   })
   .superRefine((row, ctx) => {
     if (row.installation === 'buried' && row.depthM === null) {
@@ -132,6 +158,12 @@ export const scheduleRowSchema = z
     }
     if (row.installation !== 'buried' && row.depthM !== null) {
       ctx.addIssue({ code: 'custom', path: ['depthM'], message: 'applies only to buried cables; leave it empty' });
+    }
+    if ((row.otherCircuits ?? 0) > 0 && row.otherCircuitCurrentA === null) {
+      ctx.addIssue({ code: 'custom', path: ['otherCircuitCurrentA'], message: `is required when there are other circuits (${headerOf('otherCircuits')})` });
+    }
+    if ((row.otherCircuits ?? 0) === 0 && row.otherCircuitCurrentA !== null) {
+      ctx.addIssue({ code: 'custom', path: ['otherCircuitCurrentA'], message: `applies only when there are other circuits (${headerOf('otherCircuits')}); leave it empty` });
     }
     if ((row.faultCurrentKA === null) !== (row.clearingTimeS === null)) {
       const missing: ScheduleField = row.faultCurrentKA === null ? 'faultCurrentKA' : 'clearingTimeS';
@@ -141,8 +173,14 @@ export const scheduleRowSchema = z
 
 export type ScheduleRowInput = z.infer<typeof scheduleRowSchema>;
 
-/** A clean row ready to size: the typed values, its spreadsheet row number and the family key. */
-export interface ScheduleRow extends Omit<ScheduleRowInput, 'family' | 'maxParallel'> {
+type ArrangementField = (typeof ARRANGEMENT_FIELDS)[number];
+
+/**
+ * A clean row ready to size: the typed values, its spreadsheet row number and the family key. The
+ * cross-section's fields are optional: rows stored before they existed have none (read as
+ * trefoil touching with nothing beside it, the arrangement those rows were sized for).
+ */
+export interface ScheduleRow extends Omit<ScheduleRowInput, 'family' | 'maxParallel' | ArrangementField>, Partial<Pick<ScheduleRowInput, ArrangementField>> {
   rowNumber: number;
   /** Canonical family key (families.ts). */
   family: string;
@@ -222,6 +260,11 @@ export function validateScheduleRecords(
           column: headerOf('installation'),
           message: family.kind === 'bar' ? `bars lie "bar on edge" or "bar flat", not "${parsed.data.installation.replace(/-/g, ' ')}"` : `cables are "cable in air" or "buried", not "${parsed.data.installation.replace(/-/g, ' ')}"`,
         });
+      }
+    }
+    if (parsed.success && family?.kind === 'bar') {
+      for (const field of ARRANGEMENT_FIELDS) {
+        if (parsed.data[field] !== null) rowProblems.push({ row: record.row, column: headerOf(field), message: 'applies only to cable families; leave it empty for bars' });
       }
     }
     if (rowProblems.length > 0 || !parsed.success || !family) {

@@ -7,7 +7,7 @@
  */
 import { evaluateCandidate } from '../electrical/sizing/evaluate';
 import type { AssumptionFlag } from '../electrical/sizing/flags';
-import type { Candidate, CandidateEvaluationOk, Conditions, ShortCircuitCheck } from '../electrical/sizing/types';
+import type { CableArrangement, Candidate, CandidateEvaluationOk, Conditions, ShortCircuitCheck } from '../electrical/sizing/types';
 import { candidateRow } from '../sheet/candidateRow';
 import { candidateSectionMm2 } from './families';
 import type { ScheduleRow } from './row';
@@ -15,7 +15,27 @@ import type { ScheduleRow } from './row';
 /** Frequency used when the row leaves it empty (IEC 60038 50 Hz systems, common practice); noted on the result. */
 export const DEFAULT_FREQUENCY_HZ = 50;
 
+/**
+ * The cable circuit's cross-section from the row (physics.md §8): its formation and spacing, and
+ * the other circuits beside it — each with the same cable as the size being tried, at the row's
+ * other-circuit current — in one horizontal row. Empty cells (and rows stored before these
+ * columns existed) give trefoil, touching, nothing beside it.
+ */
+export function rowArrangement(row: ScheduleRow): CableArrangement {
+  const arrangement: CableArrangement = { formation: row.formation ?? 'trefoil' };
+  if (row.spacingMm != null) arrangement.spacingM = row.spacingMm / 1000;
+  const others = row.otherCircuits ?? 0;
+  if (others > 0 && row.otherCircuitCurrentA != null) {
+    arrangement.otherCircuits = Array.from({ length: others }, () => ({ currentA: row.otherCircuitCurrentA as number }));
+  }
+  // The spacing between circuits places the size's parallel runs too.
+  if (row.circuitSpacingMm != null) arrangement.circuitSpacingM = row.circuitSpacingMm / 1000;
+  arrangement.circuitRow = 'horizontal';
+  return arrangement;
+}
+
 export function rowConditions(row: ScheduleRow): Conditions {
+  const arrangement = rowArrangement(row);
   const conditions: Conditions = {
     designCurrentA: row.designCurrentA,
     frequencyHz: row.frequencyHz ?? DEFAULT_FREQUENCY_HZ,
@@ -25,9 +45,9 @@ export function rowConditions(row: ScheduleRow): Conditions {
     powerFactor: row.powerFactor,
     installation:
       row.installation === 'buried'
-        ? { kind: 'buried', depthM: row.depthM as number, ...(row.ambientC !== null ? { groundC: row.ambientC } : {}) }
+        ? { kind: 'buried', depthM: row.depthM as number, ...(row.ambientC !== null ? { groundC: row.ambientC } : {}), ...arrangement }
         : row.installation === 'cable-in-air'
-          ? { kind: 'cable-in-air' }
+          ? { kind: 'cable-in-air', ...arrangement }
           : { kind: row.installation },
   };
   if (row.installation !== 'buried' && row.ambientC !== null) conditions.ambientC = row.ambientC;
@@ -85,6 +105,10 @@ export interface ChosenSize {
   lossW: number | null;
   massKg: number;
   materialCost: string | null;
+  /** The governing cable of the rated cross-section and its conductor temperature, °C, and how the group was rated (candidateRow); null for bars. */
+  governingCable?: string | null;
+  governingCableC?: number | null;
+  groupMethod?: string | null;
   flags: AssumptionFlag[];
 }
 
@@ -132,6 +156,9 @@ function chosenOf(e: CandidateEvaluationOk, candidate: Candidate, lengthM: numbe
     lossW: row.lossWPerM === null ? null : row.lossWPerM * lengthM,
     massKg: row.massKg,
     materialCost: row.materialCost,
+    governingCable: row.governingCable,
+    governingCableC: row.governingCableC,
+    groupMethod: row.groupMethod,
     flags: e.flags,
   };
 }

@@ -45,6 +45,15 @@ export function scheduleRowToSheetInputs(row: ScheduleRow, sizing: CircuitSizing
       ...base.installation,
       kind: row.installation,
       ...(row.installation === 'buried' ? { depthM: row.depthM as number, groundC: row.ambientC } : {}),
+      // The cross-section of the row (rowArrangement in ./size.ts): the same cable beside it, unnamed.
+      formation: row.formation ?? base.installation.formation,
+      spacingM: row.spacingMm != null ? row.spacingMm / 1000 : null,
+      circuitSpacingM: row.circuitSpacingMm != null ? row.circuitSpacingMm / 1000 : null,
+      circuitRow: 'horizontal',
+      otherCircuits:
+        (row.otherCircuits ?? 0) > 0 && row.otherCircuitCurrentA != null
+          ? Array.from({ length: row.otherCircuits as number }, () => ({ label: '', currentA: row.otherCircuitCurrentA as number, sameCable: true, externalDiameterM: null, lossWPerM: null }))
+          : [],
     },
     limits: { temperatureLimitC: row.temperatureLimitC, raiseMaterialLimit: false, groupingFactor: row.groupingFactor ?? 1 },
     candidates: picked as SheetInputs['candidates'],

@@ -10,6 +10,7 @@
 import type { FlagSeverity } from '../electrical/sizing/flags';
 import type { CandidateEvaluationOk, ShortCircuitCheck } from '../electrical/sizing/types';
 import { formatNumber } from '../units';
+import { governingCableOf, groupMethodWords } from './groupWords';
 
 /** The three result states of product.md (Visual identity); the screen adds icon and colour. */
 export type ResultState = 'within' | 'tight' | 'over';
@@ -107,6 +108,16 @@ export interface CandidateRow {
   flagCodes: string[];
   /** 'Smallest passing', 'Lowest cost passing'. */
   marks: string[];
+  /**
+   * The cable of the rated cross-section that governs, in words ("centre cable of this circuit",
+   * "every cable of this circuit alike"); null for bars, a result without a group (a snapshot of an
+   * earlier solver) or on runaway.
+   */
+  governingCable: string | null;
+  /** That cable's conductor temperature at the design current, °C. */
+  governingCableC: number | null;
+  /** How the group was rated, in a few words ("in the ground: superposition with images, …"); null without a group. */
+  groupMethod: string | null;
 }
 
 /** Which candidates a comparison marked, when the evaluation itself no longer carries the mark (a saved snapshot). */
@@ -117,8 +128,11 @@ export interface ComparisonMarks {
 
 const percentText = (value: number) => `${formatNumber(value, 3)} %`;
 
-/** The person-facing row of one evaluated candidate. */
-export function candidateRow(e: CandidateEvaluationOk, marks: ComparisonMarks = {}): CandidateRow {
+/**
+ * The person-facing row of one evaluated candidate. `otherLabels` are the sheet's names of the
+ * other circuits beside this one (for the governing cable's words when it is not this circuit's).
+ */
+export function candidateRow(e: CandidateEvaluationOk, marks: ComparisonMarks = {}, otherLabels: readonly string[] = []): CandidateRow {
   const thermal = thermalState(e);
   const noCurrentAllowed = !(e.ampacityA > 0);
   const utilisation = noCurrentAllowed ? null : e.utilisation;
@@ -127,6 +141,7 @@ export function candidateRow(e: CandidateEvaluationOk, marks: ComparisonMarks = 
   const rowMarks: string[] = [];
   if (e.isSmallestPassing || (marks.smallestPassingId != null && marks.smallestPassingId === e.id)) rowMarks.push('Smallest passing');
   if (e.isLowestLifeCycleCostPassing || (marks.lowestLifeCycleCostPassingId != null && marks.lowestLifeCycleCostPassingId === e.id)) rowMarks.push('Lowest cost passing');
+  const governing = e.group ? governingCableOf(e.group, otherLabels) : null;
   return {
     id: e.id,
     label: e.label,
@@ -158,5 +173,8 @@ export function candidateRow(e: CandidateEvaluationOk, marks: ComparisonMarks = 
     flagCounts,
     flagCodes: e.flags.map((f) => f.code),
     marks: rowMarks,
+    governingCable: governing?.words ?? null,
+    governingCableC: governing?.conductorC ?? null,
+    groupMethod: e.group ? groupMethodWords(e.group) : null,
   };
 }

@@ -52,17 +52,38 @@ const cableLayerSchema = z.object({
   shortCircuitLimitC: z.number().optional(),
 });
 
-export const cableCandidateSchema = z.object({
-  ...candidateCommon,
-  kind: z.literal('cable'),
-  sectionMm2: positive('Section'),
-  conductorDiameterM: positive('Conductor diameter'),
-  cores: bounded('cores').optional(),
-  layers: z.array(cableLayerSchema).min(1, 'A cable needs at least its insulation'),
-  emissivity: bounded('emissivity').optional(),
-  ks: z.number().positive().optional(),
-  kp: z.number().positive().optional(),
-});
+/**
+ * The metallic screen or sheath of a single-core cable (sheet version 5): with it the screen losses
+ * λ₁ of IEC 60287-1-1 §2.3 are computed for the circuit's bonding and formation. Its place and
+ * thickness are the layer with role 'screen'.
+ */
+export const cableScreenSchema = z
+  .object({
+    material: z.enum(['copper', 'aluminium', 'lead'], { error: "Screen material must be 'copper', 'aluminium' or 'lead'" }),
+    sectionMm2: bounded('screenSectionMm2').optional(),
+    r20OhmPerM: bounded('screenR20OhmPerM').optional(),
+    bonding: z.enum(['solid', 'single-point', 'cross-bonded'], { error: "Screen bonding must be 'solid', 'single-point' or 'cross-bonded'" }),
+  })
+  .refine((s) => s.sectionMm2 !== undefined || s.r20OhmPerM !== undefined, { message: 'Give the screen’s section or its resistance at 20 °C', path: ['sectionMm2'] });
+
+export const cableCandidateSchema = z
+  .object({
+    ...candidateCommon,
+    kind: z.literal('cable'),
+    sectionMm2: positive('Section'),
+    conductorDiameterM: positive('Conductor diameter'),
+    cores: bounded('cores').optional(),
+    layers: z.array(cableLayerSchema).min(1, 'A cable needs at least its insulation'),
+    emissivity: bounded('emissivity').optional(),
+    ks: z.number().positive().optional(),
+    kp: z.number().positive().optional(),
+    screen: cableScreenSchema.optional(),
+  })
+  .superRefine((cable, ctx) => {
+    if (cable.screen && !cable.layers.some((l) => l.role === 'screen')) {
+      ctx.addIssue({ code: 'custom', path: ['screen'], message: 'A screen needs its place among the layers: mark one layer as the screen' });
+    }
+  });
 
 export const barCandidateSchema = z.object({
   ...candidateCommon,

@@ -22,7 +22,8 @@ export interface DrawingInput {
 }
 
 export type Primitive =
-  | { kind: 'circle'; cx: number; cy: number; r: number; role: 'rated' | 'other' | 'duct' | 'governing' }
+  /** `cable`: index into the input's cables, so that a renderer can give each cable its title (temperatures). */
+  | { kind: 'circle'; cx: number; cy: number; r: number; role: 'rated' | 'other' | 'duct' | 'governing' | 'governing-ring'; cable?: number }
   | { kind: 'rect'; x: number; y: number; width: number; height: number; role: 'bank' | 'soil' }
   | { kind: 'line'; x1: number; y1: number; x2: number; y2: number; role: 'ground' | 'dimension' | 'extension' }
   | { kind: 'text'; x: number; y: number; text: string; anchor: 'start' | 'middle' | 'end'; role: 'dimension' | 'label' };
@@ -98,8 +99,13 @@ export function crossSectionDrawing(input: DrawingInput, width: number, height: 
   input.cables.forEach((c, i) => {
     if (c.envelopeDiameterM > c.externalDiameterM) p.push({ kind: 'circle', cx: X(c.xM), cy: Y(c.yM), r: (c.envelopeDiameterM / 2) * scale, role: 'duct' });
     const role = i === input.governingCable ? 'governing' : input.ratedCircuits.includes(c.circuit) ? 'rated' : 'other';
-    p.push({ kind: 'circle', cx: X(c.xM), cy: Y(c.yM), r: (c.externalDiameterM / 2) * scale, role });
+    p.push({ kind: 'circle', cx: X(c.xM), cy: Y(c.yM), r: (c.externalDiameterM / 2) * scale, role, cable: i });
   });
+  // The governing cable is ringed as well as coloured, so that it shows without colour (product.md).
+  const governing = input.governingCable !== undefined ? input.cables[input.governingCable] : undefined;
+  if (governing) {
+    p.push({ kind: 'circle', cx: X(governing.xM), cy: Y(governing.yM), r: (governing.envelopeDiameterM / 2) * scale + 3, role: 'governing-ring', cable: input.governingCable });
+  }
 
   // Dimensions: depth of the first circuit's centre, its axis spacing, the spacing between circuits.
   const first = input.cables.filter((c) => c.circuit === 0);
@@ -114,7 +120,8 @@ export function crossSectionDrawing(input: DrawingInput, width: number, height: 
   if (input.circuitAxisSpacingM && first.length > 1) {
     const a = first[0];
     const b = first[1];
-    const yTop = Y(Math.max(a.yM, b.yM) + a.envelopeDiameterM / 2) - 10;
+    // Above the whole circuit (a trefoil's apex would otherwise sit on the line).
+    const yTop = Y(Math.max(...first.map((c) => c.yM + c.envelopeDiameterM / 2))) - 10;
     p.push({ kind: 'line', x1: X(a.xM), y1: yTop, x2: X(b.xM), y2: yTop, role: 'dimension' });
     p.push({ kind: 'text', x: (X(a.xM) + X(b.xM)) / 2, y: yTop - 3, text: `s = ${mm(input.circuitAxisSpacingM)}`, anchor: 'middle', role: 'dimension' });
   }

@@ -39,6 +39,17 @@ export const SHEET_FIELD_UNITS = {
   'environment.irradianceWPerM2': { quantity: 'none', fixedUnit: 'W/m²' },
   'environment.solarAbsorptivity': { quantity: 'none' },
   'installation.spacingM': { quantity: 'lengthMm' },
+  'installation.circuitSpacingM': { quantity: 'lengthMm' },
+  // One entry for the same field of every other circuit in the list.
+  'installation.otherCircuits.currentA': { quantity: 'none', fixedUnit: 'A' },
+  'installation.otherCircuits.externalDiameterM': { quantity: 'lengthMm' },
+  'installation.otherCircuits.lossWPerM': { quantity: 'powerWPerM' },
+  'installation.duct.innerDiameterM': { quantity: 'lengthMm' },
+  'installation.duct.outerDiameterM': { quantity: 'lengthMm' },
+  'installation.backfill.widthM': { quantity: 'lengthM' },
+  'installation.backfill.heightM': { quantity: 'lengthM' },
+  'installation.backfill.centreDepthM': { quantity: 'lengthM' },
+  'installation.backfill.resistivityKmPerW': { quantity: 'thermalResistivityKmPerW' },
   'installation.depthM': { quantity: 'lengthM' },
   'installation.soilResistivityKmPerW': { quantity: 'thermalResistivityKmPerW' },
   'installation.groundC': { quantity: 'temperature' },
@@ -74,6 +85,10 @@ export type SheetNumericField = keyof typeof SHEET_FIELD_UNITS;
  */
 const STORED_TO_QUANTITY_SCALE: Partial<Record<SheetNumericField, number>> = {
   'installation.spacingM': 1000,
+  'installation.circuitSpacingM': 1000,
+  'installation.otherCircuits.externalDiameterM': 1000,
+  'installation.duct.innerDiameterM': 1000,
+  'installation.duct.outerDiameterM': 1000,
   'circuit.reactanceOhmPerM': 1000,
   // Stored in seconds, shown in minutes.
   'overTime.overloadDurationS': 1 / 60,

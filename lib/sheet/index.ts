@@ -9,3 +9,6 @@ export * from './formUnits';
 export * from './beyondSteady';
 export * from './enclosureAir';
 export * from './optionalChecksReport';
+export * from './groupWords';
+export * from './reEvaluation';
+export * from './arrangementCheck';

@@ -13,12 +13,20 @@
  *       sheet reads with both unchecked.
  *   4 — optional check `enclosureAir` (the air inside an enclosure from the losses in it); a
  *       version-2 or -3 sheet reads with it unchecked.
+ *   5 — the cross-section that is rated (issue 17, physics.md §8): the circuit's formation may be
+ *       a vertical row, the spacing between the circuit's runs and the other circuits and the
+ *       direction of their row, the other circuits beside it (each with its current and either the
+ *       same cable or a cable given by its diameter and heat), transposition, and for buried
+ *       cables ducts and a backfill; a candidate may carry its metallic screen's data. An older
+ *       sheet reads with its own formation and spacing, no other circuits, no ducts and no
+ *       backfill — the arrangement it was sized for — and keeps its saved result (marked for
+ *       re-evaluation when that result came from an earlier solver, lib/sheet/reEvaluation.ts).
  */
 import { z } from 'zod';
 import { INPUT_BOUNDS, zodBound, type BoundName } from '../inputBounds';
 import { sheetCandidateSchema } from './candidates';
 
-export const SHEET_SCHEMA_VERSION = 4 as const;
+export const SHEET_SCHEMA_VERSION = 5 as const;
 
 const num = (label: string) => z.number({ error: `${label} must be a number` }).refine(Number.isFinite, `${label} must be a finite number`);
 /** A number inside its bound of lib/inputBounds (the one table every edge and the library read). */
@@ -62,14 +70,61 @@ export const environmentSchema = z.object({
   solarAbsorptivity: optionalBounded('solarAbsorptivity'),
 });
 
+export const formations = ['trefoil', 'flat', 'flat-vertical'] as const;
+export const circuitRows = ['horizontal', 'vertical'] as const;
+/** Duct materials of IEC 60287-2-1 Table 4 (the constants the library holds, lib/electrical/iec60287/constants.ts). */
+export const ductMaterials = ['pvc', 'pe', 'earthenware', 'fibre-in-air', 'fibre-in-concrete', 'metallic'] as const;
+
+/** A circuit lying beside the one being sized (same trench or route), in one row with it. */
+export const otherCircuitSchema = z.object({
+  /** The designer's name for it ("Lighting feeder L-2"); may be empty. */
+  label: z.string().trim().max(80, 'A circuit label must be at most 80 characters'),
+  currentA: bounded('otherCircuitCurrentA'),
+  /** True: the same cable as the candidate, solved at its own current; false: its cable is given by diameter and heat. */
+  sameCable: z.boolean(),
+  /** One cable's overall diameter, m; used (and required) when sameCable is false. */
+  externalDiameterM: optionalBounded('otherCableDiameterM'),
+  /** Heat of ONE of its cables at its current, W/m, from its own rating; used (and required) when sameCable is false. */
+  lossWPerM: optionalBounded('otherCableLossWPerM'),
+});
+export type SheetOtherCircuit = z.infer<typeof otherCircuitSchema>;
+
+export const ductSchema = z.object({
+  /** Every cable in its own duct (buried cables only). The sizes are kept while unticked. */
+  used: z.boolean(),
+  material: z.enum(ductMaterials, { error: 'Choose a duct material' }),
+  innerDiameterM: bounded('ductInnerDiameterM'),
+  outerDiameterM: bounded('ductOuterDiameterM'),
+});
+
+export const backfillSchema = z.object({
+  /** A rectangular backfill or concrete bank of its own resistivity around the cables (buried only). */
+  used: z.boolean(),
+  widthM: bounded('backfillWidthM'),
+  heightM: bounded('backfillHeightM'),
+  /** Depth of the bank's centre, m; null = at the depth of the cable axis. */
+  centreDepthM: optionalBounded('backfillCentreDepthM'),
+  resistivityKmPerW: bounded('backfillResistivityKmPerW'),
+});
+
 export const installationSchema = z.object({
   kind: z.enum(installationKinds, { error: 'Choose an installation' }),
-  formation: z.enum(['trefoil', 'flat']),
+  /** How the circuit's single-core cables lie: trefoil, a horizontal row ('flat') or a vertical row. */
+  formation: z.enum(formations, { error: 'Choose how the cables lie' }),
   /** Axis-to-axis spacing of the circuit's cables, m; null = touching. */
   spacingM: optionalBounded('spacingM'),
+  /** Centre-to-centre spacing between the circuit's parallel runs and the other circuits, m; null = touching. */
+  circuitSpacingM: optionalBounded('circuitSpacingM'),
+  /** Direction of the row of circuits. */
+  circuitRow: z.enum(circuitRows, { error: 'Choose the direction of the row of circuits' }),
+  otherCircuits: z.array(otherCircuitSchema).max(23, 'At most 23 other circuits beside this one'),
+  /** Flat formation: phases transposed along the route (screen losses). */
+  transposed: z.boolean(),
   depthM: bounded('depthM'),
   soilResistivityKmPerW: optionalBounded('soilResistivityKmPerW'),
   groundC: optionalBounded('groundC'),
+  duct: ductSchema,
+  backfill: backfillSchema,
   enclosureDerating: bounded('enclosureDerating'),
   enclosureInside: z.enum(['cable-in-air', 'bar-on-edge', 'bar-flat']),
 });
@@ -178,7 +233,27 @@ export const sheetInputsSchema = z
     if (value.installation.kind === 'buried' && (value.environment.outdoorSun || value.environment.windSpeedMPerS > 0)) {
       ctx.addIssue({ code: 'custom', path: ['environment', 'outdoorSun'], message: 'A buried cable sees neither sun nor wind' });
     }
+    arrangementIssues(value.installation).forEach((issue) => ctx.addIssue({ code: 'custom', path: ['installation', ...issue.path], message: issue.message }));
   });
+
+/**
+ * What the arrangement needs that a single field cannot say: a cable given for another circuit,
+ * a duct wider outside than inside. Where the cables lie (overlaps, inside the backfill, fitting
+ * the duct) depends on the candidate's diameter and is refused by the library with the field named.
+ */
+function arrangementIssues(installation: z.infer<typeof installationSchema>): Array<{ path: Array<string | number>; message: string }> {
+  const issues: Array<{ path: Array<string | number>; message: string }> = [];
+  installation.otherCircuits.forEach((other, index) => {
+    if (other.sameCable) return;
+    if (other.externalDiameterM === null) issues.push({ path: ['otherCircuits', index, 'externalDiameterM'], message: 'Enter the diameter of the other circuit’s cable, or take the same cable' });
+    if (other.lossWPerM === null) issues.push({ path: ['otherCircuits', index, 'lossWPerM'], message: 'Enter the heat per cable of the other circuit, or take the same cable' });
+  });
+  const buried = installation.kind === 'buried';
+  if (buried && installation.duct.used && !(installation.duct.outerDiameterM > installation.duct.innerDiameterM)) {
+    issues.push({ path: ['duct', 'outerDiameterM'], message: 'Duct outer diameter must be larger than its inner diameter' });
+  }
+  return issues;
+}
 
 export type SheetInputs = z.infer<typeof sheetInputsSchema>;
 
@@ -274,12 +349,15 @@ export function readSheetInputs(raw: unknown, storedVersion?: number): SheetInpu
     if (!parsed.success) throw new SheetSchemaError(`Stored sheet inputs do not match version ${version}: ${parsed.error.issues[0]?.message}`, version);
     return parsed.data;
   }
-  if (version === 2 || version === 3) {
+  if (version === 2 || version === 3 || version === 4) {
     // Versions 3 and 4 only added optional checks (over time, along the run; the enclosure air):
-    // a sheet stored before them reads with them unchecked.
+    // a sheet stored before them reads with them unchecked. Version 5 added the cross-section:
+    // an older sheet keeps its formation and spacing, with nothing beside it, no ducts, no backfill.
     const defaults = defaultSheetInputs();
-    const added = version === 2 ? { overTime: defaults.overTime, alongRun: defaults.alongRun, enclosureAir: defaults.enclosureAir } : { enclosureAir: defaults.enclosureAir };
-    const parsed = sheetInputsSchema.safeParse({ ...(raw as object), schemaVersion: SHEET_SCHEMA_VERSION, ...added });
+    const added = version === 2 ? { overTime: defaults.overTime, alongRun: defaults.alongRun, enclosureAir: defaults.enclosureAir } : version === 3 ? { enclosureAir: defaults.enclosureAir } : {};
+    const stored = raw as { installation?: unknown };
+    const installation = stored.installation && typeof stored.installation === 'object' ? { ...arrangementDefaults(), ...(stored.installation as object) } : stored.installation;
+    const parsed = sheetInputsSchema.safeParse({ ...(raw as object), schemaVersion: SHEET_SCHEMA_VERSION, ...added, installation });
     if (!parsed.success) throw new SheetSchemaError(`Stored sheet inputs do not match version ${version}: ${parsed.error.issues[0]?.message}`, version);
     return parsed.data;
   }
@@ -292,6 +370,32 @@ export function readSheetInputs(raw: unknown, storedVersion?: number): SheetInpu
 }
 
 // ───────────────────────────── defaults ─────────────────────────────
+
+/**
+ * The arrangement fields of version 5 as a new sheet (and an older one read as version 5) has
+ * them: nothing beside the circuit, its runs touching in a horizontal row, no ducts, no backfill.
+ * The duct and backfill sizes are only a starting point shown when the designer ticks them: a
+ * 110 mm PVC duct of 100 mm bore, and a 0.6 m × 0.4 m bank of a sand-cement backfill of about
+ * 1.0 K·m/W (common practice for LV trenches, from memory) — they count only once ticked.
+ */
+export function arrangementDefaults(): Pick<
+  SheetInputs['installation'],
+  'circuitSpacingM' | 'circuitRow' | 'otherCircuits' | 'transposed' | 'duct' | 'backfill'
+> {
+  return {
+    circuitSpacingM: null,
+    circuitRow: 'horizontal',
+    otherCircuits: [],
+    transposed: false,
+    duct: { used: false, material: 'pvc', innerDiameterM: 0.1, outerDiameterM: 0.11 },
+    backfill: { used: false, widthM: 0.6, heightM: 0.4, centreDepthM: null, resistivityKmPerW: 1.0 },
+  };
+}
+
+/** A new other circuit as the form adds it: the same cable as the candidate, at no current yet. */
+export function newOtherCircuit(): SheetOtherCircuit {
+  return { label: '', currentA: 0, sameCable: true, externalDiameterM: null, lossWPerM: null };
+}
 
 /**
  * Defaults and where they come from (shown as help text beside each field: `DEFAULT_SOURCES`).
@@ -313,10 +417,13 @@ export function defaultSheetInputs(kind: InstallationKind = 'cable-in-air'): She
     },
     fault: { checked: true, currentA: 25000, durationS: 0.4 },
     environment: { ambientC: null, windSpeedMPerS: 0, outdoorSun: false, irradianceWPerM2: 1000, solarAbsorptivity: null },
+    // Three single-core cables in trefoil, touching, nothing beside them: the arrangement a designer
+    // picks first for a three-phase feeder of single cores (common practice), rated as the group it is.
     installation: {
       kind,
       formation: 'trefoil',
       spacingM: null,
+      ...arrangementDefaults(),
       depthM: 0.7,
       soilResistivityKmPerW: null,
       groundC: null,
@@ -371,7 +478,13 @@ export const DEFAULT_SOURCES = {
   soilResistivityKmPerW: 'Left empty: 2.5 K·m/W, the IEC 60364-5-52 reference soil (from memory, flagged). Measure the site when you can.',
   groundC: 'Left empty: 20 °C, the IEC 60364-5-52 reference ground temperature (from memory, flagged).',
   enclosureDerating: 'No default from a standard: enter the enclosure maker’s factor or your own assessment (flagged for review).',
-  groupingFactor: '1: no other circuits nearby. Enter a factor from IEC 60364-5-52 Table B.52.17 (or similar) when grouped (flagged).',
+  groupingFactor: '1: nothing else to allow for. The circuit’s own cables and the other circuits listed under the installation are computed; enter a factor (IEC 60364-5-52 Table B.52.17 or similar, flagged) only for circuits in air that no method here covers.',
+  formation: 'Trefoil, touching: three single-core cables as a designer lays them first (common practice). The group is rated as it lies (IEC 60287-2-1: the free-air law of its arrangement, or superposition in the ground).',
+  spacingM: 'Axis to axis, between the cables of this circuit. Left empty: touching.',
+  circuitSpacingM: 'Centre to centre, between this circuit’s parallel runs and the other circuits, which lie in one row beside it. Left empty: touching.',
+  otherCircuits: 'Circuits in the same trench or route heat this one. Same cable: solved at its own current; otherwise give one cable’s diameter and the heat it gives off at its current (from its own rating, flagged).',
+  duct: '110 mm PVC duct of 100 mm bore as a starting point (common practice, from memory): enter the duct you lay. IEC 60287-2-1 §4.2.7 adds the air space and the wall.',
+  backfill: '0.6 m × 0.4 m of sand-cement backfill, 1.0 K·m/W, as a starting point (common practice, from memory). Centre depth left empty: at the depth of the cable axis.',
   temperatureLimitC: 'Left empty: the limits of the candidate’s own insulation, coating or terminals govern.',
   lossLoadFactor: '0.5: a mid value; derive it from the load profile (IEC 60287-3-2 μ).',
   energyPricePerKWh: '0.15 per kWh: a placeholder; use the project’s tariff.',

@@ -10,6 +10,8 @@ import { describeArrangement, sectionPerPhaseMm2, type SheetCandidate } from '@/
 import type { SheetInputs } from '@/lib/sheet/schema';
 import { formatNumber, formatQuantity } from '@/lib/units';
 import { candidateRow, type CandidateRow, type ComparisonMarks, type ResultState } from './candidateRow';
+import { plainMessage } from './arrangementCheck';
+import { FORMATION_WORDS, governingCableOf, groupMethodWords, otherCircuitWords } from './groupWords';
 
 export interface InputRow {
   section: string;
@@ -67,16 +69,41 @@ export function inputRows(inputs: SheetInputs): InputRow[] {
   }
   rows.push({ section: 'Installation', label: 'Installation', value: INSTALLATION_WORDS[installation.kind], unit: '' });
   if (installation.kind === 'cable-in-air' || installation.kind === 'buried' || (installation.kind === 'enclosure' && installation.enclosureInside === 'cable-in-air')) {
+    const others = installation.otherCircuits;
     rows.push(
-      { section: 'Installation', label: 'Formation', value: installation.formation, unit: '' },
+      { section: 'Installation', label: 'Formation', value: FORMATION_WORDS[installation.formation], unit: '' },
       { section: 'Installation', label: 'Cable spacing (axis to axis)', value: installation.spacingM === null ? 'touching' : n(installation.spacingM * 1000), unit: 'mm' },
+      { section: 'Installation', label: 'Other circuits beside it', value: String(others.length), unit: '' },
+      {
+        section: 'Installation',
+        label: 'Spacing between circuits and runs (centre to centre)',
+        value: installation.circuitSpacingM === null ? 'touching' : n(installation.circuitSpacingM * 1000),
+        unit: 'mm',
+      },
+      { section: 'Installation', label: 'Row of circuits', value: installation.circuitRow, unit: '' },
     );
+    others.forEach((o, i) => rows.push({ section: 'Installation', label: `Other circuit ${i + 1}`, value: otherCircuitWords(o, i), unit: '' }));
+    if (installation.formation !== 'trefoil') rows.push({ section: 'Installation', label: 'Phases transposed', value: installation.transposed ? 'yes' : 'no', unit: '' });
   }
   if (installation.kind === 'buried') {
     rows.push(
       { section: 'Installation', label: 'Depth of the cable axis', value: n(installation.depthM, 3), unit: 'm' },
       { section: 'Installation', label: 'Soil thermal resistivity', value: orAssumed(installation.soilResistivityKmPerW, 3), unit: 'K·m/W' },
       { section: 'Installation', label: 'Ground temperature', value: orAssumed(installation.groundC), unit: '°C' },
+      {
+        section: 'Installation',
+        label: 'Ducts',
+        value: installation.duct.used ? `${installation.duct.material}, ${n(installation.duct.innerDiameterM * 1000)} / ${n(installation.duct.outerDiameterM * 1000)}` : 'none',
+        unit: installation.duct.used ? 'mm inside / outside' : '',
+      },
+      {
+        section: 'Installation',
+        label: 'Backfill',
+        value: installation.backfill.used
+          ? `${n(installation.backfill.widthM, 3)} × ${n(installation.backfill.heightM, 3)} m at ${n(installation.backfill.centreDepthM ?? installation.depthM, 3)} m, ${n(installation.backfill.resistivityKmPerW, 3)}`
+          : 'none',
+        unit: installation.backfill.used ? 'K·m/W' : '',
+      },
     );
   }
   if (installation.kind === 'enclosure') {
@@ -139,6 +166,10 @@ export interface CandidateRecord {
   flagCounts: CandidateRow['flagCounts'];
   flagCodes: string[];
   marks: string[];
+  /** The governing cable of the rated group in words, its conductor temperature (°C) and the method (candidateRow). */
+  governingCable: string | null;
+  governingCableC: number | null;
+  groupMethod: string | null;
   error: string | null;
 }
 
@@ -153,7 +184,7 @@ export interface CandidateResults extends ComparisonMarks {
  * candidateRow; `missing` is the word for a candidate with no result yet ('No saved result' for a
  * snapshot, 'Computing…' on the live sheet).
  */
-export function candidateRecords(candidates: SheetCandidate[], results: CandidateResults | null, missing = 'No saved result'): CandidateRecord[] {
+export function candidateRecords(candidates: SheetCandidate[], results: CandidateResults | null, missing = 'No saved result', otherLabels: readonly string[] = []): CandidateRecord[] {
   return candidates.map((candidate) => {
     const e: CandidateEvaluation | undefined = results?.evaluations.find((x) => x.id === candidate.id);
     const base = {
@@ -190,10 +221,13 @@ export function candidateRecords(candidates: SheetCandidate[], results: Candidat
         flagCounts: { blocker: 0, review: 0, note: 0 },
         flagCodes: [],
         marks: [],
-        error: e && !e.ok ? e.error.message : null,
+        governingCable: null,
+        governingCableC: null,
+        groupMethod: null,
+        error: e && !e.ok ? (e.error.field ? plainMessage(e.error.message, e.error.field) : e.error.message) : null,
       };
     }
-    const row = candidateRow(e, results ?? {});
+    const row = candidateRow(e, results ?? {}, otherLabels);
     return {
       ...base,
       evaluated: true,
@@ -219,6 +253,9 @@ export function candidateRecords(candidates: SheetCandidate[], results: Candidat
       flagCounts: row.flagCounts,
       flagCodes: row.flagCodes,
       marks: row.marks,
+      governingCable: row.governingCable,
+      governingCableC: row.governingCableC,
+      groupMethod: row.groupMethod,
       error: null,
     };
   });
@@ -247,6 +284,9 @@ export const CANDIDATE_EXPORT_COLUMNS: ReadonlyArray<{ header: string; value: (r
   { header: 'conductor mass (kg)', value: (r) => r.massKg },
   { header: 'material cost', value: (r) => r.materialCost },
   { header: 'life-cycle cost', value: (r) => r.lifeCycleCost },
+  { header: 'governing cable', value: (r) => r.governingCable },
+  { header: 'governing cable conductor (°C)', value: (r) => r.governingCableC },
+  { header: 'group rated by', value: (r) => r.groupMethod },
   { header: 'assumption flags', value: (r) => r.flagCodes.join(' ') },
   { header: 'marked', value: (r) => r.marks.join('; ') },
   { header: 'not evaluated because', value: (r) => r.error },
@@ -258,7 +298,7 @@ export interface ChosenResultRow {
 }
 
 /** The chosen candidate's results in words and numbers with units, SI. */
-export function chosenResultRows(e: CandidateEvaluationOk, lengthM: number): ChosenResultRow[] {
+export function chosenResultRows(e: CandidateEvaluationOk, lengthM: number, otherLabels: readonly string[] = []): ChosenResultRow[] {
   const t = (c: number | null | undefined) => (c === null || c === undefined ? '—' : formatQuantity(c, 'temperature', 'si'));
   const sc = e.shortCircuit;
   const vd = e.voltageDrop;
@@ -270,6 +310,7 @@ export function chosenResultRows(e: CandidateEvaluationOk, lengthM: number): Cho
     { label: 'Limit', value: `${t(e.limit.temperatureC)} (${e.limit.layer ?? e.limit.source})` },
     { label: 'Margin', value: e.marginK === null ? '—' : `${formatQuantity(e.marginK, 'temperatureRise', 'si')}${e.marginPercent === null ? '' : ` (${n(e.marginPercent, 3)} % of the allowed rise)`}` },
     { label: 'Ampacity', value: `${n(e.ampacityA)} A` },
+    ...groupRows(e, otherLabels),
     { label: 'Utilisation', value: row.utilisationText },
     { label: 'Ambient used', value: t(e.ambientC) },
     { label: 'Conductor temperature (mean)', value: t(e.conductorC) },
@@ -293,11 +334,24 @@ export function chosenResultRows(e: CandidateEvaluationOk, lengthM: number): Cho
   ];
 }
 
+/** The governing cable and the group's method, for a cable with a rated cross-section. */
+function groupRows(e: CandidateEvaluationOk, otherLabels: readonly string[]): ChosenResultRow[] {
+  if (!e.group) return [];
+  const governing = governingCableOf(e.group, otherLabels);
+  return [
+    {
+      label: 'Governing cable',
+      value: governing ? `${governing.words}${governing.conductorC === null ? '' : `, ${formatQuantity(governing.conductorC, 'temperature', 'si')}`}` : 'none (no steady state)',
+    },
+    { label: 'Group rated by', value: `${groupMethodWords(e.group)}. ${e.group.method}.` },
+  ];
+}
+
 /** What the result rests on, in our words, naming the published methods (physics.md). */
 export const METHOD_LINES: readonly string[] = [
   'Heat balance: steady one-dimensional finite-volume method (Patankar 1980) through the conductor and its coverings, with temperature-dependent Joule heating ρ(T) = ρ20[1 + α20(T − 20 °C)] (IEC 60287-1-1 Table 1 coefficients).',
   'Surfaces: natural convection by the Churchill and Chu (1975) correlations, forced convection by Churchill and Bernstein (1977) or flat-plate correlations, radiation with the Stefan–Boltzmann law, absorbed sun per IEC 60287-2-1 where outdoors.',
-  'Buried cables: external thermal resistance T4 of IEC 60287-2-1. Cables: skin and proximity effects by IEC 60287-1-1 §2.1; bars: the maker’s AC/DC ratio or a plane-conductor lower bound.',
+  'Cables are rated as the group they lie in (physics.md §8): in free air by the IEC 60287-2-1 §4.2.1 surface law of the arrangement (an isolated cable by the correlations and radiation above); in the ground by superposition with images (IEC 60287-2-1 §4.2.3), each cable’s heat at its own temperature, the closed forms of §4.2.4 for a touching trefoil or row, ducts and backfill by §4.2.7; the hottest cable governs. Skin and proximity effects by IEC 60287-1-1 §2.1, screen losses by §2.3 where the screen is given; bars: the maker’s AC/DC ratio or a plane-conductor lower bound.',
   'Ampacity: the highest current at which the governing temperature stays at or under its limit, found by bracketing; cross-checked against an IEC 60287-style closed form.',
   'Voltage drop: IEC 60364-5-52 Annex G. Short circuit: IEC 60949 adiabatic method. Life-cycle cost: IEC 60287-3-2 loss-cost approach, where included.',
 ];

@@ -3,15 +3,58 @@
  * Values left empty on the sheet are left undefined here, so that the library applies its own
  * reference value and raises the flag that says so.
  */
-import type { Candidate, Conditions, Installation } from '../electrical/sizing/types';
+import type { BuriedSurroundings, CableArrangement, Candidate, Conditions, Installation, OtherCircuit } from '../electrical/sizing/types';
 import { toLibraryCandidate } from './candidates';
-import type { SheetInputs } from './schema';
+import type { SheetInputs, SheetOtherCircuit } from './schema';
 
 const orUndefined = <T>(value: T | null): T | undefined => (value === null ? undefined : value);
 
+/**
+ * The circuit's cross-section (physics.md §8): its formation and spacing, the other circuits in one
+ * row beside it and their spacing, transposition. Unentered spacings stay undefined (touching).
+ */
+export function toArrangement(inputs: SheetInputs): CableArrangement {
+  const i = inputs.installation;
+  const arrangement: CableArrangement = { formation: i.formation };
+  if (i.spacingM !== null) arrangement.spacingM = i.spacingM;
+  if (i.otherCircuits.length > 0) {
+    arrangement.otherCircuits = i.otherCircuits.map(toOtherCircuit);
+    arrangement.circuitRow = i.circuitRow;
+  }
+  // The spacing between circuits also places the circuit's own parallel runs.
+  if (i.circuitSpacingM !== null && (i.otherCircuits.length > 0 || inputs.candidates.some((c) => c.parallel > 1))) {
+    arrangement.circuitSpacingM = i.circuitSpacingM;
+    arrangement.circuitRow = i.circuitRow;
+  }
+  if (i.transposed && i.formation !== 'trefoil') arrangement.transposed = true;
+  return arrangement;
+}
+
+function toOtherCircuit(other: SheetOtherCircuit): OtherCircuit {
+  // The schema requires the diameter and the heat when the cable is not the same.
+  if (other.sameCable || other.externalDiameterM === null || other.lossWPerM === null) return { currentA: other.currentA };
+  return { currentA: other.currentA, cable: { externalDiameterM: other.externalDiameterM, lossWPerM: other.lossWPerM } };
+}
+
+/** Ducts and backfill of a buried circuit, when ticked (IEC 60287-2-1 §4.2.7). */
+export function toBuriedSurroundings(inputs: SheetInputs): BuriedSurroundings {
+  const i = inputs.installation;
+  const surroundings: BuriedSurroundings = {};
+  if (i.duct.used) surroundings.duct = { material: i.duct.material, innerDiameterM: i.duct.innerDiameterM, outerDiameterM: i.duct.outerDiameterM };
+  if (i.backfill.used) {
+    surroundings.backfill = {
+      widthM: i.backfill.widthM,
+      heightM: i.backfill.heightM,
+      centreDepthM: i.backfill.centreDepthM ?? i.depthM,
+      resistivityKmPerW: i.backfill.resistivityKmPerW,
+    };
+  }
+  return surroundings;
+}
+
 export function toInstallation(inputs: SheetInputs): Installation {
   const i = inputs.installation;
-  const arrangement = { formation: i.formation, ...(i.spacingM !== null ? { spacingM: i.spacingM } : {}) };
+  const arrangement = toArrangement(inputs);
   switch (i.kind) {
     case 'bar-on-edge':
     case 'bar-flat':
@@ -25,6 +68,7 @@ export function toInstallation(inputs: SheetInputs): Installation {
         ...(i.soilResistivityKmPerW !== null ? { soilResistivityKmPerW: i.soilResistivityKmPerW } : {}),
         ...(i.groundC !== null ? { groundC: i.groundC } : {}),
         ...arrangement,
+        ...toBuriedSurroundings(inputs),
       };
     case 'enclosure':
       return { kind: 'enclosure', deratingFactor: i.enclosureDerating, inside: i.enclosureInside, ...arrangement };

@@ -17,6 +17,9 @@ import { formatNumber } from '@/lib/units';
 import { PDF_FONT_FAMILY, pdfSafeText as safe } from './fonts';
 import { ProfileChart } from './ProfileChart';
 import { OptionalChecksSection } from './OptionalChecksSection';
+import { CrossSectionChart } from './CrossSectionChart';
+import { arrangementSentences, drawingInputOf, governingCableOf, governingText, groupCableRows, groupMethodWords } from '@/lib/sheet/groupWords';
+import { RE_EVALUATION_HEADING, reEvaluationFiguresLine, reEvaluationOf, reEvaluationSentence } from '@/lib/sheet/reEvaluation';
 
 /** What the document needs of a sheet (db/queries/sheets SheetRecord fits). */
 export interface PdfSheet {
@@ -165,12 +168,17 @@ export function SizingSheetDocument({ sheet, generatedAt = new Date() }: { sheet
   const approved = sheet.status === 'approved';
   const snapshot = sheet.result;
   const chosen = chosenEvaluation(snapshot);
-  const records = candidateRecords(sheet.inputs.candidates, snapshot);
+  const records = candidateRecords(sheet.inputs.candidates, snapshot, 'No saved result', sheet.inputs.installation.otherCircuits.map((o) => o.label));
   const flags = snapshot?.chosenFlags ?? [];
   const ackByCode = new Map(sheet.acknowledgements.map((a) => [a.flagCode, a]));
   const tone = toneOf(chosen);
   const inputs = inputRows(sheet.inputs);
   const n = (v: number | null, d = 4) => (v === null ? '—' : formatNumber(v, d));
+  const otherLabels = sheet.inputs.installation.otherCircuits.map((o) => o.label);
+  const reEvaluation = reEvaluationOf(sheet.inputs, snapshot);
+  const arrangement = arrangementSentences(sheet.inputs);
+  const group = chosen?.group ?? null;
+  const governing = group ? governingCableOf(group, otherLabels) : null;
   return (
     <Document
       title={`Sizing sheet ${sheet.circuitTag} rev ${sheet.revision}`}
@@ -203,6 +211,13 @@ export function SizingSheetDocument({ sheet, generatedAt = new Date() }: { sheet
         <View style={styles.caution}>
           <Text>{safe(`Caution. ${CAUTION_TEXT.join(' ')}`)}</Text>
         </View>
+        {reEvaluation ? (
+          <View style={[styles.caution, { borderWidth: 1.5 }]} wrap={false}>
+            <Text style={{ fontWeight: 600, fontSize: 9.5, color: TIGHT.text }}>{safe(RE_EVALUATION_HEADING)}</Text>
+            <Text style={{ marginTop: 2 }}>{safe(reEvaluationSentence(reEvaluation))}</Text>
+            <Text style={{ marginTop: 2, fontWeight: 600 }}>{safe(reEvaluationFiguresLine(reEvaluation))}</Text>
+          </View>
+        ) : null}
 
         <Text style={styles.h2} minPresenceAhead={80}>Result of the chosen candidate</Text>
         {chosen ? (
@@ -227,7 +242,7 @@ export function SizingSheetDocument({ sheet, generatedAt = new Date() }: { sheet
                   { title: 'Quantity', width: '34%' },
                   { title: 'Value', width: '66%' },
                 ]}
-                rows={chosenResultRows(chosen, sheet.inputs.circuit.lengthM).map((r) => [r.label, r.value])}
+                rows={chosenResultRows(chosen, sheet.inputs.circuit.lengthM, otherLabels).map((r) => [r.label, r.value])}
               />
             </View>
           </View>
@@ -242,6 +257,44 @@ export function SizingSheetDocument({ sheet, generatedAt = new Date() }: { sheet
             )}
           </Text>
         )}
+
+        {arrangement.length > 0 ? (
+          <View>
+            <Text style={styles.h2} minPresenceAhead={80}>Cross-section rated</Text>
+            {arrangement.map((line) => (
+              <Text key={line} style={{ marginTop: 1 }}>
+                {safe(line)}
+              </Text>
+            ))}
+            {group && chosen ? (
+              <View style={{ marginTop: 4 }}>
+                <View style={{ flexDirection: 'row', gap: 8 }} wrap={false}>
+                  <CrossSectionChart input={drawingInputOf(group)} widthPt={250} heightPt={170} />
+                  <View style={{ flex: 1 }}>
+                    <Text style={{ fontWeight: 600 }}>{safe(governing ? `${chosen.label}: ${governingText(governing)}` : `${chosen.label}: no cable governs (no steady state at the design current)`)}</Text>
+                    <Text style={[styles.muted, { marginTop: 2 }]}>{safe(`Rated ${groupMethodWords(group)}. ${group.method}.`)}</Text>
+                    <Text style={[styles.muted, { marginTop: 2 }]}>Dark: the circuit rated; red and ringed: the cable that governs; grey: other circuits; dashed: ducts.</Text>
+                  </View>
+                </View>
+                <View style={{ marginTop: 4 }}>
+                  <Table
+                    columns={[
+                      { title: `Cable at ${formatNumber(chosen.designCurrentA, 4)} A`, width: '40%' },
+                      { title: 'Role', width: '21%' },
+                      { title: 'Conductor (°C)', width: '13%', align: 'right' },
+                      { title: 'Surface (°C)', width: '13%', align: 'right' },
+                      { title: 'Heat (W/m)', width: '13%', align: 'right' },
+                    ]}
+                    rows={groupCableRows(group, otherLabels).map((r) => [`${r.governs ? '[governs] ' : ''}${r.cable}`, r.role, n(r.conductorC), n(r.surfaceC), n(r.heatWPerM, 3)])}
+                    bold={(i) => i === group.governingCable}
+                  />
+                </View>
+              </View>
+            ) : chosen && chosen.kind === 'cable' ? (
+              <Text style={[styles.muted, { marginTop: 2 }]}>The saved result of the chosen candidate has no cross-section: it was computed by an earlier method that rated each cable alone.</Text>
+            ) : null}
+          </View>
+        ) : null}
 
         <Text style={styles.h2} minPresenceAhead={60}>{safe(`Assumption flags of the chosen candidate (${flags.length})`)}</Text>
         {flags.length === 0 ? <Text style={styles.muted}>No assumption flags were raised for the chosen candidate.</Text> : flags.map((f) => <FlagItem key={f.code} flag={f} ack={ackByCode.get(f.code)} />)}
@@ -259,16 +312,17 @@ export function SizingSheetDocument({ sheet, generatedAt = new Date() }: { sheet
         ) : (
           <Table
             columns={[
-              { title: 'Candidate', width: '24%' },
-              { title: 'Section/phase (mm²)', width: '9%', align: 'right' },
-              { title: 'Hot spot (°C)', width: '8%', align: 'right' },
-              { title: 'Limit (°C)', width: '7%', align: 'right' },
-              { title: 'Margin (%)', width: '7%', align: 'right' },
-              { title: 'Ampacity (A)', width: '8%', align: 'right' },
-              { title: 'Loss (W/m)', width: '7%', align: 'right' },
+              { title: 'Candidate', width: '18%' },
+              { title: 'Section/phase (mm²)', width: '8%', align: 'right' },
+              { title: 'Hot spot (°C)', width: '7%', align: 'right' },
+              { title: 'Limit (°C)', width: '6%', align: 'right' },
+              { title: 'Margin (%)', width: '6%', align: 'right' },
+              { title: 'Ampacity (A)', width: '7%', align: 'right' },
+              { title: 'Loss (W/m)', width: '6%', align: 'right' },
               { title: 'Voltage drop (%)', width: '7%', align: 'right' },
-              { title: 'Short circuit', width: '8%' },
-              { title: 'Result', width: '15%' },
+              { title: 'Short circuit', width: '7%' },
+              { title: 'Governing cable', width: '14%' },
+              { title: 'Result', width: '14%' },
             ]}
             rows={records.map((r) => [
               `${r.chosen ? '[chosen] ' : ''}${r.label}`,
@@ -280,6 +334,7 @@ export function SizingSheetDocument({ sheet, generatedAt = new Date() }: { sheet
               n(r.lossWPerM, 3),
               n(r.voltageDropPercent, 3),
               r.shortCircuit || '—',
+              r.governingCable === null ? '—' : `${r.governingCable}${r.governingCableC === null ? '' : `, ${n(r.governingCableC)} °C`}`,
               r.evaluated ? `${r.state}${r.marks.length ? ` · ${r.marks.join(', ')}` : ''}` : `${r.state}${r.error ? `: ${r.error}` : ''}`,
             ])}
             bold={(i) => records[i].chosen}

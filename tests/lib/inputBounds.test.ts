@@ -119,6 +119,11 @@ describe('every edge reads the same ranges', () => {
     ['soilResistivityKmPerW', 'installation.soilResistivityKmPerW', null, null],
     ['groundC', 'installation.groundC', null, null],
     ['enclosureDerating', 'installation.enclosureDerating', null, null],
+    // The cross-section of sheet version 5 (issue 17).
+    ['circuitSpacingM', 'installation.circuitSpacingM', 'installation.circuitSpacingM', null],
+    ['ductInnerDiameterM', 'installation.duct.innerDiameterM', null, null],
+    ['backfillWidthM', 'installation.backfill.widthM', null, null],
+    ['backfillResistivityKmPerW', 'installation.backfill.resistivityKmPerW', null, null],
     ['temperatureLimitC', 'limits.temperatureLimitC', 'temperatureLimitC', 'temperature limit (°C)'],
     ['groupingFactor', 'limits.groupingFactor', 'groupingFactor', 'grouping factor'],
     ['surfaceCoefficientWPerM2K', null, 'surfaceCoefficientWPerM2K', null],

@@ -112,7 +112,7 @@ function runCircuit(cand: PreparedCable, cond: PreparedConditions): ArrangementC
   if (cand.cores > 1) return { externalDiameterM: de, formation: 'single', spacing: 'touching' };
   const cableCount: 2 | 3 = cond.phases === 3 ? 3 : 2;
   if (cond.spacingM !== undefined && cond.spacingM < de * (1 - 1e-9)) {
-    throw new ElectricalInputError('conditions.installation.spacingM', `cables overlap: an axis spacing of ${(cond.spacingM * 1000).toPrecision(4)} mm is less than the cable diameter ${(de * 1000).toPrecision(4)} mm`);
+    throw new ElectricalInputError('conditions.installation.spacingM', `Cables overlap: axis spacing ${(cond.spacingM * 1000).toFixed(2)} mm is less than the cable diameter ${(de * 1000).toFixed(2)} mm`);
   }
   const spaced = cond.spacingM !== undefined && cond.spacingM > de * (1 + 1e-9);
   const spacing = spaced ? { spacing: 'spaced' as const, axisSpacingM: cond.spacingM } : { spacing: 'touching' as const };

@@ -54,7 +54,7 @@ describe('every CSV export goes through it', () => {
     const line: ResultLine = {
       rowNumber: 2, circuitTag: '@SUM(1,2)', from: '+cmd', to: 'MSB', designCurrentA: 100, lengthM: 10, family: 'fam', status: 'sized', size: '70', runsPerPhase: 1,
       sectionPerPhaseMm2: 70, hotSpotC: 95.5, limitC: 90, marginK: -5.5, marginPercent: -6.1, ampacityA: 90, utilisation: 1.1, voltageDropPercent: 1.2,
-      shortCircuit: 'not checked', shortCircuitFinalC: null, lossW: 10, massKg: 5, materialCost: '12.00', blockerFlags: 1, reviewFlags: 0, noteFlags: 0, flagText: '-', remark: '',
+      shortCircuit: 'not checked', shortCircuitFinalC: null, lossW: 10, massKg: 5, materialCost: '12.00', blockerFlags: 1, reviewFlags: 0, noteFlags: 0, flagText: '-', remark: '', governingCable: null, groupMethod: null,
     };
     const table = resultsTable([line]);
     const rows = parse(tableToCsv(table));

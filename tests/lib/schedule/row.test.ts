@@ -27,6 +27,11 @@ const GOOD: Record<string, unknown> = {
   'max parallel runs': '',
   'temperature limit (°c)': '',
   'grouping factor': '',
+  formation: '',
+  'axis spacing (mm)': '',
+  'other circuits': '',
+  'other circuit current (a)': '',
+  'circuit spacing (mm)': '',
 };
 
 /** Cells keyed as the reader keys them: by normalised header (case and spaces do not matter). */

@@ -8,8 +8,8 @@ describe('sheet inputs versions 3 and 4', () => {
     const { overTime: _o, alongRun: _a, enclosureAir: _e, ...rest } = current;
     const v2 = { ...rest, schemaVersion: 2, notes: 'kept' };
     const read = readSheetInputs(JSON.parse(JSON.stringify(v2)), 2);
-    expect(SHEET_SCHEMA_VERSION).toBe(4);
-    expect(read.schemaVersion).toBe(4);
+    expect(SHEET_SCHEMA_VERSION).toBe(5);
+    expect(read.schemaVersion).toBe(SHEET_SCHEMA_VERSION);
     expect(read.overTime.checked).toBe(false);
     expect(read.alongRun.checked).toBe(false);
     expect(read.enclosureAir.checked).toBe(false);
@@ -22,7 +22,7 @@ describe('sheet inputs versions 3 and 4', () => {
     const { enclosureAir: _e, ...rest } = current;
     const v3 = { ...rest, schemaVersion: 3, overTime: { ...current.overTime, checked: true, overloadCurrentA: 750 } };
     const read = readSheetInputs(JSON.parse(JSON.stringify(v3)), 3);
-    expect(read.schemaVersion).toBe(4);
+    expect(read.schemaVersion).toBe(SHEET_SCHEMA_VERSION);
     expect(read.overTime).toEqual({ ...current.overTime, checked: true, overloadCurrentA: 750 });
     expect(read.enclosureAir).toEqual(current.enclosureAir);
     expect(read.enclosureAir.checked).toBe(false);

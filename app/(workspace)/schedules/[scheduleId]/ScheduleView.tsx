@@ -262,6 +262,7 @@ function Results({ scheduleId, mayOpenSheet, fileName }: { scheduleId: string; m
       { field: 'ampacityA', headerName: 'Ampacity (A)', type: 'numericColumn', cellClass: 'num', valueFormatter: (p) => fmt(p.value, 1), width: 120 },
       { field: 'voltageDropPercent', headerName: 'Voltage drop (% U₀)', type: 'numericColumn', cellClass: 'num', valueFormatter: (p) => fmt(p.value, 2), width: 150 },
       { field: 'shortCircuit', headerName: 'Short circuit', width: 130 },
+      { field: 'governingCable', headerName: 'Governing cable', width: 240, tooltipField: 'groupMethod', valueFormatter: (p) => p.value ?? '—' },
       { field: 'lossW', headerName: 'Losses (W)', type: 'numericColumn', cellClass: 'num', valueFormatter: (p) => fmt(p.value, 0), width: 110 },
       { field: 'massKg', headerName: 'Conductor mass (kg)', type: 'numericColumn', cellClass: 'num', valueFormatter: (p) => fmt(p.value, 1), width: 150 },
       { field: 'materialCost', headerName: 'Material cost', type: 'numericColumn', cellClass: 'num', width: 120 },
