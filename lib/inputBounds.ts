@@ -87,6 +87,7 @@ export const INPUT_BOUNDS = {
     max: 500_000,
     basis: 'Prospective fault currents of LV/MV systems stay well under 500 kA (common practice); a larger figure is almost surely a unit slip (A for kA).',
   },
+  thirdHarmonicPercent: { label: 'Third-harmonic content', unit: '%', min: 0, max: 100, basis: 'A share of the phase current (IEC 60364-5-52 Annex E).' },
   faultDurationS: { label: 'Clearing time', unit: 's', min: 0, minExclusive: true, max: 60, basis: 'Up to 60 s; the adiabatic method (IEC 60949) is flagged beyond 5 s.' },
 
   // ───────────── surroundings ─────────────

@@ -161,6 +161,7 @@ export const evaluationOkSchema = z
       })
       .optional()
       .meta({ id: 'BusbarPackResult', description: 'A pack of bars at the design current: each bar\'s share of its phase current, loss and temperature (filament method, pack heat balance).' }),
+    harmonics: z.unknown().optional().meta({ description: 'The neutral of a four- or five-core cable under third harmonics (IEC 60364-5-52 Annex E): its current, the reduction factor and the sizing current.' }),
     forces: z
       .object({
         method: z.string(),

@@ -12,7 +12,7 @@ import { ampacityCheck, AMPACITY_TOLERANCE_A, CROSS_CHECK_LIMIT_PERCENT } from '
 import { costsCheck } from './checks/costs';
 import { designPointCheck, NEAR_RUNAWAY_RATIO, SOIL_DRYING_SURFACE_C, solveAtCircuitCurrent, thermalAtDesign } from './checks/designPoint';
 import { forcesCheck } from './checks/forces';
-import { protectionCheck } from './checks/protection';
+import { harmonicsCheck, protectionCheck } from './checks/protection';
 import { packAmpacityCheck, packAt, packThermalAtDesign } from './checks/pack';
 import { shortCircuitCheck } from './checks/shortCircuit';
 import { voltageDropCheck } from './checks/voltageDrop';
@@ -67,6 +67,7 @@ function runChecks(ctx: SizingContext): CandidateEvaluationOk {
   const shortCircuit = shortCircuitCheck(ctx, thermal.hotSpotC);
   const forces = forcesCheck(ctx);
   const protection = protectionCheck(ctx, amp.current, thermal.conductorC);
+  const harmonics = harmonicsCheck(ctx, amp.current);
   const costs = costsCheck(ctx, thermal.lossPerConductorWPerM);
 
   const list = flags.list();
@@ -117,6 +118,7 @@ function runChecks(ctx: SizingContext): CandidateEvaluationOk {
     ...(pack ? { pack } : {}),
     ...(forces ? { forces } : {}),
     ...(protection ? { protection } : {}),
+    ...(harmonics ? { harmonics } : {}),
     flags: list,
     solves: ctx.solves,
   };

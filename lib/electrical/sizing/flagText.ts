@@ -130,6 +130,12 @@ export const PROTECTION_TEXT = {
   assumptions: (items: string[]) => `The disconnection check rests on: ${items.join('; ')}.`,
   peTooSmall: (installedMm2: number, requiredMm2: number, governing: string) =>
     `The protective conductor of ${fmt(installedMm2, 3)} mm² is below the ${fmt(requiredMm2, 3)} mm² required (IEC 60364-5-54 §543.1, the ${governing} rule governing).`,
+  harmonicsNotCovered: (percent: number) =>
+    `A third-harmonic content of ${fmt(percent, 3)} % was entered; IEC 60364-5-52 Annex E gives the neutral's derating for four- and five-core cables only, so for this circuit the neutral conductor's heating is not checked here.`,
+  neutralGoverns: (neutralA: number, sizingA: number) =>
+    `The third harmonics add up in the neutral: ${fmt(neutralA, 4)} A, more than the phase current, so the neutral governs the sizing (${fmt(sizingA, 4)} A with the Annex E factor).`,
+  harmonicsOverRating: (sizingA: number, ratingA: number, basis: string) =>
+    `With the third harmonics the cable must carry ${fmt(sizingA, 4)} A (${basis}), above its rating of ${fmt(ratingA, 4)} A.`,
   disconnectionNotChecked: () =>
     'The source impedance or the protective conductor was not given, so automatic disconnection (IEC 60364-4-41 §411) and the protective conductor (IEC 60364-5-54 §543.1) were not checked.',
 } as const;

@@ -65,6 +65,9 @@ const STEADY_FLAG_CODES = [
   'PROTECTION_ASSUMPTIONS',
   'PROTECTIVE_CONDUCTOR_TOO_SMALL',
   'DISCONNECTION_NOT_CHECKED',
+  'HARMONICS_NOT_COVERED',
+  'HARMONICS_NEUTRAL_GOVERNS',
+  'HARMONICS_OVER_RATING',
   ...BUSBAR_FLAG_CODES,
 ] as const;
 
@@ -150,6 +153,9 @@ export const FLAG_REGISTRY: Readonly<Record<FlagCode, Readonly<FlagDefinition>>>
   PROTECTION_DISCONNECTION_TOO_SLOW: { severity: 'blocker', title: 'Earth fault not disconnected in time', basis: 'IEC 60364-4-41 §411 (Table 41.1)' },
   PROTECTION_ASSUMPTIONS: { severity: 'review', title: 'Assumptions of the disconnection check', basis: 'IEC 60364-4-41 §411; IEC 60909-0 c_min' },
   PROTECTIVE_CONDUCTOR_TOO_SMALL: { severity: 'blocker', title: 'Protective conductor too small', basis: 'IEC 60364-5-54 §543.1' },
+  HARMONICS_NOT_COVERED: { severity: 'review', title: 'Third harmonics outside the method', basis: 'IEC 60364-5-52 Annex E (four- and five-core cables)' },
+  HARMONICS_NEUTRAL_GOVERNS: { severity: 'note', title: 'The neutral governs under third harmonics', basis: 'IEC 60364-5-52 Annex E' },
+  HARMONICS_OVER_RATING: { severity: 'blocker', title: 'Rating exceeded with third harmonics', basis: 'IEC 60364-5-52 Annex E reduction factors (from memory)' },
   DISCONNECTION_NOT_CHECKED: { severity: 'review', title: 'Automatic disconnection not checked', basis: 'IEC 60364-4-41 §411 (needs the source impedance and the protective conductor)' },
   FILAMENT_MESH_COARSENED: { severity: 'review', title: 'Filament mesh of the bars coarsened', basis: 'filament method: the mesh limited to keep the solve within seconds' },
   FORCES_NOT_CHECKED: { severity: 'review', title: 'Short-circuit forces not checked', basis: 'IEC 60865-1 (needs the support span and arrangement)' },

@@ -202,6 +202,7 @@ export function prepareConditions(c: Conditions): PreparedConditions {
     backfill: arrangement.backfill,
     ...(busbarSystem ? { busbarSystem } : {}),
     ...(protection ? { protection } : {}),
+    thirdHarmonicFraction: (checkOptionalBound('thirdHarmonicPercent', c.thirdHarmonicPercent, f('thirdHarmonicPercent')) ?? 0) / 100,
     buried,
     windSpeedMPerS,
     solar,

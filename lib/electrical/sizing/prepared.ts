@@ -34,6 +34,8 @@ export interface PreparedConditions {
   transposed: boolean;
   duct?: NonNullable<BuriedSurroundings['duct']>;
   protection?: ProtectionConditions;
+  /** Third-harmonic content of the phase current, as a fraction. */
+  thirdHarmonicFraction: number;
   /** The bus-bar system a bar belongs to (phase spacing, supports), when described. */
   busbarSystem?: BusbarSystemConditions;
   backfill?: NonNullable<BuriedSurroundings['backfill']>;

@@ -5,7 +5,7 @@
 import type { ConductorMaterial } from '../materials';
 import type { MoneyInput } from '../economics';
 import type { AssumptionFlag } from './flags';
-import type { ProtectiveDevice } from '../protection';
+import type { HarmonicSizingResult, ProtectiveDevice } from '../protection';
 import type { ProtectionResult } from './checks/protection';
 
 // ───────────────────────────── Candidate ─────────────────────────────
@@ -255,6 +255,8 @@ export interface Conditions {
   economics?: EconomicsInputs;
   /** The circuit's protective device and earth-fault loop (physics.md §11); without it those checks are not run (flagged). */
   protection?: ProtectionConditions;
+  /** Third-harmonic content of the phase current, % (IEC 60364-5-52 Annex E: the neutral of four- and five-core cables). */
+  thirdHarmonicPercent?: number;
 }
 
 /** Protection of the circuit (IEC 60364-4-41, -4-43, -5-54; lib/electrical/protection). */
@@ -414,6 +416,8 @@ export interface CandidateEvaluationOk {
   forces?: ForcesResult;
   /** Overload coordination, automatic disconnection and the protective conductor (when a device is given). */
   protection?: ProtectionResult;
+  /** The neutral under third harmonics (IEC 60364-5-52 Annex E), when a content is given for a four- or five-core cable. */
+  harmonics?: HarmonicSizingResult;
   flags: AssumptionFlag[];
   solves: number;
   isSmallestPassing?: boolean;

@@ -181,6 +181,10 @@ const cases: Record<Exclude<FlagCode, BeyondSteadyFlagCode | Retired>, () => { c
     candidate: xlpeCable(95),
     conditions: cableConditions({ lengthM: 20, protection: { device: { kind: 'breaker-iec60898-1', curve: 'C', ratedCurrentA: 250 }, source: { resistanceOhm: 0.005, reactanceOhm: 0.01 }, protectiveConductor: { sectionMm2: 1.5 } } }),
   }),
+  HARMONICS_NOT_COVERED: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ thirdHarmonicPercent: 30 }) }),
+  // A four-core cable with 40 % third harmonics: the neutral carries 3·0.4·I_B = 1.2·I_B (Annex E).
+  HARMONICS_NEUTRAL_GOVERNS: () => ({ candidate: xlpeCable(95, { cores: 4 }), conditions: cableConditions({ designCurrentA: 100, thirdHarmonicPercent: 40 }) }),
+  HARMONICS_OVER_RATING: () => ({ candidate: xlpeCable(16, { cores: 4 }), conditions: cableConditions({ designCurrentA: 60, thirdHarmonicPercent: 50 }) }),
   SHEATH_LOSSES_NOT_INCLUDED: () => {
     const c = xlpeCable(95);
     c.layers = [c.layers[0], { name: 'copper wire screen', role: 'screen', thicknessM: 0.5e-3, thermalResistivityKmPerW: 0.0025 }, c.layers[1]];

@@ -12,6 +12,8 @@
  */
 import { materialConstants } from '../../materials';
 import {
+  harmonicNeutralSizing,
+  type HarmonicSizingResult,
   automaticDisconnection,
   overloadCoordination,
   protectiveConductorSection,
@@ -99,4 +101,24 @@ export function protectionCheck(ctx: SizingContext, ampacityA: number, conductor
     flags.add('DISCONNECTION_NOT_CHECKED', PROTECTION_TEXT.disconnectionNotChecked());
   }
   return { coordination, smallestRating, disconnection, protectiveConductor };
+}
+
+/**
+ * Check: third harmonics and the neutral of a four- or five-core cable, IEC 60364-5-52 Annex E:
+ * the sizing current (the phase current, or the neutral's 3·h₃·I_B) over the Annex E reduction
+ * factor must not exceed I_z. Other cables with a notable content are flagged: Annex E covers
+ * multi-core cables with the neutral inside.
+ */
+export function harmonicsCheck(ctx: SizingContext, ampacityA: number): HarmonicSizingResult | null {
+  const { cand, cond, flags } = ctx;
+  const h = cond.thirdHarmonicFraction;
+  if (!(h > 0)) return null;
+  if (cand.kind !== 'cable' || (cand.cores !== 4 && cand.cores !== 5)) {
+    if (h > 0.15) flags.add('HARMONICS_NOT_COVERED', PROTECTION_TEXT.harmonicsNotCovered(100 * h));
+    return null;
+  }
+  const r = harmonicNeutralSizing({ designCurrentA: cond.designCurrentA, thirdHarmonicFraction: h, cores: cand.cores });
+  if (r.governing === 'neutral') flags.add('HARMONICS_NEUTRAL_GOVERNS', PROTECTION_TEXT.neutralGoverns(r.neutralCurrentA, r.sizingCurrentA), { neutralCurrentA: r.neutralCurrentA });
+  if (r.sizingCurrentA > ampacityA) flags.add('HARMONICS_OVER_RATING', PROTECTION_TEXT.harmonicsOverRating(r.sizingCurrentA, ampacityA, r.basis), { sizingCurrentA: r.sizingCurrentA });
+  return r;
 }
