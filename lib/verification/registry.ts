@@ -9,6 +9,7 @@ import { electricalCases } from './cases/electrical';
 import { jouleCases } from './cases/joule';
 import { linearAlgebraCases } from './cases/linearAlgebra';
 import { surfaceCases } from './cases/surfaces';
+import { tabulatedCases } from './cases/tabulated';
 import { METHOD_AREAS, type MethodArea, type VerificationCase } from './types';
 
 export const verificationCases: readonly VerificationCase[] = Object.freeze([
@@ -18,6 +19,7 @@ export const verificationCases: readonly VerificationCase[] = Object.freeze([
   ...electricalCases,
   ...ampacityCases,
   ...catalogueCases,
+  ...tabulatedCases,
   ...linearAlgebraCases,
 ]);
 

@@ -206,7 +206,7 @@ export function prepareCurrentDistribution(input: {
       system.arrangement === 'edge'
         ? meshRectangle(kept.rect, {
             cellsX: mesh.cellsAcrossThickness,
-            cellsY: mesh.cellsAlongWidth / 2,
+            cellsY: Math.max(1, Math.ceil(mesh.cellsAlongWidth / 2)),
             gradingX: 'both',
             gradingY: 'high',
             beta: mesh.beta,
@@ -380,7 +380,7 @@ export function isolatedBarAcFactor(args: {
   if (frequencyHz === 0) return { acFactor: 1, unknowns: 0, mesh };
   const cells = meshRectangle(
     { cxM: thicknessM / 4, cyM: widthM / 4, sizeXM: thicknessM / 2, sizeYM: widthM / 2 },
-    { cellsX: Math.max(1, Math.ceil(mesh.cellsAcrossThickness / 2)), cellsY: Math.max(1, mesh.cellsAlongWidth / 2), gradingX: 'high', gradingY: 'high', beta: mesh.beta },
+    { cellsX: Math.max(1, Math.ceil(mesh.cellsAcrossThickness / 2)), cellsY: Math.max(1, Math.ceil(mesh.cellsAlongWidth / 2)), gradingX: 'high', gradingY: 'high', beta: mesh.beta },
   );
   const filaments: Filament[] = cells.map((c) => ({ ...c, resistivityOhmM: rho, group: 0, tag: 0 }));
   const s = solveFilaments({ filaments, groupCurrents: [{ re: 1, im: 0 }], frequencyHz, mirror: { x: true, y: true } });

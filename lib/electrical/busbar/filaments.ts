@@ -351,6 +351,10 @@ export interface RectangleMesh {
 
 /** Cuts a rectangle into cellsX × cellsY graded rectangles. */
 export function meshRectangle(rect: BusbarRectangle, mesh: RectangleMesh): BusbarRectangle[] {
+  // A fractional count would leave the last break short of the edge: a cell of negative size.
+  if (!(Number.isInteger(mesh.cellsX) && mesh.cellsX >= 1 && Number.isInteger(mesh.cellsY) && mesh.cellsY >= 1)) {
+    throw new Error(`meshRectangle: cell counts must be whole numbers ≥ 1 (got ${mesh.cellsX} × ${mesh.cellsY})`);
+  }
   const breaks = (cells: number, grading: RectangleMesh['gradingX']) =>
     grading === 'uniform' ? gradedBreaks(cells, 'both', 0) : gradedBreaks(cells, grading, mesh.beta);
   const bx = breaks(mesh.cellsX, mesh.gradingX);

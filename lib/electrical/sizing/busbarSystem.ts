@@ -122,7 +122,8 @@ function meshWithinBudget(system: PreparedBusbarSystem, resistivityOhmM: number,
   const mesh = defaultMesh(system.barWidthM, system.barThicknessM, frequencyHz > 0 ? skinDepth(resistivityOhmM, frequencyHz) : Number.POSITIVE_INFINITY);
   const bars = system.bars.length;
   if (bars * mesh.cellsAcrossThickness * mesh.cellsAlongWidth <= FILAMENT_BUDGET) return { mesh, coarsened: false };
-  const along = Math.max(4, Math.floor(FILAMENT_BUDGET / (bars * mesh.cellsAcrossThickness)));
+  // Even, so that the quarter kept by the mirrors holds whole cells.
+  const along = Math.max(4, 2 * Math.floor(FILAMENT_BUDGET / (2 * bars * mesh.cellsAcrossThickness)));
   const across = bars * mesh.cellsAcrossThickness * along > FILAMENT_BUDGET ? Math.max(2, Math.floor(FILAMENT_BUDGET / (bars * along))) : mesh.cellsAcrossThickness;
   return { mesh: { ...mesh, cellsAlongWidth: along, cellsAcrossThickness: across }, coarsened: true };
 }

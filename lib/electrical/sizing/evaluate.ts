@@ -35,7 +35,8 @@ export { AMPACITY_TOLERANCE_A, CROSS_CHECK_LIMIT_PERCENT, NEAR_RUNAWAY_RATIO, SO
  */
 export function ampacity(candidate: Candidate, conditions: Conditions): AmpacityResult {
   const ctx = sizingContext(candidate, prepareConditions(conditions), 0);
-  const result = ampacityCheck(ctx);
+  // The same model as the sheet's: a pack is rated as a system, never as n × one bar.
+  const result = ctx.busbar?.pack ? packAmpacityCheck(ctx, ctx.busbar) : ampacityCheck(ctx);
   result.flags = ctx.flags.list();
   return result;
 }

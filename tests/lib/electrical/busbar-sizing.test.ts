@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { evaluateCandidate, type CandidateEvaluationOk } from '@/lib/electrical';
+import { ampacity, evaluateCandidate, type CandidateEvaluationOk } from '@/lib/electrical';
 import { packRatingBreakdown, prepareBusbarSystem, rateIsolatedBar } from '@/lib/electrical/busbar';
 import { barConditions, copperBar } from './fixtures';
 
@@ -68,6 +68,16 @@ describe('bad bus-bar geometry is refused with the field named', () => {
     const e = evaluateCandidate(painted(4), { ...conditions(), installation: { kind: 'bar-on-edge', system: { phaseSpacingM: 0.05 } } });
     expect(e.ok).toBe(false);
     if (!e.ok) expect(e.error.field).toMatch(/^conditions\.installation\.system\./);
+  });
+});
+
+describe('the ampacity call rates a pack with the same model as the sheet', () => {
+  // Regression: /api/v1/ampacity (and the verification page) called ampacity(), which rated a pack
+  // as bars in one slab and answered 5,250 A where the sheet's system model gives 3,376 A.
+  it("ampacity() of four 100 × 10 mm bars per phase is the evaluation's pack ampacity", () => {
+    const e = ok(evaluateCandidate(painted(4), conditions()));
+    const a = ampacity(painted(4), conditions());
+    expect(a.current).toBeCloseTo(e.ampacityA, 6);
   });
 });
 

@@ -242,7 +242,13 @@ describe('linear-algebra references: the in-case dense solver against mathjs lus
 describe('links from the sizing sheet', () => {
   it('casesForMethod returns the cases of one area or several, with their page anchors', () => {
     const ampacityLinks = casesForMethod('ampacity');
-    expect(ampacityLinks.map((l) => l.id)).toEqual(['ampacity-buried-dc', 'ampacity-air-ac-fixed-h']);
+    expect(ampacityLinks.map((l) => l.id)).toEqual([
+      'ampacity-buried-dc',
+      'ampacity-air-ac-fixed-h',
+      'tabulated-cu-xlpe-240-trefoil-air',
+      'tabulated-cu-xlpe-240-flat-air',
+      'tabulated-bar-100x10',
+    ]);
     expect(ampacityLinks[0].href).toBe('/verification#case-ampacity-buried-dc');
     const both = casesForMethod(['voltage-drop', 'short-circuit']);
     expect(both.every((l) => l.area === 'voltage-drop' || l.area === 'short-circuit')).toBe(true);

@@ -191,3 +191,18 @@ describe('filament method: circuit laws', () => {
     expect(half.totalLossWPerM).toBeCloseTo(whole.totalLossWPerM, 10);
   });
 });
+
+describe('meshRectangle holds whole cells only', () => {
+  // A half count (a coarsened mesh of odd cells along the width, halved by a mirror) once left the
+  // last cell short of the edge with a negative size; the request then failed deep in the solve.
+  it('refuses a fractional or zero cell count and tiles the rectangle exactly otherwise', () => {
+    const rect = { cxM: 0.005, cyM: 0.025, sizeXM: 0.01, sizeYM: 0.05 };
+    expect(() => meshRectangle(rect, { cellsX: 4, cellsY: 16.5, gradingX: 'both', gradingY: 'high', beta: 0.8 })).toThrow(/whole numbers/);
+    expect(() => meshRectangle(rect, { cellsX: 0, cellsY: 4, gradingX: 'both', gradingY: 'high', beta: 0.8 })).toThrow(/whole numbers/);
+    const cells = meshRectangle(rect, { cellsX: 3, cellsY: 17, gradingX: 'both', gradingY: 'high', beta: 0.8 });
+    expect(cells).toHaveLength(51);
+    for (const c of cells) expect(Math.min(c.sizeXM, c.sizeYM)).toBeGreaterThan(0);
+    const area = cells.reduce((s, c) => s + c.sizeXM * c.sizeYM, 0);
+    expect(area).toBeCloseTo(0.01 * 0.05, 12);
+  });
+});
