@@ -112,7 +112,7 @@ const BUILD_COLUMNS: ColumnSpec[] = [
   { field: 'name', header: 'name', label: 'Name', type: 'text', required: true, hint: 'What a designer picks, e.g. 240 mm² copper XLPE/PVC single-core.' },
   { field: 'maker', header: 'maker', label: 'Maker', type: 'text', required: true, hint: 'Supplier or "Demo build".' },
   { field: 'conductorKey', header: 'conductor_key', label: 'Conductor', type: 'reference', references: 'conductors', required: true, hint: 'Key of a round conductor in this catalogue.' },
-  { field: 'cores', header: 'cores', label: 'Cores', type: 'integer', required: true, hint: 'Number of cores, 1–7.' },
+  { field: 'cores', header: 'cores', label: 'Cores', type: 'integer', required: true, hint: 'Number of cores, 1–5.' },
   { field: 'note', header: 'note', label: 'Note', type: 'text', required: false, hint: 'Anything a designer should know.' },
   ...layerColumns(),
 ];

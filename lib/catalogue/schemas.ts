@@ -147,6 +147,9 @@ const layerShape = {
   layer4Source: optionalText(),
 } satisfies Record<LayerFieldName, z.ZodType>;
 
+/** The sizing layer computes cables of these many cores (lib/inputBounds): a build outside them could never be sized. */
+const CORES_WORDS = `must be a whole number from ${INPUT_BOUNDS.cores.min} to ${INPUT_BOUNDS.cores.max}`;
+
 export const buildRowSchema = z
   .object({
     key: keyField,
@@ -156,10 +159,10 @@ export const buildRowSchema = z
     cores: z.preprocess(
       (v) => (typeof v === 'string' && v.trim() !== '' ? Number(v.trim()) : v),
       z
-        .number({ error: 'must be a whole number from 1 to 7' })
-        .int('must be a whole number from 1 to 7')
-        .min(1, 'must be a whole number from 1 to 7')
-        .max(7, 'must be a whole number from 1 to 7'),
+        .number({ error: CORES_WORDS })
+        .int(CORES_WORDS)
+        .min(INPUT_BOUNDS.cores.min, CORES_WORDS)
+        .max(INPUT_BOUNDS.cores.max, CORES_WORDS),
     ),
     note: optionalText(),
     ...layerShape,

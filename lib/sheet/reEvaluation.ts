@@ -40,15 +40,19 @@ export function methodVersionNumber(solverVersion: string): string {
   return /\/(\d+(?:\.\d+)+)/.exec(solverVersion)?.[1] ?? /(\d+(?:\.\d+)+)/.exec(solverVersion)?.[1] ?? 'unknown';
 }
 
-/** Versions before 0.2.0 rated every cable alone (lib/electrical/version.ts history). */
-function ratedCablesAlone(solverVersion: string): boolean {
+/** Before 0.2.0 every cable was rated alone; before 0.3.0 bar packs and multi-core cables were approximated (lib/electrical/version.ts history). */
+function earlierThan(solverVersion: string, minorWanted: number): boolean {
   const [major, minor] = methodVersionNumber(solverVersion).split('.').map(Number);
-  return Number.isFinite(major) && Number.isFinite(minor) && (major < 0 || (major === 0 && minor < 2));
+  return Number.isFinite(major) && Number.isFinite(minor) && (major < 0 || (major === 0 && minor < minorWanted));
 }
 
 /** The explanation under the heading. */
 export function reEvaluationSentence(r: ReEvaluation): string {
-  const what = ratedCablesAlone(r.savedSolverVersion) ? ', which rated each cable alone, not as the group it lies in' : '';
+  const what = earlierThan(r.savedSolverVersion, 2)
+    ? ', which rated each cable alone, not as the group it lies in'
+    : earlierThan(r.savedSolverVersion, 3)
+      ? ', which rated a pack of bars as separate bars and a multi-core cable as one round conductor'
+      : '';
   return `This sheet’s saved result was computed by an earlier version of the method (version ${methodVersionNumber(r.savedSolverVersion)}; now ${methodVersionNumber(r.currentSolverVersion)})${what}. The saved result is kept as it was reviewed; open the sheet and save it again (a new revision if it is approved) to store a result by the current method.`;
 }
 

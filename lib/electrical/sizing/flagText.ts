@@ -39,8 +39,8 @@ export const ENTERED_TEXT = {
 } as const;
 
 export const MODEL_TEXT = {
-  multicore: (cores: number, loadedCores: number) =>
-    `This ${cores}-core cable is modelled as one round conductor of the ${loadedCores} loaded cores' total section inside the listed coverings; the real heat path between cores differs (IEC 60287-2-1 uses a geometric factor).`,
+  multicoreGeometry: (cores: number, loadedCores: number, t1KmPerW: number, outerDiameterM: number, mediumBasis: string) =>
+    `The heat path of this ${cores}-core cable (${loadedCores} loaded) is solved in two dimensions between round cores laid up touching and the sheath (${mediumBasis}): T₁ = ${fmt(t1KmPerW, 4)} K·m/W per loaded core, overall diameter ${fmt(outerDiameterM * 1000)} mm from the layers. Sector-shaped conductors (common in low-voltage cables from about 35 mm²) and the maker's own dimensions differ; compare the diameter with the datasheet.`,
   sheathLosses: () =>
     'The cable has a metallic screen or armour; currents induced in it (IEC 60287-1-1 loss factors λ₁, λ₂) are not included, which is optimistic for single-core cables bonded at both ends.',
   cableParallelSharing: (parallel: number) =>

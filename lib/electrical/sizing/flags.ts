@@ -36,6 +36,7 @@ const STEADY_FLAG_CODES = [
   'SHORT_CIRCUIT_EXCEEDED',
   'SHORT_CIRCUIT_LONG_DURATION',
   'MULTICORE_APPROXIMATION',
+  'MULTICORE_ROUND_CORES',
   'DATA_FROM_MEMORY',
   'MULTI_BAR_INNER_FACES',
   'PARALLEL_SHARING_ASSUMED',
@@ -91,7 +92,7 @@ export const FLAG_CODES = [...STEADY_FLAG_CODES, ...BEYOND_STEADY_FLAG_CODES] as
  * Codes no evaluation raises any more — the method they qualified was replaced (bars' AC factor
  * and packs are computed since solver 0.2.0) — kept so that stored sheets read and show them.
  */
-export const RETIRED_FLAG_CODES = ['AC_FACTOR_LOWER_BOUND', 'MULTI_BAR_INNER_FACES'] as const;
+export const RETIRED_FLAG_CODES = ['AC_FACTOR_LOWER_BOUND', 'MULTI_BAR_INNER_FACES', 'MULTICORE_APPROXIMATION'] as const;
 
 export type FlagCode = (typeof FLAG_CODES)[number];
 export type BeyondSteadyFlagCode = (typeof BEYOND_STEADY_FLAG_CODES)[number];
@@ -130,6 +131,11 @@ export const FLAG_REGISTRY: Readonly<Record<FlagCode, Readonly<FlagDefinition>>>
   SHORT_CIRCUIT_EXCEEDED: { severity: 'blocker', title: 'Short-circuit temperature above the limit', basis: 'IEC 60949 adiabatic method' },
   SHORT_CIRCUIT_LONG_DURATION: { severity: 'note', title: 'Fault longer than the adiabatic range', basis: 'IEC 60949 / IEC 60364-4-43 (adiabatic up to 5 s, from memory)' },
   MULTICORE_APPROXIMATION: { severity: 'review', title: 'Multi-core cable approximated', basis: 'physics.md §3' },
+  MULTICORE_ROUND_CORES: {
+    severity: 'review',
+    title: 'Multi-core heat path computed for round cores laid up touching',
+    basis: 'IEC 60287-2-1 §4.1.2 (T₁ of multi-core cables: isothermal conductors and sheath), solved in two dimensions',
+  },
   DATA_FROM_MEMORY: { severity: 'review', title: 'Data entered from memory', basis: 'physics.md §5; references.md' },
   MULTI_BAR_INNER_FACES: { severity: 'review', title: 'Inner faces of a multi-bar pack', basis: 'physics.md §3' },
   PARALLEL_SHARING_ASSUMED: { severity: 'review', title: 'Equal current sharing between parallel conductors assumed', basis: 'common practice' },

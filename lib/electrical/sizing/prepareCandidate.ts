@@ -6,6 +6,7 @@
 import { ElectricalInputError, requireInteger, requireNonNegative, requireRange } from '../errors';
 import { materialConstants, type ConductorMaterialConstants } from '../materials';
 import { toMoney } from '../economics';
+import { effectiveInternalLayer, multicoreCableThermal } from '../multicore';
 import { checkBound } from '../../inputBounds';
 import { DEFAULT_TEXT, ENTERED_TEXT, MODEL_TEXT } from './flagText';
 import { FlagSet, fmt } from './flags';
@@ -162,7 +163,9 @@ function prepareCable(cand: CableCandidate, p: CommonPrep): PreparedCable {
   }
   const loadedCores = cores === 1 ? 1 : Math.min(cores, conditions.phases === 3 ? 3 : 2);
   const equivalentDiameter = dc * Math.sqrt(loadedCores);
-  const outerDiameterM = equivalentDiameter + 2 * layers.reduce((s, l) => s + l.thicknessM, 0);
+  const multicore = cores > 1 ? multicoreHeatPath(cores, loadedCores, dc, layers) : undefined;
+  if (multicore) layers.splice(0, layers.length, ...multicore.layers);
+  const outerDiameterM = multicore ? multicore.thermal.outerDiameterM : equivalentDiameter + 2 * layers.reduce((s, l) => s + l.thicknessM, 0);
   if (conditions.buried && conditions.buried.depthM <= outerDiameterM / 2) {
     throw new ElectricalInputError('conditions.installation.depthM', `the cable axis must be deeper than its radius (${fmt(outerDiameterM / 2)} m)`);
   }
@@ -171,7 +174,15 @@ function prepareCable(cand: CableCandidate, p: CommonPrep): PreparedCable {
     if (emissivityAssumed && conditions.surfaceCoefficientWPerM2K === undefined && conditions.placement !== 'buried') {
       flags.add('EMISSIVITY_ASSUMED', DEFAULT_TEXT.cableEmissivity(DEFAULT_CABLE_EMISSIVITY));
     }
-    if (cores > 1) flags.add('MULTICORE_APPROXIMATION', MODEL_TEXT.multicore(cores, loadedCores), { cores, loadedCores });
+    if (multicore) {
+      const t = multicore.thermal;
+      flags.add('MULTICORE_ROUND_CORES', MODEL_TEXT.multicoreGeometry(cores, loadedCores, t.perCoreT1KmPerW[t.hottestCore] ?? 0, t.outerDiameterM, t.mediumResistivityBasis), {
+        cores,
+        loadedCores,
+        t1KmPerW: t.perCoreT1KmPerW[t.hottestCore] ?? 0,
+        outerDiameterM: t.outerDiameterM,
+      });
+    }
     if (hasMetallicLayer && conditions.frequencyHz > 0 && screen === undefined) flags.add('SHEATH_LOSSES_NOT_INCLUDED', MODEL_TEXT.sheathLosses());
     if (p.parallel > 1) flags.add('PARALLEL_SHARING_ASSUMED', MODEL_TEXT.cableParallelSharing(p.parallel), { parallel: p.parallel });
   }
@@ -205,6 +216,60 @@ function prepareCable(cand: CableCandidate, p: CommonPrep): PreparedCable {
     ...(screen ? { screen } : {}),
     ...(screenLayerIndex >= 0 ? { screenLayerIndex } : {}),
   };
+}
+
+/**
+ * The heat path inside a multi-core cable (issue 21, item 5): the cores laid up touching on one
+ * circle, the insulation and fillers between them and the sheath solved in two dimensions
+ * (lib/electrical/multicore: isothermal conductors and sheath, as IEC 60287-2-1 takes them), each
+ * loaded core giving off the same loss. The one-conductor radial model keeps its equivalent
+ * conductor d_c·√n (so that J and the heat per metre are the loaded cores'), and the first layer
+ * becomes the one medium from it to the sheath's bore with the resistance that puts the
+ * equivalent conductor at the hottest core's temperature; the layers outside (sheath, armour,
+ * jacket) stay as they are, on the computed diameter under the sheath.
+ *
+ * Layers: the first is each core's insulation; the layers right after it with role 'filler' or
+ * 'bedding' are the inner covering between the laid-up cores and the sheath; the rest are
+ * concentric coverings over the whole cable.
+ */
+function multicoreHeatPath(cores: number, loadedCores: number, dc: number, layers: PreparedLayer[]) {
+  const insulation = layers[0];
+  let k = 1;
+  while (k < layers.length && (layers[k].role === 'filler' || layers[k].role === 'bedding')) k++;
+  const inner = layers.slice(1, k);
+  const outer = layers.slice(k);
+  const innerThicknessM = inner.reduce((s, l) => s + l.thicknessM, 0);
+  const insulationRho = 1 / insulation.conductivityWPerMK;
+  // The fillers between the cores are of the inner covering's material when one is listed.
+  const fillerRho = inner.length > 0 ? Math.max(...inner.map((l) => 1 / l.conductivityWPerMK)) : insulationRho;
+  const thermal = multicoreCableThermal({
+    cores,
+    conductorDiameterM: dc,
+    insulationThicknessM: insulation.thicknessM,
+    insulationResistivityKmPerW: insulationRho,
+    fillerResistivityKmPerW: fillerRho,
+    innerCoveringThicknessM: innerThicknessM,
+    coreLossesWPerM: Array.from({ length: cores }, (_, i) => (i < loadedCores ? 1 : 0)),
+    outerLayers: outer.map((l) => ({ name: l.name, thicknessM: l.thicknessM, thermalResistivityKmPerW: 1 / l.conductivityWPerMK })),
+  });
+  const effective = effectiveInternalLayer({
+    internalResistanceForTotalKmPerW: thermal.internalResistanceForTotalKmPerW,
+    radiusUnderSheathM: thermal.radiusUnderSheathM,
+    conductorDiameterM: dc * Math.sqrt(loadedCores),
+  });
+  // A limit of the inner covering's own applies at the conductor's temperature here (it touches
+  // the cores' insulation, which is at most that hot): cautious.
+  const innerLimits = inner.map((l) => l.limitC).filter((c): c is number => c !== undefined);
+  const merged: PreparedLayer = {
+    name: `${insulation.name} and fillers, ${cores} cores laid up (two-dimensional heat path)`,
+    role: 'insulation',
+    thicknessM: effective.thicknessM,
+    conductivityWPerMK: 1 / effective.thermalResistivityKmPerW,
+    ...(innerLimits.length > 0 ? { limitC: Math.min(...innerLimits) } : {}),
+    contact: true,
+  };
+  if (merged.limitC !== undefined) merged.contact = false;
+  return { thermal, layers: [merged, ...outer] };
 }
 
 function prepareBar(cand: BarCandidate, p: CommonPrep): PreparedBar {

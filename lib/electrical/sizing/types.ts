@@ -59,7 +59,12 @@ export interface CableCandidate extends CandidateCommon {
   sectionMm2: number;
   /** Conductor diameter d_c, m (catalogue; sets the geometry and the proximity effect). */
   conductorDiameterM: number;
-  /** Number of cores; more than one is approximated (MULTICORE_APPROXIMATION). Default 1. */
+  /**
+   * Number of cores (1–5). For more than one, the first layer is each core's insulation, the
+   * 'filler'/'bedding' layers after it the inner covering, the rest the coverings over the whole
+   * cable; the heat path between the cores is solved in two dimensions (MULTICORE_ROUND_CORES).
+   * Default 1.
+   */
   cores?: number;
   /** Coverings from the conductor outwards; the first is in contact with the conductor. */
   layers: CableLayer[];

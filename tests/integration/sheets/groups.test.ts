@@ -142,7 +142,7 @@ describe('a sheet saved by the isolated-cable solver', () => {
     expect(text).toContain(fold(RE_EVALUATION_HEADING));
     expect(text).toContain(`saved: ampacity ${formatNumber(mark.saved!.ampacityA, 4)} A, hot spot ${formatNumber(mark.saved!.hotSpotC!, 4)} °C`);
     expect(text).toContain(`ampacity ${formatNumber(mark.now!.ampacityA, 4)} A, hot spot ${formatNumber(mark.now!.hotSpotC!, 4)} °C`);
-    expect(text).toContain('version 0.1.0; now 0.2.0');
+    expect(text).toContain('version 0.1.0; now 0.3.0');
     // No internal codes in the mark: the module names of the solver version stay out of it.
     const markStart = text.indexOf(fold(RE_EVALUATION_HEADING));
     expect(text.slice(markStart, markStart + 700)).not.toContain('lib/thermal');

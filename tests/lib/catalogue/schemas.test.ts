@@ -48,6 +48,6 @@ describe('cross-field rules', () => {
       'layer3CoveringKey: layer 3 follows an empty layer 2: list layers from the conductor outwards without gaps',
     ]);
     expect(issuesOf(buildRowSchema.safeParse({ ...build, layer1ThicknessMm: '' }))).toEqual(['layer1ThicknessMm: is required for each layer']);
-    expect(issuesOf(buildRowSchema.safeParse({ ...build, cores: '2.5' }))).toEqual(['cores: must be a whole number from 1 to 7']);
+    expect(issuesOf(buildRowSchema.safeParse({ ...build, cores: '2.5' }))).toEqual(['cores: must be a whole number from 1 to 5']);
   });
 });

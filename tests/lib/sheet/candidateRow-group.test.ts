@@ -124,6 +124,14 @@ describe('a result saved by an earlier solver is marked for re-evaluation', () =
     expect(reEvaluationFiguresLine(r)).toContain(`ampacity ${r.saved!.ampacityA.toPrecision(4).replace(/\.?0+$/, '')} A`);
   });
 
+  it('says what the earlier method did: 0.1 rated cables alone, 0.2 approximated packs and multi-core cables (lib/electrical/version.ts history)', () => {
+    const base = { currentSolverVersion: SOLVER_VERSION, chosenLabel: null, saved: null, now: null };
+    expect(reEvaluationSentence({ ...base, savedSolverVersion: 'ampwarden-sizing/0.1.0 (x)' })).toContain('rated each cable alone');
+    const v02 = reEvaluationSentence({ ...base, savedSolverVersion: 'ampwarden-sizing/0.2.0 (x)' });
+    expect(v02).toContain('a pack of bars as separate bars');
+    expect(v02).toContain('version 0.2.0; now 0.3.0');
+  });
+
   it('is not shown for a result of the current solver', () => {
     const fresh = buildSnapshot(inputs);
     expect(fresh.solverVersion).toBe(SOLVER_VERSION);

@@ -247,6 +247,8 @@ describe('links from the sizing sheet', () => {
       'ampacity-air-ac-fixed-h',
       'tabulated-cu-xlpe-240-trefoil-air',
       'tabulated-cu-xlpe-240-flat-air',
+      'tabulated-cu-xlpe-4x95-air',
+      'tabulated-cu-xlpe-2x95-air',
       'tabulated-bar-100x10',
     ]);
     expect(ampacityLinks[0].href).toBe('/verification#case-ampacity-buried-dc');
