@@ -134,6 +134,7 @@ export const evaluationOkSchema = z
     loadedConductors: finite,
     conductorsInstalled: finite,
     sectionPerPhaseMm2: finite,
+    runsPerPhase: finite.meta({ description: 'Parallel cables per phase, or bars per phase × parallel packs; among passing candidates fewer runs are preferred, then less section.' }),
     voltageDrop: z.object({ volts: finite, percent: finite, limitPercent: finite.optional() }),
     shortCircuit: shortCircuitSchema,
     massKg: finite,

@@ -64,22 +64,40 @@ function runsOf(candidate: Candidate): number {
 }
 
 /**
- * The sizes a row may use: every family candidate with 1…maxParallel runs, smallest section per
- * phase first (stable: on equal sections fewer runs, then catalogue order).
+ * The smallest cable section run in parallel when a team sets none, mm². Parallel runs of small
+ * cables multiply joints and terminations and share current less evenly; designers parallel
+ * cables only once one cable per phase would be unwieldy (common practice, not a figure of a
+ * standard: teams set their own).
  */
-export function expandFamily(familyCandidates: readonly Candidate[], maxParallel: number): Candidate[] {
-  const sizes: Array<{ candidate: Candidate; order: number }> = [];
+export const DEFAULT_MIN_PARALLEL_SECTION_MM2 = 50;
+
+export interface FamilyOptions {
+  /** Cables of a smaller section per cable are not run in parallel, mm² (bars are not limited). */
+  minParallelSectionMm2?: number;
+}
+
+/**
+ * The sizes a row may use, in the order they are preferred: fewer runs per phase first, then the
+ * smallest section per phase (stable: catalogue order on equal sections) — as compareCandidates
+ * prefers them (preferredSizeOrder). Cables below the minimum parallel section are used alone only.
+ */
+export function expandFamily(familyCandidates: readonly Candidate[], maxParallel: number, options: FamilyOptions = {}): Candidate[] {
+  const minParallel = options.minParallelSectionMm2 ?? DEFAULT_MIN_PARALLEL_SECTION_MM2;
+  const sizes: Array<{ candidate: Candidate; runs: number; order: number }> = [];
   let order = 0;
   for (let runs = 1; runs <= maxParallel; runs++) {
     for (const base of familyCandidates) {
+      if (runs > 1 && base.kind === 'cable' && base.sectionMm2 < minParallel) continue;
       const id = `${base.id ?? base.label ?? 'size'}${runs > 1 ? ` ×${runs}` : ''}`;
       const label = runs > 1 ? `${runs} × ${base.label ?? base.id}` : (base.label ?? base.id ?? 'size');
       const candidate: Candidate =
         base.kind === 'bar' ? { ...base, id, label, barsPerPhase: (base.barsPerPhase ?? 1) * runs } : { ...base, id, label, parallel: (base.parallel ?? 1) * runs };
-      sizes.push({ candidate, order: order++ });
+      sizes.push({ candidate, runs: runsOf(candidate), order: order++ });
     }
   }
-  return sizes.sort((a, b) => candidateSectionMm2(a.candidate) - candidateSectionMm2(b.candidate) || a.order - b.order).map((s) => s.candidate);
+  return sizes
+    .sort((a, b) => a.runs - b.runs || candidateSectionMm2(a.candidate) - candidateSectionMm2(b.candidate) || a.order - b.order)
+    .map((s) => s.candidate);
 }
 
 export interface ChosenSize {
@@ -163,23 +181,28 @@ function chosenOf(e: CandidateEvaluationOk, candidate: Candidate, lengthM: numbe
   };
 }
 
-function assumptionsOf(row: ScheduleRow): string[] {
+function assumptionsOf(row: ScheduleRow, options: FamilyOptions): string[] {
   const notes: string[] = [];
   if (row.frequencyHz === null) notes.push(`Frequency left empty: ${DEFAULT_FREQUENCY_HZ} Hz assumed.`);
   if (row.maxParallel === 1) notes.push('One run per phase (max parallel runs empty or 1).');
+  else {
+    const min = options.minParallelSectionMm2 ?? DEFAULT_MIN_PARALLEL_SECTION_MM2;
+    const whose = options.minParallelSectionMm2 === undefined ? ' (the default, common practice; a team admin can set another)' : " (the team's setting)";
+    notes.push(`Fewer parallel runs preferred over a smaller section; cables under ${min} mm² are not run in parallel${whose}.`);
+  }
   return notes;
 }
 
 /**
- * Sizes one circuit from its family: evaluates sizes from the smallest up and stops at the first
- * that passes (no blocker flag); sizes of the same section are all evaluated and the lightest is
- * taken, as compareCandidates does. Never throws for bad data: a size the library refuses is
- * skipped and reported when nothing passes.
+ * Sizes one circuit from its family: evaluates sizes in the preferred order (expandFamily) and
+ * stops at the first that passes (no blocker flag); sizes of the same runs and section are all
+ * evaluated and the lightest is taken, as compareCandidates does. Never throws for bad data: a
+ * size the library refuses is skipped and reported when nothing passes.
  */
-export function sizeCircuit(row: ScheduleRow, familyCandidates: readonly Candidate[]): CircuitSizing {
+export function sizeCircuit(row: ScheduleRow, familyCandidates: readonly Candidate[], options: FamilyOptions = {}): CircuitSizing {
   const conditions = rowConditions(row);
-  const sizes = expandFamily(familyCandidates, row.maxParallel);
-  const assumptions = assumptionsOf(row);
+  const sizes = expandFamily(familyCandidates, row.maxParallel, options);
+  const assumptions = assumptionsOf(row, options);
   let evaluated = 0;
   let solves = 0;
   let best: { e: CandidateEvaluationOk; c: Candidate } | null = null;
@@ -187,8 +210,7 @@ export function sizeCircuit(row: ScheduleRow, familyCandidates: readonly Candida
   const refusals: string[] = [];
   for (let i = 0; i < sizes.length; i++) {
     const candidate = sizes[i];
-    const section = candidateSectionMm2(candidate);
-    if (best && section !== candidateSectionMm2(best.c)) break;
+    if (best && (runsOf(candidate) !== runsOf(best.c) || candidateSectionMm2(candidate) !== candidateSectionMm2(best.c))) break;
     const e = evaluateCandidate(candidate, conditions, { index: i });
     evaluated++;
     if (!e.ok) {
@@ -196,6 +218,7 @@ export function sizeCircuit(row: ScheduleRow, familyCandidates: readonly Candida
       continue;
     }
     solves += e.solves;
+    // The largest tried: the most runs and section (the last in the order that could be evaluated).
     largestOk = { e, c: candidate };
     if (e.passes && (best === null || e.massKg < best.e.massKg)) best = { e, c: candidate };
   }

@@ -107,6 +107,7 @@ function runChecks(ctx: SizingContext): CandidateEvaluationOk {
     loadedConductors: costs.loadedConductors,
     conductorsInstalled: costs.conductorsInstalled,
     sectionPerPhaseMm2: cand.sectionPerPhaseMm2,
+    runsPerPhase: cand.kind === 'bar' ? cand.barsPerPhase * cand.parallel : cand.parallel,
     voltageDrop,
     shortCircuit,
     massKg: costs.massKg,
@@ -198,17 +199,20 @@ export function designPointOnly(candidate: Candidate, conditions: Conditions): {
   return { hotSpotC: result.hotSpot.temperature, lossWPerM: costsCheck(ctx, lossPerConductor).lossWPerM, limitC };
 }
 
-/** Marks the smallest passing candidate and the lowest life-cycle-cost passing one. */
+/**
+ * The order in which passing sizes are preferred: fewer runs per phase first (parallel cables or
+ * bars per phase cost joints, terminations and the risk of unequal sharing: common practice), then
+ * the least conductor section per phase, then the least mass.
+ */
+export function preferredSizeOrder(a: Pick<CandidateEvaluationOk, 'runsPerPhase' | 'sectionPerPhaseMm2' | 'massKg'>, b: typeof a): number {
+  return a.runsPerPhase - b.runsPerPhase || a.sectionPerPhaseMm2 - b.sectionPerPhaseMm2 || a.massKg - b.massKg;
+}
+
+/** Marks the preferred passing candidate (preferredSizeOrder) and the lowest life-cycle-cost passing one. */
 function markWinners(evaluations: CandidateEvaluation[]): Comparison {
   const passing = evaluations.filter((e): e is CandidateEvaluationOk => e.ok && e.passes);
   let smallest: CandidateEvaluationOk | null = null;
-  for (const e of passing) {
-    if (
-      smallest === null ||
-      e.sectionPerPhaseMm2 < smallest.sectionPerPhaseMm2 ||
-      (e.sectionPerPhaseMm2 === smallest.sectionPerPhaseMm2 && e.massKg < smallest.massKg)
-    ) smallest = e;
-  }
+  for (const e of passing) if (smallest === null || preferredSizeOrder(e, smallest) < 0) smallest = e;
   let cheapest: CandidateEvaluationOk | null = null;
   for (const e of passing) {
     if (e.lifeCycleCost === null) continue;

@@ -404,6 +404,8 @@ export interface CandidateEvaluationOk {
   loadedConductors: number;
   conductorsInstalled: number;
   sectionPerPhaseMm2: number;
+  /** Runs per phase: parallel cables, or bars per phase × parallel packs (fewer are preferred among passing sizes). */
+  runsPerPhase: number;
   voltageDrop: { volts: number; percent: number; limitPercent?: number };
   shortCircuit: ShortCircuitCheck;
   massKg: number;
@@ -477,6 +479,7 @@ export type CandidateEvaluation = CandidateEvaluationOk | CandidateEvaluationErr
 
 export interface Comparison {
   evaluations: CandidateEvaluation[];
+  /** The preferred passing candidate: fewest runs per phase, then least section per phase, then least mass (preferredSizeOrder). */
   smallestPassingIndex: number | null;
   lowestLifeCycleCostPassingIndex: number | null;
 }

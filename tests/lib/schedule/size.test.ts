@@ -60,9 +60,23 @@ describe('sizeCircuit', () => {
     expect(sizeCircuit(r, [])).toMatchObject({ status: 'none_passes', reason: 'The family has no sizes in the catalogue.' });
   });
 
-  it('orders parallel runs by section per phase (2 × 50 mm² between 95 mm² and 2 × 70 mm²)', () => {
+  it('prefers fewer runs: every single size first, then pairs, and cables under 50 mm² are never paralleled (common practice default)', () => {
     const sizes = expandFamily(SMALL_FAMILY, 2).map((c) => c.label);
-    expect(sizes.indexOf('2 × 50 mm² copper XLPE/PVC single-core')).toBe(sizes.indexOf('95 mm² copper XLPE/PVC single-core') + 1);
-    expect(sizes.at(-1)).toBe('2 × 95 mm² copper XLPE/PVC single-core');
+    expect(sizes.slice(0, 6)).toEqual(SMALL_FAMILY.map((c) => c.label));
+    expect(sizes.slice(6)).toEqual(['2 × 50 mm² copper XLPE/PVC single-core', '2 × 70 mm² copper XLPE/PVC single-core', '2 × 95 mm² copper XLPE/PVC single-core']);
+    // A team that allows smaller parallel cables gets them, still after every single size.
+    const team = expandFamily(SMALL_FAMILY, 2, { minParallelSectionMm2: 16 }).map((c) => c.label);
+    expect(team[6]).toBe('2 × 16 mm² copper XLPE/PVC single-core');
+  });
+
+  it('a buried 150 A feeder allowed four runs gets one cable, not four small ones (issue 22: it once chose 4 × 16 mm²)', () => {
+    const r = row({ designCurrentA: 150, installation: 'buried', depthM: 0.7, ambientC: 20, maxParallel: 4 });
+    const sizing = sizeCircuit(r, SMALL_FAMILY);
+    expect(sizing.status).toBe('sized');
+    if (sizing.status !== 'sized') return;
+    expect(sizing.chosen.runsPerPhase).toBe(1);
+    expect(sizing.assumptions.join(' ')).toMatch(/under 50 mm² are not run in parallel \(the default, common practice/);
+    // compareCandidates prefers the same size among the same list.
+    expect(smallestByCompare(r)?.id).toBe(sizing.chosen.candidateId);
   });
 });
