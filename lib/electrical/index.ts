@@ -72,6 +72,6 @@ export type {
 } from './sizing/types';
 export { alongRunCheck, overTimeCheck, CONDUCTOR_VOLUMETRIC_HEAT_CAPACITY, COVERING_VOLUMETRIC_HEAT_CAPACITY } from './sizing/beyondSteady';
 export type { AlongRunInputs, AlongRunResult, OverTimeInputs, OverTimeResult } from './sizing/beyondSteady';
-export { enclosureAirCheck, ENCLOSURE_AIR_METHOD } from './sizing/enclosureAir';
+export { enclosureAirCheck, ENCLOSURE_AIR_METHOD, rateInsideEnclosure } from './sizing/enclosureAir';
 export type { EnclosureAirCheckResult, EnclosureAirInputs } from './sizing/enclosureAir';
 export { SOLVER_VERSION } from './version';

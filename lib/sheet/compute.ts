@@ -3,6 +3,8 @@
  * (live result while typing) and on the server (the snapshot stored on save).
  */
 import { compareCandidatesPrepared, hotSpotAtCurrent } from '../electrical/sizing/evaluate';
+import { rateInsideEnclosure } from '../electrical/sizing/enclosureAir';
+import { enclosureAirInputsOf } from './enclosureAir';
 import type { SizingContext } from '../electrical/sizing/context';
 import type { AssumptionFlag } from '../electrical/sizing/flags';
 import type { CandidateEvaluationOk, Comparison } from '../electrical/sizing/types';
@@ -71,7 +73,12 @@ function hotSpotCurveOf(context: SizingContext, evaluation: CandidateEvaluationO
 export function computeSheetWithCurves(inputs: SheetInputs, withCurves: boolean): { computation: SheetComputation; curves: HotSpotCurve[] } {
   let prepared: ReturnType<typeof compareCandidatesPrepared>;
   try {
-    prepared = compareCandidatesPrepared(toCandidates(inputs), toConditions(inputs));
+    const candidates = toCandidates(inputs);
+    const conditions = toConditions(inputs);
+    prepared = compareCandidatesPrepared(candidates, conditions);
+    // With the enclosure check on, the headline is rated in the air inside it, not in the room.
+    const enclosure = enclosureAirInputsOf(inputs);
+    if (enclosure) prepared = rateInsideEnclosure(prepared, candidates, conditions, enclosure);
   } catch (error) {
     return { computation: { ok: false, error: errorOf(error) }, curves: [] };
   }

@@ -11,9 +11,10 @@
  */
 import { ENCLOSURE_WALL_COEFFICIENTS_W_PER_M2K, enclosureAirTemperature, type EnclosureFace, type EnclosureShape, type EnclosureWall } from '../../thermal';
 import { ElectricalInputError } from '../errors';
-import { designPointOnly, evaluateCandidate } from './evaluate';
 import { FlagSet, fmt, type AssumptionFlag } from './flags';
-import type { Candidate, Conditions } from './types';
+import { designPointOnly, evaluateCandidate, evaluatePrepared, markWinners, type PreparedComparison } from './evaluate';
+import { prepareConditions } from './prepareConditions';
+import type { Candidate, CandidateEvaluationOk, Conditions } from './types';
 
 export const ENCLOSURE_AIR_METHOD =
   'Wall heat transfer P = k·A_e·ΔT: effective cooling surface A_e with the IEC TR 60890 surface factors, k for the wall material (common practice, from memory)';
@@ -60,7 +61,13 @@ function requirePositive(value: number, field: string, what: string) {
   if (!(Number.isFinite(value) && value >= 0)) throw new ElectricalInputError(field, `${what} must be zero or more`);
 }
 
-export function enclosureAirCheck(candidate: Candidate, conditions: Conditions, inputs: EnclosureAirInputs): EnclosureAirCheckResult {
+export function enclosureAirCheck(
+  candidate: Candidate,
+  conditions: Conditions,
+  inputs: EnclosureAirInputs,
+  /** The candidate's evaluation under `conditions` when the caller has it (saves evaluating it again). */
+  evaluated?: CandidateEvaluationOk,
+): EnclosureAirCheckResult {
   if (conditions.installation.kind === 'buried') throw new ElectricalInputError('conditions.installation', 'a buried circuit is not inside an enclosure');
   if (!(inputs.wall in ENCLOSURE_WALL_COEFFICIENTS_W_PER_M2K)) throw new ElectricalInputError('enclosure.wall', 'unknown wall material');
   requirePositive(inputs.routeLengthInsideM, 'enclosure.routeLengthInsideM', 'The route length inside the enclosure');
@@ -69,7 +76,7 @@ export function enclosureAirCheck(candidate: Candidate, conditions: Conditions, 
     throw new ElectricalInputError('enclosure.outsideAirC', 'The air around the enclosure must be between −60 and 100 °C');
   }
 
-  const sheetEvaluation = evaluateCandidate(candidate, conditions);
+  const sheetEvaluation = evaluated ?? evaluateCandidate(candidate, conditions);
   if (!sheetEvaluation.ok) throw new ElectricalInputError(sheetEvaluation.error.field ?? 'candidate', sheetEvaluation.error.message);
   const air = (lossesW: number) => enclosureAirTemperature({ ...inputs.shape, wall: inputs.wall, lossesW, outsideAirC: inputs.outsideAirC });
 
@@ -116,7 +123,7 @@ export function enclosureAirCheck(candidate: Candidate, conditions: Conditions, 
   if ((converged || airAtLimit) && result.insideAirC > sheetEvaluation.ambientC + TOLERANCE_K) {
     flags.add(
       'ENCLOSURE_AIR_ABOVE_AMBIENT',
-      `The sheet sizes the conductors in ${fmt(sheetEvaluation.ambientC)} °C air, but the air inside is estimated at ${fmt(result.insideAirC)} °C. Raise the sheet's ambient or reduce the losses.`,
+      `The room is ${fmt(sheetEvaluation.ambientC)} °C, but the air inside is estimated at ${fmt(result.insideAirC)} °C; with this check on, the sheet's result is rated in the inside air.`,
     );
   }
   if (!passes) {
@@ -148,4 +155,41 @@ export function enclosureAirCheck(candidate: Candidate, conditions: Conditions, 
     iterations,
     flags: flags.list(),
   };
+}
+
+/**
+ * The comparison as it stands inside the enclosure (issue 22): each candidate rated in the air its
+ * own losses and the other equipment make inside, not in the room — so the headline result, its
+ * ampacity, hot spot and verdict, are the enclosure's. Where the air and the conductor have no
+ * steady state together, or the air alone reaches the limit, the room figures stay with a blocker
+ * saying so. A candidate that cannot be evaluated stays as it was.
+ */
+export function rateInsideEnclosure(prepared: PreparedComparison, candidates: readonly Candidate[], conditions: Conditions, inputs: EnclosureAirInputs): PreparedComparison {
+  const contexts = new Map(prepared.contexts);
+  const evaluations = prepared.comparison.evaluations.map((e) => {
+    if (!e.ok) return e;
+    const candidate = candidates[e.index];
+    let air: EnclosureAirCheckResult;
+    try {
+      air = enclosureAirCheck(candidate, conditions, inputs, e);
+    } catch {
+      return e; // the enclosure's own inputs are refused on the check's panel, naming the field
+    }
+    const estimated = air.flags.filter((f) => f.code === 'ENCLOSURE_AIR_ESTIMATED');
+    if (!air.converged || air.hotSpotC === null) {
+      const blocker = air.flags.filter((f) => f.code === 'ENCLOSURE_HOT_SPOT_OVER_LIMIT');
+      return { ...e, flags: [...e.flags, ...estimated, ...blocker], passes: false, isSmallestPassing: false, isLowestLifeCycleCostPassing: false };
+    }
+    if (!(air.insideAirC > e.ambientC)) return { ...e, flags: [...e.flags, ...estimated] };
+    const inside = evaluatePrepared(candidate, prepareConditions({ ...conditions, ambientC: air.insideAirC }), e.index);
+    if (!inside.evaluation.ok) return inside.evaluation;
+    if (inside.context) contexts.set(e.index, inside.context);
+    const rated = new FlagSet();
+    rated.add('ENCLOSURE_AIR_RATED', `Rated in the estimated air inside the enclosure, ${fmt(air.insideAirC)} °C (the room around it ${fmt(e.ambientC)} °C), from ${fmt(air.totalLossesW)} W released inside.`, {
+      insideAirC: air.insideAirC,
+      roomC: e.ambientC,
+    });
+    return { ...inside.evaluation, flags: [...inside.evaluation.flags, ...estimated, ...rated.list()] };
+  });
+  return { comparison: markWinners(evaluations), contexts };
 }

@@ -209,7 +209,7 @@ export function preferredSizeOrder(a: Pick<CandidateEvaluationOk, 'runsPerPhase'
 }
 
 /** Marks the preferred passing candidate (preferredSizeOrder) and the lowest life-cycle-cost passing one. */
-function markWinners(evaluations: CandidateEvaluation[]): Comparison {
+export function markWinners(evaluations: CandidateEvaluation[]): Comparison {
   const passing = evaluations.filter((e): e is CandidateEvaluationOk => e.ok && e.passes);
   let smallest: CandidateEvaluationOk | null = null;
   for (const e of passing) if (smallest === null || preferredSizeOrder(e, smallest) < 0) smallest = e;

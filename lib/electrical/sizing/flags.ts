@@ -84,6 +84,7 @@ export const BEYOND_STEADY_FLAG_CODES = [
   'ENCLOSURE_AIR_ESTIMATED',
   'ENCLOSURE_AIR_ABOVE_AMBIENT',
   'ENCLOSURE_HOT_SPOT_OVER_LIMIT',
+  'ENCLOSURE_AIR_RATED',
 ] as const;
 
 export const FLAG_CODES = [...STEADY_FLAG_CODES, ...BEYOND_STEADY_FLAG_CODES] as const;
@@ -180,6 +181,7 @@ export const FLAG_REGISTRY: Readonly<Record<FlagCode, Readonly<FlagDefinition>>>
   ENCLOSURE_AIR_ESTIMATED: { severity: 'review', title: 'Enclosure air temperature estimated', basis: 'physics.md §6; wall heat transfer with IEC TR 60890 surface factors (common practice, from memory); verify by IEC 61439-1' },
   ENCLOSURE_AIR_ABOVE_AMBIENT: { severity: 'review', title: 'Air inside the enclosure warmer than the sheet ambient', basis: 'physics.md §6 (enclosure air from the losses inside it)' },
   ENCLOSURE_HOT_SPOT_OVER_LIMIT: { severity: 'blocker', title: 'Hot spot above the limit in the enclosure air', basis: 'physics.md §6 (air and conductor solved together)' },
+  ENCLOSURE_AIR_RATED: { severity: 'note', title: 'Rated in the air inside the enclosure', basis: 'physics.md §6 (air and conductor solved together)' },
 });
 
 export interface AssumptionFlag {

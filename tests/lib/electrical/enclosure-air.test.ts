@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { enclosureAirCheck, evaluateCandidate, FLAG_REGISTRY, type EnclosureAirInputs } from '@/lib/electrical';
+import { enclosureAirCheck, evaluateCandidate, FLAG_REGISTRY, rateInsideEnclosure, type EnclosureAirInputs } from '@/lib/electrical';
+import { compareCandidatesPrepared } from '@/lib/electrical/sizing/evaluate';
 import { enclosureAirTemperature } from '@/lib/thermal';
 import { barConditions, copperBar } from './fixtures';
 
@@ -91,5 +92,48 @@ describe('flags of the enclosure check', () => {
     expect(() => enclosureAirCheck(bar, barConditions({ installation: { kind: 'buried', depthM: 0.7 } } as never), inputs())).toThrow(/buried/);
     expect(() => enclosureAirCheck(bar, barConditions(), inputs({ otherLossesW: -1 }))).toThrow(/other losses/i);
     expect(() => enclosureAirCheck(bar, barConditions(), inputs({ outsideAirC: 150 }))).toThrow(/around the enclosure/);
+  });
+});
+
+describe('with the enclosure check on, the headline is rated in the air inside (issue 22)', () => {
+  // Reference: the same library's steady evaluation with the ambient set to the inside air the
+  // coupled balance found (that balance is checked against P = k·A_e·ΔT above).
+  const conditions = barConditions({ designCurrentA: 1200, ambientC: 40 });
+  const wide = copperBar(0.1, 0.01);
+
+  it('each candidate is rated at its own inside air: ampacity and hot spot are the evaluation at that ambient, said in a note', () => {
+    const candidates = [bar, wide];
+    const rated = rateInsideEnclosure(compareCandidatesPrepared(candidates, conditions), candidates, conditions, inputs({ otherLossesW: 600 }));
+    for (const [i, c] of candidates.entries()) {
+      const air = enclosureAirCheck(c, conditions, inputs({ otherLossesW: 600 }));
+      const e = rated.comparison.evaluations[i];
+      if (!e.ok) throw new Error(e.error.message);
+      expect(e.ambientC).toBeCloseTo(air.insideAirC, 9);
+      const direct = evaluateCandidate(c, { ...conditions, ambientC: air.insideAirC });
+      if (!direct.ok) throw new Error(direct.error.message);
+      expect(e.ampacityA).toBe(direct.ampacityA);
+      expect(e.hotSpotC).toBe(direct.hotSpotC);
+      expect(e.flags.map((f) => f.code)).toContain('ENCLOSURE_AIR_RATED');
+      expect(e.flags.find((f) => f.code === 'ENCLOSURE_AIR_RATED')!.message).toMatch(/the room around it 40 °C/);
+    }
+  });
+
+  it('a bar that passes in the 40 °C room but not in the inside air is no longer passing, nor the preferred size', () => {
+    const room = compareCandidatesPrepared([bar], conditions);
+    const inRoom = room.comparison.evaluations[0];
+    expect(inRoom.ok && inRoom.passes).toBe(true);
+    const rated = rateInsideEnclosure(room, [bar], conditions, inputs({ otherLossesW: 600 }));
+    const e = rated.comparison.evaluations[0];
+    expect(e.ok && e.passes).toBe(false);
+    expect(rated.comparison.smallestPassingIndex).toBeNull();
+  });
+
+  it('when the air alone reaches the limit, the room figures stay with the blocker', () => {
+    const hot = barConditions({ designCurrentA: 1400, ambientC: 40 });
+    const rated = rateInsideEnclosure(compareCandidatesPrepared([bar], hot), [bar], hot, inputs({ otherLossesW: 1500 }));
+    const e = rated.comparison.evaluations[0];
+    if (!e.ok) throw new Error(e.error.message);
+    expect(e.passes).toBe(false);
+    expect(e.flags.filter((f) => f.code === 'ENCLOSURE_HOT_SPOT_OVER_LIMIT')).toHaveLength(1);
   });
 });
