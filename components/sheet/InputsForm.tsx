@@ -183,6 +183,22 @@ export function InputsForm({
         <Section title="Temperature limit" open={false}>
           {num('limits.temperatureLimitC', 'Your own limit', { nullable: true, help: DEFAULT_SOURCES.temperatureLimitC })}
           {values.limits.temperatureLimitC !== null ? checkbox('limits.raiseMaterialLimit', 'Replace the material limits even where higher (flagged)') : null}
+          {values.limits.temperatureLimitC !== null && values.limits.raiseMaterialLimit ? (
+            <div>
+              <label htmlFor="raise-justification" className="field-label">Why the raised limit is safe (for the reviewer)</label>
+              <textarea
+                id="raise-justification"
+                rows={3}
+                className="field-input"
+                aria-describedby="raise-justification-help"
+                value={values.limits.raiseJustification}
+                onChange={(e) => form.setFieldValue('limits.raiseJustification', e.target.value)}
+              />
+              <p id="raise-justification-help" className="mt-0.5 text-[0.6875rem] leading-4 text-ink-500">
+                The maker’s evidence or test report. While this is empty, a limit above a material rating blocks the result; the reviewer accepts the reason before approving.
+              </p>
+            </div>
+          ) : null}
           {form.errors['limits.temperatureLimitC'] ? null : null}
         </Section>
 

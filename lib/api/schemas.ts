@@ -279,6 +279,7 @@ const conditionsShape = {
     .optional(),
   temperatureLimitC: bounded('temperatureLimitC').optional(),
   raiseMaterialLimit: z.boolean().optional(),
+  userLimitJustification: z.string().max(2000, 'userLimitJustification: at most 2,000 characters').optional(),
   groupingFactor: bounded('groupingFactor').optional(),
   surfaceCoefficientWPerM2K: bounded('surfaceCoefficientWPerM2K').optional(),
   economics: economicsSchema.optional(),

@@ -55,7 +55,7 @@ export function scheduleRowToSheetInputs(row: ScheduleRow, sizing: CircuitSizing
           ? Array.from({ length: row.otherCircuits as number }, () => ({ label: '', currentA: row.otherCircuitCurrentA as number, sameCable: true, externalDiameterM: null, lossWPerM: null }))
           : [],
     },
-    limits: { temperatureLimitC: row.temperatureLimitC, raiseMaterialLimit: false, groupingFactor: row.groupingFactor ?? 1 },
+    limits: { temperatureLimitC: row.temperatureLimitC, raiseMaterialLimit: false, raiseJustification: '', groupingFactor: row.groupingFactor ?? 1 },
     candidates: picked as SheetInputs['candidates'],
     chosenCandidateId: sizing?.status === 'sized' && picked.some((c) => c.id === chosenId) ? chosenId : null,
     notes: `Opened from a schedule, row ${row.rowNumber} (${row.circuitTag}).`,

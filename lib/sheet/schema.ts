@@ -133,6 +133,8 @@ export const limitsSchema = z.object({
   /** A limit of the user's own (a joint, a neighbouring device), °C; null = material limits only. */
   temperatureLimitC: optionalBounded('temperatureLimitC'),
   raiseMaterialLimit: z.boolean(),
+  /** Why a raised limit is safe, for the reviewer (a blocker while empty); added without a version bump, empty on older sheets. */
+  raiseJustification: z.string().max(2000, 'At most 2,000 characters').default(''),
   groupingFactor: bounded('groupingFactor'),
 });
 
@@ -430,7 +432,7 @@ export function defaultSheetInputs(kind: InstallationKind = 'cable-in-air'): She
       enclosureDerating: 0.8,
       enclosureInside: 'cable-in-air',
     },
-    limits: { temperatureLimitC: null, raiseMaterialLimit: false, groupingFactor: 1 },
+    limits: { temperatureLimitC: null, raiseMaterialLimit: false, raiseJustification: '', groupingFactor: 1 },
     economics: {
       included: false,
       lossLoadFactor: 0.5,

@@ -103,7 +103,10 @@ export function toConditions(inputs: SheetInputs, designCurrentA = inputs.circui
   if (fault.checked) conditions.fault = { currentA: fault.currentA, durationS: fault.durationS };
   if (limits.temperatureLimitC !== null) {
     conditions.temperatureLimitC = limits.temperatureLimitC;
-    if (limits.raiseMaterialLimit) conditions.raiseMaterialLimit = true;
+    if (limits.raiseMaterialLimit) {
+      conditions.raiseMaterialLimit = true;
+      if (limits.raiseJustification.trim()) conditions.userLimitJustification = limits.raiseJustification;
+    }
   }
   if (limits.groupingFactor < 1) conditions.groupingFactor = limits.groupingFactor;
   if (economics.included) {

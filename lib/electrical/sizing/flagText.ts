@@ -31,8 +31,10 @@ export const ENTERED_TEXT = {
   surfaceCoefficient: (h: number) =>
     `A fixed surface heat-transfer coefficient of ${fmt(h)} W/(m²·K) (convection and radiation together) was entered instead of the correlations.`,
   wind: (speed: number) => `Cooling by an air speed of ${fmt(speed)} m/s is credited; in still air the conductor runs hotter.`,
-  userLimitAboveRating: (userC: number, ratingC: number, what: string) =>
-    `The user raised the temperature limit to ${fmt(userC)} °C, above the ${fmt(ratingC)} °C rating of ${what}; the raised rating needs the maker's evidence.`,
+  userLimitAboveRating: (userC: number, ratingC: number, what: string, justification?: string) =>
+    `The user raised the temperature limit to ${fmt(userC)} °C, above the ${fmt(ratingC)} °C rating of ${what}; the raised rating needs the maker's evidence.${justification ? ` The designer's justification: “${justification}”.` : ''}`,
+  userLimitNotJustified: (userC: number, ratingC: number) =>
+    `The limit of ${fmt(userC)} °C replaces a ${fmt(ratingC)} °C material rating without a written justification: write why it is safe (the maker's evidence) beside the limit, for the reviewer to accept.`,
   dataFromMemory: (label: string) =>
     `Some data of ${label} were entered from memory rather than read from a datasheet or standard; check them against the source.`,
   barAcRatio: (ratio: number) => `R_ac/R_dc = ${fmt(ratio, 4)} was entered from the bar maker's data.`,

@@ -40,7 +40,9 @@ function underUserLimit(ratings: Rating[], conditions: PreparedConditions, flags
   const exceeded = replaced.filter((r) => r.c < user);
   if (exceeded.length > 0 && flags) {
     const worst = exceeded.reduce((a, b) => (a.c < b.c ? a : b));
-    flags.add('USER_LIMIT_ABOVE_RATING', ENTERED_TEXT.userLimitAboveRating(user, worst.c, worst.layer ?? worst.source), { userLimitC: user, ratingC: worst.c });
+    const why = conditions.userLimitJustification;
+    flags.add('USER_LIMIT_ABOVE_RATING', ENTERED_TEXT.userLimitAboveRating(user, worst.c, worst.layer ?? worst.source, why), { userLimitC: user, ratingC: worst.c });
+    if (!why) flags.add('USER_LIMIT_NOT_JUSTIFIED', ENTERED_TEXT.userLimitNotJustified(user, worst.c), { userLimitC: user, ratingC: worst.c });
   }
   return [...ratings.filter((r) => r.source === 'terminal'), { c: user, source: 'user' }];
 }

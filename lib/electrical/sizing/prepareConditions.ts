@@ -156,6 +156,10 @@ export function prepareConditions(c: Conditions): PreparedConditions {
       initialFrom,
     };
   }
+  if (c.userLimitJustification !== undefined && typeof c.userLimitJustification !== 'string') {
+    throw new ElectricalInputError(f('userLimitJustification'), 'must be text');
+  }
+  const justification = c.userLimitJustification?.trim() || undefined;
   if (c.raiseMaterialLimit && userLimitC === undefined) {
     throw new ElectricalInputError(f('temperatureLimitC'), 'is required when raiseMaterialLimit is set');
   }
@@ -209,6 +213,7 @@ export function prepareConditions(c: Conditions): PreparedConditions {
     fault,
     userLimitC,
     raiseMaterialLimit: c.raiseMaterialLimit === true,
+    ...(justification ? { userLimitJustification: justification } : {}),
     surfaceCoefficientWPerM2K,
     economics,
   };

@@ -44,6 +44,8 @@ export interface PreparedConditions {
   solar?: { irradianceWPerM2: number; absorptivity: number; absorptivityAssumed: boolean };
   fault?: { currentA: number; durationS: number; initialFrom: 'limit' | 'operating' };
   userLimitC?: number;
+  /** The designer's reason for a raised limit, trimmed; undefined when none was written. */
+  userLimitJustification?: string;
   raiseMaterialLimit: boolean;
   surfaceCoefficientWPerM2K?: number;
   economics?: EconomicsInputs;

@@ -250,6 +250,11 @@ export interface Conditions {
   /** When true, `temperatureLimitC` REPLACES the material limits even if higher (flagged). */
   raiseMaterialLimit?: boolean;
   /**
+   * Why a raised limit is safe (the maker's evidence, a test report): shown to the reviewer. A
+   * limit raised above a material rating without it is a blocker (USER_LIMIT_NOT_JUSTIFIED).
+   */
+  userLimitJustification?: string;
+  /**
    * User-entered derating 0 < f ≤ 1 for heating by OTHER circuits that no method here covers
    * (cables in air near other circuits, trays). It never stands for the circuit's own cables, whose
    * mutual heating is always computed (flagged).

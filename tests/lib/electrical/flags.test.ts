@@ -79,7 +79,8 @@ const cases: Record<Exclude<FlagCode, BeyondSteadyFlagCode | Retired>, () => { c
     const candidate = xlpeCable(95);
     return { candidate, conditions: cableConditions({ designCurrentA: 0.97 * ampacity(candidate, cableConditions()).current }) };
   },
-  USER_LIMIT_ABOVE_RATING: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ temperatureLimitC: 105, raiseMaterialLimit: true }) }),
+  USER_LIMIT_ABOVE_RATING: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ temperatureLimitC: 105, raiseMaterialLimit: true, userLimitJustification: 'maker rates this XLPE at 105 °C (test report)' }) }),
+  USER_LIMIT_NOT_JUSTIFIED: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ temperatureLimitC: 105, raiseMaterialLimit: true }) }),
   SHORT_CIRCUIT_NOT_CHECKED: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ fault: undefined }) }),
   SHORT_CIRCUIT_EXCEEDED: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ fault: { currentA: 50_000, durationS: 1 } }) }),
   SHORT_CIRCUIT_LONG_DURATION: () => ({ candidate: xlpeCable(240), conditions: cableConditions({ fault: { currentA: 2_000, durationS: 8 } }) }),
