@@ -181,13 +181,14 @@ export function InputsForm({
         ) : null}
 
         <Section title="Temperature limit" open={false}>
-          {num('limits.temperatureLimitC', 'Your own limit', { nullable: true, help: DEFAULT_SOURCES.temperatureLimitC })}
-          {values.limits.temperatureLimitC !== null ? checkbox('limits.raiseMaterialLimit', 'Replace the material limits even where higher (flagged)') : null}
+          {num('limits.temperatureLimitC', 'Your own limit', { nullable: true, help: DEFAULT_SOURCES.temperatureLimitC, testId: 'input-own-limit' })}
+          {values.limits.temperatureLimitC !== null ? checkbox('limits.raiseMaterialLimit', 'Replace the material limits even where higher (flagged)', 'raise-limit') : null}
           {values.limits.temperatureLimitC !== null && values.limits.raiseMaterialLimit ? (
             <div>
               <label htmlFor="raise-justification" className="field-label">Why the raised limit is safe (for the reviewer)</label>
               <textarea
                 id="raise-justification"
+                data-testid="raise-justification"
                 rows={3}
                 className="field-input"
                 aria-describedby="raise-justification-help"

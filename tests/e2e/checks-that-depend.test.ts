@@ -1,0 +1,112 @@
+// Issue 22, "results that match the checks they depend on", in Chromium against the production
+// build: (1) with the enclosure check on, the headline hot spot and ampacity are the ones in the
+// air inside the enclosure — the figures lib/sheet computeSheet gives for the saved inputs, run
+// here in the test — with the note saying so; (2) an own limit raised above the insulation's
+// rating is a blocker until the designer writes why it is safe, and then a review flag quoting
+// the reason for the reviewer.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Browser, Page } from 'playwright-core';
+import { closeDb } from '@/db/client';
+import { createProject } from '@/db/queries/projects';
+import { getSheet } from '@/db/queries/sheets';
+import { copyStandardCatalogueToTeam } from '@/db/seed/catalogue';
+import { computeSheet } from '@/lib/sheet/compute';
+import { formatNumber } from '@/lib/units';
+import { addCatalogueCopperBar, createSheetFromProject, signInInBrowser } from './sheet-steps';
+import { launchBrowser, screenshot } from '../helpers/browser';
+import { createTestTeam, createTestUser } from '../helpers/fixtures';
+
+let browser: Browser;
+let teamId: string;
+let designerEmail: string;
+let projectId: string;
+
+beforeAll(async () => {
+  const team = await createTestTeam('e2e-depend');
+  teamId = team.id;
+  await copyStandardCatalogueToTeam(team.id);
+  const designer = await createTestUser(team.id, 'designer', { name: 'Ines Marlow (test designer)' });
+  designerEmail = designer.email;
+  projectId = (await createProject(team.id, designer.id, { name: 'Dependent checks yard', site: 'Test site (invented)' })).id;
+  browser = await launchBrowser();
+});
+
+afterAll(async () => {
+  await browser?.close();
+  await closeDb();
+});
+
+/** Chooses the sheet's one candidate (a sheet may already have chosen it). */
+async function chooseOnlyCandidate(page: Page): Promise<void> {
+  const grid = page.getByTestId('candidate-grid');
+  await expect.poll(() => grid.locator('[data-testid^="choose-"], [data-testid^="chosen-"]').count(), { timeout: 30_000 }).toBeGreaterThan(0);
+  const choose = grid.locator('[data-testid^="choose-"]');
+  if ((await choose.count()) > 0) await choose.first().dispatchEvent('click');
+  await expect.poll(() => page.getByTestId('result-strip').innerText(), { timeout: 30_000 }).toMatch(/Chosen:/);
+}
+
+describe('results that match the checks they depend on', () => {
+  it('with the enclosure check on, the headline is rated in the air inside and says so', async () => {
+    const page = await signInInBrowser(browser, designerEmail);
+    const sheetId = await createSheetFromProject(page, projectId, { tag: 'BT-DEP1', title: 'Browser test enclosed riser', installation: 'bar-on-edge' });
+    await page.getByTestId('input-design-current').fill('1000');
+    await addCatalogueCopperBar(page, '60 × 10');
+    await chooseOnlyCandidate(page);
+    const roomHotSpot = await page.getByTestId('hot-spot').innerText();
+
+    const panel = page.getByTestId('enclosure-air');
+    await panel.getByTestId('enclosure-checked').check();
+    await panel.getByTestId('enclosure-other-losses').fill('600');
+    await expect.poll(() => page.getByTestId('flags-panel').innerText(), { timeout: 30_000 }).toContain('Rated in the air inside the enclosure');
+    await expect.poll(() => page.getByTestId('hot-spot').innerText(), { timeout: 30_000 }).not.toBe(roomHotSpot);
+    await screenshot(page, 'depend-01-enclosure-headline');
+
+    await page.getByTestId('save-button').click();
+    await expect.poll(() => page.getByTestId('save-state').innerText(), { timeout: 30_000 }).toBe('All changes saved');
+    const stored = (await getSheet(teamId, sheetId))!.inputs;
+    const computed = computeSheet(stored);
+    if (!computed.ok) throw new Error(computed.error.message);
+    const e = computed.comparison.evaluations[0];
+    if (!e.ok) throw new Error(e.error.message);
+    expect(e.flags.map((f) => f.code)).toContain('ENCLOSURE_AIR_RATED');
+    expect(e.ambientC).toBeGreaterThan(stored.environment.ambientC ?? 0);
+    await expect(page.getByTestId('hot-spot').innerText()).resolves.toBe(`${formatNumber(e.hotSpotC!, 4)} °C`);
+    await expect(page.getByTestId('ampacity').innerText()).resolves.toBe(`${formatNumber(e.ampacityA, 4)} A`);
+    await page.context().close();
+  });
+
+  it('a limit raised above the insulation rating blocks until the designer writes why, then the reviewer reads the reason', async () => {
+    const page = await signInInBrowser(browser, designerEmail);
+    const sheetId = await createSheetFromProject(page, projectId, { tag: 'BT-DEP2', title: 'Browser test raised limit', installation: 'cable-in-air' });
+    await page.getByTestId('input-design-current').fill('200');
+    await page.getByTestId('no-candidates').getByTestId('add-candidates').click();
+    const picker = page.getByTestId('candidate-picker');
+    await picker.waitFor();
+    await page.getByTestId('picker-search').fill('copper XLPE/PVC 95 mm²');
+    await picker.getByTestId('picker-add').first().click();
+    await expect.poll(() => page.getByTestId('candidate-grid').innerText(), { timeout: 30_000 }).toContain('95 mm² copper XLPE/PVC single-core');
+    await chooseOnlyCandidate(page);
+
+    await page.locator('summary', { hasText: 'Temperature limit' }).click();
+    await page.getByTestId('input-own-limit').fill('105');
+    await page.getByTestId('raise-limit').check();
+    const blocker = page.getByTestId('flag-USER_LIMIT_NOT_JUSTIFIED');
+    await blocker.waitFor({ timeout: 30_000 });
+    await expect(blocker.getAttribute('data-severity')).resolves.toBe('blocker');
+    await expect(blocker.innerText()).resolves.toContain('without a written justification');
+    await expect(page.getByTestId('result-state').innerText()).resolves.not.toMatch(/Within limit/);
+    await screenshot(page, 'depend-02-raised-limit-blocked');
+
+    const reason = 'Maker’s type test report TR-17 rates this insulation at 105 °C continuous';
+    await page.getByTestId('raise-justification').fill(reason);
+    await expect.poll(() => page.getByTestId('flag-USER_LIMIT_NOT_JUSTIFIED').count(), { timeout: 30_000 }).toBe(0);
+    await expect.poll(() => page.getByTestId('flag-USER_LIMIT_ABOVE_RATING').innerText(), { timeout: 30_000 }).toContain(reason);
+    await screenshot(page, 'depend-03-raised-limit-justified');
+
+    await page.getByTestId('save-button').click();
+    await expect.poll(() => page.getByTestId('save-state').innerText(), { timeout: 30_000 }).toBe('All changes saved');
+    const stored = (await getSheet(teamId, sheetId))!.inputs;
+    expect(stored.limits).toMatchObject({ temperatureLimitC: 105, raiseMaterialLimit: true, raiseJustification: reason });
+    await page.context().close();
+  });
+});
