@@ -221,6 +221,26 @@ function prepareCable(cand: CableCandidate, p: CommonPrep): PreparedCable {
 }
 
 /**
+ * The two-dimensional solve takes about 10 ms; its inputs are the cable's construction only, which
+ * stays the same while a designer edits currents and surroundings, so recent results are kept.
+ */
+const MULTICORE_CACHE_SIZE = 64;
+const multicoreCache = new Map<string, ReturnType<typeof multicoreCableThermal>>();
+function cachedMulticoreThermal(args: Parameters<typeof multicoreCableThermal>[0]): ReturnType<typeof multicoreCableThermal> {
+  const key = JSON.stringify(args);
+  const hit = multicoreCache.get(key);
+  if (hit) {
+    multicoreCache.delete(key);
+    multicoreCache.set(key, hit);
+    return hit;
+  }
+  const result = multicoreCableThermal(args);
+  multicoreCache.set(key, result);
+  if (multicoreCache.size > MULTICORE_CACHE_SIZE) multicoreCache.delete(multicoreCache.keys().next().value as string);
+  return result;
+}
+
+/**
  * The heat path inside a multi-core cable (issue 21, item 5): the cores laid up touching on one
  * circle, the insulation and fillers between them and the sheath solved in two dimensions
  * (lib/electrical/multicore: isothermal conductors and sheath, as IEC 60287-2-1 takes them), each
@@ -244,7 +264,7 @@ function multicoreHeatPath(cores: number, loadedCores: number, dc: number, layer
   const insulationRho = 1 / insulation.conductivityWPerMK;
   // The fillers between the cores are of the inner covering's material when one is listed.
   const fillerRho = inner.length > 0 ? Math.max(...inner.map((l) => 1 / l.conductivityWPerMK)) : insulationRho;
-  const thermal = multicoreCableThermal({
+  const thermal = cachedMulticoreThermal({
     cores,
     conductorDiameterM: dc,
     insulationThicknessM: insulation.thicknessM,
