@@ -170,7 +170,13 @@ function closedFormAtConductor(cand: PreparedCable, cond: PreparedConditions, gr
     return { conductorCurrentA: eq.currentA, lambda1: 0, externalResistanceKmPerW: T4, internalResistanceKmPerW: T1 + T3, method: CLOSED_FORM_METHOD_CABLE_FIXED_H };
   }
   // The rated circuit's runs carry the unknown current; the others their own (the schema's rule).
-  const arrangement = { ...group.arrangement, circuits: group.arrangement.circuits.map((c, i) => (i < cand.parallel ? { ...c, currentA: undefined } : c)) };
+  // A multi-core cable enters as its equivalent conductor carrying n·I (asSingleCoreCable), so the
+  // other circuits of the same cable carry n times their circuit current too.
+  const n = cand.loadedCores;
+  const arrangement = {
+    ...group.arrangement,
+    circuits: group.arrangement.circuits.map((c, i) => (i < cand.parallel ? { ...c, currentA: undefined } : c.currentA !== undefined ? { ...c, currentA: c.currentA * n } : c)),
+  };
   const circuitsData = arrangement.circuits.map((_, i) => {
     const other = i >= cand.parallel ? cond.otherCircuits[i - cand.parallel] : undefined;
     if (other?.cable) return { ...data, cable: { ...cable, externalDiameterM: other.cable.externalDiameterM }, fixedHeatWPerM: other.cable.lossWPerM };

@@ -89,3 +89,24 @@ describe('a three-core cable is rated on its own heat path', () => {
     expect(oldRise / (e.hotSpotC! - 30)).toBeGreaterThan(1.1);
   });
 });
+
+describe('a multi-core cable beside other circuits of the same cable', () => {
+  it('buried with two neighbours at 100 A: the solver and the IEC 60287 superposition closed form agree within 3 % (no cross-check flag)', () => {
+    // Regression: the closed form ran the neighbours' equivalent conductor at their circuit current
+    // instead of n times it, a third of their heat, and answered 208 A where the solver gave 137 A.
+    const buried = (currentA: number): Conditions => ({
+      designCurrentA: 150,
+      frequencyHz: 50,
+      phases: 3,
+      nominalVoltageV: 230,
+      lengthM: 50,
+      powerFactor: 0.9,
+      installation: { kind: 'buried', depthM: 0.7, soilResistivityKmPerW: 2.5, groundC: 20, otherCircuits: [{ currentA }, { currentA }], circuitSpacingM: 0.2 },
+    });
+    const e = ok(evaluateCandidate(threeCore, buried(100)));
+    expect(e.flags.map((f) => f.code)).not.toContain('CROSS_CHECK_DIFFERENCE');
+    // Hotter neighbours rate it lower.
+    const hotter = ok(evaluateCandidate(threeCore, buried(200)));
+    expect(hotter.ampacityA).toBeLessThan(e.ampacityA);
+  });
+});
