@@ -37,6 +37,8 @@ import { ResultStrip } from './ResultStrip';
 import { StatusBadge } from './StatusBadge';
 import { useLiveComputation } from './useLiveComputation';
 import { GroupPanel } from './GroupPanel';
+import { BusbarResults } from './BusbarResults';
+import { ProtectionPanel } from './ProtectionPanel';
 import { ReEvaluationNotice } from './ReEvaluationNotice';
 import { arrangementRefusalOf, plainMessage, refusalSentence } from '@/lib/sheet/arrangementCheck';
 import { reEvaluationOf } from '@/lib/sheet/reEvaluation';
@@ -399,6 +401,10 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
           {focusedOk ? <ChecksPanel evaluation={focusedOk} units={units} lengthM={values.circuit.lengthM} /> : null}
 
           {focusedOk && focusedOk.kind === 'cable' ? <GroupPanel evaluation={focusedOk} units={units} otherLabels={otherLabels} /> : null}
+
+          {focusedOk && focusedOk.kind === 'bar' ? <BusbarResults evaluation={focusedOk} inputs={values} units={units} /> : null}
+
+          {focusedOk ? <ProtectionPanel evaluation={focusedOk} inputs={values} /> : null}
 
           {values.candidates.length > 0 ? <BeyondSteadyPanel form={form} editable={editable} candidateId={focusedOk ? focusedOk.id : null} units={units} /> : null}
 

@@ -213,3 +213,20 @@ export function systemDefaults(): { busbarSystem: SheetBusbarSystem; protection:
     harmonics: { thirdHarmonicPercent: null },
   };
 }
+
+/** Help text beside the fields: what an empty field means and where the figures come from. */
+export const SYSTEM_HELP = {
+  phaseSpacingM:
+    'Centre of one phase’s pack to the next. Left empty: the packs are taken one bar width apart (flagged) — the current sharing depends on it, and the forces cannot be checked without it.',
+  barGapM: 'Clear gap between the wide faces of a pack’s bars, for every pack on this sheet. Left empty: each bar’s thickness (a common spacer, common practice).',
+  supports:
+    'The forces of IEC 60865-1 need the fault current, the phase spacing, the support spacing and how the bars are held; the rated strength of a support (the maker’s figure) lets the support forces be checked too.',
+  peakFactor: 'i_p = κ·√2·I″k. κ from R/X by IEC 60909-0 eq. (55), κ = 1.02 + 0.98·e^(−3R/X); without either κ = 2.0, the upper limit (cautious, flagged).',
+  device:
+    'The device that protects this circuit. I₂ left empty: 1.45·I_n for IEC 60898-1 breakers, 1.30·I_r for IEC 60947-2 breakers, the IEC 60269-1 factor for gG fuses (all from memory, said so in the result).',
+  curve: 'The maker’s time–current curve as points, currents rising, times falling (log–log between points). A fuse needs it for the disconnection check; a breaker uses it below its instantaneous trip.',
+  source:
+    'Impedance of the supply up to the origin of this circuit (transformer and upstream cables). With the protective conductor, the earth-fault loop and the disconnection time are checked (IEC 60364-4-41 §411).',
+  protectiveConductor: 'Its section is checked by the adiabatic formula of IEC 60364-5-54 §543.1.2 with the fault current and disconnection time, and by Table 54.3; the result says which governs.',
+  thirdHarmonicPercent: 'Third-harmonic content of the phase current. For four- and five-core cables IEC 60364-5-52 Annex E sets the neutral current and a reduction factor (from memory). Left empty: none.',
+} as const;
