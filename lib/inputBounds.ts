@@ -181,6 +181,14 @@ export const INPUT_BOUNDS = {
   },
   rOverX: { label: 'R/X of the fault', unit: '', min: 0, max: 10, basis: 'R/X of the short-circuit impedance for κ = 1.02 + 0.98·e^(−3R/X), IEC 60909-0 eq. (55); the library takes 0…10.' },
   peakFactorKappa: { label: 'Peak factor κ', unit: '', min: 1.02, max: 2, basis: 'κ of IEC 60909-0 lies between 1.02 (R/X large) and 2.0 (R/X → 0), eq. (55).' },
+  mainSectionModulusM3: {
+    label: 'Section modulus of the pack',
+    unit: 'm³',
+    min: 0,
+    minExclusive: true,
+    max: 1,
+    basis: 'Of a stiffened pack about its bending axis (IEC 60865-1); the library takes (0, 1] m³ (busbarSystem.ts prepareBusbarSystemConditions).',
+  },
   yieldStrengthPa: {
     label: 'Yield strength R_p0.2',
     unit: 'Pa',
