@@ -116,7 +116,7 @@ export function ProtectionInputs({
               {d.kind === 'breaker-iec60947-2' ? (
                 <>
                   {num('protection.device.settingCurrentA', 'protection.device.settingCurrentA', 'Setting I_r', d.settingCurrentA, { nullable: true, placeholder: 'required', testId: 'input-device-setting' })}
-                  {num('protection.device.instantaneousCurrentA', 'protection.device.instantaneousCurrentA', 'Instantaneous I_i', d.instantaneousCurrentA, { nullable: true, placeholder: 'required' })}
+                  {num('protection.device.instantaneousCurrentA', 'protection.device.instantaneousCurrentA', 'Instantaneous I_i', d.instantaneousCurrentA, { nullable: true, placeholder: 'required', testId: 'input-device-instantaneous' })}
                   {num('protection.device.instantaneousMaxTimeS', 'protection.device.instantaneousMaxTimeS', 'Its break time', d.instantaneousMaxTimeS, { nullable: true, placeholder: '0.1 assumed' })}
                 </>
               ) : null}
