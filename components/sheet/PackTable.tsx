@@ -48,7 +48,7 @@ export function PackTable({ evaluation, units }: { evaluation: CandidateEvaluati
           ))}
         </tbody>
       </table>
-      <p className="mt-1 text-[0.6875rem] leading-4 text-ink-500">{pack.method}.</p>
+      <p className="mt-1 text-[0.6875rem] leading-4 text-ink-500">{pack.method.replace(/\.?$/, '.')}</p>
       <CheckFlagList flags={flagsOf(evaluation, PACK_FLAG_CODES)} testId="pack-flags" />
     </div>
   );

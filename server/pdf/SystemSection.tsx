@@ -133,7 +133,7 @@ export function BusbarSystemSection({ inputs, chosen }: { inputs: SheetInputs; c
               ))}
             </View>
           ))}
-          <Text style={{ marginTop: 2, color: MUTED }}>{safe(`${pack.method}.`)}</Text>
+          <Text style={{ marginTop: 2, color: MUTED }}>{safe(pack.method.replace(/\.?$/, '.'))}</Text>
           <Flags e={chosen} codes={PACK_FLAG_CODES} />
         </View>
       ) : (
