@@ -81,6 +81,13 @@ export function arrangementRefusalOf(
   return null;
 }
 
+/** What was refused, in a few words: the cables' arrangement, the bus-bar system, or the protection data (sheet version 6). */
+export function refusalSubject(r: ArrangementRefusal): string {
+  if (r.field.startsWith('busbarSystem.')) return 'the bus-bar system does not fit as entered';
+  if (r.field.startsWith('protection.') || r.field.startsWith('harmonics.')) return 'the protection data are refused';
+  return 'the cables do not lie as entered';
+}
+
 /** "Circuit 1 and circuit 2 overlap: … (with 240 mm² Cu XLPE)". */
 export function refusalSentence(r: ArrangementRefusal): string {
   return `${r.message}${r.candidateLabel ? ` (with ${r.candidateLabel})` : ''}`;
