@@ -132,16 +132,19 @@ export const harmonicsSchema = z.object({
 type Issue = { path: Array<string | number>; message: string };
 
 /** What single fields cannot say: the data each choice needs, each refusal on the field to fill. */
-export function systemIssues(value: { busbarSystem: SheetBusbarSystem; protection: SheetProtection }): Issue[] {
+export function systemIssues(value: { busbarSystem: SheetBusbarSystem; protection: SheetProtection; installation: { kind: string; enclosureInside: string } }): Issue[] {
   const issues: Issue[] = [];
   const b = value.busbarSystem;
-  if (b.supports !== null || b.supportSpacingM !== null || b.supportStrengthN !== null) {
+  // The system's fields are shown (and used) only for bars; a cable sheet keeps them unread.
+  const placement = value.installation.kind === 'enclosure' ? value.installation.enclosureInside : value.installation.kind;
+  const bars = placement === 'bar-on-edge' || placement === 'bar-flat';
+  if (bars && (b.supports !== null || b.supportSpacingM !== null || b.supportStrengthN !== null)) {
     // The forces need the whole system: the library takes the supports only with the phase spacing.
     if (b.phaseSpacingM === null) issues.push({ path: ['busbarSystem', 'phaseSpacingM'], message: 'Enter the phase spacing: the forces on the bars and supports need it' });
     if (b.supports !== null && b.supportSpacingM === null) issues.push({ path: ['busbarSystem', 'supportSpacingM'], message: 'Enter the support spacing: the forces need the span' });
     if (b.supportSpacingM !== null && b.supports === null) issues.push({ path: ['busbarSystem', 'supports'], message: 'Choose how the bars are held: the forces need it' });
   }
-  if (b.spacerSpacingM !== null && b.supportSpacingM !== null && b.spacerSpacingM > b.supportSpacingM) {
+  if (bars && b.spacerSpacingM !== null && b.supportSpacingM !== null && b.spacerSpacingM > b.supportSpacingM) {
     issues.push({ path: ['busbarSystem', 'spacerSpacingM'], message: 'Spacer spacing must not exceed the support spacing' });
   }
   const p = value.protection;

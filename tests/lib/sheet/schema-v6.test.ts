@@ -87,6 +87,13 @@ describe('the new fields are refused with their field named', () => {
     expect(pathsOf(barSheet((i) => void Object.assign(i.busbarSystem, { phaseSpacingM: 0.2, supportSpacingM: 0.8 })))).toEqual(['busbarSystem.supports']);
     expect(pathsOf(barSheet((i) => void Object.assign(i.busbarSystem, { phaseSpacingM: 0.2, supportSpacingM: 0.8, spacerSpacingM: 0.9, supports: 'continuous-two-spans' })))).toEqual(['busbarSystem.spacerSpacingM']);
     expect(pathsOf(barSheet((i) => void Object.assign(i.busbarSystem, { phaseSpacingM: 0.2, supportSpacingM: 0.8, supports: 'continuous-two-spans' })))).toEqual([]);
+    // A cable sheet neither shows nor uses the bus-bar fields: nothing there can block it.
+    expect(pathsOf(barSheet((i) => {
+      i.busbarSystem.supports = 'continuous-two-spans';
+      i.installation.kind = 'cable-in-air';
+      i.candidates = [];
+      i.chosenCandidateId = null;
+    }))).toEqual([]);
   });
 
   it('a device rating of 0 A, a curve that is not monotone, an I_r above I_n: each on its field', () => {
