@@ -13,6 +13,7 @@ import type { Browser } from 'playwright-core';
 import { closeDb } from '@/db/client';
 import { createProject } from '@/db/queries/projects';
 import { getSheet } from '@/db/queries/sheets';
+import { createShare } from '@/db/queries/shares';
 import { copyStandardCatalogueToTeam } from '@/db/seed/catalogue';
 import type { CandidateEvaluationOk } from '@/lib/electrical/sizing/types';
 import { computeSheet } from '@/lib/sheet/compute';
@@ -150,6 +151,22 @@ describe('a bus-bar pack and its protection on the sheet', () => {
     await check();
     await screenshot(page, 'systems-02-after-reload');
     await page.context().close();
+  });
+
+  it('the share link shows the same drawing, pack table, forces and protection verdicts from the saved snapshot', async () => {
+    const e = await expectedEvaluation();
+    const share = await createShare(teamId, designer.id, sheetId, { expiresInDays: 7 });
+    const context = await browser.newContext({ viewport: { width: 1440, height: 900 } });
+    const page = await context.newPage();
+    await page.goto(appUrl(`/share/${share!.token}`));
+    await page.getByTestId('pack-table').waitFor({ timeout: 60_000 });
+    await expect(page.getByTestId('pack-governing').innerText()).resolves.toContain(hottestBarText(e.pack!, t));
+    const forces = await page.getByTestId('forces-panel').innerText();
+    for (const line of forcesLines(e.forces!, 0.5)) expect(forces).toContain(line.value);
+    await expect(page.getByTestId('protection-verdict-coordination').innerText()).resolves.toContain('Overload coordination');
+    await expect(page.getByTestId('busbar-drawing').locator('[data-role="governing"]').count()).resolves.toBe(1);
+    await screenshot(page, 'systems-03-share');
+    await context.close();
   });
 
   it('a designer working in imperial units sees the phase spacing in inches (200 mm / 25.4 = 7.87402 in), stored SI', async () => {
