@@ -8,6 +8,9 @@
 //   saved inputs (run here in the test), the saved inputs are SI, and the server's snapshot holds
 //   the same forces; κ is checked by hand: κ = 1.02 + 0.98·e^(−3·0.1) = 1.746 (IEC 60909-0 eq. 55);
 // - the same sheet in imperial units shows the phase spacing in inches (200 mm / 25.4 = 7.87402 in).
+import fs from 'node:fs';
+import path from 'node:path';
+import { createRequire } from 'node:module';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser } from 'playwright-core';
 import { closeDb } from '@/db/client';
@@ -31,6 +34,17 @@ let projectId: string;
 let sheetId: string;
 
 const t = (c: number) => formatQuantity(c, 'temperature', 'si', { digits: 4 });
+const axeSource = fs.readFileSync(path.join(path.dirname(createRequire(path.resolve('package.json')).resolve('axe-core')), 'axe.min.js'), 'utf8');
+
+/** Serious or critical axe-core findings on the page as it stands (WCAG 2.1 A/AA and best practice, as tests/e2e/accessibility.test.ts runs them). */
+async function graveAxeFindings(page: import('playwright-core').Page): Promise<string[]> {
+  await page.evaluate(axeSource);
+  const violations = (await page.evaluate(async () => {
+    const axe = (window as unknown as { axe: { run(context: Document, options: unknown): Promise<{ violations: unknown[] }> } }).axe;
+    return (await axe.run(document, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'best-practice'] }, resultTypes: ['violations'] })).violations;
+  })) as Array<{ id: string; impact: string; nodes: Array<{ target: string[] }> }>;
+  return violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.id} [${v.impact}]: ${v.nodes.map((n) => n.target.join(' ')).slice(0, 3).join(' | ')}`);
+}
 
 beforeAll(async () => {
   const team = await createTestTeam('e2e-systems');
@@ -150,6 +164,9 @@ describe('a bus-bar pack and its protection on the sheet', () => {
     await page.reload();
     await check();
     await screenshot(page, 'systems-02-after-reload');
+    // The new inputs (the Protection block open: it has a device) and panels carry their labels and roles: axe-core finds nothing serious.
+    await expect(page.getByTestId('input-device-rating').isVisible()).resolves.toBe(true);
+    expect(await graveAxeFindings(page)).toEqual([]);
     await page.context().close();
   });
 
