@@ -158,6 +158,79 @@ export const INPUT_BOUNDS = {
   screenSectionMm2: { label: 'Screen section', unit: 'mm²', min: 0, minExclusive: true, max: 5000, basis: 'Metallic cross-section of one cable’s screen or sheath; the library takes up to 5000 mm².' },
   screenR20OhmPerM: { label: 'Screen resistance at 20 °C', unit: 'Ω/m', min: 0, minExclusive: true, max: 1, basis: 'Of one cable’s screen, from the maker; the library takes up to 1 Ω/m.' },
 
+  // ───────────── the bus-bar system (physics.md §10; IEC 60865-1 for the forces) ─────────────
+  // The ranges are those lib/electrical/sizing/busbarSystem.ts (prepareBusbarSystemConditions) and
+  // lib/electrical/busbar/forces.ts accept, so that an edge refuses what the library would refuse.
+  phaseSpacingM: {
+    label: 'Phase spacing',
+    unit: 'm',
+    min: 0,
+    minExclusive: true,
+    max: 10,
+    basis: 'Centre of one phase’s pack to the centre of the next; the library takes (0, 10] m (busbarSystem.ts). Packs that would overlap are refused by the library with the field named.',
+  },
+  supportSpacingM: { label: 'Support spacing', unit: 'm', min: 0, minExclusive: true, max: 20, basis: 'Span between the supports of the run; the library takes (0, 20] m (busbarSystem.ts).' },
+  spacerSpacingM: { label: 'Spacer spacing', unit: 'm', min: 0, minExclusive: true, max: 20, basis: 'Distance between the spacers tying a pack’s bars; the library takes (0, 20] m (busbarSystem.ts).' },
+  supportStrengthN: {
+    label: 'Rated support strength',
+    unit: 'N',
+    min: 0,
+    minExclusive: true,
+    max: 1e7,
+    basis: 'Rated bending (cantilever) strength of one support; the library takes (0, 10 MN] (busbarSystem.ts), far above any LV/MV post insulator.',
+  },
+  rOverX: { label: 'R/X of the fault', unit: '', min: 0, max: 10, basis: 'R/X of the short-circuit impedance for κ = 1.02 + 0.98·e^(−3R/X), IEC 60909-0 eq. (55); the library takes 0…10.' },
+  peakFactorKappa: { label: 'Peak factor κ', unit: '', min: 1.02, max: 2, basis: 'κ of IEC 60909-0 lies between 1.02 (R/X large) and 2.0 (R/X → 0), eq. (55).' },
+  mainSectionModulusM3: {
+    label: 'Section modulus of the pack',
+    unit: 'm³',
+    min: 0,
+    minExclusive: true,
+    max: 1,
+    basis: 'Of a stiffened pack about its bending axis (IEC 60865-1); the library takes (0, 1] m³ (busbarSystem.ts prepareBusbarSystemConditions).',
+  },
+  yieldStrengthPa: {
+    label: 'Yield strength R_p0.2',
+    unit: 'Pa',
+    min: 1e6,
+    max: 1e9,
+    basis: '0.2 % proof strength of the bar material for the IEC 60865-1 stress check; the force check takes 1 MPa…1 GPa (busbar/forces.ts); copper and aluminium bars lie near 50–350 N/mm² (common practice).',
+  },
+
+  // ───────────── protection (physics.md §11: IEC 60364-4-41, -4-43, -5-54) ─────────────
+  deviceRatedCurrentA: {
+    label: 'Device rating',
+    unit: 'A',
+    min: 0,
+    minExclusive: true,
+    max: 10_000,
+    basis: 'Rated current I_n of a circuit-breaker or fuse (or the setting I_r); the largest LV circuit-breakers are rated 6300 A (common practice). The device schema refuses 0 or less (lib/electrical/protection/device.ts).',
+  },
+  conventionalOperatingCurrentA: {
+    label: 'Conventional operating current I₂',
+    unit: 'A',
+    min: 0,
+    minExclusive: true,
+    max: 25_000,
+    basis: 'I₂ of IEC 60364-4-43 §433.1, at most about 2.1·I_n for gG fuses (from memory) of the largest device rating.',
+  },
+  instantaneousCurrentA: {
+    label: 'Instantaneous setting I_i',
+    unit: 'A',
+    min: 0,
+    minExclusive: true,
+    max: 500_000,
+    basis: 'Instantaneous release setting of an IEC 60947-2 breaker; under the fault-current cap.',
+  },
+  instantaneousMaxTimeS: { label: 'Instantaneous break time', unit: 's', min: 0, minExclusive: true, max: 5, basis: 'The maker’s largest break time of the instantaneous release; 5 s is the longest disconnection time of IEC 60364-4-41 (from memory).' },
+  curvePointCurrentA: { label: 'Curve point current', unit: 'A', min: 0, minExclusive: true, max: 500_000, basis: 'A point of the maker’s time–current curve; under the fault-current cap.' },
+  curvePointTimeS: { label: 'Curve point time', unit: 's', min: 0, minExclusive: true, max: 100_000, basis: 'Operating time of a curve point; the conventional times of IEC 60269-1 reach 4 h (from memory), a day is the end of any published curve.' },
+  sourceResistanceOhm: { label: 'Source resistance', unit: 'Ω', min: 0, max: 10, basis: 'Resistance of the supply up to the circuit’s origin; LV sources lie in milliohms to about an ohm (common practice).' },
+  sourceReactanceOhm: { label: 'Source reactance', unit: 'Ω', min: 0, max: 10, basis: 'Reactance of the supply up to the circuit’s origin; as the resistance.' },
+  sourceImpedanceOhm: { label: 'Source impedance', unit: 'Ω', min: 0, max: 10, basis: 'Magnitude of the supply impedance, when only |Z| is known (added arithmetically, an upper bound).' },
+  earthElectrodesOhm: { label: 'Earth electrodes R_A + R_B', unit: 'Ω', min: 0, minExclusive: true, max: 10_000, basis: 'TT systems: electrode resistances of a few ohms to a few hundred ohms (common practice).' },
+  protectiveConductorSectionMm2: { label: 'Protective conductor section', unit: 'mm²', min: 0, minExclusive: true, max: 5000, basis: 'The section range of one conductor (the library refuses 0 or less).' },
+
   // ───────────── limits ─────────────
   temperatureLimitC: { label: 'Own temperature limit', ...TEMPERATURE_LIMIT },
   groupingFactor: { label: 'Grouping factor', unit: '', min: 0, minExclusive: true, max: 1, basis: 'A derating factor (IEC 60364-5-52 Table B.52.17 style); 0 would allow no current.' },

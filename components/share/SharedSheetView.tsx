@@ -15,6 +15,8 @@ import { FlagsPanel } from '@/components/sheet/FlagsPanel';
 import { ResultStrip } from '@/components/sheet/ResultStrip';
 import { useLiveComputation } from '@/components/sheet/useLiveComputation';
 import { GroupPanel } from '@/components/sheet/GroupPanel';
+import { BusbarResults } from '@/components/sheet/BusbarResults';
+import { ProtectionPanel } from '@/components/sheet/ProtectionPanel';
 import { ReEvaluationNotice } from '@/components/sheet/ReEvaluationNotice';
 import { arrangementSentences } from '@/lib/sheet/groupWords';
 import { reEvaluationOf } from '@/lib/sheet/reEvaluation';
@@ -125,6 +127,8 @@ export function SharedSheetView({ sheet }: { sheet: SharedSheet }) {
         />
         {focusedOk ? <ChecksPanel evaluation={focusedOk} units="si" lengthM={sheet.inputs.circuit.lengthM} /> : null}
         {focusedOk && focusedOk.kind === 'cable' ? <GroupPanel evaluation={focusedOk} units="si" otherLabels={otherLabels} /> : null}
+        {focusedOk && focusedOk.kind === 'bar' ? <BusbarResults evaluation={focusedOk} inputs={sheet.inputs} units="si" /> : null}
+        {focusedOk ? <ProtectionPanel evaluation={focusedOk} inputs={sheet.inputs} /> : null}
         {sheet.optionalChecks.length > 0 ? <OptionalChecks reports={sheet.optionalChecks} /> : null}
         {sheet.inputs.candidates.length > 0 ? (
           <div className="grid gap-3 xl:grid-cols-2">

@@ -46,6 +46,17 @@ export interface CandidateGridRow {
   /** "centre cable of this circuit, 88.7 °C" in the user's units; '' for bars or results without a group. */
   governing: string;
   groupMethod: string;
+  /** Bus-bar packs: the bar that governs with its temperature; '' otherwise. */
+  governingBar: string;
+  /** IEC 60865-1: "✔ passes", "✖ fails", "not checked"; '' for cables. */
+  forces: string;
+  stressRatio: number | null;
+  /** The larger support force, N. */
+  supportForceN: number | null;
+  /** "100 A ✔ coordinated", "125 A ✖ not coordinated"; '' without a device. */
+  device: string;
+  /** Smallest coordinated rating, A. */
+  smallestDeviceA: number | null;
   state: string;
   stateKey: 'within' | 'tight' | 'over' | 'error';
   passes: boolean;
@@ -55,6 +66,7 @@ export interface CandidateGridRow {
 }
 
 const SHORT_CIRCUIT_CELL: Record<string, string> = { passes: '✔ passes', fails: '✖ fails', 'not checked': 'not checked', '': '—' };
+const VERDICT_CELL: Record<string, string> = { passes: '✔ passes', fails: '✖ fails', 'not checked': 'not checked' };
 
 export function candidateRows(
   candidates: SheetCandidate[],
@@ -85,6 +97,12 @@ export function candidateRows(
       lifeCycleCost: r.lifeCycleCost,
       governing: r.governingCable === null ? '' : `${r.governingCable}${r.governingCableC === null ? '' : `, ${formatNumber(convertFromSi(r.governingCableC, 'temperature', units), 4)} ${unitLabel('temperature', units)}`}`,
       groupMethod: r.groupMethod ?? '',
+      governingBar: r.hottestBar ?? '',
+      forces: r.forces === null ? '' : (VERDICT_CELL[r.forces] ?? r.forces),
+      stressRatio: r.stressRatio,
+      supportForceN: r.supportForceN,
+      device: r.deviceCurrentA === null ? '' : `${formatNumber(r.deviceCurrentA, 4)} A ${r.coordination === 'passes' ? '✔ coordinated' : r.coordination === 'fails' ? '✖ not coordinated' : '(not checked)'}`,
+      smallestDeviceA: r.smallestDeviceA,
       flags: `${counts.blocker ? `${counts.blocker} ✖ ` : ''}${counts.review ? `${counts.review} ▲ ` : ''}${counts.note ? `${counts.note} i` : ''}`.trim(),
       state: r.state,
       stateKey: r.stateKey,
@@ -127,6 +145,9 @@ export function CandidateGrid({
   onRemove: (id: string) => void;
   editable: boolean;
 }) {
+  // The bus-bar and protection columns show when some candidate has those results.
+  const hasBars = rows.some((r) => r.forces !== '');
+  const hasDevice = rows.some((r) => r.device !== '');
   const columns = useMemo<ColDef<CandidateGridRow>[]>(() => {
     const t = unitLabel('temperature', units);
     return [
@@ -161,6 +182,12 @@ export function CandidateGrid({
         valueFormatter: (p) => (p.value ? String(p.value) : '—'),
       },
       { headerName: 'Group rated by', field: 'groupMethod', width: 230, valueFormatter: (p) => (p.value ? String(p.value) : '—') },
+      { headerName: 'Governing bar', field: 'governingBar', width: 210, hide: !hasBars, valueFormatter: (p) => (p.value ? String(p.value) : '—') },
+      { headerName: 'Forces (IEC 60865-1)', field: 'forces', width: 150, hide: !hasBars, valueFormatter: (p) => (p.value ? String(p.value) : '—') },
+      { headerName: 'Stress ratio', field: 'stressRatio', width: 100, type: 'numericColumn', hide: !hasBars, valueFormatter: num(3) },
+      { headerName: 'Support force (N)', field: 'supportForceN', width: 124, type: 'numericColumn', hide: !hasBars, valueFormatter: num(4) },
+      { headerName: 'Device and coordination', field: 'device', width: 190, hide: !hasDevice, valueFormatter: (p) => (p.value ? String(p.value) : '—') },
+      { headerName: 'Smallest coordinated (A)', field: 'smallestDeviceA', width: 150, type: 'numericColumn', hide: !hasDevice, valueFormatter: num(4) },
       {
         headerName: 'Utilisation (%)',
         field: 'utilisation',
@@ -192,7 +219,7 @@ export function CandidateGrid({
           ]
         : []),
     ];
-  }, [units, editable, onChoose, onRemove]);
+  }, [units, editable, onChoose, onRemove, hasBars, hasDevice]);
 
   return (
     <div className="w-full [&_.ag-center-cols-container]:!min-h-0 [&_.ag-center-cols-viewport]:!min-h-0" data-testid="candidate-grid">

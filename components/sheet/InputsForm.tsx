@@ -6,6 +6,8 @@ import { displayText, type SheetNumericField } from '@/lib/sheet/formUnits';
 import type { UnitSystem } from '@/lib/units';
 import { NumberField } from './NumberField';
 import { ArrangementInputs } from './ArrangementInputs';
+import { BusbarSystemInputs } from './BusbarSystemInputs';
+import { ProtectionInputs } from './ProtectionInputs';
 
 type Form = UseFormReturnType<SheetInputs>;
 
@@ -112,6 +114,8 @@ export function InputsForm({
           )}
         </Section>
 
+        <ProtectionInputs form={form} units={units} disabled={disabled} externalErrors={externalErrors} />
+
         <Section title="Installation">
           <div>
             <label htmlFor="installation-kind" className="field-label">How it is installed</label>
@@ -162,6 +166,7 @@ export function InputsForm({
             </>
           ) : null}
           {cables ? <ArrangementInputs form={form} units={units} disabled={disabled} externalErrors={externalErrors} /> : null}
+          {!cables ? <BusbarSystemInputs form={form} units={units} disabled={disabled} externalErrors={externalErrors} /> : null}
           {num('limits.groupingFactor', 'Grouping factor', { help: DEFAULT_SOURCES.groupingFactor })}
         </Section>
 

@@ -37,8 +37,10 @@ import { ResultStrip } from './ResultStrip';
 import { StatusBadge } from './StatusBadge';
 import { useLiveComputation } from './useLiveComputation';
 import { GroupPanel } from './GroupPanel';
+import { BusbarResults } from './BusbarResults';
+import { ProtectionPanel } from './ProtectionPanel';
 import { ReEvaluationNotice } from './ReEvaluationNotice';
-import { arrangementRefusalOf, plainMessage, refusalSentence } from '@/lib/sheet/arrangementCheck';
+import { arrangementRefusalOf, plainMessage, refusalSentence, refusalSubject } from '@/lib/sheet/arrangementCheck';
 import { reEvaluationOf } from '@/lib/sheet/reEvaluation';
 
 // The plots and the grid are the slow part of a render (Plotly, AG Grid): they take the new result
@@ -288,7 +290,7 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
                 data-testid="save-button"
                 // A result saved by an earlier method may be saved again as it stands, to store the current one.
                 disabled={(!dirty && !reEvaluation) || save.isPending || live.invalid || refusal !== null}
-                title={refusal ? `Not saved while the cables do not lie as entered: ${refusalSentence(refusal)}` : undefined}
+                title={refusal ? `Not saved while ${refusalSubject(refusal)}: ${refusalSentence(refusal)}` : undefined}
                 onClick={() => save.mutate(undefined)}
               >
                 Save
@@ -399,6 +401,10 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
           {focusedOk ? <ChecksPanel evaluation={focusedOk} units={units} lengthM={values.circuit.lengthM} /> : null}
 
           {focusedOk && focusedOk.kind === 'cable' ? <GroupPanel evaluation={focusedOk} units={units} otherLabels={otherLabels} /> : null}
+
+          {focusedOk && focusedOk.kind === 'bar' ? <BusbarResults evaluation={focusedOk} inputs={values} units={units} /> : null}
+
+          {focusedOk ? <ProtectionPanel evaluation={focusedOk} inputs={values} /> : null}
 
           {values.candidates.length > 0 ? <BeyondSteadyPanel form={form} editable={editable} candidateId={focusedOk ? focusedOk.id : null} units={units} /> : null}
 

@@ -113,6 +113,8 @@ export async function listConductors(teamId: string, tx: Executor = getDb()): Pr
     widthMm: c.widthMm,
     thicknessMm: c.thicknessMm,
     dimensionSource: c.dimensionSource,
+    yieldStrengthMpa: c.yieldStrengthMpa,
+    yieldStrengthSource: c.yieldStrengthSource,
   }));
 }
 

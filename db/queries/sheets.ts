@@ -22,7 +22,7 @@ import {
   type SheetInputs,
   type SheetStatus,
 } from '../../lib/sheet';
-import { arrangementRefusalOf, refusalSentence } from '../../lib/sheet/arrangementCheck';
+import { arrangementRefusalOf, refusalSentence, refusalSubject } from '../../lib/sheet/arrangementCheck';
 import type { ResultSnapshot } from '../../lib/sheet/snapshot';
 import type { SheetListItem, SheetRecord } from '../../lib/sheet/records';
 
@@ -263,7 +263,7 @@ export function changedSections(before: SheetInputs, after: SheetInputs): string
 function refuseBadArrangement(snapshot: ResultSnapshot): void {
   const refusal = arrangementRefusalOf(snapshot.evaluations, snapshot.error);
   if (!refusal) return;
-  throw new SheetOperationError(400, 'invalid_arrangement', `Not saved: the cables do not lie as entered. ${refusalSentence(refusal)}.`, {
+  throw new SheetOperationError(400, 'invalid_arrangement', `Not saved: ${refusalSubject(refusal)}. ${refusalSentence(refusal)}.`, {
     fieldPath: refusal.field,
     issues: [{ path: refusal.field, message: refusal.message }],
   });

@@ -92,6 +92,9 @@ export const catalogueConductors = pgTable(
     widthMm: numeric('width_mm'),
     thicknessMm: numeric('thickness_mm'),
     dimensionSource: text('dimension_source').notNull(),
+    /** Bars: the 0.2 % proof strength R_p0.2 of the bar as supplied, N/mm² (IEC 60865-1 stress check); null = the library's default per metal (flagged). */
+    yieldStrengthMpa: numeric('yield_strength_mpa'),
+    yieldStrengthSource: text('yield_strength_source').notNull().default(''),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },
@@ -102,6 +105,7 @@ export const catalogueConductors = pgTable(
       'catalogue_conductors_geometry',
       sql`(${t.shape} = 'round' and ${t.diameterMm} is not null) or (${t.shape} = 'rectangular' and ${t.widthMm} is not null and ${t.thicknessMm} is not null)`,
     ),
+    check('catalogue_conductors_yield_strength', sql`${t.yieldStrengthMpa} is null or (${t.shape} = 'rectangular' and ${t.yieldStrengthMpa} > 0)`),
   ],
 );
 

@@ -18,6 +18,7 @@ import {
   transitionSheet,
 } from '../queries/sheets';
 import { defaultSheetInputs, type Actor, type SheetCandidate, type SheetInputs } from '../../lib/sheet';
+import type { SheetDevice, SheetProtection } from '../../lib/sheet/systemSchema';
 import { can, type Role } from '../../lib/auth/permissions';
 import { DEMO_PROJECT, DEMO_TEAM, DEMO_USERS } from './demo';
 
@@ -88,6 +89,18 @@ function singleCore(spec: CableSpec): SheetCandidate {
   };
 }
 
+/**
+ * The demo's protective devices (invented, no maker's data): the kinds of IEC 60898-1, IEC 60947-2
+ * and IEC 60269 with a rating and, for adjustable breakers, settings a designer would pick.
+ */
+function device(overrides: Partial<SheetDevice> & Pick<SheetDevice, 'kind' | 'ratedCurrentA'>): SheetDevice {
+  return { curve: 'C', settingCurrentA: null, settingStepsA: [], instantaneousCurrentA: null, instantaneousMaxTimeS: null, conventionalOperatingCurrentA: null, timeCurrentCurve: [], ...overrides };
+}
+
+function protectionOf(inputs: SheetInputs, change: Partial<SheetProtection> & Pick<SheetProtection, 'device'>): SheetProtection {
+  return { ...inputs.protection, included: true, ...change };
+}
+
 interface DemoSheet {
   circuitTag: string;
   title: string;
@@ -103,6 +116,29 @@ function busBarRun(): DemoSheet {
   inputs.environment = { ...inputs.environment, ambientC: 35 };
   inputs.candidates = [copperBar('cu-bar-2x100x10', 100, 10, 2), copperBar('cu-bar-2x120x10', 120, 10, 2), copperBar('cu-bar-3x100x10', 100, 10, 3)];
   inputs.chosenCandidateId = 'cu-bar-2x100x10';
+  // The run as built (issue 18): packs of two bars on edge 10 mm apart, phases 250 mm apart, on
+  // supports every 500 mm continuous over the run with a spacer midway; the invented supports are
+  // rated 20 kN. R/X 0.1 at the transformer's terminals (common practice for large LV transformers).
+  inputs.busbarSystem = {
+    ...inputs.busbarSystem,
+    barGapM: 0.01,
+    phaseSpacingM: 0.25,
+    supportSpacingM: 0.5,
+    spacerSpacingM: 0.25,
+    supports: 'continuous-three-or-more-spans',
+    supportStrengthN: 20000,
+    peakFactorBy: 'r-over-x',
+    rOverX: 0.1,
+  };
+  // The transformer's incoming breaker (IEC 60947-2), its trip unit set to 2500 A; the source is the
+  // transformer (2 MVA, about 6 % impedance: R ≈ 0.8 mΩ, X ≈ 4.7 mΩ on 400 V, common practice).
+  inputs.protection = protectionOf(inputs, {
+    device: device({ kind: 'breaker-iec60947-2', ratedCurrentA: 2500, settingCurrentA: 2500, instantaneousCurrentA: 20000, settingStepsA: [1000, 1250, 1600, 2000, 2500] }),
+    circuitRole: 'distribution',
+    sourceBy: 'r-and-x',
+    sourceResistanceOhm: 0.0008,
+    sourceReactanceOhm: 0.0047,
+  });
   inputs.notes = 'Transformer T1 to the main switchboard, busway in the switchroom (demo).';
   return { circuitTag: 'KY-T1-MSB', title: 'Transformer T1 to main switchboard, bus-bar run', inputs, state: 'approved' };
 }
@@ -121,6 +157,15 @@ function chillerFeeder(): DemoSheet {
     singleCore({ id: 'cu-xlpe-1x400', material: 'copper', sectionMm2: 400, r20OhmPerKm: 0.047, conductorDiameterMm: 23.2, insulation: 'XLPE', insulationMm: 2.0, sheathMm: 2.1, parallel: 1, pricePerM: '82.00' }),
   ];
   inputs.chosenCandidateId = 'cu-xlpe-2x185';
+  // A moulded-case breaker with an adjustable trip unit; the protective conductor a separate 185 mm² copper XLPE core run with the phases.
+  inputs.protection = protectionOf(inputs, {
+    device: device({ kind: 'breaker-iec60947-2', ratedCurrentA: 800, settingCurrentA: 630, instantaneousCurrentA: 3150, settingStepsA: [320, 400, 500, 630, 800] }),
+    circuitRole: 'distribution',
+    sourceBy: 'r-and-x',
+    sourceResistanceOhm: 0.002,
+    sourceReactanceOhm: 0.008,
+    protectiveConductor: { entered: true, sectionMm2: 185, material: 'copper', insulation: 'thermosetting-90', arrangement: 'in-cable-or-bunched' },
+  });
   inputs.notes = 'Main switchboard to chiller plant CH-1 on the cable ladder in the plant room (demo).';
   return { circuitTag: 'KY-MSB-CH1', title: 'Chiller plant feeder', inputs, state: 'in_review' };
 }
@@ -148,6 +193,7 @@ function evFeeder(): DemoSheet {
     singleCore({ id: 'al-xlpe-240', material: 'aluminium', sectionMm2: 240, r20OhmPerKm: 0.125, conductorDiameterMm: 18.0, insulation: 'XLPE', insulationMm: 1.7, sheathMm: 1.9, parallel: 1, pricePerM: '14.10' }),
   ];
   inputs.chosenCandidateId = 'al-xlpe-150';
+  inputs.protection = protectionOf(inputs, { device: device({ kind: 'breaker-iec60947-2', ratedCurrentA: 400, settingCurrentA: 250, instantaneousCurrentA: 2500, settingStepsA: [160, 200, 250, 320, 400] }), circuitRole: 'distribution' });
   inputs.notes = 'Main switchboard to the EV charger pillar across the yard, direct in ground, in one trench with the pillar 2 feeder (demo).';
   return {
     circuitTag: 'KY-MSB-EV1',
@@ -170,6 +216,8 @@ function refrigerationFeeder(): DemoSheet {
     singleCore({ id: 'cu-xlpe-70', material: 'copper', sectionMm2: 70, r20OhmPerKm: 0.268, conductorDiameterMm: 9.8, insulation: 'XLPE', insulationMm: 1.1, sheathMm: 1.6, parallel: 1, pricePerM: '14.60' }),
   ];
   inputs.chosenCandidateId = null;
+  // gG fuses at the board; their curve is not entered, so only the coordination is checked.
+  inputs.protection = protectionOf(inputs, { device: device({ kind: 'fuse-gG-iec60269', ratedCurrentA: 160 }), circuitRole: 'distribution' });
   inputs.notes = 'Roof plant: main switchboard to refrigeration rack R-2, cable tray in full sun (demo).';
   return { circuitTag: 'KY-MSB-RR2', title: 'Refrigeration rack feeder on the roof', inputs, state: 'draft' };
 }
@@ -182,6 +230,9 @@ function distributionRiser(): DemoSheet {
   inputs.environment = { ...inputs.environment, ambientC: 40 };
   inputs.candidates = [copperBar('cu-bar-1x60x10', 60, 10, 1), copperBar('cu-bar-1x80x10', 80, 10, 1)];
   inputs.chosenCandidateId = 'cu-bar-1x60x10';
+  // Risers 150 mm apart on supports every 600 mm; the section's breaker, set to 1000 A.
+  inputs.busbarSystem = { ...inputs.busbarSystem, phaseSpacingM: 0.15, supportSpacingM: 0.6, supports: 'continuous-three-or-more-spans', peakFactorBy: 'r-over-x', rOverX: 0.15 };
+  inputs.protection = protectionOf(inputs, { device: device({ kind: 'breaker-iec60947-2', ratedCurrentA: 1250, settingCurrentA: 1000, instantaneousCurrentA: 10000, settingStepsA: [630, 800, 1000, 1250] }), circuitRole: 'distribution' });
   // Invented operating pattern of the demo building: shops open 08:00–20:00.
   const dailyProfileA = Array.from({ length: 24 }, (_, hour) => (hour >= 8 && hour < 20 ? 950 : 420));
   inputs.overTime = { checked: true, overloadCurrentA: 1300, overloadDurationS: 1800, dailyProfileA, faultWithCoverings: true };

@@ -7,7 +7,12 @@
  * - XLPE 90 °C continuous, 250 °C short circuit (common practice);
  * - copper bar R20 from ρ20 = 1.7241e-8 Ω·m (IEC 60287-1-1 Table 1) over the nominal area;
  * - R20 of 185 and 240 mm²: IEC 60228 Table 2 maxima, 0.0991 and 0.0754 Ω/km (from memory);
- * - soil 1.2 K·m/W and 20 °C ground: plausible site values (inputs, not references).
+ * - soil 1.2 K·m/W and 20 °C ground: plausible site values (inputs, not references);
+ * - the bus-bar system: 200 mm between phase centres and supports every 400 mm are plausible for
+ *   an LV switchboard riser, R/X 0.15 near a distribution transformer, a 50 kA fault (inputs, not
+ *   references); R_p0.2 250 N/mm² for a hard-drawn copper bar (common practice, from memory);
+ * - the breaker: an invented IEC 60947-2 air circuit-breaker of 3200 A set to 2500 A, I_i = 10·I_r,
+ *   and a source of 1.6 + j6.4 mΩ (about a 1600 kVA transformer at 400 V, common practice).
  */
 import type { AmpacityRequest, EvaluateRequest } from './schemas';
 
@@ -97,4 +102,53 @@ export const EXAMPLE_AMPACITY_REQUEST: AmpacityRequest = {
     terminalLimitC: 105,
     shortCircuitLimitC: 200,
   },
+};
+
+function copperBarPack(barsPerPhase: number) {
+  return {
+    kind: 'bar' as const,
+    id: `cu-${barsPerPhase}x100x10`,
+    label: `${barsPerPhase} × 100 × 10 mm copper per phase`,
+    material: 'copper' as const,
+    widthM: 0.1,
+    thicknessM: 0.01,
+    barsPerPhase,
+    barGapM: 0.01,
+    r20OhmPerM: 1.7241e-8 / (0.1 * 0.01),
+    emissivity: 0.4,
+    terminalLimitC: 105,
+    shortCircuitLimitC: 200,
+    yieldStrengthPa: 250e6,
+  };
+}
+
+/**
+ * A bus-bar system as built (physics.md §10) and its protection (§11): packs of three and four
+ * 100 × 10 mm copper bars per phase on edge, their supports for the IEC 60865-1 forces, and the
+ * air circuit-breaker with the earth-fault loop for coordination and disconnection.
+ */
+export const EXAMPLE_BUSBAR_SYSTEM_REQUEST: EvaluateRequest = {
+  conditions: {
+    designCurrentA: 2500,
+    frequencyHz: 50,
+    phases: 3,
+    nominalVoltageV: 230,
+    lengthM: 15,
+    powerFactor: 0.9,
+    ambientC: 35,
+    installation: {
+      kind: 'bar-on-edge',
+      system: { phaseSpacingM: 0.2, supportSpacingM: 0.4, spacerSpacingM: 0.2, supports: 'continuous-three-or-more-spans', supportStrengthN: 25000, rOverX: 0.15 },
+    },
+    fault: { currentA: 50000, durationS: 0.5 },
+    protection: {
+      device: { kind: 'breaker-iec60947-2', ratedCurrentA: 3200, settingCurrentA: 2500, instantaneousCurrentA: 25000, instantaneousMaxTimeS: 0.05 },
+      deviceSeriesA: [2000, 2250, 2500, 2800, 3200],
+      systemEarthing: 'TN',
+      circuit: 'distribution',
+      source: { resistanceOhm: 0.0016, reactanceOhm: 0.0064 },
+      protectiveConductor: { sectionMm2: 1000, arrangement: 'separate' },
+    },
+  },
+  candidates: [copperBarPack(3), copperBarPack(4)],
 };

@@ -7,7 +7,7 @@
 import { z } from 'zod';
 import { API_VERSION, DEFAULT_REQUESTS_PER_MINUTE, MAX_CANDIDATES_PER_REQUEST, MAX_REQUEST_BYTES } from './limits';
 import { ampacityRequestSchema, evaluateRequestSchema } from './schemas';
-import { EXAMPLE_AMPACITY_REQUEST, EXAMPLE_BURIED_GROUP_REQUEST, EXAMPLE_EVALUATE_REQUEST } from './examples';
+import { EXAMPLE_AMPACITY_REQUEST, EXAMPLE_BURIED_GROUP_REQUEST, EXAMPLE_BUSBAR_SYSTEM_REQUEST, EXAMPLE_EVALUATE_REQUEST } from './examples';
 import { ampacityResponseSchema, errorResponseSchema, evaluateResponseSchema, flagsResponseSchema } from './responses';
 
 type JsonObject = Record<string, unknown>;
@@ -78,7 +78,7 @@ export function buildOpenApiDocument(): JsonObject {
           operationId: 'evaluateCandidates',
           summary: 'Evaluate candidates at the design current and compare them',
           description:
-            'For each candidate: hot spot at the design current, governing limit and margin, ampacity, losses, voltage drop, short-circuit check, costs when prices are given, and the assumption flags. Marks the smallest passing candidate and the passing one with the lowest life-cycle cost.',
+            'For each candidate: hot spot at the design current, governing limit and margin, ampacity, losses, voltage drop, short-circuit check, costs when prices are given, and the assumption flags. Bars in a described system (installation.system) are rated as the packs they form, bar by bar, and with the supports and a fault the IEC 60865-1 forces are checked (forces); with a protective device (conditions.protection) the overload coordination, automatic disconnection and protective conductor are checked (protection). Marks the smallest passing candidate and the passing one with the lowest life-cycle cost.',
           requestBody: {
             required: true,
             content: {
@@ -89,6 +89,10 @@ export function buildOpenApiDocument(): JsonObject {
                   buriedBesideAnotherCircuit: {
                     summary: 'A buried flat circuit beside another circuit of the same cable',
                     value: EXAMPLE_BURIED_GROUP_REQUEST,
+                  },
+                  busbarSystemWithProtection: {
+                    summary: 'Bar packs on edge with their supports (IEC 60865-1 forces) and the breaker protecting them (coordination, disconnection)',
+                    value: EXAMPLE_BUSBAR_SYSTEM_REQUEST,
                   },
                 },
               },

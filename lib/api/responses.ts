@@ -80,6 +80,93 @@ const shortCircuitSchema = z.object({
 
 const decimalText = z.string().meta({ description: 'A decimal amount as text (exact).' });
 
+// The checks of physics.md §11 (lib/electrical/protection), each with its numbers and verdict.
+const verdictSchema = z.enum(['pass', 'fail']);
+const inequalitySchema = z.object({
+  text: z.string().meta({ description: "The inequality in words, e.g. 'I_B ≤ I_n'." }),
+  left: finite,
+  right: finite,
+  holds: z.boolean(),
+});
+const deviceKindSchema = z.enum(['breaker-iec60898-1', 'breaker-iec60947-2', 'fuse-gG-iec60269']);
+
+const coordinationSchema = z
+  .object({
+    clause: z.string(),
+    designCurrentA: finite,
+    deviceCurrentA: finite.meta({ description: 'I_n, or the setting I_r of an adjustable breaker, A.' }),
+    ampacityA: finite.meta({ description: 'I_z: the rated ampacity of the circuit as built, A.' }),
+    conventionalOperatingCurrentA: finite,
+    conventionalOperatingCurrentBasis: z.string(),
+    inequalities: z.array(inequalitySchema).meta({ description: 'I_B ≤ I_n, I_n ≤ I_z and I₂ ≤ 1.45·I_z, each with its numbers.' }),
+    verdict: verdictSchema,
+  })
+  .meta({ id: 'OverloadCoordination', description: 'IEC 60364-4-43 §433.1 for the given device.' });
+
+const smallestRatingSchema = z
+  .object({
+    clause: z.string(),
+    kind: deviceKindSchema,
+    ratingA: finite.optional().meta({ description: 'The smallest rating (or setting) of the series that coordinates; absent when none does.' }),
+    inequalities: z.array(inequalitySchema).optional(),
+    series: z.array(finite).readonly(),
+    seriesBasis: z.string(),
+  })
+  .meta({ id: 'SmallestCoordinatedRating' });
+
+const conductorAtFaultSchema = z.object({ temperatureC: finite, resistanceOhm: finite, reactanceOhm: finite });
+
+const disconnectionSchema = z
+  .object({
+    clause: z.string(),
+    loop: z.object({
+      impedanceOhm: finite.meta({ description: 'Z_s, Ω.' }),
+      resistanceOhm: finite.optional(),
+      reactanceOhm: finite.optional(),
+      phase: conductorAtFaultSchema,
+      protective: conductorAtFaultSchema,
+      earthElectrodesOhm: finite,
+      basis: z.string(),
+    }),
+    voltageFactor: finite,
+    faultCurrentA: finite.meta({ description: 'I_a = c·U₀/Z_s, A.' }),
+    required: z.object({ timeS: finite, basis: z.string() }),
+    operating: z.object({ timeS: finite.optional(), method: z.enum(['instantaneous', 'curve', 'curve-end', 'below-curve', 'no-data']), basis: z.string() }),
+    maxLoopImpedanceOhm: finite.optional(),
+    currentToDisconnectA: finite.optional(),
+    verdict: verdictSchema,
+    assumptions: z.array(z.string()),
+  })
+  .meta({ id: 'AutomaticDisconnection', description: 'IEC 60364-4-41 §411: Z_s, the fault current, the required and the operating time.' });
+
+const protectiveConductorResultSchema = z
+  .object({
+    clause: z.string(),
+    adiabatic: z
+      .object({ minimumMm2: finite, nextStandardMm2: finite.optional(), kAs05PerMm2: finite, energyA2s: finite, initialC: finite, finalC: finite, basis: z.string() })
+      .optional(),
+    table: z.object({ minimumMm2: finite, nextStandardMm2: finite.optional(), basis: z.string() }).optional(),
+    mechanicalMinimumMm2: finite,
+    requiredMinimumMm2: finite,
+    governing: z.enum(['adiabatic', 'table', 'mechanical']),
+    note: z.string().optional(),
+    installed: z.object({ sectionMm2: finite, meetsAdiabatic: z.boolean().optional(), meetsTable: z.boolean().optional(), verdict: verdictSchema }).optional(),
+  })
+  .meta({ id: 'ProtectiveConductorSection', description: 'IEC 60364-5-54 §543.1: the adiabatic and the table minimum, which governed, and the installed section’s verdict.' });
+
+const harmonicsSchema = z
+  .object({
+    clause: z.string(),
+    designCurrentA: finite,
+    thirdHarmonicFraction: finite,
+    neutralCurrentA: finite.meta({ description: '3·h₃·I_B, A.' }),
+    reductionFactor: finite,
+    governing: z.enum(['phase', 'neutral']),
+    sizingCurrentA: finite,
+    basis: z.string(),
+  })
+  .meta({ id: 'HarmonicNeutralSizing' });
+
 const groupSchema = z
   .object({
     placement: z.enum(['air', 'buried', 'ducts', 'backfill']),
@@ -146,10 +233,10 @@ export const evaluationOkSchema = z
     group: groupSchema.optional(),
     protection: z
       .object({
-        coordination: z.unknown(),
-        smallestRating: z.unknown(),
-        disconnection: z.unknown(),
-        protectiveConductor: z.unknown(),
+        coordination: coordinationSchema.nullable(),
+        smallestRating: smallestRatingSchema.nullable(),
+        disconnection: disconnectionSchema.nullable(),
+        protectiveConductor: protectiveConductorResultSchema.nullable(),
       })
       .optional()
       .meta({ id: 'ProtectionResult', description: 'Overload coordination (IEC 60364-4-43 §433.1), automatic disconnection (IEC 60364-4-41 §411) and the protective conductor (IEC 60364-5-54 §543.1), each with its numbers and verdict.' }),
@@ -162,7 +249,7 @@ export const evaluationOkSchema = z
       })
       .optional()
       .meta({ id: 'BusbarPackResult', description: 'A pack of bars at the design current: each bar\'s share of its phase current, loss and temperature (filament method, pack heat balance).' }),
-    harmonics: z.unknown().optional().meta({ description: 'The neutral of a four- or five-core cable under third harmonics (IEC 60364-5-52 Annex E): its current, the reduction factor and the sizing current.' }),
+    harmonics: harmonicsSchema.optional().meta({ description: 'The neutral of a four- or five-core cable under third harmonics (IEC 60364-5-52 Annex E): its current, the reduction factor and the sizing current.' }),
     forces: z
       .object({
         method: z.string(),

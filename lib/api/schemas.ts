@@ -11,6 +11,7 @@
  */
 import { z } from 'zod';
 import type { Candidate, Conditions } from '../electrical/sizing/types';
+import { protectiveDeviceSchema, timeCurrentCurveSchema } from '../electrical/protection/device';
 import { INPUT_BOUNDS, zodBound, type BoundName } from '../inputBounds';
 import {
   MAX_CANDIDATES_PER_REQUEST,
@@ -159,6 +160,9 @@ export const barCandidateSchema = z
     acResistanceRatio: bounded('acResistanceRatio').optional(),
     terminalLimitC: bounded('terminalLimitC').optional(),
     shortCircuitLimitC: bounded('shortCircuitLimitC').optional(),
+    yieldStrengthPa: bounded('yieldStrengthPa')
+      .optional()
+      .meta({ description: '0.2 % proof strength R_p0.2 of the bar as supplied, Pa, for the IEC 60865-1 stress check. Not given: a cautious default per metal is assumed and flagged (BUSBAR_YIELD_STRENGTH_DEFAULTED).' }),
   })
   .meta({ id: 'BarCandidate', description: 'A rectangular bus bar (or a pack of bars per phase).' });
 
@@ -215,13 +219,56 @@ const buriedSurroundings = {
     .meta({ description: 'A rectangular backfill or concrete bank of its own resistivity, centred on the cables (IEC 60287-2-1 §4.2.7.4).' }),
 };
 
+/** How the bars are held, IEC 60865-1 Table 3 (lib/electrical/busbar/forces.ts BEAM_FACTORS). */
+const SUPPORT_ARRANGEMENTS = [
+  'single-span-both-simply-supported',
+  'single-span-fixed-and-simply-supported',
+  'single-span-both-fixed',
+  'continuous-two-spans',
+  'continuous-three-or-more-spans',
+] as const;
+
+export const busbarSystemSchema = z
+  .strictObject({
+    phaseSpacingM: bounded('phaseSpacingM').meta({ description: 'Centre of one phase pack to the centre of the next, m. The packs must not touch.' }),
+    supportSpacingM: bounded('supportSpacingM').optional().meta({ description: 'Span between supports, m. With `supports` and a fault, the IEC 60865-1 forces are checked.' }),
+    spacerSpacingM: bounded('spacerSpacingM').optional().meta({ description: 'Distance between the spacers tying a pack, m (default the support span; not more than it).' }),
+    supports: z
+      .enum(SUPPORT_ARRANGEMENTS, { error: `supports must be one of ${SUPPORT_ARRANGEMENTS.map((s) => `'${s}'`).join(', ')}` })
+      .optional()
+      .meta({ description: 'How the bars are held (IEC 60865-1 Table 3: the beam and support kind, giving α and β).' }),
+    supportStrengthN: bounded('supportStrengthN').optional().meta({ description: 'Rated bending strength of one support, N. Without it the support forces are reported, not checked (flagged).' }),
+    rOverX: bounded('rOverX').optional().meta({ description: 'R/X of the short-circuit impedance: κ = 1.02 + 0.98·e^(−3R/X) (IEC 60909-0 eq. 55). Give this or `kappa`; neither: κ = 2.0 (flagged).' }),
+    kappa: bounded('peakFactorKappa').optional().meta({ description: 'The peak factor κ itself, instead of R/X.' }),
+    mainSectionModulusM3: bounded('mainSectionModulusM3')
+      .optional()
+      .meta({ description: 'Section modulus of a stiffened pack about its bending axis, m³ (IEC 60865-1; flagged). Default: the bars alone.' }),
+    packNodes: z
+      .enum(['per-bar', 'per-pack'], { error: "packNodes must be 'per-bar' or 'per-pack'" })
+      .optional()
+      .meta({ description: "'per-bar' (default, cautious): each bar of a pack at its own temperature; 'per-pack': the bars bonded to one temperature (flagged)." }),
+  })
+  .superRefine((system, ctx) => {
+    if (system.rOverX !== undefined && system.kappa !== undefined) ctx.addIssue({ code: 'custom', path: ['kappa'], message: 'Give R/X (rOverX) or κ (kappa), not both' });
+    if (system.spacerSpacingM !== undefined && system.spacerSpacingM > (system.supportSpacingM ?? Number.POSITIVE_INFINITY)) {
+      ctx.addIssue({ code: 'custom', path: ['spacerSpacingM'], message: 'Spacer spacing must not exceed the support span' });
+    }
+  })
+  .meta({
+    id: 'BusbarSystem',
+    description:
+      'The three-phase system the bar candidates form (physics.md §10): phase packs side by side, each bar of a pack rated with its own share of the current (filament method) and its own heat balance; with the supports described and a fault, the IEC 60865-1 forces on the bars and supports. Without it the phase spacing is assumed (flagged) and the forces are not checked.',
+  });
+
+const barSystem = { system: busbarSystemSchema.optional() };
+
 export const installationSchema = z
   .discriminatedUnion(
     'kind',
     [
       z.strictObject({ kind: z.literal('cable-in-air'), ...arrangement }),
-      z.strictObject({ kind: z.literal('bar-on-edge') }),
-      z.strictObject({ kind: z.literal('bar-flat') }),
+      z.strictObject({ kind: z.literal('bar-on-edge'), ...barSystem }),
+      z.strictObject({ kind: z.literal('bar-flat'), ...barSystem }),
       z.strictObject({
         kind: z.literal('buried'),
         depthM: bounded('depthM'),
@@ -235,6 +282,7 @@ export const installationSchema = z
         deratingFactor: bounded('enclosureDerating'),
         inside: z.enum(['cable-in-air', 'bar-on-edge', 'bar-flat'], { error: "Inside must be 'cable-in-air', 'bar-on-edge' or 'bar-flat'" }),
         ...arrangement,
+        ...barSystem,
       }),
     ],
     { error: "Installation kind must be 'cable-in-air', 'bar-on-edge', 'bar-flat', 'buried' or 'enclosure'" },
@@ -251,6 +299,131 @@ export const economicsSchema = z.strictObject({
   discountRatePercent: bounded('discountRatePercent'),
   years: wholeNumber('years'),
 });
+
+// ───────────────────────────── protection (physics.md §11) ─────────────────────────────
+
+/**
+ * The library's own device schema (lib/electrical/protection/device.ts) has the last word on a
+ * device — a setting above the rating, an instantaneous setting not above the setting, a curve
+ * whose currents do not rise or whose times rise (the point named) — so the API refuses exactly
+ * what the library refuses. The strict objects here add the API's rule against unknown keys and
+ * the ranges of lib/inputBounds.
+ */
+function libraryDeviceRules(device: unknown, ctx: z.RefinementCtx) {
+  // A field already refused here (out of range, unknown key) is not said twice.
+  if (ctx.issues.length > 0) return;
+  const parsed = protectiveDeviceSchema.safeParse(device);
+  if (parsed.success) return;
+  for (const issue of parsed.error.issues) {
+    // The curve is checked by the same rule on its own (timeCurrentCurve below), with the point named.
+    if (issue.path[0] === 'timeCurrentCurve') continue;
+    ctx.addIssue({ code: 'custom', path: issue.path as Array<string | number>, message: issue.message });
+  }
+}
+
+const curvePointSchema = z.strictObject({
+  currentA: bounded('curvePointCurrentA').meta({ description: 'Prospective current, A r.m.s.' }),
+  timeS: bounded('curvePointTimeS').meta({ description: "The maker's maximum operating (total clearing) time at that current, s." }),
+});
+
+const timeCurrentCurve = z
+  .array(curvePointSchema)
+  .min(2, 'A time–current curve needs at least two points')
+  .max(200, 'A time–current curve has at most 200 points')
+  .superRefine((points, ctx) => {
+    // The library's rule (currents strictly rising, times never rising), naming the point; a
+    // point already refused here (out of range) is not said twice.
+    if (ctx.issues.length > 0) return;
+    const parsed = timeCurrentCurveSchema.safeParse(points);
+    if (!parsed.success) for (const issue of parsed.error.issues) ctx.addIssue({ code: 'custom', path: issue.path as Array<string | number>, message: issue.message });
+  })
+  .meta({ description: "The maker's time–current curve as points, currents strictly rising and times never rising; interpolated in log–log." });
+
+const conventionalOperatingCurrent = bounded('conventionalOperatingCurrentA')
+  .optional()
+  .meta({ description: 'I₂ entered; without it the device standard’s rule (1.45·I_n IEC 60898-1, 1.30·I_r IEC 60947-2, the gG factor of IEC 60269-1; from memory).' });
+
+const breakerIec60898 = z.strictObject({
+  kind: z.literal('breaker-iec60898-1'),
+  curve: z.enum(['B', 'C', 'D'], { error: "curve must be 'B', 'C' or 'D'" }),
+  ratedCurrentA: bounded('deviceRatedCurrentA').meta({ description: 'Rated current I_n, A.' }),
+  conventionalOperatingCurrentA: conventionalOperatingCurrent,
+  timeCurrentCurve: timeCurrentCurve.optional(),
+});
+
+const breakerIec60947 = z.strictObject({
+  kind: z.literal('breaker-iec60947-2'),
+  ratedCurrentA: bounded('deviceRatedCurrentA').meta({ description: 'Rated current of the breaker (frame or trip unit), A.' }),
+  settingCurrentA: bounded('deviceRatedCurrentA', 'Setting I_r').meta({ description: 'Overload setting I_r, A: the I_n of IEC 60364-4-43 §433.1 for an adjustable device.' }),
+  settingRangeA: z
+    .strictObject({ minA: bounded('deviceRatedCurrentA', 'Lowest setting'), maxA: bounded('deviceRatedCurrentA', 'Highest setting') })
+    .optional(),
+  instantaneousCurrentA: bounded('instantaneousCurrentA').meta({ description: 'Instantaneous setting I_i, A.' }),
+  instantaneousTolerance: z.number({ error: 'instantaneousTolerance must be a number' }).min(0, 'instantaneousTolerance must be at least 0').max(0.5, 'instantaneousTolerance must be at most 0.5').optional().meta({ description: 'Tolerance of I_i as a fraction (default 0.2, IEC 60947-2, from memory).' }),
+  instantaneousMaxTimeS: bounded('instantaneousMaxTimeS').optional().meta({ description: "The maker's largest break time of the instantaneous release, s (default 0.1 s, flagged)." }),
+  conventionalOperatingCurrentA: conventionalOperatingCurrent,
+  timeCurrentCurve: timeCurrentCurve.optional(),
+});
+
+const fuseGg = z.strictObject({
+  kind: z.literal('fuse-gG-iec60269'),
+  ratedCurrentA: bounded('deviceRatedCurrentA').meta({ description: 'Rated current I_n, A.' }),
+  conventionalOperatingCurrentA: conventionalOperatingCurrent,
+  timeCurrentCurve: timeCurrentCurve.optional().meta({ description: "The maker's time–current curve: needed to check disconnection." }),
+});
+
+export const protectiveDeviceRequestSchema = z
+  .discriminatedUnion('kind', [breakerIec60898, breakerIec60947, fuseGg], { error: "Device kind must be 'breaker-iec60898-1', 'breaker-iec60947-2' or 'fuse-gG-iec60269'" })
+  .superRefine(libraryDeviceRules)
+  .meta({ id: 'ProtectiveDevice', description: 'The circuit’s protective device as data: a circuit-breaker to IEC 60898-1 (curve B, C or D) or IEC 60947-2 (settings), or a gG fuse to IEC 60269.' });
+
+export const protectionSchema = z
+  .strictObject({
+    device: protectiveDeviceRequestSchema,
+    deviceSeriesA: z
+      .array(bounded('deviceRatedCurrentA', 'Rating of the series'))
+      .min(1, 'deviceSeriesA needs at least one rating')
+      .max(60, 'At most 60 ratings in deviceSeriesA')
+      .optional()
+      .meta({ description: 'Ratings (or trip-unit settings) to search for the smallest coordinated device; default the standard series of the kind (none for IEC 60947-2).' }),
+    systemEarthing: z.enum(['TN', 'TT'], { error: "systemEarthing must be 'TN' or 'TT' (IT systems are not handled)" }).optional().meta({ description: 'Default TN.' }),
+    circuit: z.enum(['final', 'distribution'], { error: "circuit must be 'final' or 'distribution'" }).optional().meta({ description: 'A final circuit (Table 41.1 times) or a distribution circuit (5 s TN, 1 s TT); default distribution.' }),
+    source: z
+      .union([
+        z.strictObject({ resistanceOhm: bounded('sourceResistanceOhm'), reactanceOhm: bounded('sourceReactanceOhm').optional() }),
+        z.strictObject({ impedanceOhm: bounded('sourceImpedanceOhm') }),
+      ])
+      .optional()
+      .meta({ description: 'Impedance of the source up to the circuit’s origin, Ω: R (+ X), or |Z| only (added arithmetically, an upper bound). With the protective conductor, automatic disconnection is checked.' }),
+    earthElectrodesOhm: bounded('earthElectrodesOhm').optional().meta({ description: 'TT only: R_A + R_B of the earth electrodes, Ω.' }),
+    protectiveConductor: z
+      .strictObject({
+        sectionMm2: bounded('protectiveConductorSectionMm2'),
+        material: z.enum(['copper', 'aluminium'], { error: "material must be 'copper' or 'aluminium'" }).optional().meta({ description: "Default the line conductor's metal." }),
+        insulation: z.enum(['pvc-70', 'pvc-90', 'thermosetting-90'], { error: "insulation must be 'pvc-70', 'pvc-90' or 'thermosetting-90'" }).optional().meta({ description: 'Default thermosetting-90.' }),
+        arrangement: z
+          .enum(['in-cable-or-bunched', 'separate'], { error: "arrangement must be 'in-cable-or-bunched' or 'separate'" })
+          .optional()
+          .meta({ description: 'A core of the cable or bunched with it (IEC 60364-5-54 Table A.54.3, default), or a separate conductor (Table A.54.2).' }),
+      })
+      .optional()
+      .meta({ description: 'The protective conductor of the circuit (its length is the route’s).' }),
+  })
+  .superRefine((p, ctx) => {
+    const earthing = p.systemEarthing ?? 'TN';
+    if (earthing === 'TN' && p.earthElectrodesOhm !== undefined) ctx.addIssue({ code: 'custom', path: ['earthElectrodesOhm'], message: 'A TN fault loop does not run through earth electrodes: give earthElectrodesOhm for TT only' });
+    // The library checks disconnection only with both the source and the protective conductor.
+    if (!p.source || !p.protectiveConductor) return;
+    if (earthing === 'TT' && p.earthElectrodesOhm === undefined) ctx.addIssue({ code: 'custom', path: ['earthElectrodesOhm'], message: 'A TT fault loop runs through the earth electrodes: give R_A + R_B' });
+    if (p.device.kind === 'fuse-gG-iec60269' && !p.device.timeCurrentCurve) {
+      ctx.addIssue({ code: 'custom', path: ['device', 'timeCurrentCurve'], message: "A fuse's disconnection is read from its time–current curve: give the maker's curve, or leave out the source" });
+    }
+  })
+  .meta({
+    id: 'Protection',
+    description:
+      'The circuit’s protection (physics.md §11): overload coordination I_B ≤ I_n ≤ I_z and I₂ ≤ 1.45·I_z (IEC 60364-4-43 §433.1) against the rated ampacity; with the source and the protective conductor, automatic disconnection (IEC 60364-4-41 §411) and the protective conductor’s section (IEC 60364-5-54 §543.1).',
+  });
 
 const conditionsShape = {
   designCurrentA: bounded('designCurrentA').meta({ description: 'Design current I_B per phase, A r.m.s.' }),
@@ -283,10 +456,17 @@ const conditionsShape = {
   groupingFactor: bounded('groupingFactor').optional(),
   surfaceCoefficientWPerM2K: bounded('surfaceCoefficientWPerM2K').optional(),
   economics: economicsSchema.optional(),
+  protection: protectionSchema.optional(),
+  thirdHarmonicPercent: bounded('thirdHarmonicPercent')
+    .optional()
+    .meta({ description: 'Third-harmonic content of the phase current, % (IEC 60364-5-52 Annex E): the neutral of four- and five-core cables; flagged for other conductors above 15 %.' }),
 };
 
 /** Cross-field rules the library also enforces, stated here so that the error names the field. */
-function conditionRules(value: { installation: { kind: string; duct?: { innerDiameterM: number; outerDiameterM: number } }; solar?: { irradianceWPerM2: number }; windSpeedMPerS?: number; raiseMaterialLimit?: boolean; temperatureLimitC?: number }, ctx: z.RefinementCtx) {
+function conditionRules(value: { installation: { kind: string; inside?: string; system?: unknown; duct?: { innerDiameterM: number; outerDiameterM: number } }; solar?: { irradianceWPerM2: number }; windSpeedMPerS?: number; raiseMaterialLimit?: boolean; temperatureLimitC?: number }, ctx: z.RefinementCtx) {
+  if (value.installation.kind === 'enclosure' && value.installation.system !== undefined && value.installation.inside === 'cable-in-air') {
+    ctx.addIssue({ code: 'custom', path: ['installation', 'system'], message: 'A bus-bar system is for bars: the enclosure holds cables' });
+  }
   if (value.raiseMaterialLimit && value.temperatureLimitC === undefined) {
     ctx.addIssue({ code: 'custom', path: ['temperatureLimitC'], message: 'Own temperature limit is required when raiseMaterialLimit is set' });
   }

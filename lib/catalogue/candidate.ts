@@ -117,6 +117,9 @@ export function barToCandidate(
     `${conductor.designation} dimensions: ${conductor.dimensionSource}`,
     ...materialNotes(material),
   ];
+  // R_p0.2 in N/mm² (= MPa) → Pa for the IEC 60865-1 check; absent, the library assumes its default per metal (flagged).
+  const yieldStrengthPa = conductor.yieldStrengthMpa == null ? undefined : new Decimal(conductor.yieldStrengthMpa).times(1e6).toNumber();
+  if (yieldStrengthPa !== undefined) sourceNotes.push(`${conductor.designation} R_p0.2: ${conductor.yieldStrengthSource}`);
   if (coating) {
     sourceNotes.push(
       `${coating.covering.name} thickness: ${coating.source}`,
@@ -138,6 +141,7 @@ export function barToCandidate(
     barsPerPhase: options.barsPerPhase ?? 1,
     ...(options.barGapM !== undefined ? { barGapM: options.barGapM } : {}),
     ...(options.terminalLimitC !== undefined ? { terminalLimitC: options.terminalLimitC } : {}),
+    ...(yieldStrengthPa !== undefined ? { yieldStrengthPa } : {}),
     ...(coating
       ? {
           coating: {

@@ -79,6 +79,24 @@ const CONDUCTOR_COLUMNS: ColumnSpec[] = [
   { field: 'widthMm', header: 'width_mm', label: 'Width', quantity: 'lengthMm', type: 'decimal', required: false, hint: 'Bars: width (the longer side), mm.' },
   { field: 'thicknessMm', header: 'thickness_mm', label: 'Thickness', quantity: 'lengthMm', type: 'decimal', required: false, hint: 'Bars: thickness, mm.' },
   source('dimensionSource', 'dimension_source', 'Source of dimensions', 'the dimensions'),
+  {
+    field: 'yieldStrengthMpa',
+    header: 'yield_strength_mpa',
+    label: 'Proof strength R_p0.2',
+    fixedUnit: 'N/mm²',
+    type: 'decimal',
+    required: false,
+    hint: 'Bars: 0.2 % proof strength R_p0.2 of the bar as supplied (its temper), N/mm², for the IEC 60865-1 short-circuit stress check. Empty: a cautious default per metal is assumed and flagged.',
+  },
+  {
+    field: 'yieldStrengthSource',
+    header: 'yield_strength_source',
+    label: 'Source of R_p0.2',
+    type: 'text',
+    required: false,
+    hint: 'Where the proof strength comes from (standard and temper, the maker’s certificate, or "from memory"); required when a proof strength is given.',
+    hiddenByDefault: true,
+  },
 ];
 
 const COVERING_COLUMNS: ColumnSpec[] = [

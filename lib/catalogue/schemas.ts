@@ -15,7 +15,7 @@ import { decimalField, optionalDecimalField, type DecimalBounds } from './decima
  * field goes into the sizing library as it is, so the catalogue never holds a value the library
  * refuses; elsewhere the catalogue keeps its own, tighter data-quality ranges.
  */
-function libraryBound(bound: InputBound, perSi = 1): DecimalBounds {
+function libraryBound(bound: InputBound, perSi: number | string = 1): DecimalBounds {
   const scaled = (v: number) => new Decimal(v).times(perSi).toString();
   return { min: scaled(bound.min), minExclusive: bound.minExclusive, max: scaled(bound.max), maxExclusive: bound.maxExclusive };
 }
@@ -95,6 +95,9 @@ export const conductorRowSchema = z
     widthMm: optionalDecimalField(libraryBound(INPUT_BOUNDS.barWidthM, 1000)),
     thicknessMm: optionalDecimalField({ min: 0, minExclusive: true, max: 100 }),
     dimensionSource: sourceField,
+    /** Bars: R_p0.2 in N/mm² (the IEC 60865-1 stress check); the library's range, scaled from Pa. */
+    yieldStrengthMpa: optionalDecimalField(libraryBound(INPUT_BOUNDS.yieldStrengthPa, '1e-6')),
+    yieldStrengthSource: optionalText(),
   })
   .superRefine((row, ctx) => {
     if (row.shape === 'round') {
@@ -107,6 +110,12 @@ export const conductorRowSchema = z
       if (row.widthMm !== null && row.thicknessMm !== null && Number(row.thicknessMm) > Number(row.widthMm)) {
         ctx.addIssue({ code: 'custom', path: ['thicknessMm'], message: 'must not exceed the width (give the longer side as the width)' });
       }
+    }
+    if (row.yieldStrengthMpa !== null && row.shape !== 'rectangular') {
+      ctx.addIssue({ code: 'custom', path: ['yieldStrengthMpa'], message: 'applies to bars only (the IEC 60865-1 stress check); leave it empty for a round conductor' });
+    }
+    if (row.yieldStrengthMpa !== null && row.yieldStrengthSource === '') {
+      ctx.addIssue({ code: 'custom', path: ['yieldStrengthSource'], message: "is required with a proof strength: say where it comes from (standard and temper, maker's certificate, or 'from memory')" });
     }
   });
 

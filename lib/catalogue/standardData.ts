@@ -12,6 +12,7 @@
  */
 import Decimal from 'decimal.js';
 import { awgToMm2, kcmilToMm2 } from '../units';
+import { DEFAULT_YIELD_STRENGTH_PA } from '../electrical/busbar/forces';
 import type { BuildRow, ConductorRow, CoveringRow, MaterialRow } from './schemas';
 
 type Input<T> = { [K in keyof T]: T[K] extends string ? string : T[K] extends string | null ? string | null : T[K] };
@@ -140,6 +141,8 @@ function metricConductors(material: 'copper' | 'aluminium', table: typeof IEC_60
     widthMm: null,
     thicknessMm: null,
     dimensionSource: CLASS_2_DIAMETER_SOURCE,
+    yieldStrengthMpa: null,
+    yieldStrengthSource: '',
   }));
 }
 
@@ -212,6 +215,8 @@ function northAmericanConductors(material: 'copper' | 'aluminium', smallestAwg: 
       widthMm: null,
       thicknessMm: null,
       dimensionSource: `NEC Chapter 9 Table 8, stranded overall diameter ${diameterIn} in (from memory)`,
+      yieldStrengthMpa: null,
+      yieldStrengthSource: '',
     });
   }
   return rows;
@@ -247,6 +252,11 @@ function bars(material: 'copper' | 'aluminium'): Input<ConductorRow>[] {
     widthMm: String(widthMm),
     thicknessMm: String(thicknessMm),
     dimensionSource: 'Nominal bar size (common sizes, common practice)',
+    // The cautious proof strength per metal that the IEC 60865-1 check assumes when none is given
+    // (lib/electrical/busbar/forces.ts, from memory): the half-hard temper a switchboard bar is
+    // commonly supplied in. Replace it with the temper on the maker's certificate.
+    yieldStrengthMpa: new Decimal(DEFAULT_YIELD_STRENGTH_PA[material].valuePa).div(1e6).toFixed(),
+    yieldStrengthSource: `${DEFAULT_YIELD_STRENGTH_PA[material].source}; the temper as supplied governs`,
   }));
 }
 

@@ -27,6 +27,19 @@ export type InstallationWord = (typeof INSTALLATION_WORDS)[number];
 /** How a cable circuit's single cores lie (physics.md §8); the sheet's formations in words. */
 export const FORMATION_WORDS = ['trefoil', 'flat', 'flat vertical'] as const;
 
+/**
+ * The circuit's protective device in a word (physics.md §11): a circuit-breaker to IEC 60898-1 with
+ * its instantaneous curve, or a gG fuse to IEC 60269. An adjustable IEC 60947-2 breaker needs its
+ * settings and instantaneous setting, which a schedule row does not hold: size such a circuit on
+ * its sheet.
+ */
+export const DEVICE_WORDS = ['breaker B', 'breaker C', 'breaker D', 'gG fuse'] as const;
+export type DeviceWord = (typeof DEVICE_WORDS)[number];
+
+/** How the bars are held, IEC 60865-1 Table 3, in words (the library's beam and support kinds). */
+export const SUPPORT_WORDS = ['simply supported', 'fixed and simply supported', 'both ends fixed', 'continuous two spans', 'continuous three or more spans'] as const;
+export type SupportWord = (typeof SUPPORT_WORDS)[number];
+
 export type ScheduleField =
   | 'circuitTag'
   | 'from'
@@ -51,7 +64,13 @@ export type ScheduleField =
   | 'spacingMm'
   | 'otherCircuits'
   | 'otherCircuitCurrentA'
-  | 'circuitSpacingMm';
+  | 'circuitSpacingMm'
+  | 'deviceType'
+  | 'deviceRatingA'
+  | 'phaseSpacingMm'
+  | 'supportSpanMm'
+  | 'supports'
+  | 'supportStrengthN';
 
 export const SCHEDULE_COLUMNS: readonly ScheduleColumn[] = [
   { field: 'circuitTag', header: 'circuit tag', type: 'text', required: true, example: 'F-101', hint: 'Your name for the circuit, unique within the file (at most 64 characters).' },
@@ -79,6 +98,22 @@ export const SCHEDULE_COLUMNS: readonly ScheduleColumn[] = [
   { field: 'otherCircuits', header: 'other circuits', type: 'integer', required: false, example: '', hint: `Cables only: how many other circuits lie beside this one in the same trench or route, in one row (0 to 23). Each is taken to have the same cable as the size being tried, at the current of the next column. Empty means none.` },
   { field: 'otherCircuitCurrentA', header: 'other circuit current (A)', type: 'number', required: false, example: '', hint: `Current per phase of each of the other circuits, at most ${INPUT_BOUNDS.otherCircuitCurrentA.max} A; required when there are other circuits.` },
   { field: 'circuitSpacingMm', header: 'circuit spacing (mm)', type: 'number', required: false, example: '', hint: 'Centre to centre between the circuit’s parallel runs and the other circuits, side by side. Empty means touching.' },
+  // The protective device (physics.md §11): overload coordination against each size's rating.
+  {
+    field: 'deviceType',
+    header: 'device type',
+    type: 'enum',
+    required: false,
+    example: 'gG fuse',
+    options: DEVICE_WORDS,
+    hint: 'The circuit’s protective device: a circuit-breaker to IEC 60898-1 (curve B, C or D) or a gG fuse to IEC 60269. With its rating, each size is checked for overload coordination (IEC 60364-4-43 §433.1: I_B ≤ I_n ≤ I_z and I₂ ≤ 1.45·I_z) and the smallest coordinated rating is shown; disconnection is not checked from a schedule (flagged: size the circuit on its sheet with the source impedance and protective conductor). Empty: no device, protection not checked.',
+  },
+  { field: 'deviceRatingA', header: 'device rating (A)', type: 'number', required: false, example: 250, hint: `Rated current I_n of that device, greater than 0 and at most ${INPUT_BOUNDS.deviceRatedCurrentA.max} A; required with the device type.` },
+  // The bus-bar system (physics.md §10): bar families only.
+  { field: 'phaseSpacingMm', header: 'phase spacing (mm)', type: 'number', required: false, example: '', hint: 'Bars only: centre of one phase pack to the centre of the next. Empty: assumed (a clear gap of one bar width between packs, flagged) and the short-circuit forces are not checked.' },
+  { field: 'supportSpanMm', header: 'support span (mm)', type: 'number', required: false, example: '', hint: 'Bars only: distance between the supports. With the supports, the phase spacing and a fault, the IEC 60865-1 forces on the bars and supports are checked.' },
+  { field: 'supports', header: 'supports', type: 'enum', required: false, example: '', options: SUPPORT_WORDS, hint: 'Bars only: how the bars are held over the supports (IEC 60865-1 Table 3); required with the support span.' },
+  { field: 'supportStrengthN', header: 'support strength (N)', type: 'number', required: false, example: '', hint: 'Bars only: rated bending strength of one support. Empty: the support forces are reported, not checked (flagged).' },
 ];
 
 /** Headers compare case-insensitively with runs of white space collapsed (U₀ and U0 alike). */

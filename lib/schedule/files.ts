@@ -94,8 +94,29 @@ export function templateTable(familyLabels: readonly string[]): Table {
   const first = SCHEDULE_COLUMNS.map((c) => (c.field === 'family' ? cable : c.example === '' ? null : c.example));
   const second = SCHEDULE_COLUMNS.map((c) => {
     const values: Partial<Record<string, string | number | null>> = bars
-      ? { circuitTag: 'B-201', from: 'TX-1', to: 'MSB-1', designCurrentA: 1600, lengthM: 12, installation: 'bar on edge', family: bars, depthM: null, ambientC: 40, faultCurrentKA: 35, clearingTimeS: 0.5, maxParallel: 2, temperatureLimitC: 105, formation: null }
-      : { circuitTag: 'F-102', to: 'EV chargers', designCurrentA: 160, lengthM: 85, installation: 'buried', depthM: 0.7, ambientC: 20, otherCircuits: 1, otherCircuitCurrentA: 120, circuitSpacingMm: 300 };
+      ? {
+          circuitTag: 'B-201',
+          from: 'TX-1',
+          to: 'MSB-1',
+          designCurrentA: 1600,
+          lengthM: 12,
+          installation: 'bar on edge',
+          family: bars,
+          depthM: null,
+          ambientC: 40,
+          faultCurrentKA: 35,
+          clearingTimeS: 0.5,
+          maxParallel: 2,
+          temperatureLimitC: 105,
+          formation: null,
+          // The incoming breaker of a board this size is an adjustable one, sized on its sheet.
+          deviceType: null,
+          deviceRatingA: null,
+          phaseSpacingMm: 200,
+          supportSpanMm: 500,
+          supports: 'continuous three or more spans',
+        }
+      : { circuitTag: 'F-102', to: 'EV chargers', designCurrentA: 160, lengthM: 85, installation: 'buried', depthM: 0.7, ambientC: 20, otherCircuits: 1, otherCircuitCurrentA: 120, circuitSpacingMm: 300, deviceRatingA: 160 };
     return c.field in values ? (values[c.field] ?? null) : c.example === '' ? null : c.example;
   });
   return { headers: SCHEDULE_COLUMNS.map((c) => c.header), rows: [first, second] };

@@ -8,6 +8,7 @@ import { formatNumber } from '../units';
 import type { CircuitSizing } from './size';
 import type { ScheduleRow } from './row';
 import type { Table } from './files';
+import type { Verdict } from '../sheet/systemWords';
 
 export interface ResultLine {
   rowNumber: number;
@@ -39,6 +40,23 @@ export interface ResultLine {
   governingCable: string | null;
   /** How the group was rated, in a few words (candidateRow). */
   groupMethod: string | null;
+  /** The row's bus-bar system as entered: phase spacing and support span, mm (null when not given). These and the fields below are always set by resultLine; optional for lines made before them. */
+  phaseSpacingMm?: number | null;
+  supportSpanMm?: number | null;
+  /** A pack's governing bar with its temperature (candidateRow); null for cables, single bars and older results. */
+  hottestBar?: string | null;
+  /** IEC 60865-1 forces of the size shown: verdict, stress ratio σ_tot/(q·R_p0.2), larger support force (N), its ratio to the rated strength, largest passing span (m). */
+  forces?: Verdict | null;
+  stressRatio?: number | null;
+  supportForceN?: number | null;
+  supportForceRatio?: number | null;
+  largestSupportSpacingM?: number | null;
+  /** The row's device as entered ('breaker C', 'gG fuse') and its rating, A; null when none. */
+  deviceType?: string | null;
+  deviceRatingA?: number | null;
+  /** Overload coordination of the size shown (IEC 60364-4-43 §433.1) and the smallest coordinated rating of the standard series, A. */
+  coordination?: Verdict | null;
+  smallestDeviceA?: number | null;
   blockerFlags: number;
   reviewFlags: number;
   noteFlags: number;
@@ -83,6 +101,19 @@ export function resultLine(row: ScheduleRow, familyLabel: string, sizing: Circui
     materialCost: shown?.materialCost ?? null,
     governingCable: shown?.governingCable ? `${shown.governingCable}${shown.governingCableC != null ? `, ${formatNumber(shown.governingCableC, 3)} °C` : ''}` : null,
     groupMethod: shown?.groupMethod ?? null,
+    phaseSpacingMm: row.phaseSpacingMm ?? null,
+    supportSpanMm: row.supportSpanMm ?? null,
+    hottestBar: shown?.hottestBar ?? null,
+    forces: shown?.forces ?? null,
+    stressRatio: shown?.stressRatio ?? null,
+    supportForceN: shown?.supportForceN ?? null,
+    supportForceRatio: shown?.supportForceRatio ?? null,
+    largestSupportSpacingM: shown?.largestSupportSpacingM ?? null,
+    deviceType: row.deviceType ?? null,
+    deviceRatingA: row.deviceRatingA ?? null,
+    // The largest size tried says why none passes; the coordination of a size shown is its own.
+    coordination: shown?.coordination ?? null,
+    smallestDeviceA: shown?.smallestDeviceA ?? null,
     blockerFlags: count('blocker'),
     reviewFlags: shown ? count('review') : 0,
     noteFlags: shown ? count('note') : 0,
@@ -157,6 +188,18 @@ const EXPORT_COLUMNS: Array<[string, (l: ResultLine) => string | number | null]>
   ['material cost', (l) => l.materialCost],
   ['governing cable', (l) => l.governingCable],
   ['group rated by', (l) => l.groupMethod],
+  ['phase spacing (mm)', (l) => l.phaseSpacingMm ?? null],
+  ['support span (mm)', (l) => l.supportSpanMm ?? null],
+  ['governing bar', (l) => l.hottestBar ?? null],
+  ['short-circuit forces', (l) => l.forces ?? null],
+  ['stress ratio', (l) => round(l.stressRatio ?? null, 3)],
+  ['support force (N)', (l) => round(l.supportForceN ?? null, 0)],
+  ['support force / strength', (l) => round(l.supportForceRatio ?? null, 3)],
+  ['largest support span (mm)', (l) => (l.largestSupportSpacingM == null ? null : round(l.largestSupportSpacingM * 1000, 0))],
+  ['device type', (l) => l.deviceType ?? null],
+  ['device rating (A)', (l) => l.deviceRatingA ?? null],
+  ['overload coordination', (l) => l.coordination ?? null],
+  ['smallest coordinated rating (A)', (l) => l.smallestDeviceA ?? null],
   ['flags needing review', (l) => l.reviewFlags],
   ['flags', (l) => l.flagText],
   ['remark', (l) => l.remark],

@@ -5,7 +5,7 @@
  */
 import { z } from 'zod';
 import { INPUT_BOUNDS } from '../inputBounds';
-import { columnByField, FORMATION_WORDS, headerOf, INSTALLATION_WORDS, normaliseHeader, SCHEDULE_COLUMNS, type ScheduleField } from './columns';
+import { columnByField, DEVICE_WORDS, FORMATION_WORDS, headerOf, INSTALLATION_WORDS, normaliseHeader, SCHEDULE_COLUMNS, SUPPORT_WORDS, type ScheduleField } from './columns';
 import { findFamily } from './families';
 
 export type ScheduleInstallation = 'cable-in-air' | 'buried' | 'bar-on-edge' | 'bar-flat';
@@ -115,11 +115,31 @@ const formationCell = z.unknown().transform((raw, ctx): ScheduleFormation | null
   return value;
 });
 
+/** An optional cell of a fixed list of words (case, spaces, '-' and '_' do not matter); null when empty. */
+function wordsCell<const W extends readonly string[]>(words: W) {
+  return z.unknown().transform((raw, ctx): W[number] | null => {
+    if (isBlank(raw)) return null;
+    const word = String(raw).trim().toLowerCase().replace(/[\s_-]+/g, ' ');
+    const canonical = words.find((w) => w.toLowerCase() === word);
+    if (canonical === undefined) {
+      ctx.addIssue({ code: 'custom', message: `must be one of: ${words.join(', ')} (got "${String(raw).trim()}")` });
+      return z.NEVER;
+    }
+    return canonical as W[number];
+  });
+}
+
 /** A bound of the table in mm for a value the table holds in m. */
 const inMm = (bound: NumberBounds & { min: number; max: number }): NumberBounds => inUnitOf(bound, 1e-3);
 
 /** Fields of the cross-section, which only cable families take. */
 export const ARRANGEMENT_FIELDS = ['formation', 'spacingMm', 'otherCircuits', 'otherCircuitCurrentA', 'circuitSpacingMm'] as const satisfies readonly ScheduleField[];
+
+/** Fields of the bus-bar system, which only bar families take (physics.md §10). */
+export const BUSBAR_SYSTEM_FIELDS = ['phaseSpacingMm', 'supportSpanMm', 'supports', 'supportStrengthN'] as const satisfies readonly ScheduleField[];
+
+/** Fields of the protective device (physics.md §11). */
+export const DEVICE_FIELDS = ['deviceType', 'deviceRatingA'] as const satisfies readonly ScheduleField[];
 
 /** The row as typed values, keyed by field. SI units; kA and the empty cells kept as entered (null). */
 export const scheduleRowSchema = z
@@ -151,6 +171,12 @@ export const scheduleRowSchema = z
     otherCircuits: optional({ min: 0, max: 23, integer: true }),
     otherCircuitCurrentA: optional(INPUT_BOUNDS.otherCircuitCurrentA),
     circuitSpacingMm: optional(inMm(INPUT_BOUNDS.circuitSpacingM)),
+    deviceType: wordsCell(DEVICE_WORDS),
+    deviceRatingA: optional(INPUT_BOUNDS.deviceRatedCurrentA),
+    phaseSpacingMm: optional(inMm(INPUT_BOUNDS.phaseSpacingM)),
+    supportSpanMm: optional(inMm(INPUT_BOUNDS.supportSpacingM)),
+    supports: wordsCell(SUPPORT_WORDS),
+    supportStrengthN: optional(INPUT_BOUNDS.supportStrengthN),
   })
   .superRefine((row, ctx) => {
     if (row.installation === 'buried' && row.depthM === null) {
@@ -165,6 +191,17 @@ export const scheduleRowSchema = z
     if ((row.otherCircuits ?? 0) === 0 && row.otherCircuitCurrentA !== null) {
       ctx.addIssue({ code: 'custom', path: ['otherCircuitCurrentA'], message: `applies only when there are other circuits (${headerOf('otherCircuits')}); leave it empty` });
     }
+    if ((row.deviceType === null) !== (row.deviceRatingA === null)) {
+      const missing: ScheduleField = row.deviceType === null ? 'deviceType' : 'deviceRatingA';
+      ctx.addIssue({ code: 'custom', path: [missing], message: `is required with the ${headerOf(missing === 'deviceType' ? 'deviceRatingA' : 'deviceType')} (give both, or leave both empty)` });
+    }
+    if ((row.supportSpanMm === null) !== (row.supports === null)) {
+      const missing: ScheduleField = row.supportSpanMm === null ? 'supportSpanMm' : 'supports';
+      ctx.addIssue({ code: 'custom', path: [missing], message: `is required with the ${headerOf(missing === 'supports' ? 'supportSpanMm' : 'supports')} (the forces need both)` });
+    }
+    if ((row.supportSpanMm !== null || row.supportStrengthN !== null) && row.phaseSpacingMm === null) {
+      ctx.addIssue({ code: 'custom', path: ['phaseSpacingMm'], message: `is required with the ${headerOf(row.supportSpanMm !== null ? 'supportSpanMm' : 'supportStrengthN')}: the forces on the bars and supports need it` });
+    }
     if ((row.faultCurrentKA === null) !== (row.clearingTimeS === null)) {
       const missing: ScheduleField = row.faultCurrentKA === null ? 'faultCurrentKA' : 'clearingTimeS';
       ctx.addIssue({ code: 'custom', path: [missing], message: `is required with the ${headerOf(missing === 'faultCurrentKA' ? 'clearingTimeS' : 'faultCurrentKA')} (give both, or leave both empty)` });
@@ -173,12 +210,13 @@ export const scheduleRowSchema = z
 
 export type ScheduleRowInput = z.infer<typeof scheduleRowSchema>;
 
-type ArrangementField = (typeof ARRANGEMENT_FIELDS)[number];
+type ArrangementField = (typeof ARRANGEMENT_FIELDS)[number] | (typeof BUSBAR_SYSTEM_FIELDS)[number] | (typeof DEVICE_FIELDS)[number];
 
 /**
  * A clean row ready to size: the typed values, its spreadsheet row number and the family key. The
- * cross-section's fields are optional: rows stored before they existed have none (read as
- * trefoil touching with nothing beside it, the arrangement those rows were sized for).
+ * cross-section's, the bus-bar system's and the device's fields are optional: rows stored before
+ * they existed have none (read as trefoil touching with nothing beside it, the phase spacing
+ * assumed and no device — what those rows were sized with).
  */
 export interface ScheduleRow extends Omit<ScheduleRowInput, 'family' | 'maxParallel' | ArrangementField>, Partial<Pick<ScheduleRowInput, ArrangementField>> {
   rowNumber: number;
@@ -265,6 +303,11 @@ export function validateScheduleRecords(
     if (parsed.success && family?.kind === 'bar') {
       for (const field of ARRANGEMENT_FIELDS) {
         if (parsed.data[field] !== null) rowProblems.push({ row: record.row, column: headerOf(field), message: 'applies only to cable families; leave it empty for bars' });
+      }
+    }
+    if (parsed.success && family?.kind === 'cable') {
+      for (const field of BUSBAR_SYSTEM_FIELDS) {
+        if (parsed.data[field] !== null) rowProblems.push({ row: record.row, column: headerOf(field), message: 'applies only to bar families; leave it empty for cables' });
       }
     }
     if (rowProblems.length > 0 || !parsed.success || !family) {

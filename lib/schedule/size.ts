@@ -7,8 +7,11 @@
  */
 import { evaluateCandidate } from '../electrical/sizing/evaluate';
 import type { AssumptionFlag } from '../electrical/sizing/flags';
-import type { CableArrangement, Candidate, CandidateEvaluationOk, Conditions, ShortCircuitCheck } from '../electrical/sizing/types';
+import type { BusbarSystemConditions, CableArrangement, Candidate, CandidateEvaluationOk, Conditions, ProtectionConditions, ShortCircuitCheck } from '../electrical/sizing/types';
+import type { ProtectiveDevice } from '../electrical/protection';
 import { candidateRow } from '../sheet/candidateRow';
+import type { Verdict } from '../sheet/systemWords';
+import type { DeviceWord, SupportWord } from './columns';
 import { candidateSectionMm2 } from './families';
 import type { ScheduleRow } from './row';
 
@@ -34,8 +37,52 @@ export function rowArrangement(row: ScheduleRow): CableArrangement {
   return arrangement;
 }
 
+/** The library's beam and support kinds (IEC 60865-1 Table 3) of the schedule's words. */
+export const SUPPORTS_OF: Readonly<Record<SupportWord, NonNullable<BusbarSystemConditions['supports']>>> = {
+  'simply supported': 'single-span-both-simply-supported',
+  'fixed and simply supported': 'single-span-fixed-and-simply-supported',
+  'both ends fixed': 'single-span-both-fixed',
+  'continuous two spans': 'continuous-two-spans',
+  'continuous three or more spans': 'continuous-three-or-more-spans',
+};
+
+/**
+ * The bar system of the row (physics.md §10), when its phase spacing is given: the supports for
+ * the IEC 60865-1 forces when given too. Empty cells (and rows stored before these columns
+ * existed) give no system: the library assumes a phase spacing (flagged) and checks no forces.
+ */
+export function rowBusbarSystem(row: ScheduleRow): BusbarSystemConditions | undefined {
+  if (row.phaseSpacingMm == null) return undefined;
+  const system: BusbarSystemConditions = { phaseSpacingM: row.phaseSpacingMm / 1000 };
+  if (row.supportSpanMm != null) system.supportSpacingM = row.supportSpanMm / 1000;
+  if (row.supports != null) system.supports = SUPPORTS_OF[row.supports];
+  if (row.supportStrengthN != null) system.supportStrengthN = row.supportStrengthN;
+  return system;
+}
+
+/** The row's device as the library's data (lib/electrical/protection/device.ts). */
+export function rowDevice(row: Pick<ScheduleRow, 'deviceType' | 'deviceRatingA'>): ProtectiveDevice | undefined {
+  if (row.deviceType == null || row.deviceRatingA == null) return undefined;
+  const ratedCurrentA = row.deviceRatingA;
+  const word: DeviceWord = row.deviceType;
+  if (word === 'gG fuse') return { kind: 'fuse-gG-iec60269', ratedCurrentA };
+  return { kind: 'breaker-iec60898-1', curve: word === 'breaker B' ? 'B' : word === 'breaker C' ? 'C' : 'D', ratedCurrentA };
+}
+
+/**
+ * The row's protection: the device alone, so each size is checked for overload coordination
+ * against its own rating (IEC 60364-4-43 §433.1) with the smallest coordinated rating of the
+ * standard series; without the source impedance and protective conductor the library does not
+ * check disconnection and says so (DISCONNECTION_NOT_CHECKED).
+ */
+export function rowProtection(row: ScheduleRow): ProtectionConditions | undefined {
+  const device = rowDevice(row);
+  return device ? { device } : undefined;
+}
+
 export function rowConditions(row: ScheduleRow): Conditions {
   const arrangement = rowArrangement(row);
+  const system = rowBusbarSystem(row);
   const conditions: Conditions = {
     designCurrentA: row.designCurrentA,
     frequencyHz: row.frequencyHz ?? DEFAULT_FREQUENCY_HZ,
@@ -48,13 +95,15 @@ export function rowConditions(row: ScheduleRow): Conditions {
         ? { kind: 'buried', depthM: row.depthM as number, ...(row.ambientC !== null ? { groundC: row.ambientC } : {}), ...arrangement }
         : row.installation === 'cable-in-air'
           ? { kind: 'cable-in-air', ...arrangement }
-          : { kind: row.installation },
+          : { kind: row.installation, ...(system ? { system } : {}) },
   };
   if (row.installation !== 'buried' && row.ambientC !== null) conditions.ambientC = row.ambientC;
   if (row.faultCurrentKA !== null && row.clearingTimeS !== null) conditions.fault = { currentA: row.faultCurrentKA * 1000, durationS: row.clearingTimeS };
   if (row.maxVoltageDropPercent !== null) conditions.maxVoltageDropPercent = row.maxVoltageDropPercent;
   if (row.groupingFactor !== null && row.groupingFactor < 1) conditions.groupingFactor = row.groupingFactor;
   if (row.temperatureLimitC !== null) conditions.temperatureLimitC = row.temperatureLimitC;
+  const protection = rowProtection(row);
+  if (protection) conditions.protection = protection;
   return conditions;
 }
 
@@ -127,6 +176,20 @@ export interface ChosenSize {
   governingCable?: string | null;
   governingCableC?: number | null;
   groupMethod?: string | null;
+  /**
+   * The bus-bar system and the protection as candidateRow reads them (absent in results stored
+   * before they existed): the governing bar of a pack, the IEC 60865-1 forces, and the device's
+   * overload coordination with the smallest coordinated rating.
+   */
+  hottestBar?: string | null;
+  forces?: Verdict | null;
+  stressRatio?: number | null;
+  supportForceN?: number | null;
+  supportForceRatio?: number | null;
+  largestSupportSpacingM?: number | null;
+  deviceCurrentA?: number | null;
+  coordination?: Verdict | null;
+  smallestDeviceA?: number | null;
   flags: AssumptionFlag[];
 }
 
@@ -177,6 +240,15 @@ function chosenOf(e: CandidateEvaluationOk, candidate: Candidate, lengthM: numbe
     governingCable: row.governingCable,
     governingCableC: row.governingCableC,
     groupMethod: row.groupMethod,
+    hottestBar: row.hottestBar,
+    forces: row.forces,
+    stressRatio: row.stressRatio,
+    supportForceN: row.supportForceN,
+    supportForceRatio: row.supportForceRatio,
+    largestSupportSpacingM: row.largestSupportSpacingM,
+    deviceCurrentA: row.deviceCurrentA,
+    coordination: row.coordination,
+    smallestDeviceA: row.smallestDeviceA,
     flags: e.flags,
   };
 }

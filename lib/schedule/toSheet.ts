@@ -5,7 +5,7 @@
  */
 import { defaultSheetInputs, sheetInputsSchema, type SheetInputs } from '../sheet/schema';
 import type { Candidate } from '../electrical/sizing/types';
-import { DEFAULT_FREQUENCY_HZ, expandFamily, type CircuitSizing } from './size';
+import { DEFAULT_FREQUENCY_HZ, expandFamily, rowDevice, SUPPORTS_OF, type CircuitSizing } from './size';
 import type { ScheduleRow } from './row';
 
 /** Sizes either side of the chosen one put on the sheet for comparison. */
@@ -23,6 +23,7 @@ export function scheduleRowToSheetInputs(row: ScheduleRow, sizing: CircuitSizing
   let at = chosenId === null ? -1 : sizes.findIndex((c) => c.id === chosenId);
   if (at < 0) at = sizing?.status === 'none_passes' ? sizes.length - 1 : 0;
   const picked = sizes.slice(Math.max(0, at - NEIGHBOURS), at + NEIGHBOURS + 1);
+  const device = rowDevice(row);
   const inputs: SheetInputs = {
     ...base,
     circuit: {
@@ -56,6 +57,22 @@ export function scheduleRowToSheetInputs(row: ScheduleRow, sizing: CircuitSizing
           : [],
     },
     limits: { temperatureLimitC: row.temperatureLimitC, raiseMaterialLimit: false, raiseJustification: '', groupingFactor: row.groupingFactor ?? 1 },
+    // The bar system of the row (rowBusbarSystem in ./size.ts), what it gives; the rest as a new sheet has it.
+    busbarSystem: {
+      ...base.busbarSystem,
+      phaseSpacingM: row.phaseSpacingMm != null ? row.phaseSpacingMm / 1000 : null,
+      supportSpacingM: row.supportSpanMm != null ? row.supportSpanMm / 1000 : null,
+      supports: row.supports != null ? SUPPORTS_OF[row.supports] : null,
+      supportStrengthN: row.supportStrengthN ?? null,
+    },
+    // The row's device (rowDevice in ./size.ts): coordination checked; the loop is the sheet's to enter.
+    protection: device
+      ? {
+          ...base.protection,
+          included: true,
+          device: { ...base.protection.device, kind: device.kind, ratedCurrentA: device.ratedCurrentA, ...(device.kind === 'breaker-iec60898-1' ? { curve: device.curve } : {}) },
+        }
+      : base.protection,
     candidates: picked as SheetInputs['candidates'],
     chosenCandidateId: sizing?.status === 'sized' && picked.some((c) => c.id === chosenId) ? chosenId : null,
     notes: `Opened from a schedule, row ${row.rowNumber} (${row.circuitTag}).`,

@@ -22,8 +22,32 @@ export interface ArrangementRefusal {
 /** Fields that say a candidate does not suit the installation kind: shown in the grid, not refused. */
 const KIND_FIELDS = new Set(['conditions.installation.kind', 'conditions.installation.inside']);
 
-/** The library's `conditions.installation.otherCircuits[2].cable.lossWPerM` → the sheet's `installation.otherCircuits.2.lossWPerM`. */
+/** The library's protection fields (lib/electrical/sizing/types ProtectionConditions) → the sheet's (lib/sheet/systemSchema.ts). */
+function protectionFieldOf(rest: string): string {
+  const dotted = rest.replace(/\[(\d+)\]/g, '.$1');
+  const renamed: Record<string, string> = {
+    'source.resistanceOhm': 'sourceResistanceOhm',
+    'source.reactanceOhm': 'sourceReactanceOhm',
+    'source.impedanceOhm': 'sourceImpedanceOhm',
+    source: 'sourceBy',
+    systemEarthing: 'earthing',
+    circuit: 'circuitRole',
+    deviceSeriesA: 'device.settingStepsA',
+  };
+  return `protection.${renamed[dotted] ?? dotted}`;
+}
+
+/**
+ * The library's `conditions.installation.otherCircuits[2].cable.lossWPerM` → the sheet's
+ * `installation.otherCircuits.2.lossWPerM`; the bus-bar system's `conditions.installation.system.…`
+ * → `busbarSystem.…`, the protection's `conditions.protection.…` → `protection.…` (sheet version 6).
+ */
 export function sheetFieldOf(libraryField: string): string | null {
+  const system = /^conditions\.installation\.system\.(.+)$/.exec(libraryField);
+  if (system) return `busbarSystem.${system[1]}`;
+  const protection = /^conditions\.protection\.(.+)$/.exec(libraryField);
+  if (protection) return protectionFieldOf(protection[1]);
+  if (libraryField === 'conditions.thirdHarmonicPercent') return 'harmonics.thirdHarmonicPercent';
   if (!libraryField.startsWith('conditions.installation')) return null;
   return libraryField
     .replace(/^conditions\./, '')
@@ -55,6 +79,13 @@ export function arrangementRefusalOf(
     if (field) return { field, libraryField: e.error.field, message: plainMessage(e.error.message, e.error.field), candidateLabel: e.label };
   }
   return null;
+}
+
+/** What was refused, in a few words: the cables' arrangement, the bus-bar system, or the protection data (sheet version 6). */
+export function refusalSubject(r: ArrangementRefusal): string {
+  if (r.field.startsWith('busbarSystem.')) return 'the bus-bar system does not fit as entered';
+  if (r.field.startsWith('protection.') || r.field.startsWith('harmonics.')) return 'the protection data are refused';
+  return 'the cables do not lie as entered';
 }
 
 /** "Circuit 1 and circuit 2 overlap: … (with 240 mm² Cu XLPE)". */

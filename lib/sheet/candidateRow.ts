@@ -11,6 +11,7 @@ import type { FlagSeverity } from '../electrical/sizing/flags';
 import type { CandidateEvaluationOk, ShortCircuitCheck } from '../electrical/sizing/types';
 import { formatNumber } from '../units';
 import { governingCableOf, groupMethodWords } from './groupWords';
+import { forcesVerdict, hottestBarText, largestSupportForceN, protectionVerdicts, type Verdict } from './systemWords';
 
 /** The three result states of product.md (Visual identity); the screen adds icon and colour. */
 export type ResultState = 'within' | 'tight' | 'over';
@@ -35,6 +36,14 @@ const FAILURE_WORDS: Readonly<Record<string, string>> = {
   RUNAWAY: 'runaway',
   SHORT_CIRCUIT_EXCEEDED: 'short circuit',
   VOLTAGE_DROP_EXCEEDED: 'voltage drop',
+  BUSBAR_NO_STEADY_STATE: 'runaway',
+  BUSBAR_STRESS_EXCEEDED: 'bar stress under short circuit',
+  BUSBAR_SUB_CONDUCTOR_STRESS_EXCEEDED: 'stress between the bars',
+  BUSBAR_SUPPORT_FORCE_EXCEEDED: 'support force',
+  PROTECTION_OVERLOAD_NOT_COORDINATED: 'overload protection',
+  PROTECTION_DISCONNECTION_TOO_SLOW: 'disconnection time',
+  PROTECTIVE_CONDUCTOR_TOO_SMALL: 'protective conductor',
+  HARMONICS_OVER_RATING: 'harmonics',
 };
 
 /** What fails the candidate, from its blocker flags, in words ("short circuit", "voltage drop"…). */
@@ -118,6 +127,30 @@ export interface CandidateRow {
   governingCableC: number | null;
   /** How the group was rated, in a few words ("in the ground: superposition with images, …"); null without a group. */
   groupMethod: string | null;
+  /** A bus-bar pack: the bar that governs in words with its temperature ("L2, bar 1 of 3 (outer), 84.2 °C"); null for cables and single bars. */
+  hottestBar: string | null;
+  /** IEC 60865-1 forces of a bar candidate: passes, fails or not checked; null for cables. */
+  forces: Verdict | null;
+  /** σ_tot/(q·R_p0.2) (≤ 1 passes); null when the forces were not checked. */
+  stressRatio: number | null;
+  /** The larger of the end and inner support forces, N; null when not checked. */
+  supportForceN: number | null;
+  /** That force over the rated support strength; null when not checked or no rating was entered. */
+  supportForceRatio: number | null;
+  /** Largest support spacing that passes, m; null when not checked. */
+  largestSupportSpacingM: number | null;
+  /** The device's I_n (or setting I_r) checked for coordination, A; null without a device. */
+  deviceCurrentA: number | null;
+  /** Overload coordination, IEC 60364-4-43 §433.1; null without a device. */
+  coordination: Verdict | null;
+  /** Smallest rating of the device's series that coordinates, A; null when none or not searched. */
+  smallestDeviceA: number | null;
+  /** Automatic disconnection, IEC 60364-4-41 §411; null without a device. */
+  disconnection: Verdict | null;
+  /** Protective conductor section, IEC 60364-5-54 §543.1; null without a device. */
+  protectiveConductor: Verdict | null;
+  /** Third harmonics and the neutral, IEC 60364-5-52 Annex E; null when not given. */
+  harmonics: Verdict | null;
 }
 
 /** Which candidates a comparison marked, when the evaluation itself no longer carries the mark (a saved snapshot). */
@@ -142,6 +175,7 @@ export function candidateRow(e: CandidateEvaluationOk, marks: ComparisonMarks = 
   if (e.isSmallestPassing || (marks.smallestPassingId != null && marks.smallestPassingId === e.id)) rowMarks.push('Smallest passing');
   if (e.isLowestLifeCycleCostPassing || (marks.lowestLifeCycleCostPassingId != null && marks.lowestLifeCycleCostPassingId === e.id)) rowMarks.push('Lowest cost passing');
   const governing = e.group ? governingCableOf(e.group, otherLabels) : null;
+  const protection = protectionVerdicts(e);
   return {
     id: e.id,
     label: e.label,
@@ -176,5 +210,17 @@ export function candidateRow(e: CandidateEvaluationOk, marks: ComparisonMarks = 
     governingCable: governing?.words ?? null,
     governingCableC: governing?.conductorC ?? null,
     groupMethod: e.group ? groupMethodWords(e.group) : null,
+    hottestBar: e.pack ? hottestBarText(e.pack) : null,
+    forces: forcesVerdict(e),
+    stressRatio: e.forces?.stressRatio ?? null,
+    supportForceN: e.forces ? largestSupportForceN(e.forces) : null,
+    supportForceRatio: e.forces?.supportForceRatio ?? null,
+    largestSupportSpacingM: e.forces?.largestSupportSpacingM ?? null,
+    deviceCurrentA: e.protection?.coordination?.deviceCurrentA ?? null,
+    coordination: e.protection ? (protection?.coordination ?? null) : null,
+    smallestDeviceA: e.protection?.smallestRating?.ratingA ?? null,
+    disconnection: e.protection ? (protection?.disconnection ?? null) : null,
+    protectiveConductor: e.protection ? (protection?.protectiveConductor ?? null) : null,
+    harmonics: e.harmonics ? (protection?.harmonics ?? null) : null,
   };
 }

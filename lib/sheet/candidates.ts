@@ -106,6 +106,8 @@ export const barCandidateSchema = z.object({
   acResistanceRatio: bounded('acResistanceRatio').optional(),
   terminalLimitC: z.number().optional(),
   shortCircuitLimitC: z.number().optional(),
+  /** R_p0.2 of the bar material, Pa, from the catalogue (sheet version 6); without it the force check assumes a default per metal (flagged). */
+  yieldStrengthPa: bounded('yieldStrengthPa').optional(),
 });
 
 export const sheetCandidateSchema = z.discriminatedUnion('kind', [cableCandidateSchema, barCandidateSchema]);

@@ -74,6 +74,28 @@ export const SHEET_FIELD_UNITS = {
   'enclosureAir.outsideAirC': { quantity: 'temperature' },
   'enclosureAir.routeLengthInsideM': { quantity: 'lengthM' },
   'enclosureAir.otherLossesW': { quantity: 'none', fixedUnit: 'W' },
+  // The bus-bar system, the protection and the harmonics (sheet version 6, lib/sheet/systemSchema.ts).
+  'busbarSystem.barGapM': { quantity: 'lengthMm' },
+  'busbarSystem.phaseSpacingM': { quantity: 'lengthMm' },
+  'busbarSystem.supportSpacingM': { quantity: 'lengthMm' },
+  'busbarSystem.spacerSpacingM': { quantity: 'lengthMm' },
+  'busbarSystem.supportStrengthN': { quantity: 'none', fixedUnit: 'N' },
+  'busbarSystem.rOverX': { quantity: 'none' },
+  'busbarSystem.kappa': { quantity: 'none' },
+  'protection.device.ratedCurrentA': { quantity: 'none', fixedUnit: 'A' },
+  'protection.device.settingCurrentA': { quantity: 'none', fixedUnit: 'A' },
+  'protection.device.instantaneousCurrentA': { quantity: 'none', fixedUnit: 'A' },
+  'protection.device.instantaneousMaxTimeS': { quantity: 'none', fixedUnit: 's' },
+  'protection.device.conventionalOperatingCurrentA': { quantity: 'none', fixedUnit: 'A' },
+  // One entry for the same field of every point of the curve.
+  'protection.device.timeCurrentCurve.currentA': { quantity: 'none', fixedUnit: 'A' },
+  'protection.device.timeCurrentCurve.timeS': { quantity: 'none', fixedUnit: 's' },
+  'protection.earthElectrodesOhm': { quantity: 'none', fixedUnit: 'Ω' },
+  'protection.sourceResistanceOhm': { quantity: 'none', fixedUnit: 'mΩ' },
+  'protection.sourceReactanceOhm': { quantity: 'none', fixedUnit: 'mΩ' },
+  'protection.sourceImpedanceOhm': { quantity: 'none', fixedUnit: 'mΩ' },
+  'protection.protectiveConductor.sectionMm2': { quantity: 'areaMm2' },
+  'harmonics.thirdHarmonicPercent': { quantity: 'none', fixedUnit: '%' },
 } as const satisfies Record<string, FieldUnit>;
 
 export type SheetNumericField = keyof typeof SHEET_FIELD_UNITS;
@@ -92,6 +114,14 @@ const STORED_TO_QUANTITY_SCALE: Partial<Record<SheetNumericField, number>> = {
   'circuit.reactanceOhmPerM': 1000,
   // Stored in seconds, shown in minutes.
   'overTime.overloadDurationS': 1 / 60,
+  // The bus-bar system's lengths are stored in m and shown in mm (or in); the source impedance in Ω, shown in mΩ.
+  'busbarSystem.barGapM': 1000,
+  'busbarSystem.phaseSpacingM': 1000,
+  'busbarSystem.supportSpacingM': 1000,
+  'busbarSystem.spacerSpacingM': 1000,
+  'protection.sourceResistanceOhm': 1000,
+  'protection.sourceReactanceOhm': 1000,
+  'protection.sourceImpedanceOhm': 1000,
 };
 
 export function toDisplay(field: SheetNumericField, storedValue: number, system: UnitSystem): number {

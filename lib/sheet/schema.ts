@@ -21,12 +21,22 @@
  *       sheet reads with its own formation and spacing, no other circuits, no ducts and no
  *       backfill — the arrangement it was sized for — and keeps its saved result (marked for
  *       re-evaluation when that result came from an earlier solver, lib/sheet/reEvaluation.ts).
+ *   6 — bus-bar systems and the rest of the circuit check (issues 18 and 21, lib/sheet/systemSchema.ts):
+ *       `busbarSystem` (gap between a pack's bars, phase spacing, support span and how the bars are
+ *       held, rated support strength, κ or the fault's R/X, the pack's heat exchange), `protection`
+ *       (the circuit's device, earthing, source impedance, protective conductor) and `harmonics`
+ *       (third-harmonic content). An older sheet reads with none of them described — the system
+ *       it was sized with (phase spacing assumed, forces and protection not checked) — and keeps
+ *       its saved result; a saved pack rated by the method since replaced is marked for
+ *       re-evaluation when its figure changes (lib/sheet/reEvaluation.ts). `limits.raiseJustification`
+ *       (why a raised limit is safe, issue 22): empty on older sheets.
  */
 import { z } from 'zod';
 import { INPUT_BOUNDS, zodBound, type BoundName } from '../inputBounds';
 import { sheetCandidateSchema } from './candidates';
+import { busbarSystemSchema, harmonicsSchema, protectionSchema, systemDefaults, systemIssues } from './systemSchema';
 
-export const SHEET_SCHEMA_VERSION = 5 as const;
+export const SHEET_SCHEMA_VERSION = 6 as const;
 
 const num = (label: string) => z.number({ error: `${label} must be a number` }).refine(Number.isFinite, `${label} must be a finite number`);
 /** A number inside its bound of lib/inputBounds (the one table every edge and the library read). */
@@ -133,7 +143,7 @@ export const limitsSchema = z.object({
   /** A limit of the user's own (a joint, a neighbouring device), °C; null = material limits only. */
   temperatureLimitC: optionalBounded('temperatureLimitC'),
   raiseMaterialLimit: z.boolean(),
-  /** Why a raised limit is safe, for the reviewer (a blocker while empty); added without a version bump, empty on older sheets. */
+  /** Why a raised limit is safe, for the reviewer (a blocker while empty); empty on older sheets. */
   raiseJustification: z.string().max(2000, 'At most 2,000 characters').default(''),
   groupingFactor: bounded('groupingFactor'),
 });
@@ -211,6 +221,9 @@ export const sheetInputsSchema = z
     overTime: overTimeSchema,
     alongRun: alongRunSchema,
     enclosureAir: enclosureAirSchema,
+    busbarSystem: busbarSystemSchema,
+    protection: protectionSchema,
+    harmonics: harmonicsSchema,
     candidates: z.array(sheetCandidateSchema).max(24, 'At most 24 candidates on one sheet'),
     chosenCandidateId: z.string().nullable(),
     notes: z.string().max(4000),
@@ -236,6 +249,7 @@ export const sheetInputsSchema = z
       ctx.addIssue({ code: 'custom', path: ['environment', 'outdoorSun'], message: 'A buried cable sees neither sun nor wind' });
     }
     arrangementIssues(value.installation).forEach((issue) => ctx.addIssue({ code: 'custom', path: ['installation', ...issue.path], message: issue.message }));
+    systemIssues(value).forEach((issue) => ctx.addIssue({ code: 'custom', path: issue.path, message: issue.message }));
   });
 
 /**
@@ -351,15 +365,18 @@ export function readSheetInputs(raw: unknown, storedVersion?: number): SheetInpu
     if (!parsed.success) throw new SheetSchemaError(`Stored sheet inputs do not match version ${version}: ${parsed.error.issues[0]?.message}`, version);
     return parsed.data;
   }
-  if (version === 2 || version === 3 || version === 4) {
+  if (version === 2 || version === 3 || version === 4 || version === 5) {
     // Versions 3 and 4 only added optional checks (over time, along the run; the enclosure air):
     // a sheet stored before them reads with them unchecked. Version 5 added the cross-section:
     // an older sheet keeps its formation and spacing, with nothing beside it, no ducts, no backfill.
+    // Version 6 added the bus-bar system, the protection and the harmonics: an older sheet reads
+    // with none of them described (the system it was sized with; nothing more checked).
     const defaults = defaultSheetInputs();
     const added = version === 2 ? { overTime: defaults.overTime, alongRun: defaults.alongRun, enclosureAir: defaults.enclosureAir } : version === 3 ? { enclosureAir: defaults.enclosureAir } : {};
     const stored = raw as { installation?: unknown };
-    const installation = stored.installation && typeof stored.installation === 'object' ? { ...arrangementDefaults(), ...(stored.installation as object) } : stored.installation;
-    const parsed = sheetInputsSchema.safeParse({ ...(raw as object), schemaVersion: SHEET_SCHEMA_VERSION, ...added, installation });
+    const installation =
+      version < 5 && stored.installation && typeof stored.installation === 'object' ? { ...arrangementDefaults(), ...(stored.installation as object) } : stored.installation;
+    const parsed = sheetInputsSchema.safeParse({ ...(raw as object), schemaVersion: SHEET_SCHEMA_VERSION, ...added, ...systemDefaults(), installation });
     if (!parsed.success) throw new SheetSchemaError(`Stored sheet inputs do not match version ${version}: ${parsed.error.issues[0]?.message}`, version);
     return parsed.data;
   }
@@ -458,6 +475,7 @@ export function defaultSheetInputs(kind: InstallationKind = 'cable-in-air'): She
       routeLengthInsideM: 2,
       otherLossesW: 0,
     },
+    ...systemDefaults(),
     candidates: [],
     chosenCandidateId: null,
     notes: '',

@@ -12,6 +12,7 @@ import { formatNumber, formatQuantity } from '@/lib/units';
 import { candidateRow, type CandidateRow, type ComparisonMarks, type ResultState } from './candidateRow';
 import { plainMessage } from './arrangementCheck';
 import { FORMATION_WORDS, governingCableOf, groupMethodWords, otherCircuitWords } from './groupWords';
+import { systemInputRows } from './systemTables';
 
 export interface InputRow {
   section: string;
@@ -112,6 +113,8 @@ export function inputRows(inputs: SheetInputs): InputRow[] {
       { section: 'Installation', label: 'Enclosure derating', value: n(installation.enclosureDerating, 3), unit: '' },
     );
   }
+  // The bus-bar system, the protection and the harmonics (sheet version 6).
+  rows.push(...systemInputRows(inputs));
   rows.push(
     { section: 'Limits', label: 'Own temperature limit', value: limits.temperatureLimitC === null ? 'none (material limits govern)' : n(limits.temperatureLimitC), unit: '°C' },
     { section: 'Limits', label: 'Own limit replaces material limits', value: limits.raiseMaterialLimit ? 'yes' : 'no', unit: '' },
@@ -170,6 +173,16 @@ export interface CandidateRecord {
   governingCable: string | null;
   governingCableC: number | null;
   groupMethod: string | null;
+  /** The bus-bar system and the protection (candidateRow): the governing bar, the forces, the device's coordination. */
+  hottestBar: string | null;
+  forces: CandidateRow['forces'];
+  stressRatio: number | null;
+  supportForceN: number | null;
+  supportForceRatio: number | null;
+  deviceCurrentA: number | null;
+  coordination: CandidateRow['coordination'];
+  smallestDeviceA: number | null;
+  disconnection: CandidateRow['disconnection'];
   error: string | null;
 }
 
@@ -224,6 +237,15 @@ export function candidateRecords(candidates: SheetCandidate[], results: Candidat
         governingCable: null,
         governingCableC: null,
         groupMethod: null,
+        hottestBar: null,
+        forces: null,
+        stressRatio: null,
+        supportForceN: null,
+        supportForceRatio: null,
+        deviceCurrentA: null,
+        coordination: null,
+        smallestDeviceA: null,
+        disconnection: null,
         error: e && !e.ok ? (e.error.field ? plainMessage(e.error.message, e.error.field) : e.error.message) : null,
       };
     }
@@ -256,6 +278,15 @@ export function candidateRecords(candidates: SheetCandidate[], results: Candidat
       governingCable: row.governingCable,
       governingCableC: row.governingCableC,
       groupMethod: row.groupMethod,
+      hottestBar: row.hottestBar,
+      forces: row.forces,
+      stressRatio: row.stressRatio,
+      supportForceN: row.supportForceN,
+      supportForceRatio: row.supportForceRatio,
+      deviceCurrentA: row.deviceCurrentA,
+      coordination: row.coordination,
+      smallestDeviceA: row.smallestDeviceA,
+      disconnection: row.disconnection,
       error: null,
     };
   });
@@ -287,6 +318,15 @@ export const CANDIDATE_EXPORT_COLUMNS: ReadonlyArray<{ header: string; value: (r
   { header: 'governing cable', value: (r) => r.governingCable },
   { header: 'governing cable conductor (°C)', value: (r) => r.governingCableC },
   { header: 'group rated by', value: (r) => r.groupMethod },
+  { header: 'governing bar', value: (r) => r.hottestBar },
+  { header: 'short-circuit forces', value: (r) => r.forces },
+  { header: 'stress ratio', value: (r) => r.stressRatio },
+  { header: 'support force (N)', value: (r) => r.supportForceN },
+  { header: 'support force / rated', value: (r) => r.supportForceRatio },
+  { header: 'device I_n or I_r (A)', value: (r) => r.deviceCurrentA },
+  { header: 'overload coordination', value: (r) => r.coordination },
+  { header: 'smallest coordinated device (A)', value: (r) => r.smallestDeviceA },
+  { header: 'disconnection', value: (r) => r.disconnection },
   { header: 'assumption flags', value: (r) => r.flagCodes.join(' ') },
   { header: 'marked', value: (r) => r.marks.join('; ') },
   { header: 'not evaluated because', value: (r) => r.error },
@@ -351,7 +391,9 @@ function groupRows(e: CandidateEvaluationOk, otherLabels: readonly string[]): Ch
 export const METHOD_LINES: readonly string[] = [
   'Heat balance: steady one-dimensional finite-volume method (Patankar 1980) through the conductor and its coverings, with temperature-dependent Joule heating ρ(T) = ρ20[1 + α20(T − 20 °C)] (IEC 60287-1-1 Table 1 coefficients).',
   'Surfaces: natural convection by the Churchill and Chu (1975) correlations, forced convection by Churchill and Bernstein (1977) or flat-plate correlations, radiation with the Stefan–Boltzmann law, absorbed sun per IEC 60287-2-1 where outdoors.',
-  'Cables are rated as the group they lie in (physics.md §8): in free air by the IEC 60287-2-1 §4.2.1 surface law of the arrangement (an isolated cable by the correlations and radiation above); in the ground by superposition with images (IEC 60287-2-1 §4.2.3), each cable’s heat at its own temperature, the closed forms of §4.2.4 for a touching trefoil or row, ducts and backfill by §4.2.7; the hottest cable governs. Skin and proximity effects by IEC 60287-1-1 §2.1, screen losses by §2.3 where the screen is given; bars: the maker’s AC/DC ratio or a plane-conductor lower bound.',
+  'Cables are rated as the group they lie in (physics.md §8): in free air by the IEC 60287-2-1 §4.2.1 surface law of the arrangement (an isolated cable by the correlations and radiation above); in the ground by superposition with images (IEC 60287-2-1 §4.2.3), each cable’s heat at its own temperature, the closed forms of §4.2.4 for a touching trefoil or row, ducts and backfill by §4.2.7; the hottest cable governs. Skin and proximity effects by IEC 60287-1-1 §2.1, screen losses by §2.3 where the screen is given.',
+  'Bus bars are rated as the three-phase system they form (physics.md §10): each bar’s share of the current and its R_ac/R_dc by the filament (partial-inductance) method, each bar of a pack in its own heat balance (outer faces as plates, gaps as channels by Bar-Cohen and Rohsenow 1984, radiation by view factors), the hottest bar governing; the maker’s AC/DC ratio where entered. Short-circuit forces on the bars and supports by IEC 60865-1 with i_p from IEC 60909-0, where the supports are described.',
+  'Protection, where a device is given: overload coordination by IEC 60364-4-43 §433.1 with I_z the rated ampacity above, automatic disconnection by IEC 60364-4-41 §411 with the conductors at their fault temperature, the protective conductor by IEC 60364-5-54 §543.1, third harmonics by IEC 60364-5-52 Annex E.',
   'Ampacity: the highest current at which the governing temperature stays at or under its limit, found by bracketing; cross-checked against an IEC 60287-style closed form.',
   'Voltage drop: IEC 60364-5-52 Annex G. Short circuit: IEC 60949 adiabatic method. Life-cycle cost: IEC 60287-3-2 loss-cost approach, where included.',
 ];

@@ -6,6 +6,7 @@
 import type { BuriedSurroundings, CableArrangement, Candidate, Conditions, Installation, OtherCircuit } from '../electrical/sizing/types';
 import { toLibraryCandidate } from './candidates';
 import type { SheetInputs, SheetOtherCircuit } from './schema';
+import { toBusbarSystem, toProtection, toThirdHarmonicPercent, withSheetBarGap } from './systemToSizing';
 
 const orUndefined = <T>(value: T | null): T | undefined => (value === null ? undefined : value);
 
@@ -55,10 +56,12 @@ export function toBuriedSurroundings(inputs: SheetInputs): BuriedSurroundings {
 export function toInstallation(inputs: SheetInputs): Installation {
   const i = inputs.installation;
   const arrangement = toArrangement(inputs);
+  // The three-phase system of the bars (sheet version 6), when its phase spacing is entered.
+  const system = toBusbarSystem(inputs);
   switch (i.kind) {
     case 'bar-on-edge':
     case 'bar-flat':
-      return { kind: i.kind };
+      return system ? { kind: i.kind, system } : { kind: i.kind };
     case 'cable-in-air':
       return { kind: 'cable-in-air', ...arrangement };
     case 'buried':
@@ -71,7 +74,7 @@ export function toInstallation(inputs: SheetInputs): Installation {
         ...toBuriedSurroundings(inputs),
       };
     case 'enclosure':
-      return { kind: 'enclosure', deratingFactor: i.enclosureDerating, inside: i.enclosureInside, ...arrangement };
+      return { kind: 'enclosure', deratingFactor: i.enclosureDerating, inside: i.enclosureInside, ...arrangement, ...(system ? { system } : {}) };
   }
 }
 
@@ -120,11 +123,15 @@ export function toConditions(inputs: SheetInputs, designCurrentA = inputs.circui
       energyPriceGrowthPercent: economics.energyPriceGrowthPercent,
     };
   }
+  const protection = toProtection(inputs);
+  if (protection) conditions.protection = protection;
+  const thirdHarmonicPercent = toThirdHarmonicPercent(inputs);
+  if (thirdHarmonicPercent !== undefined) conditions.thirdHarmonicPercent = thirdHarmonicPercent;
   return conditions;
 }
 
 export function toCandidates(inputs: SheetInputs): Candidate[] {
-  return inputs.candidates.map(toLibraryCandidate);
+  return inputs.candidates.map((c) => withSheetBarGap(toLibraryCandidate(c), inputs));
 }
 
 /** Which installations suit which candidate kind (a bar is not buried; a cable does not lie "on edge"). */

@@ -18,6 +18,7 @@ import { PDF_FONT_FAMILY, pdfSafeText as safe } from './fonts';
 import { ProfileChart } from './ProfileChart';
 import { OptionalChecksSection } from './OptionalChecksSection';
 import { CrossSectionChart } from './CrossSectionChart';
+import { BusbarSystemSection, ProtectionSection } from './SystemSection';
 import { arrangementSentences, drawingInputOf, governingCableOf, governingText, groupCableRows, groupMethodWords } from '@/lib/sheet/groupWords';
 import { RE_EVALUATION_HEADING, reEvaluationFiguresLine, reEvaluationOf, reEvaluationSentence } from '@/lib/sheet/reEvaluation';
 
@@ -295,6 +296,9 @@ export function SizingSheetDocument({ sheet, generatedAt = new Date() }: { sheet
             ) : null}
           </View>
         ) : null}
+
+        <BusbarSystemSection inputs={sheet.inputs} chosen={chosen} />
+        <ProtectionSection inputs={sheet.inputs} chosen={chosen} />
 
         <Text style={styles.h2} minPresenceAhead={60}>{safe(`Assumption flags of the chosen candidate (${flags.length})`)}</Text>
         {flags.length === 0 ? <Text style={styles.muted}>No assumption flags were raised for the chosen candidate.</Text> : flags.map((f) => <FlagItem key={f.code} flag={f} ack={ackByCode.get(f.code)} />)}

@@ -63,7 +63,8 @@ export function workbookParts(sheetXml: string | Uint8Array): Record<string, str
 
 /** Worksheet XML with inline-string cells, one row per array entry. */
 export function sheetXmlOf(rows: ReadonlyArray<ReadonlyArray<string | number>>): string {
-  const column = (i: number) => String.fromCharCode(65 + i);
+  // Spreadsheet column letters: A … Z, then AA, AB … (a schedule has more than 26 columns).
+  const column = (i: number): string => (i < 26 ? String.fromCharCode(65 + i) : column(Math.floor(i / 26) - 1) + String.fromCharCode(65 + (i % 26)));
   const body = rows
     .map(
       (cells, r) =>

@@ -4,6 +4,7 @@ import {
   API_CAUTION,
   DEFAULT_REQUESTS_PER_MINUTE,
   EXAMPLE_AMPACITY_REQUEST,
+  EXAMPLE_BUSBAR_SYSTEM_REQUEST,
   EXAMPLE_EVALUATE_REQUEST,
   MAX_CANDIDATES_PER_REQUEST,
   MAX_REQUEST_BYTES,
@@ -210,6 +211,13 @@ export default async function ApiDocsPage() {
           <span className="num">review</span> flag is a statement a licensed reviewer must accept before the sizing is used, a{' '}
           <span className="num">note</span> is shown for the record. Inputs you leave out are assumed — and flagged — never silently filled in.
         </p>
+        <p className="mt-3">
+          Bars are rated as the system they form when <span className="num">installation.system</span> is given: each bar of a pack with its own share of the current and its own
+          heat balance, and — with the supports and a fault — the IEC 60865-1 forces on the bars and supports (<span className="num">forces</span> in the answer). A protective device
+          in <span className="num">conditions.protection</span> adds the overload coordination, and with the source impedance and the protective conductor the automatic
+          disconnection and the protective conductor’s section (<span className="num">protection</span> in the answer):
+        </p>
+        <Code label="Example body: a bus-bar system and its breaker">{JSON.stringify(EXAMPLE_BUSBAR_SYSTEM_REQUEST, null, 2)}</Code>
         <p className="mt-3">For the ampacity of one conductor, send one candidate; the design current may be left out:</p>
         <Code label="Example body for the ampacity endpoint">{JSON.stringify(EXAMPLE_AMPACITY_REQUEST, null, 2)}</Code>
       </section>
@@ -222,6 +230,9 @@ export default async function ApiDocsPage() {
         <FieldTable caption="conditions" rows={fieldRows('Conditions', 'conditions')} />
         {variantRows('Installation', 'conditions.installation').map((variant) => (
           <FieldTable key={variant.kind} caption={`conditions.installation, kind "${variant.kind}"`} rows={variant.rows} />
+        ))}
+        {variantRows('ProtectiveDevice', 'conditions.protection.device').map((variant) => (
+          <FieldTable key={variant.kind} caption={`conditions.protection.device, kind "${variant.kind}"`} rows={variant.rows} />
         ))}
         <FieldTable caption='candidates[] of kind "cable"' rows={fieldRows('CableCandidate', 'candidates[]')} />
         <FieldTable caption='candidates[] of kind "bar"' rows={fieldRows('BarCandidate', 'candidates[]')} />

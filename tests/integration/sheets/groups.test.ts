@@ -16,7 +16,7 @@ import { closeDb, getDb } from '@/db/client';
 import { auditLog, sheets } from '@/db/schema';
 import { createProject } from '@/db/queries/projects';
 import { createSheet, getSheet, saveSheet, SheetOperationError } from '@/db/queries/sheets';
-import { defaultSheetInputs, type SheetInputs } from '@/lib/sheet';
+import { defaultSheetInputs, SHEET_SCHEMA_VERSION, type SheetInputs } from '@/lib/sheet';
 import { governingCableOf } from '@/lib/sheet/groupWords';
 import { reEvaluationOf, RE_EVALUATION_HEADING } from '@/lib/sheet/reEvaluation';
 import { formatNumber } from '@/lib/units';
@@ -126,7 +126,7 @@ describe('a sheet saved by the isolated-cable solver', () => {
       .returning({ id: sheets.id });
     const sheet = (await getSheet(teamId, row.id))!;
     expect(sheet.storedSchemaVersion).toBe(4);
-    expect(sheet.inputs.schemaVersion).toBe(5);
+    expect(sheet.inputs.schemaVersion).toBe(SHEET_SCHEMA_VERSION);
     expect(sheet.inputs.installation.otherCircuits).toEqual([]);
     expect(sheet.result?.solverVersion).toBe(storedV4.snapshot.solverVersion);
     expect(sheet.result?.evaluations).toEqual(storedV4.snapshot.evaluations);

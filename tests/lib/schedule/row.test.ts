@@ -32,6 +32,12 @@ const GOOD: Record<string, unknown> = {
   'other circuits': '',
   'other circuit current (a)': '',
   'circuit spacing (mm)': '',
+  'device type': '',
+  'device rating (a)': '',
+  'phase spacing (mm)': '',
+  'support span (mm)': '',
+  supports: '',
+  'support strength (n)': '',
 };
 
 /** Cells keyed as the reader keys them: by normalised header (case and spaces do not matter). */

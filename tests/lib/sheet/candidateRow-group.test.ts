@@ -125,7 +125,7 @@ describe('a result saved by an earlier solver is marked for re-evaluation', () =
   });
 
   it('says what the earlier method did: 0.1 rated cables alone, 0.2 approximated packs and multi-core cables (lib/electrical/version.ts history)', () => {
-    const base = { currentSolverVersion: SOLVER_VERSION, chosenLabel: null, saved: null, now: null };
+    const base = { currentSolverVersion: SOLVER_VERSION, chosenLabel: null, saved: null, now: null, reason: 'earlier-solver' as const, replacedBarMethods: [] };
     expect(reEvaluationSentence({ ...base, savedSolverVersion: 'ampwarden-sizing/0.1.0 (x)' })).toContain('rated each cable alone');
     const v02 = reEvaluationSentence({ ...base, savedSolverVersion: 'ampwarden-sizing/0.2.0 (x)' });
     expect(v02).toContain('a pack of bars as separate bars');

@@ -1,0 +1,3 @@
+ALTER TABLE "catalogue_conductors" ADD COLUMN "yield_strength_mpa" numeric;--> statement-breakpoint
+ALTER TABLE "catalogue_conductors" ADD COLUMN "yield_strength_source" text DEFAULT '' NOT NULL;--> statement-breakpoint
+ALTER TABLE "catalogue_conductors" ADD CONSTRAINT "catalogue_conductors_yield_strength" CHECK ("catalogue_conductors"."yield_strength_mpa" is null or ("catalogue_conductors"."shape" = 'rectangular' and "catalogue_conductors"."yield_strength_mpa" > 0));
