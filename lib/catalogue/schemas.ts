@@ -93,7 +93,7 @@ export const conductorRowSchema = z
     resistanceSource: sourceField,
     diameterMm: optionalDecimalField(libraryBound(INPUT_BOUNDS.conductorDiameterM, 1000)),
     widthMm: optionalDecimalField(libraryBound(INPUT_BOUNDS.barWidthM, 1000)),
-    thicknessMm: optionalDecimalField({ min: 0, minExclusive: true, max: 100 }),
+    thicknessMm: optionalDecimalField(libraryBound(INPUT_BOUNDS.barThicknessM, 1000)),
     dimensionSource: sourceField,
     /** Bars: R_p0.2 in N/mm² (the IEC 60865-1 stress check); the library's range, scaled from Pa. */
     yieldStrengthMpa: optionalDecimalField(libraryBound(INPUT_BOUNDS.yieldStrengthPa, '1e-6')),

@@ -303,7 +303,7 @@ function prepareBar(cand: BarCandidate, p: CommonPrep): PreparedBar {
   const thicknessM = checkBound('barThicknessM', cand.thicknessM, f('thicknessM'));
   const barsPerPhase = cand.barsPerPhase === undefined ? 1 : checkBound('barsPerPhase', cand.barsPerPhase, f('barsPerPhase'));
   // A pack's bars need a gap between them (they would be one thicker bar otherwise).
-  const barGapM = cand.barGapM === undefined ? thicknessM : barsPerPhase > 1 ? requireRange(cand.barGapM, f('barGapM'), 0, 1, { minExclusive: true }) : requireNonNegative(cand.barGapM, f('barGapM'));
+  const barGapM = cand.barGapM === undefined ? thicknessM : barsPerPhase > 1 ? checkBound('packGapM', cand.barGapM, f('barGapM')) : checkBound('barGapM', cand.barGapM, f('barGapM'));
   const yieldStrengthPa = cand.yieldStrengthPa === undefined ? undefined : requireRange(cand.yieldStrengthPa, f('yieldStrengthPa'), 1e6, 2e9);
   const acResistanceRatio = cand.acResistanceRatio === undefined ? undefined : checkBound('acResistanceRatio', cand.acResistanceRatio, f('acResistanceRatio'));
   const terminal = limitOf(cand.terminalLimitC, f('terminalLimitC'));

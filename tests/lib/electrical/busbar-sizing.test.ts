@@ -93,3 +93,24 @@ describe('short-circuit forces on the supports (IEC 60865-1) travel with the eva
     expect(e.forces!.peakCurrentA).toBeCloseTo((1.02 + 0.98 * Math.exp(-0.3)) * Math.SQRT2 * 50_000, 3);
   });
 });
+
+describe('dimensions too small to be a bar are refused with the field named (lib/inputBounds)', () => {
+  // Found by fuzzing the API: a 1e-300 m thickness or pack gap made the filament matrix singular
+  // (an unexplained failure), and r20 = 1e-300 Ω/m rated a pack at 3e150 A.
+  const field = (e: ReturnType<typeof evaluateCandidate>) => (e.ok ? 'not refused' : e.error.field);
+  it('thickness, pack gap and resistance below their bounds', () => {
+    expect(field(evaluateCandidate(copperBar(0.1, 1e-300, { r20OhmPerM: 1.7e-5 }), conditions()))).toBe('candidates[0].thicknessM');
+    expect(field(evaluateCandidate(copperBar(0.1, 0.01, { barsPerPhase: 2, barGapM: 1e-300 }), conditions()))).toBe('candidates[0].barGapM');
+    expect(field(evaluateCandidate(copperBar(0.1, 0.01, { r20OhmPerM: 1e-300 }), conditions()))).toBe('candidates[0].r20OhmPerM');
+  });
+});
+
+describe('a pack whose limit is its ambient carries nothing, and says so', () => {
+  // Found by fuzzing the API: a terminal limit of 5e-324 °C in 0 °C air left the pack's heat
+  // balance without a temperature difference and the solve failed on a singular matrix.
+  it('ampacity 0 with the reason, not a failure', () => {
+    const e = ok(evaluateCandidate(copperBar(0.05, 0.005, { barsPerPhase: 4, barGapM: 0.005, terminalLimitC: 5e-324 }), barConditions({ ambientC: 0, designCurrentA: 10, fault: undefined })));
+    expect(e.ampacityA).toBe(0);
+    expect(e.passes).toBe(false);
+  });
+});

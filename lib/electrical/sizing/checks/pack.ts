@@ -74,10 +74,14 @@ function addBusbarFlags(flags: FlagSet, raised: readonly BusbarFlag[]): void {
   for (const f of raised) flags.add(f.code, f.message);
 }
 
+const MIN_RISE_K = 1e-6;
+
 export function packAmpacityCheck(ctx: SizingContext, m: BusbarSystemModel): AmpacityResult {
   const cand = ctx.cand as PreparedBar;
   const limit = cand.contactLimit;
-  if (!(limit.temperatureC > m.ambientC)) {
+  // A rise of less than a microkelvin allows no current worth the name (and leaves the pack's heat
+  // balance without a temperature difference to solve on).
+  if (!(limit.temperatureC - m.ambientC > MIN_RISE_K)) {
     const state = packStateAt(m, 0, m.ambientC);
     if (!state) throw new SizingError('SOLVER_NOT_CONVERGED', 'the pack could not be solved without current');
     return zeroAmpacity(ctx, m, state, limit);
