@@ -279,6 +279,15 @@ export const INPUT_BOUNDS = {
   enclosureOutsideAirC: { label: 'Air around the enclosure', unit: '°C', min: -60, max: 100, basis: 'Room air around an assembly.' },
   routeLengthInsideM: { label: 'Route length inside', unit: 'm', min: 0, max: 100, basis: 'The part of the route inside one enclosure.' },
   otherLossesW: { label: 'Other losses inside', unit: 'W', min: 0, max: 100_000, basis: 'Declared losses of the devices inside one enclosure.' },
+  // The cross-section solved in two dimensions (issue 20): the ground surface exchanging heat with the air.
+  groundSurfaceCoefficientWPerM2K: {
+    label: 'Ground surface coefficient',
+    unit: 'W/(m²·K)',
+    min: 0,
+    minExclusive: true,
+    max: 100,
+    basis: 'Convection and radiation from bare ground to the air: a few W/(m²·K) in still air to a few tens in strong wind (common practice, from memory); 100 is far above any ground surface.',
+  },
 } as const satisfies Record<string, InputBound>;
 
 export type BoundName = keyof typeof INPUT_BOUNDS;

@@ -12,10 +12,20 @@
  * whole) to one matrix–vector product with K. Timings are medians of several runs; the machine
  * is shared, so its load average is printed beside them. Then the three preconditioners on the
  * middle mesh, and an ampacity search on it.
+ *
+ * Then the sheet's "Solve the cross-section" (lib/sheet/crossSectionField.ts) for three touching
+ * trefoil circuits of the 240 mm² test cable 0.3 m apart at 0.8 m — the design point and the
+ * ampacity search with the AC factors settled — on the sheet's mesh (the browser's) and on the
+ * coarser mesh of a saved result (the server's). The same solve in the browser's worker is timed by
+ * the browser test tests/e2e/cross-section-field.test.ts, which prints its figure ("browser figure —
+ * three trefoil circuits …"): run it against a build as DEVELOPERS.md says.
  */
 import os from 'node:os';
 import { ampacityOfPrepared, prepareCrossSection, solvePrepared, type CrossSectionCable, type CrossSectionInput, type PreconditionerKind } from '../lib/thermal/crossSection';
 import { multiply } from '../lib/thermal/crossSection/sparse';
+import { defaultSheetInputs } from '../lib/sheet/schema';
+import { fieldSettingsOf } from '../lib/sheet/crossSection';
+import { solveSheetCrossSection } from '../lib/sheet/crossSectionField';
 
 const DE = 0.036;
 
@@ -134,3 +144,52 @@ console.log(
   `\nampacity on the middle mesh (prepared once): ${found.currentA.toFixed(1)} A per cable, governing cable ${found.governing.index}, ` +
     `${found.evaluations} solves in ${(t1 - t0).toFixed(0)} ms`,
 );
+
+// ───────────── the sheet's field (the same inputs as the browser test) ─────────────
+const sheet = defaultSheetInputs('buried');
+sheet.circuit = { ...sheet.circuit, designCurrentA: 300, lengthM: 90 };
+sheet.installation = {
+  ...sheet.installation,
+  depthM: 0.8,
+  soilResistivityKmPerW: 1.2,
+  groundC: 20,
+  circuitSpacingM: 0.3,
+  otherCircuits: [
+    { label: 'West pump', currentA: 280, sameCable: true, externalDiameterM: null, lossWPerM: null },
+    { label: 'East pump', currentA: 260, sameCable: true, externalDiameterM: null, lossWPerM: null },
+  ],
+};
+// The 240 mm² copper XLPE/PVC test cable of tests/helpers/sheetCandidates.ts (illustrative data).
+sheet.candidates = [
+  {
+    id: 'cu-xlpe-240',
+    label: '240 mm² Cu XLPE single-core (test)',
+    kind: 'cable',
+    material: 'copper',
+    r20OhmPerM: 0.0754e-3,
+    sectionMm2: 240,
+    conductorDiameterM: 0.018,
+    parallel: 1,
+    layers: [
+      { name: 'XLPE insulation', role: 'insulation', thicknessM: 1.7e-3, thermalResistivityKmPerW: 3.5, continuousLimitC: 90, shortCircuitLimitC: 250 },
+      { name: 'PVC sheath', role: 'sheath', thicknessM: 1.9e-3, thermalResistivityKmPerW: 5.0 },
+    ],
+  },
+];
+sheet.chosenCandidateId = 'cu-xlpe-240';
+console.log('\nthe sheet’s "Solve the cross-section": three trefoil circuits (9 cables), design point + ampacity, AC factors settled (medians of 3 runs)');
+console.log('  mesh      cells  solves  total ms  ms per solve  field ampacity A  IEC ampacity A');
+for (const mesh of ['sheet', 'saved'] as const) {
+  const times: number[] = [];
+  let last: ReturnType<typeof solveSheetCrossSection> | undefined;
+  for (let r = 0; r < 3; r++) {
+    const t = performance.now();
+    last = solveSheetCrossSection(sheet, 'cu-xlpe-240', { settings: fieldSettingsOf(sheet, mesh), pictureColumns: mesh === 'sheet' ? 96 : 48 });
+    times.push(performance.now() - t);
+  }
+  const ms = median(times);
+  console.log(
+    `  ${mesh.padEnd(6)} ${String(last!.mesh.cells).padStart(8)} ${String(last!.solves).padStart(7)} ${fmt(ms, 0)} ${fmt(ms / last!.solves, 0)}      ${fmt(last!.ampacity.fieldA ?? Number.NaN, 1)}        ${fmt(last!.ampacity.iecA, 1)}`,
+  );
+}
+console.log('the browser figure (the same solve in the sheet’s Web Worker) is printed by tests/e2e/cross-section-field.test.ts');

@@ -4,7 +4,10 @@
  * 'Viridis', which the plots use for their colour scales; these stops colour things Plotly does
  * not (layer bands, legends).
  */
-export const VIRIDIS_STOPS = ['#440154', '#472d7b', '#3b528b', '#2c728e', '#21918c', '#28ae80', '#5ec962', '#addc30', '#fde725'] as const;
+import { VIRIDIS_STOPS } from '@/lib/sheet/fieldPicture';
+
+// The stops live in lib/ so that the server's PDF colours the cross-section's field with the same ramp.
+export { VIRIDIS_STOPS };
 
 /** The ramp colour of t in [0, 1] (nearest stop; enough for bands and swatches). */
 export function rampColour(t: number): string {

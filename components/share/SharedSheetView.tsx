@@ -17,6 +17,7 @@ import { useLiveComputation } from '@/components/sheet/useLiveComputation';
 import { GroupPanel } from '@/components/sheet/GroupPanel';
 import { BusbarResults } from '@/components/sheet/BusbarResults';
 import { ProtectionPanel } from '@/components/sheet/ProtectionPanel';
+import { FieldReportView } from '@/components/sheet/FieldReportView';
 import { ReEvaluationNotice } from '@/components/sheet/ReEvaluationNotice';
 import { arrangementSentences } from '@/lib/sheet/groupWords';
 import { reEvaluationOf } from '@/lib/sheet/reEvaluation';
@@ -129,6 +130,14 @@ export function SharedSheetView({ sheet }: { sheet: SharedSheet }) {
         {focusedOk && focusedOk.kind === 'cable' ? <GroupPanel evaluation={focusedOk} units="si" otherLabels={otherLabels} /> : null}
         {focusedOk && focusedOk.kind === 'bar' ? <BusbarResults evaluation={focusedOk} inputs={sheet.inputs} units="si" /> : null}
         {focusedOk ? <ProtectionPanel evaluation={focusedOk} inputs={sheet.inputs} /> : null}
+        {isChosen && snapshot?.crossSection ? (
+          <section aria-labelledby="shared-field-heading" className="panel p-3" data-testid="shared-cross-section-field">
+            <h2 id="shared-field-heading" className="text-body font-semibold">
+              Cross-section in two dimensions <span className="text-caption font-normal text-ink-500">(beside the IEC rating, as saved)</span>
+            </h2>
+            {snapshot.crossSection.ok ? <FieldReportView report={snapshot.crossSection.report} units="si" otherLabels={otherLabels} /> : <p className="field-error">Not computed: {snapshot.crossSection.message}</p>}
+          </section>
+        ) : null}
         {sheet.optionalChecks.length > 0 ? <OptionalChecks reports={sheet.optionalChecks} /> : null}
         {sheet.inputs.candidates.length > 0 ? (
           <div className="grid gap-3 xl:grid-cols-2">

@@ -39,6 +39,7 @@ import { useLiveComputation } from './useLiveComputation';
 import { GroupPanel } from './GroupPanel';
 import { BusbarResults } from './BusbarResults';
 import { ProtectionPanel } from './ProtectionPanel';
+import { CrossSectionFieldPanel } from './CrossSectionFieldPanel';
 import { ReEvaluationNotice } from './ReEvaluationNotice';
 import { arrangementRefusalOf, plainMessage, refusalSentence, refusalSubject } from '@/lib/sheet/arrangementCheck';
 import { reEvaluationOf } from '@/lib/sheet/reEvaluation';
@@ -405,6 +406,18 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
           {focusedOk && focusedOk.kind === 'bar' ? <BusbarResults evaluation={focusedOk} inputs={values} units={units} /> : null}
 
           {focusedOk ? <ProtectionPanel evaluation={focusedOk} inputs={values} /> : null}
+          {/* Shown while ticked whatever the installation, so that an option left on can be unticked. */}
+          {(values.installation.kind === 'buried' && values.candidates.some((c) => c.kind === 'cable')) || values.crossSection.checked ? (
+            <CrossSectionFieldPanel
+              form={form}
+              editable={editable}
+              candidateId={focusedOk && focusedOk.kind === 'cable' ? focusedOk.id : null}
+              candidateLabel={focusedOk && focusedOk.kind === 'cable' ? focusedOk.label : null}
+              units={units}
+              otherLabels={otherLabels}
+              stored={snapshot?.crossSection ? { outcome: snapshot.crossSection, candidateLabel: snapshot.evaluations.find((e) => e.id === snapshot.chosenCandidateId)?.label ?? null } : null}
+            />
+          ) : null}
 
           {values.candidates.length > 0 ? <BeyondSteadyPanel form={form} editable={editable} candidateId={focusedOk ? focusedOk.id : null} units={units} /> : null}
 

@@ -96,6 +96,7 @@ export const SHEET_FIELD_UNITS = {
   'protection.sourceImpedanceOhm': { quantity: 'none', fixedUnit: 'mΩ' },
   'protection.protectiveConductor.sectionMm2': { quantity: 'areaMm2' },
   'harmonics.thirdHarmonicPercent': { quantity: 'none', fixedUnit: '%' },
+  'crossSection.heatTransferCoefficientWPerM2K': { quantity: 'none', fixedUnit: 'W/(m²·K)' },
 } as const satisfies Record<string, FieldUnit>;
 
 export type SheetNumericField = keyof typeof SHEET_FIELD_UNITS;

@@ -12,3 +12,6 @@ export * from './optionalChecksReport';
 export * from './groupWords';
 export * from './reEvaluation';
 export * from './arrangementCheck';
+export * from './crossSection';
+export * from './crossSectionField';
+export * from './fieldPicture';

@@ -30,13 +30,16 @@
  *       its saved result; a saved pack rated by the method since replaced is marked for
  *       re-evaluation when its figure changes (lib/sheet/reEvaluation.ts). `limits.raiseJustification`
  *       (why a raised limit is safe, issue 22): empty on older sheets.
+ *   7 — the option `crossSection` (issue 20): solve the ground around a buried circuit in two
+ *       dimensions beside the IEC rating, with the ground surface isothermal or exchanging heat
+ *       with the air through a coefficient. An older sheet reads with the option off.
  */
 import { z } from 'zod';
 import { INPUT_BOUNDS, zodBound, type BoundName } from '../inputBounds';
 import { sheetCandidateSchema } from './candidates';
 import { busbarSystemSchema, harmonicsSchema, protectionSchema, systemDefaults, systemIssues } from './systemSchema';
 
-export const SHEET_SCHEMA_VERSION = 6 as const;
+export const SHEET_SCHEMA_VERSION = 7 as const;
 
 const num = (label: string) => z.number({ error: `${label} must be a number` }).refine(Number.isFinite, `${label} must be a finite number`);
 /** A number inside its bound of lib/inputBounds (the one table every edge and the library read). */
@@ -209,6 +212,17 @@ export const enclosureAirSchema = z.object({
   otherLossesW: bounded('otherLossesW'),
 });
 
+/** How the ground surface is treated in the two-dimensional cross-section (lib/thermal/crossSection). */
+export const groundSurfaceKinds = ['isothermal', 'convective'] as const;
+export const crossSectionSchema = z.object({
+  /** Solve the cross-section in two dimensions beside the IEC rating (buried circuits; stored with the snapshot on save). */
+  checked: z.boolean(),
+  /** 'isothermal': the surface at the ground temperature (the IEC assumption); 'convective': it gives heat to air at the ground temperature. */
+  surface: z.enum(groundSurfaceKinds, { error: 'Choose how the ground surface is treated' }),
+  /** W/(m²·K), used when the surface is convective; kept while it is isothermal. */
+  heatTransferCoefficientWPerM2K: bounded('groundSurfaceCoefficientWPerM2K'),
+});
+
 export const sheetInputsSchema = z
   .object({
     schemaVersion: z.literal(SHEET_SCHEMA_VERSION),
@@ -224,6 +238,7 @@ export const sheetInputsSchema = z
     busbarSystem: busbarSystemSchema,
     protection: protectionSchema,
     harmonics: harmonicsSchema,
+    crossSection: crossSectionSchema,
     candidates: z.array(sheetCandidateSchema).max(24, 'At most 24 candidates on one sheet'),
     chosenCandidateId: z.string().nullable(),
     notes: z.string().max(4000),
@@ -365,18 +380,19 @@ export function readSheetInputs(raw: unknown, storedVersion?: number): SheetInpu
     if (!parsed.success) throw new SheetSchemaError(`Stored sheet inputs do not match version ${version}: ${parsed.error.issues[0]?.message}`, version);
     return parsed.data;
   }
-  if (version === 2 || version === 3 || version === 4 || version === 5) {
+  if (version === 2 || version === 3 || version === 4 || version === 5 || version === 6) {
     // Versions 3 and 4 only added optional checks (over time, along the run; the enclosure air):
     // a sheet stored before them reads with them unchecked. Version 5 added the cross-section:
     // an older sheet keeps its formation and spacing, with nothing beside it, no ducts, no backfill.
     // Version 6 added the bus-bar system, the protection and the harmonics: an older sheet reads
-    // with none of them described (the system it was sized with; nothing more checked).
+    // with none of them described (the system it was sized with; nothing more checked). Version 7
+    // added the two-dimensional cross-section, off on an older sheet.
     const defaults = defaultSheetInputs();
     const added = version === 2 ? { overTime: defaults.overTime, alongRun: defaults.alongRun, enclosureAir: defaults.enclosureAir } : version === 3 ? { enclosureAir: defaults.enclosureAir } : {};
     const stored = raw as { installation?: unknown };
     const installation =
       version < 5 && stored.installation && typeof stored.installation === 'object' ? { ...arrangementDefaults(), ...(stored.installation as object) } : stored.installation;
-    const parsed = sheetInputsSchema.safeParse({ ...(raw as object), schemaVersion: SHEET_SCHEMA_VERSION, ...added, ...systemDefaults(), installation });
+    const parsed = sheetInputsSchema.safeParse({ ...(raw as object), schemaVersion: SHEET_SCHEMA_VERSION, ...added, ...(version < 6 ? systemDefaults() : {}), ...addedInVersion7(), installation });
     if (!parsed.success) throw new SheetSchemaError(`Stored sheet inputs do not match version ${version}: ${parsed.error.issues[0]?.message}`, version);
     return parsed.data;
   }
@@ -388,7 +404,21 @@ export function readSheetInputs(raw: unknown, storedVersion?: number): SheetInpu
   throw new SheetSchemaError(`Sheet inputs of schema version ${version} are newer than this application understands`, version);
 }
 
+/** What version 7 added, as an older sheet reads it: the two-dimensional cross-section switched off. */
+function addedInVersion7(): Pick<SheetInputs, 'crossSection'> {
+  return { crossSection: crossSectionDefaults() };
+}
+
 // ───────────────────────────── defaults ─────────────────────────────
+
+/**
+ * The two-dimensional cross-section as a new sheet has it: off, the surface isothermal as IEC 60287
+ * assumes it; 10 W/(m²·K) is only the starting value shown when the designer makes the surface
+ * exchange heat with the air (a still-air figure for bare ground, common practice, from memory).
+ */
+export function crossSectionDefaults(): SheetInputs['crossSection'] {
+  return { checked: false, surface: 'isothermal', heatTransferCoefficientWPerM2K: 10 };
+}
 
 /**
  * The arrangement fields of version 5 as a new sheet (and an older one read as version 5) has
@@ -476,6 +506,7 @@ export function defaultSheetInputs(kind: InstallationKind = 'cable-in-air'): She
       otherLossesW: 0,
     },
     ...systemDefaults(),
+    crossSection: crossSectionDefaults(),
     candidates: [],
     chosenCandidateId: null,
     notes: '',
@@ -514,5 +545,6 @@ export const DEFAULT_SOURCES = {
   enclosureOutsideAirC: '35 °C: the highest 24-hour mean of the air around an assembly in IEC 61439-1 normal service conditions (from memory); enter the room’s own value.',
   enclosureWall: 'Painted sheet steel, k = 5.5 W/(m²·K); stainless steel 3.7, aluminium 12, plastic 3.5 (common-practice wall coefficients, from memory).',
   enclosureOtherLossesW: 'Left at 0 W: add the declared power losses of every device inside (the maker’s data, as IEC 61439-1 asks for the temperature-rise verification).',
+  groundSurfaceCoefficientWPerM2K: '10 W/(m²·K): a still-air figure for bare ground to the air, convection and radiation together (common practice, from memory); wind raises it. The air is taken at the ground temperature.',
   jointResistanceMicroOhm: 'Left empty: 10 µΩ per joint, a pessimistic figure for an unmeasured bolted joint (common practice, flagged). Enter a measured value when you have one.',
 } as const;

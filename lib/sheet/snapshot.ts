@@ -7,6 +7,7 @@ import type { AssumptionFlag } from '../electrical/sizing/flags';
 import type { CandidateEvaluation, CandidateEvaluationOk } from '../electrical/sizing/types';
 import { SOLVER_VERSION } from '../electrical/version';
 import { computeSheet } from './compute';
+import { savedFieldCheck, type FieldCheckOutcome } from './crossSectionField';
 import { optionalChecksReport, type OptionalCheckReport } from './optionalChecksReport';
 import type { SheetInputs } from './schema';
 import type { ApprovalReadiness } from './stateMachine';
@@ -35,6 +36,20 @@ export interface ResultSnapshot {
   optionalCheckFailures?: { check: string; message: string }[];
   /** The optional checks of the chosen candidate in words, as the PDF and the share link print them (absent in older snapshots). */
   optionalChecks?: OptionalCheckReport[];
+  /**
+   * The chosen candidate's cross-section solved in two dimensions, when the sheet's option is on
+   * (lib/sheet/crossSectionField.ts, on the coarser mesh it names); absent when the option is off
+   * and in snapshots older than the option.
+   */
+  crossSection?: FieldCheckOutcome;
+}
+
+/** The name of the two-dimensional cross-section among the optional checks (in the failures list). */
+export const FIELD_CHECK_NAME = 'Cross-section in two dimensions';
+
+/** The stored field result of the chosen candidate, or null (option off, or an older snapshot). */
+export function savedCrossSection(snapshot: ResultSnapshot | null): FieldCheckOutcome | null {
+  return snapshot?.crossSection ?? null;
 }
 
 /** The optional checks in words: from the snapshot when it has them, else computed from the saved inputs (older snapshots). */
@@ -64,6 +79,11 @@ export function buildSnapshot(inputs: SheetInputs, now = new Date()): ResultSnap
   const chosen = evaluations.find((e) => e.id === inputs.chosenCandidateId) ?? null;
   const optionalChecks = optionalChecksReport(inputs);
   const optional = chosen && chosen.ok ? optionalCheckOutcome(optionalChecks) : { flags: [], failures: [] };
+  const crossSection = chosen && chosen.ok ? savedFieldCheck(inputs) : undefined;
+  if (crossSection) {
+    if (crossSection.ok) optional.flags.push(...crossSection.report.reviewFlags);
+    else optional.failures.push({ check: FIELD_CHECK_NAME, message: crossSection.message });
+  }
   const chosenFlags = chosen && chosen.ok ? [...chosen.flags, ...optional.flags.filter((f) => !chosen.flags.some((c) => c.code === f.code))] : [];
   return {
     snapshotVersion: SNAPSHOT_VERSION,
@@ -79,6 +99,7 @@ export function buildSnapshot(inputs: SheetInputs, now = new Date()): ResultSnap
     chosenPasses: chosen ? chosen.ok && chosen.passes && optional.failures.length === 0 && !optional.flags.some((f) => f.severity === 'blocker') : null,
     optionalCheckFailures: optional.failures,
     optionalChecks,
+    ...(crossSection ? { crossSection } : {}),
   };
 }
 

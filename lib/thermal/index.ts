@@ -92,3 +92,6 @@ export {
   enclosureAirTemperature,
 } from './enclosure';
 export type { EnclosureAirInput, EnclosureAirResult, EnclosureFace, EnclosureShape, EnclosureWall } from './enclosure';
+
+// The ground around buried cables in two dimensions (physics.md §9, issue 20).
+export * from './crossSection';

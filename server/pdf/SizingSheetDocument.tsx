@@ -19,6 +19,7 @@ import { ProfileChart } from './ProfileChart';
 import { OptionalChecksSection } from './OptionalChecksSection';
 import { CrossSectionChart } from './CrossSectionChart';
 import { BusbarSystemSection, ProtectionSection } from './SystemSection';
+import { CrossSectionFieldSection } from './CrossSectionFieldSection';
 import { arrangementSentences, drawingInputOf, governingCableOf, governingText, groupCableRows, groupMethodWords } from '@/lib/sheet/groupWords';
 import { RE_EVALUATION_HEADING, reEvaluationFiguresLine, reEvaluationOf, reEvaluationSentence } from '@/lib/sheet/reEvaluation';
 
@@ -299,6 +300,7 @@ export function SizingSheetDocument({ sheet, generatedAt = new Date() }: { sheet
 
         <BusbarSystemSection inputs={sheet.inputs} chosen={chosen} />
         <ProtectionSection inputs={sheet.inputs} chosen={chosen} />
+        <CrossSectionFieldSection outcome={snapshot?.crossSection} otherLabels={otherLabels} />
 
         <Text style={styles.h2} minPresenceAhead={60}>{safe(`Assumption flags of the chosen candidate (${flags.length})`)}</Text>
         {flags.length === 0 ? <Text style={styles.muted}>No assumption flags were raised for the chosen candidate.</Text> : flags.map((f) => <FlagItem key={f.code} flag={f} ack={ackByCode.get(f.code)} />)}

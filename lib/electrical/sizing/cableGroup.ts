@@ -382,7 +382,7 @@ export function groupResultOf(
   const byCable = new Map((solution?.cables ?? []).map((c) => [c.cable, c]));
   const cables: GroupResultCable[] = group.cables.map((k, i) => {
     const solved = byCable.get(i);
-    const alike = model.kind === 'air' && k.role === 'rated' ? representative : null;
+    const alike = (model.kind === 'air' || group.isolated) && k.role === 'rated' ? representative : null;
     return {
       circuit: k.circuit,
       index: k.index,

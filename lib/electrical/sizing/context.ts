@@ -60,7 +60,7 @@ export function sizingContext(candidate: Candidate, cond: PreparedConditions, in
  * The screen and dielectric losses of a cable (IEC 60287-1-1 §2.2–2.3, lib/electrical/iec60287):
  * where in the 1-D model they are released and how large, or undefined when neither counts.
  */
-function cableLossesOf(cand: PreparedCable, cond: PreparedConditions, group: CableGroup, flags: FlagSet): CableLosses | undefined {
+export function cableLossesOf(cand: PreparedCable, cond: PreparedConditions, group: CableGroup, flags: FlagSet): CableLosses | undefined {
   const cable = asSingleCoreCable(cand);
   const n = cand.loadedCores;
   const dEq = cand.conductorDiameterM * Math.sqrt(n);

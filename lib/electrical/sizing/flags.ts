@@ -73,7 +73,7 @@ const STEADY_FLAG_CODES = [
   ...BUSBAR_FLAG_CODES,
 ] as const;
 
-/** Codes raised only by the optional checks beyond the steady state (sizing/beyondSteady.ts, sizing/enclosureAir.ts), never by evaluateCandidate. */
+/** Codes raised only by the optional checks beyond the steady state (sizing/beyondSteady.ts, sizing/enclosureAir.ts) and the sheet's cross-section field (lib/sheet/crossSectionField.ts), never by evaluateCandidate. */
 export const BEYOND_STEADY_FLAG_CODES = [
   'OVERLOAD_LIMIT_REACHED',
   'DAILY_PEAK_OVER_LIMIT',
@@ -86,6 +86,7 @@ export const BEYOND_STEADY_FLAG_CODES = [
   'ENCLOSURE_AIR_ABOVE_AMBIENT',
   'ENCLOSURE_HOT_SPOT_OVER_LIMIT',
   'ENCLOSURE_AIR_RATED',
+  'CROSS_SECTION_FIELD_HOTTER',
 ] as const;
 
 export const FLAG_CODES = [...STEADY_FLAG_CODES, ...BEYOND_STEADY_FLAG_CODES] as const;
@@ -184,6 +185,7 @@ export const FLAG_REGISTRY: Readonly<Record<FlagCode, Readonly<FlagDefinition>>>
   ENCLOSURE_AIR_ABOVE_AMBIENT: { severity: 'review', title: 'Air inside the enclosure warmer than the sheet ambient', basis: 'physics.md §6 (enclosure air from the losses inside it)' },
   ENCLOSURE_HOT_SPOT_OVER_LIMIT: { severity: 'blocker', title: 'Hot spot above the limit in the enclosure air', basis: 'physics.md §6 (air and conductor solved together)' },
   ENCLOSURE_AIR_RATED: { severity: 'note', title: 'Rated in the air inside the enclosure', basis: 'physics.md §6 (air and conductor solved together)' },
+  CROSS_SECTION_FIELD_HOTTER: { severity: 'review', title: 'The two-dimensional field runs hotter than the IEC rating', basis: 'physics.md §9 (finite-volume cross-section beside the IEC 60287-2-1 superposition, issue 20)' },
 });
 
 export interface AssumptionFlag {

@@ -15,8 +15,8 @@ const issuePaths = (value: unknown) => {
 };
 
 describe('sheet inputs version 5: the rated cross-section', () => {
-  it('is version 5', () => {
-    expect(SHEET_SCHEMA_VERSION).toBe(6); // version 6 (issues 18, 21) reads version 5 as below
+  it('is version 5 or later (version 6 added the bus-bar system and protection, version 7 the two-dimensional cross-section option)', () => {
+    expect(SHEET_SCHEMA_VERSION).toBe(7); // later versions read version 5 as below
   });
 
   it('a stored version-4 sheet reads as version 5: its formation and spacing kept, nothing beside it, no ducts, no backfill', () => {

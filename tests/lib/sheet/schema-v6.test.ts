@@ -26,8 +26,8 @@ function barSheet(change: (inputs: SheetInputs) => void = () => {}): SheetInputs
 }
 
 describe('sheet inputs version 6', () => {
-  it('is version 6', () => {
-    expect(SHEET_SCHEMA_VERSION).toBe(6);
+  it('is version 6 or later (version 7 added the two-dimensional cross-section option)', () => {
+    expect(SHEET_SCHEMA_VERSION).toBe(7);
   });
 
   it('a stored version-5 bar sheet reads as version 6 with no system, no device and no harmonics described; all else as stored; the JSON untouched', () => {
@@ -38,7 +38,7 @@ describe('sheet inputs version 6', () => {
       expect(raw).not.toHaveProperty('busbarSystem');
       expect(raw).not.toHaveProperty('protection');
       const read = readSheetInputs(raw, 5);
-      expect(read.schemaVersion).toBe(6);
+      expect(read.schemaVersion).toBe(7);
       expect(read.busbarSystem).toEqual(systemDefaults().busbarSystem);
       expect(read.protection).toEqual(systemDefaults().protection);
       expect(read.protection.included).toBe(false);

@@ -8,7 +8,7 @@ describe('sheet inputs versions 3 and 4', () => {
     const { overTime: _o, alongRun: _a, enclosureAir: _e, ...rest } = current;
     const v2 = { ...rest, schemaVersion: 2, notes: 'kept' };
     const read = readSheetInputs(JSON.parse(JSON.stringify(v2)), 2);
-    expect(SHEET_SCHEMA_VERSION).toBe(6); // version 6 (issues 18, 21) reads version 5 as below
+    expect(SHEET_SCHEMA_VERSION).toBe(7); // version 6 (issues 18, 21) and 7 (issue 20) read older versions as below
     expect(read.schemaVersion).toBe(SHEET_SCHEMA_VERSION);
     expect(read.overTime.checked).toBe(false);
     expect(read.alongRun.checked).toBe(false);
