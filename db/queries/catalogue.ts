@@ -115,6 +115,8 @@ export async function listConductors(teamId: string, tx: Executor = getDb()): Pr
     dimensionSource: c.dimensionSource,
     yieldStrengthMpa: c.yieldStrengthMpa,
     yieldStrengthSource: c.yieldStrengthSource,
+    shortCircuitLimitC: c.shortCircuitLimitC,
+    shortCircuitLimitSource: c.shortCircuitLimitSource,
   }));
 }
 

@@ -95,6 +95,9 @@ export const catalogueConductors = pgTable(
     /** Bars: the 0.2 % proof strength R_p0.2 of the bar as supplied, N/mm² (IEC 60865-1 stress check); null = the library's default per metal (flagged). */
     yieldStrengthMpa: numeric('yield_strength_mpa'),
     yieldStrengthSource: text('yield_strength_source').notNull().default(''),
+    /** Bars: the highest temperature the bar and its supports may reach in a short circuit, °C; null = the library's default (flagged). */
+    shortCircuitLimitC: numeric('short_circuit_limit_c'),
+    shortCircuitLimitSource: text('short_circuit_limit_source').notNull().default(''),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },
@@ -106,6 +109,7 @@ export const catalogueConductors = pgTable(
       sql`(${t.shape} = 'round' and ${t.diameterMm} is not null) or (${t.shape} = 'rectangular' and ${t.widthMm} is not null and ${t.thicknessMm} is not null)`,
     ),
     check('catalogue_conductors_yield_strength', sql`${t.yieldStrengthMpa} is null or (${t.shape} = 'rectangular' and ${t.yieldStrengthMpa} > 0)`),
+    check('catalogue_conductors_short_circuit_limit', sql`${t.shortCircuitLimitC} is null or ${t.shape} = 'rectangular'`),
   ],
 );
 

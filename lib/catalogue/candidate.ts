@@ -120,6 +120,8 @@ export function barToCandidate(
   // R_p0.2 in N/mm² (= MPa) → Pa for the IEC 60865-1 check; absent, the library assumes its default per metal (flagged).
   const yieldStrengthPa = conductor.yieldStrengthMpa == null ? undefined : new Decimal(conductor.yieldStrengthMpa).times(1e6).toNumber();
   if (yieldStrengthPa !== undefined) sourceNotes.push(`${conductor.designation} R_p0.2: ${conductor.yieldStrengthSource}`);
+  const barShortCircuitLimitC = conductor.shortCircuitLimitC == null ? undefined : optionalNumber(conductor.shortCircuitLimitC);
+  if (barShortCircuitLimitC !== undefined) sourceNotes.push(`${conductor.designation} short-circuit limit: ${conductor.shortCircuitLimitSource}`);
   if (coating) {
     sourceNotes.push(
       `${coating.covering.name} thickness: ${coating.source}`,
@@ -142,6 +144,7 @@ export function barToCandidate(
     ...(options.barGapM !== undefined ? { barGapM: options.barGapM } : {}),
     ...(options.terminalLimitC !== undefined ? { terminalLimitC: options.terminalLimitC } : {}),
     ...(yieldStrengthPa !== undefined ? { yieldStrengthPa } : {}),
+    ...(barShortCircuitLimitC !== undefined ? { shortCircuitLimitC: barShortCircuitLimitC } : {}),
     ...(coating
       ? {
           coating: {

@@ -97,6 +97,24 @@ const CONDUCTOR_COLUMNS: ColumnSpec[] = [
     hint: 'Where the proof strength comes from (standard and temper, the maker’s certificate, or "from memory"); required when a proof strength is given.',
     hiddenByDefault: true,
   },
+  {
+    field: 'shortCircuitLimitC',
+    header: 'short_circuit_limit_c',
+    label: 'Short-circuit limit (bare bar)',
+    quantity: 'temperature',
+    type: 'decimal',
+    required: false,
+    hint: 'Bars: the highest temperature the bare bar and its supports may reach during a short circuit, °C. A coating’s own limit, when lower, governs. Empty: the library’s default is assumed and flagged.',
+  },
+  {
+    field: 'shortCircuitLimitSource',
+    header: 'short_circuit_limit_source',
+    label: 'Source of the short-circuit limit',
+    type: 'text',
+    required: false,
+    hint: 'Where the bar’s short-circuit limit comes from (standard and clause, the support maker’s data, or "from memory"); required when a limit is given.',
+    hiddenByDefault: true,
+  },
 ];
 
 const COVERING_COLUMNS: ColumnSpec[] = [

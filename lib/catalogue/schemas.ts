@@ -98,6 +98,9 @@ export const conductorRowSchema = z
     /** Bars: R_p0.2 in N/mm² (the IEC 60865-1 stress check); the library's range, scaled from Pa. */
     yieldStrengthMpa: optionalDecimalField(libraryBound(INPUT_BOUNDS.yieldStrengthPa, '1e-6')),
     yieldStrengthSource: optionalText(),
+    /** Bars: the short-circuit temperature of the bar and its supports, °C. */
+    shortCircuitLimitC: optionalDecimalField(libraryBound(INPUT_BOUNDS.shortCircuitLimitC)),
+    shortCircuitLimitSource: optionalText(),
   })
   .superRefine((row, ctx) => {
     if (row.shape === 'round') {
@@ -116,6 +119,12 @@ export const conductorRowSchema = z
     }
     if (row.yieldStrengthMpa !== null && row.yieldStrengthSource === '') {
       ctx.addIssue({ code: 'custom', path: ['yieldStrengthSource'], message: "is required with a proof strength: say where it comes from (standard and temper, maker's certificate, or 'from memory')" });
+    }
+    if (row.shortCircuitLimitC !== null && row.shape !== 'rectangular') {
+      ctx.addIssue({ code: 'custom', path: ['shortCircuitLimitC'], message: "applies to bare bars only; a cable's short-circuit limit belongs to its insulation (the covering)" });
+    }
+    if (row.shortCircuitLimitC !== null && row.shortCircuitLimitSource === '') {
+      ctx.addIssue({ code: 'custom', path: ['shortCircuitLimitSource'], message: "is required with a short-circuit limit: say where it comes from (standard and clause, the support maker's data, or 'from memory')" });
     }
   });
 

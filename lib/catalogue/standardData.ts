@@ -13,6 +13,7 @@
 import Decimal from 'decimal.js';
 import { awgToMm2, kcmilToMm2 } from '../units';
 import { DEFAULT_YIELD_STRENGTH_PA } from '../electrical/busbar/forces';
+import { BARE_BAR_SHORT_CIRCUIT_LIMIT_C, BARE_BAR_SHORT_CIRCUIT_LIMIT_SOURCE } from '../electrical/sizing/checks/shortCircuit';
 import type { BuildRow, ConductorRow, CoveringRow, MaterialRow } from './schemas';
 
 type Input<T> = { [K in keyof T]: T[K] extends string ? string : T[K] extends string | null ? string | null : T[K] };
@@ -143,6 +144,8 @@ function metricConductors(material: 'copper' | 'aluminium', table: typeof IEC_60
     dimensionSource: CLASS_2_DIAMETER_SOURCE,
     yieldStrengthMpa: null,
     yieldStrengthSource: '',
+    shortCircuitLimitC: null,
+    shortCircuitLimitSource: '',
   }));
 }
 
@@ -217,6 +220,8 @@ function northAmericanConductors(material: 'copper' | 'aluminium', smallestAwg: 
       dimensionSource: `NEC Chapter 9 Table 8, stranded overall diameter ${diameterIn} in (from memory)`,
       yieldStrengthMpa: null,
       yieldStrengthSource: '',
+      shortCircuitLimitC: null,
+      shortCircuitLimitSource: '',
     });
   }
   return rows;
@@ -257,6 +262,8 @@ function bars(material: 'copper' | 'aluminium'): Input<ConductorRow>[] {
     // commonly supplied in. Replace it with the temper on the maker's certificate.
     yieldStrengthMpa: new Decimal(DEFAULT_YIELD_STRENGTH_PA[material].valuePa).div(1e6).toFixed(),
     yieldStrengthSource: `${DEFAULT_YIELD_STRENGTH_PA[material].source}; the temper as supplied governs`,
+    shortCircuitLimitC: String(BARE_BAR_SHORT_CIRCUIT_LIMIT_C),
+    shortCircuitLimitSource: BARE_BAR_SHORT_CIRCUIT_LIMIT_SOURCE,
   }));
 }
 

@@ -5,6 +5,9 @@ import { MODEL_TEXT, SHORT_CIRCUIT_TEXT } from '../flagText';
 
 /** Short-circuit temperature of a bare copper or aluminium bar and its supports when none is given, °C (common practice, from memory). */
 export const BARE_BAR_SHORT_CIRCUIT_LIMIT_C = 200;
+/** Where that figure comes from, as the catalogue cites it beside the value. */
+export const BARE_BAR_SHORT_CIRCUIT_LIMIT_SOURCE =
+  'IEC 60865-1 recommended highest conductor temperature in a short circuit for bare copper and aluminium (from memory); the supports and joints may allow less: check their rating';
 import type { ShortCircuitCheck } from '../types';
 
 export function shortCircuitCheck(ctx: SizingContext, hotSpotC: number | null): ShortCircuitCheck {

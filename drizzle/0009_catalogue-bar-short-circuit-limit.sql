@@ -1,0 +1,3 @@
+ALTER TABLE "catalogue_conductors" ADD COLUMN "short_circuit_limit_c" numeric;--> statement-breakpoint
+ALTER TABLE "catalogue_conductors" ADD COLUMN "short_circuit_limit_source" text DEFAULT '' NOT NULL;--> statement-breakpoint
+ALTER TABLE "catalogue_conductors" ADD CONSTRAINT "catalogue_conductors_short_circuit_limit" CHECK ("catalogue_conductors"."short_circuit_limit_c" is null or "catalogue_conductors"."shape" = 'rectangular');
