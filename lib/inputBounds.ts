@@ -259,6 +259,7 @@ export const INPUT_BOUNDS = {
   kp: { label: 'kp', unit: '', min: 0, minExclusive: true, max: 1.5, basis: 'IEC 60287-1-1 Table 2 proximity-effect factor.' },
   barWidthM: { label: 'Bar width', unit: 'm', min: 1e-3, max: 1, basis: 'Of one bar.' },
   barThicknessM: { label: 'Bar thickness', unit: 'm', min: 5e-4, max: 0.2, basis: 'Of one bar (0.5 mm is a thin laminate).' },
+  minParallelSectionMm2: { label: 'Smallest section run in parallel', unit: 'mm²', min: 1.5, max: 1000, basis: 'Team setting for schedules: below it a circuit gets one larger cable rather than parallel runs (parallel small cables share current unevenly).' },
   barsPerPhase: { label: 'Bars per phase', unit: '', min: 1, max: 20, integer: true, basis: 'Bars in one pack.' },
   barGapM: { label: 'Gap between bars', unit: 'm', min: 0, max: 1, basis: 'Clear gap inside a pack.' },
   packGapM: { label: 'Gap between the bars of a pack', unit: 'm', min: 1e-3, max: 1, basis: 'A pack of two or more bars per phase needs a gap between them (spacers of 1 mm and more; without one the bars are one thicker bar).' },

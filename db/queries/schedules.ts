@@ -10,6 +10,7 @@ import { getDb, getPool, type Db, type Executor } from '../client';
 import * as schema from '../schema';
 import { projects, scheduleRows, schedules } from '../schema';
 import { recordAudit } from './audit';
+import { teamSizingOptions } from './teams';
 import { listBuilds, listConductors, listCoverings, listMaterials } from './catalogue';
 import { barToCandidate, buildLayers, cableBuildToCandidate } from '../../lib/catalogue';
 import type { Candidate } from '../../lib/electrical';
@@ -20,6 +21,7 @@ import {
   validateScheduleRecords,
   type CircuitSizing,
   type ConductorFamily,
+  type FamilyOptions,
   type ResultLine,
   type ScheduleProblem,
   type ScheduleRecord,
@@ -246,6 +248,7 @@ export async function queueSchedule(
 ) {
   if (!UUID.test(scheduleId)) throw notFound();
   const families = await loadTeamFamilies(teamId);
+  const sizingOptions = await teamSizingOptions(teamId);
   return withClientTransaction(async (db, client) => {
     const [schedule] = await db
       .select({ status: schedules.status, previewRows: schedules.previewRows, problems: schedules.problems, fileName: schedules.fileName })
@@ -280,7 +283,7 @@ export async function queueSchedule(
     const now = new Date();
     await db
       .update(schedules)
-      .set({ status: 'queued', families: used, rowCount: rows.length, droppedRows: badRows, previewRows: [], solverVersion: SOLVER_VERSION, queuedAt: now, updatedAt: now })
+      .set({ status: 'queued', families: used, sizingOptions, rowCount: rows.length, droppedRows: badRows, previewRows: [], solverVersion: SOLVER_VERSION, queuedAt: now, updatedAt: now })
       .where(eq(schedules.id, scheduleId));
     const jobs = await enqueue((text, values) => client.query(text, values as unknown[]), teamId, scheduleId, rows.map((r) => r.rowNumber));
     await recordAudit(db, { teamId, actorId, action: 'schedule.queue', entity: 'schedule', entityId: scheduleId, detail: { rows: rows.length, droppedRows: badRows, jobs } });
@@ -378,9 +381,17 @@ export async function getScheduleRow(teamId: string, scheduleId: string, rowNumb
 // ───────────────────────── worker side (no team from a session: the job carries it) ─────────────────────────
 
 export async function loadScheduleForWorker(scheduleId: string) {
-  const [row] = await getDb().select({ teamId: schedules.teamId, status: schedules.status, families: schedules.families }).from(schedules).where(eq(schedules.id, scheduleId));
+  const [row] = await getDb()
+    .select({ teamId: schedules.teamId, status: schedules.status, families: schedules.families, sizingOptions: schedules.sizingOptions })
+    .from(schedules)
+    .where(eq(schedules.id, scheduleId));
   if (!row) return null;
-  return { teamId: row.teamId, status: row.status, families: row.families as Record<string, { label: string; kind: 'cable' | 'bar'; candidates: Candidate[] }> };
+  return {
+    teamId: row.teamId,
+    status: row.status,
+    families: row.families as Record<string, { label: string; kind: 'cable' | 'bar'; candidates: Candidate[] }>,
+    sizingOptions: row.sizingOptions as FamilyOptions,
+  };
 }
 
 /** Rows of a batch that still need sizing (a retried batch skips what an earlier attempt stored). */

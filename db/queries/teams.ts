@@ -1,6 +1,8 @@
 import { and, asc, eq, sql } from 'drizzle-orm';
 import { getDb, type Executor } from '../client';
 import { teams, users } from '../schema';
+import { checkBound } from '../../lib/inputBounds';
+import type { FamilyOptions } from '../../lib/schedule';
 
 export async function findTeamBySlug(slug: string, tx: Executor = getDb()) {
   const [team] = await tx.select().from(teams).where(eq(teams.slug, slug));
@@ -23,4 +25,16 @@ export async function listMembers(teamId: string) {
     .from(users)
     .where(eq(users.teamId, teamId))
     .orderBy(asc(users.name));
+}
+
+/** The team's options for sizing schedules (null columns: the library's defaults). */
+export async function teamSizingOptions(teamId: string, tx: Executor = getDb()): Promise<FamilyOptions> {
+  const [team] = await tx.select({ minParallelSectionMm2: teams.minParallelSectionMm2 }).from(teams).where(eq(teams.id, teamId));
+  return team?.minParallelSectionMm2 == null ? {} : { minParallelSectionMm2: Number(team.minParallelSectionMm2) };
+}
+
+/** Sets (or, with null, clears back to the default) the team's smallest section for parallel runs. */
+export async function setTeamMinParallelSection(teamId: string, sectionMm2: number | null, tx: Executor = getDb()): Promise<void> {
+  if (sectionMm2 !== null) checkBound('minParallelSectionMm2', sectionMm2, 'minParallelSectionMm2');
+  await tx.update(teams).set({ minParallelSectionMm2: sectionMm2 === null ? null : String(sectionMm2) }).where(eq(teams.id, teamId));
 }

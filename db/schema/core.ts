@@ -4,6 +4,7 @@ import {
   index,
   integer,
   jsonb,
+  numeric,
   pgEnum,
   pgTable,
   text,
@@ -30,6 +31,8 @@ export const teams = pgTable('teams', {
   id: uuid('id').primaryKey().defaultRandom(),
   slug: text('slug').notNull().unique(),
   name: text('name').notNull(),
+  /** Schedules: the smallest cable section run in parallel, mm²; null = the library's default (common practice). */
+  minParallelSectionMm2: numeric('min_parallel_section_mm2'),
   createdAt: createdAt(),
 });
 

@@ -38,6 +38,8 @@ export const schedules = pgTable(
     fileRowCount: integer('file_row_count').notNull().default(0),
     /** Family key → { label, kind, candidates } frozen when queued. */
     families: jsonb('families').notNull().default({}),
+    /** The team's sizing options (lib/schedule FamilyOptions) frozen when queued, so a re-run sizes alike. */
+    sizingOptions: jsonb('sizing_options').notNull().default({}),
     /** Rows queued for sizing. */
     rowCount: integer('row_count').notNull().default(0),
     /** Bad rows the designer chose to leave out when queueing. */

@@ -54,7 +54,7 @@ export async function processScheduleBatch(job: ScheduleBatchJob, workerId: stri
   for (const row of rows) {
     const family = schedule.families[row.input.family];
     const t0 = performance.now();
-    const sizing = sizeCircuit(row.input, family?.candidates ?? []);
+    const sizing = sizeCircuit(row.input, family?.candidates ?? [], schedule.sizingOptions);
     const ms = performance.now() - t0;
     solverMs += ms;
     writes.push({ teamId: row.teamId, scheduleId: job.scheduleId, rowNumber: row.rowNumber, circuitTag: row.circuitTag, input: row.input, sizing, solverMs: ms, sizedBy: workerId });
