@@ -141,6 +141,8 @@ function main(): void {
 
   // ── 1 & 2: solves and time per ampacity ──
   const solves: number[] = [];
+  const rootEvaluations: number[] = [];
+  const byKind = new Map<string, { solves: number[]; rootEvaluations: number[]; ms: number[] }>();
   const times: number[] = [];
   const cpuTimes: number[] = [];
   // warm-up (JIT)
@@ -156,9 +158,26 @@ function main(): void {
     const c1 = process.cpuUsage(c0);
     cpuTimes.push((c1.user + c1.system) / 1000);
     solves.push(a.solves);
+    rootEvaluations.push(a.iterations);
+    // A buried group's evaluation solves each cable twice (its heat is affine in its ambient) and a
+    // pack's solves its bars together, so 1-D solves per ampacity differ by kind: print them apart.
+    const kind = isBar
+      ? (candidate.kind === 'bar' && (candidate.barsPerPhase ?? 1) > 1 ? 'bar pack' : 'single bar')
+      : conditions.installation.kind === 'buried' ? 'buried group' : 'cables in air';
+    const entry = byKind.get(kind) ?? { solves: [], rootEvaluations: [], ms: [] };
+    entry.solves.push(a.solves);
+    entry.rootEvaluations.push(a.iterations);
+    entry.ms.push(times[times.length - 1]);
+    byKind.set(kind, entry);
   }
   console.log('Ampacity (400 cases: cables in air/buried/sun/wind, bars on edge/flat)');
   console.log(`  solves per ampacity: median ${median(solves)}, 95th percentile ${percentile(solves, 0.95)}, max ${Math.max(...solves)} (target ≤ 30)`);
+  console.log(`  root-finder rootEvaluations per ampacity (each one current tried): median ${median(rootEvaluations)}, 95th percentile ${percentile(rootEvaluations, 0.95)}, max ${Math.max(...rootEvaluations)}`);
+  for (const [kind, e] of byKind) {
+    console.log(
+      `    ${kind.padEnd(14)} ${String(e.solves.length).padStart(3)} cases: evaluations median ${median(e.rootEvaluations)} / max ${Math.max(...e.rootEvaluations)}, 1-D solves median ${median(e.solves)} / max ${Math.max(...e.solves)}, ${median(e.ms).toFixed(2)} ms median wall`,
+    );
+  }
   console.log(`  time per ampacity:   median ${median(times).toFixed(2)} ms wall (${median(cpuTimes).toFixed(2)} ms CPU), 95th percentile ${percentile(times, 0.95).toFixed(2)} ms wall`);
 
   // ── 3: 1,000 circuits × 12 candidates ──
