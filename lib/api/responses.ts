@@ -164,6 +164,9 @@ const harmonicsSchema = z
     governing: z.enum(['phase', 'neutral']),
     sizingCurrentA: finite,
     basis: z.string(),
+    neutralHeatShare: finite.meta({ description: "The neutral's heat over one phase core's, (3·h₃)², carried in the heat balance (the evaluation's ampacity includes it)." }),
+    ratingThreeLoadedCoresA: finite.meta({ description: 'The rating with three loaded cores and no harmonics, A: what the Annex E factors apply to.' }),
+    annexEPasses: z.boolean().meta({ description: 'Annex E: the sizing current is at most the three-loaded-core rating.' }),
   })
   .meta({ id: 'HarmonicNeutralSizing' });
 

@@ -220,7 +220,7 @@ export function protectionVerdicts(e: CandidateEvaluationOk): ProtectionVerdicts
     coordination: verdict(p?.coordination?.verdict),
     disconnection: verdict(p?.disconnection?.verdict),
     protectiveConductor: verdict(p?.protectiveConductor?.installed?.verdict),
-    harmonics: h ? (h.sizingCurrentA <= e.ampacityA ? 'passes' : 'fails') : 'not checked',
+    harmonics: h ? (h.annexEPasses && e.designCurrentA <= e.ampacityA ? 'passes' : 'fails') : 'not checked',
   };
 }
 
@@ -272,10 +272,19 @@ export function protectionLines(e: CandidateEvaluationOk): ResultLine[] {
     lines.push(
       { label: 'Neutral current I_N = 3·h₃·I_B (IEC 60364-5-52 Annex E)', value: `${n(h.neutralCurrentA)} A at ${n(h.thirdHarmonicFraction * 100, 3)} % third harmonic` },
       {
-        label: `Sizing current on the ${h.governing} (factor ${n(h.reductionFactor, 3)}) against I_z`,
-        value: `${n(h.sizingCurrentA)} A ≤ ${n(e.ampacityA)} A; ${h.basis}`,
-        verdict: h.sizingCurrentA <= e.ampacityA ? 'passes' : 'fails',
+        label: `Annex E: sizing current on the ${h.governing} (factor ${n(h.reductionFactor, 3)}) against I_z with three loaded cores`,
+        value: `${n(h.sizingCurrentA)} A ≤ ${n(h.ratingThreeLoadedCoresA)} A; ${h.basis}`,
+        verdict: h.annexEPasses ? 'passes' : 'fails',
       },
+      ...(h.neutralHeatShare > 0
+        ? [
+            {
+              label: "Heat balance with the neutral's loss ((3·h₃)² of a phase core's)",
+              value: `I_B ${n(e.designCurrentA)} A ≤ I_z ${n(e.ampacityA)} A (with three loaded cores alone ${n(h.ratingThreeLoadedCoresA)} A)`,
+              verdict: e.designCurrentA <= e.ampacityA ? ('passes' as const) : ('fails' as const),
+            },
+          ]
+        : []),
     );
   }
   return lines;

@@ -137,7 +137,9 @@ export const PROTECTION_TEXT = {
   neutralGoverns: (neutralA: number, sizingA: number) =>
     `The third harmonics add up in the neutral: ${fmt(neutralA, 4)} A, more than the phase current, so the neutral governs the sizing (${fmt(sizingA, 4)} A with the Annex E factor).`,
   harmonicsOverRating: (sizingA: number, ratingA: number, basis: string) =>
-    `With the third harmonics the cable must carry ${fmt(sizingA, 4)} A (${basis}), above its rating of ${fmt(ratingA, 4)} A.`,
+    `With the third harmonics the cable must carry ${fmt(sizingA, 4)} A (${basis}), above its rating of ${fmt(ratingA, 4)} A with three loaded cores, which the Annex E factors apply to.`,
+  neutralHeat: (share: number, ratingA: number, ratingThreeA: number) =>
+    `The neutral's loss is in the heat balance: ${fmt(share, 3)} × a phase core's (I_N = 3·h₃·I_B), which lowers the rating from ${fmt(ratingThreeA, 4)} A with three loaded cores to ${fmt(ratingA, 4)} A. The Annex E check beside it uses the three-loaded-core rating.`,
   disconnectionNotChecked: () =>
     'The source impedance or the protective conductor was not given, so automatic disconnection (IEC 60364-4-41 §411) and the protective conductor (IEC 60364-5-54 §543.1) were not checked.',
 } as const;

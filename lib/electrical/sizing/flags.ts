@@ -69,6 +69,7 @@ const STEADY_FLAG_CODES = [
   'DISCONNECTION_NOT_CHECKED',
   'HARMONICS_NOT_COVERED',
   'HARMONICS_NEUTRAL_GOVERNS',
+  'HARMONICS_NEUTRAL_HEAT',
   'HARMONICS_OVER_RATING',
   ...BUSBAR_FLAG_CODES,
 ] as const;
@@ -165,6 +166,7 @@ export const FLAG_REGISTRY: Readonly<Record<FlagCode, Readonly<FlagDefinition>>>
   PROTECTIVE_CONDUCTOR_TOO_SMALL: { severity: 'blocker', title: 'Protective conductor too small', basis: 'IEC 60364-5-54 §543.1' },
   HARMONICS_NOT_COVERED: { severity: 'review', title: 'Third harmonics outside the method', basis: 'IEC 60364-5-52 Annex E (four- and five-core cables)' },
   HARMONICS_NEUTRAL_GOVERNS: { severity: 'note', title: 'The neutral governs under third harmonics', basis: 'IEC 60364-5-52 Annex E' },
+  HARMONICS_NEUTRAL_HEAT: { severity: 'note', title: "The neutral's heat under third harmonics is in the rating", basis: 'IEC 60364-5-52 Annex E currents; IEC 60287-1-1 losses' },
   HARMONICS_OVER_RATING: { severity: 'blocker', title: 'Rating exceeded with third harmonics', basis: 'IEC 60364-5-52 Annex E reduction factors (from memory)' },
   DISCONNECTION_NOT_CHECKED: { severity: 'review', title: 'Automatic disconnection not checked', basis: 'IEC 60364-4-41 §411 (needs the source impedance and the protective conductor)' },
   FILAMENT_MESH_COARSENED: { severity: 'review', title: 'Filament mesh of the bars coarsened', basis: 'filament method: the mesh limited to keep the solve within seconds' },

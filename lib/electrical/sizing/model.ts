@@ -213,7 +213,9 @@ function cableModel(c: PreparedCable, k: PreparedConditions, group?: CableGroup,
     const problem = cableProblem({
       conductorDiameterM: dEq,
       currentA: 0,
-      r20OhmPerM: c.r20 / n,
+      // The neutral's heat under third harmonics rides on the equivalent conductor (the
+      // multi-core heat path already puts it in the right core).
+      r20OhmPerM: (c.r20 * c.neutralHeatFactor) / n,
       alpha20PerK: c.alpha20,
       acFactor: 1,
       conductorConductivity: c.constants.thermalConductivityWPerMK,

@@ -164,8 +164,11 @@ function prepareCable(cand: CableCandidate, p: CommonPrep): PreparedCable {
     screen = cand.screen;
   }
   const loadedCores = cores === 1 ? 1 : Math.min(cores, conditions.phases === 3 ? 3 : 2);
+  // Third harmonics add up in the neutral of a four- or five-core cable (IEC 60364-5-52 Annex E):
+  // I_N = 3·h₃·I_B, so the neutral, the fourth core, gives off (3·h₃)² times a phase core's heat.
+  const neutralShare = neutralHeatShare(cores, conditions.phases, conditions.thirdHarmonicFraction);
   const equivalentDiameter = dc * Math.sqrt(loadedCores);
-  const multicore = cores > 1 ? multicoreHeatPath(cores, loadedCores, dc, layers) : undefined;
+  const multicore = cores > 1 ? multicoreHeatPath(cores, loadedCores, dc, layers, neutralShare) : undefined;
   if (multicore) layers.splice(0, layers.length, ...multicore.layers);
   const outerDiameterM = multicore ? multicore.thermal.outerDiameterM : equivalentDiameter + 2 * layers.reduce((s, l) => s + l.thicknessM, 0);
   if (conditions.buried && conditions.buried.depthM <= outerDiameterM / 2) {
@@ -210,6 +213,7 @@ function prepareCable(cand: CableCandidate, p: CommonPrep): PreparedCable {
     costs: cand.costs,
     cores,
     loadedCores,
+    neutralHeatFactor: (loadedCores + neutralShare) / loadedCores,
     conductorDiameterM: dc,
     outerDiameterM,
     ...(ks !== undefined ? { ks } : {}),
@@ -254,7 +258,17 @@ function cachedMulticoreThermal(args: Parameters<typeof multicoreCableThermal>[0
  * 'bedding' are the inner covering between the laid-up cores and the sheath; the rest are
  * concentric coverings over the whole cable.
  */
-function multicoreHeatPath(cores: number, loadedCores: number, dc: number, layers: PreparedLayer[]) {
+/**
+ * The neutral's heat relative to one phase core's under third harmonics (0 without): (3·h₃)² for
+ * the fourth core of a four- or five-core cable in a three-phase circuit, where Annex E puts the
+ * neutral; other cables carry no neutral inside (flagged by the harmonics check).
+ */
+export function neutralHeatShare(cores: number, phases: number, thirdHarmonicFraction: number): number {
+  if ((cores !== 4 && cores !== 5) || phases !== 3 || !(thirdHarmonicFraction > 0)) return 0;
+  return (3 * thirdHarmonicFraction) ** 2;
+}
+
+function multicoreHeatPath(cores: number, loadedCores: number, dc: number, layers: PreparedLayer[], neutralShare = 0) {
   const insulation = layers[0];
   let k = 1;
   while (k < layers.length && (layers[k].role === 'filler' || layers[k].role === 'bedding')) k++;
@@ -271,7 +285,7 @@ function multicoreHeatPath(cores: number, loadedCores: number, dc: number, layer
     insulationResistivityKmPerW: insulationRho,
     fillerResistivityKmPerW: fillerRho,
     innerCoveringThicknessM: innerThicknessM,
-    coreLossesWPerM: Array.from({ length: cores }, (_, i) => (i < loadedCores ? 1 : 0)),
+    coreLossesWPerM: Array.from({ length: cores }, (_, i) => (i < loadedCores ? 1 : i === loadedCores ? neutralShare : 0)),
     outerLayers: outer.map((l) => ({ name: l.name, thicknessM: l.thicknessM, thermalResistivityKmPerW: 1 / l.conductivityWPerMK })),
   });
   const effective = effectiveInternalLayer({

@@ -369,6 +369,20 @@ export interface ShortCircuitCheck {
   withstands?: boolean;
 }
 
+/**
+ * Third harmonics on a four- or five-core cable, two ways: the heat balance carries the neutral's
+ * loss (the evaluation's ampacity is the rating with it), and the standard's own check, Annex E —
+ * the sizing current over the rating with three loaded cores — stands beside it. Both must hold.
+ */
+export interface HarmonicCheckResult extends HarmonicSizingResult {
+  /** The neutral's heat over one phase core's, (3·h₃)², carried in the heat balance. */
+  neutralHeatShare: number;
+  /** The cable's rating with three loaded cores and no harmonics, A: what Annex E's factors apply to. */
+  ratingThreeLoadedCoresA: number;
+  /** Annex E: sizing current ≤ the three-loaded-core rating. */
+  annexEPasses: boolean;
+}
+
 export interface CandidateEvaluationOk {
   ok: true;
   index: number;
@@ -429,7 +443,7 @@ export interface CandidateEvaluationOk {
   /** Overload coordination, automatic disconnection and the protective conductor (when a device is given). */
   protection?: ProtectionResult;
   /** The neutral under third harmonics (IEC 60364-5-52 Annex E), when a content is given for a four- or five-core cable. */
-  harmonics?: HarmonicSizingResult;
+  harmonics?: HarmonicCheckResult;
   flags: AssumptionFlag[];
   solves: number;
   isSmallestPassing?: boolean;

@@ -185,6 +185,8 @@ const cases: Record<Exclude<FlagCode, BeyondSteadyFlagCode | Retired>, () => { c
   HARMONICS_NOT_COVERED: () => ({ candidate: xlpeCable(95), conditions: cableConditions({ thirdHarmonicPercent: 30 }) }),
   // A four-core cable with 40 % third harmonics: the neutral carries 3·0.4·I_B = 1.2·I_B (Annex E).
   HARMONICS_NEUTRAL_GOVERNS: () => ({ candidate: xlpeCable(95, { cores: 4 }), conditions: cableConditions({ designCurrentA: 100, thirdHarmonicPercent: 40 }) }),
+  // Any content on a four-core cable puts the neutral's (3·h₃)² share of a phase core's heat into the balance.
+  HARMONICS_NEUTRAL_HEAT: () => ({ candidate: xlpeCable(95, { cores: 4 }), conditions: cableConditions({ designCurrentA: 100, thirdHarmonicPercent: 20 }) }),
   HARMONICS_OVER_RATING: () => ({ candidate: xlpeCable(16, { cores: 4 }), conditions: cableConditions({ designCurrentA: 90, thirdHarmonicPercent: 50 }) }),
   SHEATH_LOSSES_NOT_INCLUDED: () => {
     const c = xlpeCable(95);

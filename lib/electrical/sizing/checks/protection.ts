@@ -24,7 +24,10 @@ import {
   type ProtectiveConductorResult,
   type SmallestRatingResult,
 } from '../../protection';
-import type { SizingContext } from '../context';
+import { sizingContext, type SizingContext } from '../context';
+import { FlagSet } from '../flags';
+import type { HarmonicCheckResult } from '../types';
+import { ampacityCheck } from './ampacity';
 import { PROTECTION_TEXT } from '../flagText';
 import type { ProtectionConditions } from '../types';
 
@@ -104,12 +107,15 @@ export function protectionCheck(ctx: SizingContext, ampacityA: number, conductor
 }
 
 /**
- * Check: third harmonics and the neutral of a four- or five-core cable, IEC 60364-5-52 Annex E:
- * the sizing current (the phase current, or the neutral's 3·h₃·I_B) over the Annex E reduction
- * factor must not exceed I_z. Other cables with a notable content are flagged: Annex E covers
- * multi-core cables with the neutral inside.
+ * Check: third harmonics and the neutral of a four- or five-core cable, IEC 60364-5-52 Annex E.
+ * The heat balance already carries the neutral's loss (prepareCandidate: its share (3·h₃)² in the
+ * multi-core heat path and on the equivalent conductor), so `ampacityA` is the rating with it. The
+ * standard's check stands beside it: the sizing current (the phase current, or the neutral's
+ * 3·h₃·I_B) over the Annex E factor must not exceed the rating with three loaded cores — the
+ * rating the factors were tabulated for, solved here again without harmonics. Other cables with a
+ * notable content are flagged: Annex E covers multi-core cables with the neutral inside.
  */
-export function harmonicsCheck(ctx: SizingContext, ampacityA: number): HarmonicSizingResult | null {
+export function harmonicsCheck(ctx: SizingContext, ampacityA: number): HarmonicCheckResult | null {
   const { cand, cond, flags } = ctx;
   const h = cond.thirdHarmonicFraction;
   if (!(h > 0)) return null;
@@ -118,7 +124,14 @@ export function harmonicsCheck(ctx: SizingContext, ampacityA: number): HarmonicS
     return null;
   }
   const r = harmonicNeutralSizing({ designCurrentA: cond.designCurrentA, thirdHarmonicFraction: h, cores: cand.cores });
+  const neutralHeatShare = (cand.neutralHeatFactor - 1) * cand.loadedCores;
+  const ratingThreeLoadedCoresA =
+    neutralHeatShare > 0 ? ampacityCheck(sizingContext(cand.source, { ...cond, thirdHarmonicFraction: 0 }, cand.index, new FlagSet())).current : ampacityA;
+  const annexEPasses = r.sizingCurrentA <= ratingThreeLoadedCoresA;
   if (r.governing === 'neutral') flags.add('HARMONICS_NEUTRAL_GOVERNS', PROTECTION_TEXT.neutralGoverns(r.neutralCurrentA, r.sizingCurrentA), { neutralCurrentA: r.neutralCurrentA });
-  if (r.sizingCurrentA > ampacityA) flags.add('HARMONICS_OVER_RATING', PROTECTION_TEXT.harmonicsOverRating(r.sizingCurrentA, ampacityA, r.basis), { sizingCurrentA: r.sizingCurrentA });
-  return r;
+  if (neutralHeatShare > 0) flags.add('HARMONICS_NEUTRAL_HEAT', PROTECTION_TEXT.neutralHeat(neutralHeatShare, ampacityA, ratingThreeLoadedCoresA), { neutralHeatShare });
+  if (!annexEPasses) {
+    flags.add('HARMONICS_OVER_RATING', PROTECTION_TEXT.harmonicsOverRating(r.sizingCurrentA, ratingThreeLoadedCoresA, r.basis), { sizingCurrentA: r.sizingCurrentA });
+  }
+  return { ...r, neutralHeatShare, ratingThreeLoadedCoresA, annexEPasses };
 }
