@@ -147,7 +147,7 @@ export function CatalogueTable({ kind, units, canEdit, search }: { kind: Catalog
     <div className="grid gap-2">
       <div className="flex flex-wrap items-center gap-3 text-caption text-ink-600">
         <span>
-          <span className="num" data-testid="catalogue-count">{countLabel(shown ?? rows.data.length, rows.data.length)}</span> · {canEdit ? 'double-click a cell to edit it; every change is checked and recorded' : 'read only: admins edit the catalogue'}
+          <span className="font-medium text-ink-800" data-testid="catalogue-count">{countLabel(shown ?? rows.data.length, rows.data.length)}</span> · {canEdit ? 'double-click a cell to edit it; every change is checked and recorded' : 'read only: admins edit the catalogue'}
           {' · '}values in {units === 'si' ? 'SI units' : 'US customary units'}
         </span>
         <details className="relative ml-auto">

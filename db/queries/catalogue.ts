@@ -18,7 +18,7 @@ import {
   type MaterialRow,
   type StoredRow,
 } from '@/lib/catalogue/schemas';
-import { columnByField } from '@/lib/catalogue/columns';
+import { CATALOGUE_COLUMNS, columnByField } from '@/lib/catalogue/columns';
 import { readCatalogueFile, validateRecords, type ImportProblem, type RawRecord } from '@/lib/catalogue/files';
 import { missingCitations, sameCatalogueValue } from '@/lib/catalogue/citations';
 import { getDb, type Executor } from '../client';
@@ -353,7 +353,9 @@ export async function updateCatalogueRow<K extends CatalogueKind>(
 export async function createCatalogueRow<K extends CatalogueKind>(teamId: string, actorId: string, kind: K, input: Record<string, unknown>): Promise<StoredRow<K>> {
   const unknownFields = Object.keys(input).filter((f) => !columnByField(kind, f));
   if (unknownFields.length) throw zodErrorOf(unknownFields.map((field) => ({ field, message: 'is not a column of this catalogue' })));
-  const row = ROW_SCHEMAS[kind].parse(input) as CatalogueRowByKind[K];
+  // Every column present, an omitted one empty: the shape an imported row has (recordToInput), so the same schema answers alike.
+  const whole = Object.fromEntries(CATALOGUE_COLUMNS[kind].map((c) => [c.field, input[c.field] ?? null]));
+  const row = ROW_SCHEMAS[kind].parse(whole) as CatalogueRowByKind[K];
   return getDb().transaction(async (tx) => {
     const maps = await keyMaps(tx, teamId);
     const issues = referenceIssues(kind, row, maps);

@@ -179,6 +179,9 @@ describe('adding an item (issue 23)', () => {
     expect(entry.actorId).toBe(adminId);
     const firstIssue = async (promise: Promise<unknown>) => ((await promise.catch((e: unknown) => e)) as ZodError).issues.map((i) => `${i.path.join('.')}: ${i.message}`);
     expect(await firstIssue(createCatalogueRow(teamId, adminId, 'coverings', asRow(good)))).toEqual(['key: "silicone-added" is already used by another row']);
+    // Optional columns left out of the body are empty, as an empty cell of a file is.
+    const sparse = await createCatalogueRow(teamId, adminId, 'coverings', { key: 'sparse-added', name: 'Sparse', role: 'sheath', thermalResistivityKmPerW: '5', resistivitySource: 'S', limitsSource: 'S', emissivitySource: 'S' });
+    expect([sparse.continuousLimitC, sparse.emissivity]).toEqual([null, null]);
     const conductor = { ...(await listConductors(teamId)).find((c) => c.key === 'cu-240')!, key: 'brass-240', materialKey: 'brass' } as Record<string, unknown>;
     delete conductor.id;
     delete conductor.updatedAt;
