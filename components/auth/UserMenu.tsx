@@ -1,5 +1,6 @@
 'use client';
 
+import Link from 'next/link';
 import { useState, useTransition } from 'react';
 import { SignOutButton } from './SignOutButton';
 
@@ -9,6 +10,8 @@ type UnitSystemChoice = 'si' | 'imperial';
  * Who is signed in, in which team and role; the units switch; sign out. The switch stores the
  * choice through `onUnitSystemChange`, the server action the workspace layout passes in
  * (server/auth/preferenceActions): components do not import server code (DEVELOPERS.md, layers).
+ * The admin links (members, API tokens) and the API guide live here, so that every page reaches
+ * them; the layout says which the user may open.
  */
 export function UserMenu({
   name,
@@ -16,12 +19,16 @@ export function UserMenu({
   role,
   unitSystem,
   onUnitSystemChange,
+  canManageMembers = false,
+  canManageTokens = false,
 }: {
   name: string;
   teamName: string;
   role: string;
   unitSystem: UnitSystemChoice;
   onUnitSystemChange: (unitSystem: UnitSystemChoice) => Promise<unknown>;
+  canManageMembers?: boolean;
+  canManageTokens?: boolean;
 }) {
   const [units, setUnits] = useState(unitSystem);
   const [pending, startTransition] = useTransition();
@@ -66,6 +73,30 @@ export function UserMenu({
               ))}
             </div>
           </fieldset>
+          <nav aria-label={canManageMembers || canManageTokens ? 'Administration' : 'Help'} className="mt-3 border-t border-ink-100 pt-2">
+            {canManageMembers || canManageTokens ? <p className="text-caption text-ink-500">Administration</p> : null}
+            <ul className="mt-1 grid gap-0.5">
+              {canManageMembers ? (
+                <li>
+                  <Link href="/admin/members" className="block rounded px-2 py-1 hover:bg-ink-50" onClick={() => setOpen(false)}>
+                    Members
+                  </Link>
+                </li>
+              ) : null}
+              {canManageTokens ? (
+                <li>
+                  <Link href="/admin/tokens" className="block rounded px-2 py-1 hover:bg-ink-50" onClick={() => setOpen(false)}>
+                    API tokens
+                  </Link>
+                </li>
+              ) : null}
+              <li>
+                <Link href="/api-docs" className="block rounded px-2 py-1 hover:bg-ink-50" onClick={() => setOpen(false)}>
+                  API guide
+                </Link>
+              </li>
+            </ul>
+          </nav>
           <SignOutButton className="btn-quiet mt-3 w-full justify-center" />
         </div>
       ) : null}

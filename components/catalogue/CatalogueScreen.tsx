@@ -7,6 +7,7 @@ import { KIND_LABELS } from '@/lib/catalogue/columns';
 import type { UnitSystem } from '@/lib/units';
 import { CatalogueTable } from './CatalogueTable';
 import { ImportPanel } from './ImportPanel';
+import { AddItemPanel } from './AddItemPanel';
 
 export interface CatalogueScreenProps {
   initialKind: CatalogueKind;
@@ -20,11 +21,15 @@ export function CatalogueScreen({ initialKind, canEdit, units, counts }: Catalog
   const [kind, setKind] = useState<CatalogueKind>(initialKind);
   const [search, setSearch] = useState('');
   const [importing, setImporting] = useState(false);
+  const [adding, setAdding] = useState(false);
+  const [added, setAdded] = useState<string | null>(null);
   const tabRefs = useRef<Record<string, HTMLButtonElement | null>>({});
 
   function select(next: CatalogueKind, focus = false) {
     setKind(next);
     setSearch('');
+    setAdding(false);
+    setAdded(null);
     router.replace(`/catalogue?part=${next}`, { scroll: false });
     if (focus) tabRefs.current[next]?.focus();
   }
@@ -85,12 +90,43 @@ export function CatalogueScreen({ initialKind, canEdit, units, counts }: Catalog
               Export Excel
             </a>
             {canEdit ? (
-              <button type="button" className="btn-primary" aria-expanded={importing} onClick={() => setImporting((v) => !v)}>
-                Import a file
-              </button>
+              <>
+                <button
+                  type="button"
+                  className="btn-primary"
+                  aria-expanded={adding}
+                  onClick={() => {
+                    setAdded(null);
+                    setAdding((v) => !v);
+                  }}
+                >
+                  Add a {label.singular}
+                </button>
+                <button type="button" className="btn-primary" aria-expanded={importing} onClick={() => setImporting((v) => !v)}>
+                  Import a file
+                </button>
+              </>
             ) : null}
           </div>
         </div>
+        {added ? (
+          <p role="status" className="rounded-md bg-within-light px-3 py-1.5 text-body text-within-dark">
+            ✓ Added {added}.
+          </p>
+        ) : null}
+        {canEdit && adding ? (
+          <AddItemPanel
+            key={kind}
+            kind={kind}
+            units={units}
+            onClose={() => setAdding(false)}
+            onAdded={(key) => {
+              setAdding(false);
+              setAdded(key);
+              setSearch(key);
+            }}
+          />
+        ) : null}
         {canEdit && importing ? <ImportPanel key={kind} kind={kind} onClose={() => setImporting(false)} /> : null}
         <CatalogueTable key={`${kind}-${units}`} kind={kind} units={units} canEdit={canEdit} search={search} />
       </div>

@@ -1,33 +1,28 @@
 'use client';
 /** One catalogue part in the grid: search, filters, column chooser, and in-place edits for admins. */
-import { useMemo, useRef, useState } from 'react';
+import { useCallback, useMemo, useRef, useState } from 'react';
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { AgGridReact } from 'ag-grid-react';
-import type { CellEditRequestEvent } from 'ag-grid-community';
+import type { CellEditRequestEvent, ColDef, ICellRendererParams, ModelUpdatedEvent } from 'ag-grid-community';
 import { DataGrid } from '@/components/grid/DataGrid';
 import { CATALOGUE_COLUMNS, KIND_LABELS, columnByField } from '@/lib/catalogue/columns';
 import { ROW_SCHEMAS, type CatalogueKind, type StoredRow } from '@/lib/catalogue/schemas';
+import { citingField } from '@/lib/catalogue/citations';
 import type { UnitSystem } from '@/lib/units';
 import { ApiFailure, catalogueQueryKey, fetchCatalogue, patchCatalogueRow } from './api';
 import { columnDefsFor, headerOf, toStoredValue, type GridRow } from './columnDefs';
 import { EmptyCatalogue } from './EmptyCatalogue';
+import { useReferenceOptions } from './referenceOptions';
+import { SourcePrompt, type PendingEdit } from './SourcePrompt';
+import { ItemHistory } from './ItemHistory';
+
+/** "128 items", or "2 of 128 items" when the search or a column filter hides some. */
+export function countLabel(shown: number, total: number): string {
+  const noun = (n: number) => (n === 1 ? 'item' : 'items');
+  return shown === total ? `${total} ${noun(total)}` : `${shown} of ${total} ${noun(total)}`;
+}
 
 type Notice = { tone: 'saved' | 'refused'; text: string } | null;
-
-function useReferenceOptions(kind: CatalogueKind, enabled: boolean): Partial<Record<CatalogueKind, string[]>> {
-  const needs = kind === 'conductors' ? ['materials'] : kind === 'builds' ? ['conductors', 'coverings'] : [];
-  const materials = useQuery({ queryKey: catalogueQueryKey('materials'), queryFn: () => fetchCatalogue('materials'), enabled: enabled && needs.includes('materials') });
-  const conductors = useQuery({ queryKey: catalogueQueryKey('conductors'), queryFn: () => fetchCatalogue('conductors'), enabled: enabled && needs.includes('conductors') });
-  const coverings = useQuery({ queryKey: catalogueQueryKey('coverings'), queryFn: () => fetchCatalogue('coverings'), enabled: enabled && needs.includes('coverings') });
-  return useMemo(
-    () => ({
-      materials: materials.data?.map((m) => m.key),
-      conductors: conductors.data?.filter((c) => c.shape === 'round').map((c) => c.key),
-      coverings: coverings.data?.map((c) => c.key),
-    }),
-    [materials.data, conductors.data, coverings.data],
-  );
-}
 
 export function CatalogueTable({ kind, units, canEdit, search }: { kind: CatalogueKind; units: UnitSystem; canEdit: boolean; search: string }) {
   const queryClient = useQueryClient();
@@ -36,10 +31,40 @@ export function CatalogueTable({ kind, units, canEdit, search }: { kind: Catalog
   const [hidden, setHidden] = useState<Set<string>>(() => new Set(CATALOGUE_COLUMNS[kind].filter((c) => c.hiddenByDefault).map((c) => c.field)));
   const rows = useQuery({ queryKey: catalogueQueryKey(kind), queryFn: () => fetchCatalogue(kind) });
   const referenceOptions = useReferenceOptions(kind, canEdit);
-  const columnDefs = useMemo(() => columnDefsFor(kind, units, canEdit, referenceOptions), [kind, units, canEdit, referenceOptions]);
+  const [shown, setShown] = useState<number | null>(null);
+  const [pending, setPending] = useState<PendingEdit | null>(null);
+  const [historyOf, setHistoryOf] = useState<{ id: string; key: string } | null>(null);
+  const columnDefs = useMemo((): ColDef<GridRow>[] => {
+    const history: ColDef<GridRow> = {
+      colId: 'history',
+      headerName: 'History',
+      pinned: 'right',
+      width: 100,
+      minWidth: 90,
+      sortable: false,
+      filter: false,
+      floatingFilter: false,
+      editable: false,
+      suppressHeaderMenuButton: true,
+      cellRenderer: (p: ICellRendererParams<GridRow>) =>
+        p.data ? (
+          <button
+            type="button"
+            className="text-caption text-copper-700 underline"
+            aria-label={`History of ${String(p.data.key)}`}
+            onClick={() => setHistoryOf({ id: p.data!.id, key: String(p.data!.key) })}
+          >
+            History
+          </button>
+        ) : null,
+    };
+    return [...columnDefsFor(kind, units, canEdit, referenceOptions), history];
+  }, [kind, units, canEdit, referenceOptions]);
+  const onModelUpdated = useCallback((event: ModelUpdatedEvent<GridRow>) => setShown(event.api.getDisplayedRowCount()), []);
 
   const save = useMutation({
-    mutationFn: (edit: { id: string; key: string; field: string; value: unknown }) => patchCatalogueRow(kind, edit.id, { [edit.field]: edit.value }),
+    mutationFn: (edit: { id: string; key: string; field: string; value: unknown; changes?: Record<string, unknown> }) =>
+      patchCatalogueRow(kind, edit.id, edit.changes ?? { [edit.field]: edit.value }),
     onSuccess: (row, edit) => {
       queryClient.setQueryData<StoredRow<CatalogueKind>[]>(catalogueQueryKey(kind), (old) => old?.map((r) => (r.id === row.id ? row : r)));
       // Keys and names show up in the other parts (a conductor's metal, a build's conductor).
@@ -71,7 +96,27 @@ export function CatalogueTable({ kind, units, canEdit, search }: { kind: Catalog
       setNotice({ tone: 'refused', text: `Not saved (${key} · ${issueColumn ? headerOf(issueColumn, units) : column.label}): ${issue.message}` });
       return;
     }
+    // A changed value names where the new value comes from before it is sent (the server refuses it otherwise).
+    const sourceField = citingField(kind, column.field);
+    if (sourceField) {
+      setNotice(null);
+      setPending({ id: event.data.id, key, field: column.field, value, sourceField, currentSource: String(event.data[sourceField] ?? ''), row: stored });
+      return;
+    }
     save.mutate({ id: event.data.id, key, field: column.field, value });
+  }
+
+  function confirmSource(edit: PendingEdit, source: string) {
+    const changes = { [edit.field]: edit.value, [edit.sourceField]: source };
+    const check = ROW_SCHEMAS[kind].safeParse({ ...edit.row, ...changes });
+    if (!check.success) {
+      const issue = check.error.issues[0];
+      const issueColumn = columnByField(kind, String(issue.path[0] ?? edit.field));
+      return `${issueColumn ? headerOf(issueColumn, units) : edit.field} ${issue.message}`;
+    }
+    setPending(null);
+    save.mutate({ id: edit.id, key: edit.key, field: edit.field, value: edit.value, changes });
+    return null;
   }
 
   function toggleColumn(field: string, visible: boolean) {
@@ -102,7 +147,7 @@ export function CatalogueTable({ kind, units, canEdit, search }: { kind: Catalog
     <div className="grid gap-2">
       <div className="flex flex-wrap items-center gap-3 text-caption text-ink-600">
         <span>
-          <span className="num">{rows.data.length}</span> rows · {canEdit ? 'double-click a cell to edit it; every change is checked and recorded' : 'read only: admins edit the catalogue'}
+          <span className="font-medium text-ink-800" data-testid="catalogue-count">{countLabel(shown ?? rows.data.length, rows.data.length)}</span> · {canEdit ? 'double-click a cell to edit it; every change is checked and recorded' : 'read only: admins edit the catalogue'}
           {' · '}values in {units === 'si' ? 'SI units' : 'US customary units'}
         </span>
         <details className="relative ml-auto">
@@ -126,6 +171,19 @@ export function CatalogueTable({ kind, units, canEdit, search }: { kind: Catalog
           </p>
         ) : null}
       </div>
+      {pending ? (
+        <SourcePrompt
+          key={`${pending.id}-${pending.field}`}
+          kind={kind}
+          units={units}
+          edit={pending}
+          onConfirm={(source) => confirmSource(pending, source)}
+          onCancel={() => {
+            setPending(null);
+            setNotice({ tone: 'refused', text: `Not saved (${pending.key}): a changed value needs its source.` });
+          }}
+        />
+      ) : null}
       <DataGrid<GridRow>
         ref={gridRef}
         label={`${KIND_LABELS[kind].tab} of the catalogue`}
@@ -137,7 +195,9 @@ export function CatalogueTable({ kind, units, canEdit, search }: { kind: Catalog
         onCellEditRequest={onCellEditRequest}
         singleClickEdit={false}
         stopEditingWhenCellsLoseFocus
+        onModelUpdated={onModelUpdated}
       />
+      {historyOf ? <ItemHistory key={historyOf.id} kind={kind} units={units} item={historyOf} onClose={() => setHistoryOf(null)} /> : null}
     </div>
   );
 }

@@ -71,3 +71,30 @@ export async function addStandardRows(): Promise<Record<CatalogueKind, number>> 
   if (!response.ok) throw await failureOf(response);
   return ((await response.json()) as { added: Record<CatalogueKind, number> }).added;
 }
+
+/** Adds one item: the whole row in SI; the server checks it with the same row schema as an imported row. */
+export async function createCatalogueItem<K extends CatalogueKind>(kind: K, row: Record<string, unknown>): Promise<StoredRow<K>> {
+  const response = await fetch(`/api/catalogue/${kind}`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json' },
+    body: JSON.stringify({ row }),
+  });
+  if (!response.ok) throw await failureOf(response);
+  return ((await response.json()) as { row: StoredRow<K> }).row;
+}
+
+export interface CatalogueHistoryAnswer {
+  at: string;
+  action: 'created' | 'edited' | 'imported' | 'deleted' | 'other';
+  actorName: string | null;
+  fileName?: string;
+  changes: Record<string, { from: unknown; to: unknown }>;
+}
+
+export const historyQueryKey = (kind: CatalogueKind, id: string) => ['catalogue', kind, 'history', id] as const;
+
+export async function fetchItemHistory(kind: CatalogueKind, id: string): Promise<CatalogueHistoryAnswer[]> {
+  const response = await fetch(`/api/catalogue/${kind}/${id}/history`, { cache: 'no-store' });
+  if (!response.ok) throw await failureOf(response);
+  return ((await response.json()) as { entries: CatalogueHistoryAnswer[] }).entries;
+}

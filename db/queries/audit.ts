@@ -1,6 +1,6 @@
 import { and, asc, eq } from 'drizzle-orm';
 import { getDb, type Executor } from '../client';
-import { auditLog } from '../schema';
+import { auditLog, users } from '../schema';
 
 export interface AuditEntry {
   teamId: string | null;
@@ -23,10 +23,12 @@ export async function recordAudit(tx: Executor, entry: AuditEntry): Promise<void
   });
 }
 
+/** The entries about one entity of a team, oldest first, with the name of who acted (null once removed). */
 export async function listAuditFor(teamId: string, entity: string, entityId: string) {
   return getDb()
-    .select()
+    .select({ id: auditLog.id, action: auditLog.action, actorId: auditLog.actorId, actorName: users.name, detail: auditLog.detail, at: auditLog.at })
     .from(auditLog)
+    .leftJoin(users, eq(users.id, auditLog.actorId))
     .where(and(eq(auditLog.teamId, teamId), eq(auditLog.entity, entity), eq(auditLog.entityId, entityId)))
     .orderBy(asc(auditLog.at));
 }

@@ -18,8 +18,9 @@ import {
   type MaterialRow,
   type StoredRow,
 } from '@/lib/catalogue/schemas';
-import { columnByField } from '@/lib/catalogue/columns';
+import { CATALOGUE_COLUMNS, columnByField } from '@/lib/catalogue/columns';
 import { readCatalogueFile, validateRecords, type ImportProblem, type RawRecord } from '@/lib/catalogue/files';
+import { missingCitations, sameCatalogueValue } from '@/lib/catalogue/citations';
 import { getDb, type Executor } from '../client';
 import {
   catalogueCableBuildLayers,
@@ -29,7 +30,7 @@ import {
   catalogueImports,
   catalogueMaterials,
 } from '../schema';
-import { recordAudit } from './audit';
+import { listAuditFor, recordAudit } from './audit';
 
 export class CatalogueNotFoundError extends Error {}
 /** A row still used elsewhere, a key taken twice, an import already committed. */
@@ -268,6 +269,7 @@ async function upsertRows(tx: Executor, teamId: string, kind: CatalogueKind, row
   const table = TABLES[kind];
   let inserted = 0;
   let updated = 0;
+  const written: Array<{ id: string; key: string; isNew: boolean }> = [];
   for (const row of rows) {
     const values = valuesFor(kind, teamId, row, maps);
     const { teamId: _team, key: _key, ...changes } = values as Record<string, unknown>;
@@ -278,9 +280,19 @@ async function upsertRows(tx: Executor, teamId: string, kind: CatalogueKind, row
       .returning({ id: table.id, isNew: sql<boolean>`(xmax = 0)` });
     if (result.isNew) inserted++;
     else updated++;
+    written.push({ id: result.id, key: (row as { key: string }).key, isNew: result.isNew });
     if (kind === 'builds') await replaceLayers(tx, teamId, result.id, row as BuildRow, maps);
   }
-  return { inserted, updated };
+  return { inserted, updated, written };
+}
+
+/** Field → { from, to } for the fields whose value differs (decimals compared by value). */
+function diffOf(before: Record<string, unknown>, after: Record<string, unknown>): Record<string, { from: unknown; to: unknown }> {
+  const diff: Record<string, { from: unknown; to: unknown }> = {};
+  for (const [field, value] of Object.entries(after)) {
+    if (!sameCatalogueValue(before[field], value)) diff[field] = { from: before[field] ?? null, to: value };
+  }
+  return diff;
 }
 
 function withoutStamp<K extends CatalogueKind>(row: StoredRow<K>): Record<string, unknown> {
@@ -306,6 +318,16 @@ export async function updateCatalogueRow<K extends CatalogueKind>(
     if (!stored) throw new CatalogueNotFoundError('No such catalogue row.');
     const before = withoutStamp(stored);
     const row = ROW_SCHEMAS[kind].parse({ ...before, ...changes }) as CatalogueRowByKind[K];
+    // A changed value names its source in the same edit (lib/catalogue/citations.ts).
+    const uncited = missingCitations(kind, before, changes);
+    if (uncited.length) {
+      throw zodErrorOf(
+        uncited.map(({ field, sourceField }) => ({
+          field: sourceField,
+          message: `is required when ${columnByField(kind, field)?.label ?? field} changes: say where the new value comes from (standard and table, datasheet, handbook, or 'from memory')`,
+        })),
+      );
+    }
     const maps = await keyMaps(tx, teamId);
     const issues = referenceIssues(kind, row, maps);
     if (issues.length) throw zodErrorOf(issues);
@@ -318,13 +340,73 @@ export async function updateCatalogueRow<K extends CatalogueKind>(
       throw error;
     }
     if (kind === 'builds') await replaceLayers(tx, teamId, id, row as BuildRow, maps);
-    const diff: Record<string, { from: unknown; to: unknown }> = {};
-    for (const [field, value] of Object.entries(row as Record<string, unknown>)) {
-      if (before[field] !== value) diff[field] = { from: before[field] ?? null, to: value };
-    }
+    const diff = diffOf(before, row as Record<string, unknown>);
     await recordAudit(tx, { teamId, actorId, action: 'catalogue.row.update', entity: AUDIT_ENTITY[kind], entityId: id, detail: { key: (row as { key: string }).key, changes: diff } });
     const updated = await getCatalogueRow(teamId, kind, id, tx);
     return updated!;
+  });
+}
+
+/**
+ * A new row from the add-an-item form: validated by the same row schema an import applies
+ * (ROW_SCHEMAS, also behind validateRecords), references resolved, a taken key refused; written
+ * and audited in one transaction.
+ */
+export async function createCatalogueRow<K extends CatalogueKind>(teamId: string, actorId: string, kind: K, input: Record<string, unknown>): Promise<StoredRow<K>> {
+  const unknownFields = Object.keys(input).filter((f) => !columnByField(kind, f));
+  if (unknownFields.length) throw zodErrorOf(unknownFields.map((field) => ({ field, message: 'is not a column of this catalogue' })));
+  // Every column present, an omitted one empty: the shape an imported row has (recordToInput), so the same schema answers alike.
+  const whole = Object.fromEntries(CATALOGUE_COLUMNS[kind].map((c) => [c.field, input[c.field] ?? null]));
+  const row = ROW_SCHEMAS[kind].parse(whole) as CatalogueRowByKind[K];
+  return getDb().transaction(async (tx) => {
+    const maps = await keyMaps(tx, teamId);
+    const issues = referenceIssues(kind, row, maps);
+    if (issues.length) throw zodErrorOf(issues);
+    const table = TABLES[kind];
+    const key = (row as { key: string }).key;
+    let id: string;
+    try {
+      const [created] = await tx.insert(table).values(valuesFor(kind, teamId, row, maps) as never).returning({ id: table.id });
+      id = created.id;
+    } catch (error) {
+      if (pgCode(error) === '23505') throw zodErrorOf([{ field: 'key', message: `"${key}" is already used by another row` }]);
+      throw error;
+    }
+    if (kind === 'builds') await replaceLayers(tx, teamId, id, row as BuildRow, maps);
+    await recordAudit(tx, { teamId, actorId, action: 'catalogue.row.create', entity: AUDIT_ENTITY[kind], entityId: id, detail: { key, changes: diffOf({}, row as Record<string, unknown>) } });
+    return (await getCatalogueRow(teamId, kind, id, tx))!;
+  });
+}
+
+export interface CatalogueHistoryEntry {
+  at: string;
+  action: 'created' | 'edited' | 'imported' | 'deleted' | 'other';
+  actorName: string | null;
+  /** The file an import came from. */
+  fileName?: string;
+  changes: Record<string, { from: unknown; to: unknown }>;
+}
+
+const HISTORY_ACTIONS: Record<string, CatalogueHistoryEntry['action']> = {
+  'catalogue.row.create': 'created',
+  'catalogue.row.update': 'edited',
+  'catalogue.row.import': 'imported',
+  'catalogue.row.delete': 'deleted',
+};
+
+/** One row's history from the audit log, oldest first; null when the team has no such row. */
+export async function catalogueRowHistory(teamId: string, kind: CatalogueKind, id: string): Promise<CatalogueHistoryEntry[] | null> {
+  if (!(await getCatalogueRow(teamId, kind, id))) return null;
+  const entries = await listAuditFor(teamId, AUDIT_ENTITY[kind], id);
+  return entries.map((e) => {
+    const detail = (e.detail ?? {}) as { changes?: CatalogueHistoryEntry['changes']; fileName?: string };
+    return {
+      at: e.at.toISOString(),
+      action: HISTORY_ACTIONS[e.action] ?? 'other',
+      actorName: e.actorName,
+      ...(detail.fileName ? { fileName: detail.fileName } : {}),
+      changes: detail.changes ?? {},
+    };
   });
 }
 
@@ -451,7 +533,21 @@ export async function commitImport(teamId: string, actorId: string, importId: st
     const bytes = new Uint8Array(record.content);
     const { rows, problems, maps } = await checkImport(tx, teamId, record.kind, { fileName: record.fileName, bytes }, read);
     if (problems.length) throw new ImportProblemsError(problems);
-    const { inserted, updated } = await upsertRows(tx, teamId, record.kind, rows.map((r) => r.value), maps);
+    const previous = new Map((await listCatalogue(teamId, record.kind, tx)).map((r) => [r.key, withoutStamp(r)]));
+    const { inserted, updated, written } = await upsertRows(tx, teamId, record.kind, rows.map((r) => r.value), maps);
+    // Each row's own history shows what the file changed in it (the import entry below covers the file).
+    for (const [i, w] of written.entries()) {
+      const changes = diffOf(w.isNew ? {} : previous.get(w.key) ?? {}, rows[i].value as Record<string, unknown>);
+      if (!w.isNew && Object.keys(changes).length === 0) continue;
+      await recordAudit(tx, {
+        teamId,
+        actorId,
+        action: 'catalogue.row.import',
+        entity: AUDIT_ENTITY[record.kind],
+        entityId: w.id,
+        detail: { key: w.key, importId: record.id, fileName: record.fileName, changes },
+      });
+    }
     await tx.update(catalogueImports).set({ status: 'committed', committedAt: new Date() }).where(eq(catalogueImports.id, record.id));
     await recordAudit(tx, {
       teamId,

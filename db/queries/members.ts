@@ -135,3 +135,24 @@ export async function teamMailAddresses(teamId: string, tx: Executor = getDb()):
   return new Set(rows.rows.map((r) => r.address));
 }
 
+
+/**
+ * Whether the team invited the same address again after this invitation: a revoked invitation
+ * with a newer one was replaced (inviteMember revokes the open one when it sends the next), not
+ * withdrawn, and its link should say so.
+ */
+export async function newerInvitationExists(teamId: string, email: string, invitation: { id: string; createdAt: Date }, tx: Executor = getDb()): Promise<boolean> {
+  const [row] = await tx
+    .select({ id: invitations.id })
+    .from(invitations)
+    .where(
+      and(
+        eq(invitations.teamId, teamId),
+        eq(sql`lower(${invitations.email})`, email.toLowerCase()),
+        sql`${invitations.id} <> ${invitation.id}`,
+        sql`${invitations.createdAt} >= ${invitation.createdAt}`,
+      ),
+    )
+    .limit(1);
+  return row !== undefined;
+}

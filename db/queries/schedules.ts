@@ -17,6 +17,7 @@ import type { Candidate } from '../../lib/electrical';
 import {
   groupIntoFamilies,
   readScheduleFile,
+  ScheduleFileRefusal,
   resultLine,
   validateScheduleRecords,
   type CircuitSizing,
@@ -109,6 +110,8 @@ export interface ScheduleSummary {
   /** Clean rows of the previewed file. */
   cleanRowCount: number;
   problems: ScheduleProblem[];
+  /** The last upload the server refused, while no file has been read since. */
+  uploadRefusal: { fileName: string; message: string; at: string } | null;
   rowCount: number;
   droppedRows: number[];
   solverVersion: string | null;
@@ -131,6 +134,7 @@ export async function getSchedule(teamId: string, scheduleId: string, tx: Execut
       fileRowCount: schedules.fileRowCount,
       cleanRowCount: sql<number>`jsonb_array_length(${schedules.previewRows})`,
       problems: schedules.problems,
+      uploadRefusal: schedules.uploadRefusal,
       rowCount: schedules.rowCount,
       droppedRows: schedules.droppedRows,
       solverVersion: schedules.solverVersion,
@@ -142,7 +146,7 @@ export async function getSchedule(teamId: string, scheduleId: string, tx: Execut
     .innerJoin(projects, eq(projects.id, schedules.projectId))
     .where(and(eq(schedules.teamId, teamId), eq(schedules.id, scheduleId)));
   if (!row) return null;
-  return { ...row, problems: row.problems as ScheduleProblem[], droppedRows: row.droppedRows as number[] };
+  return { ...row, problems: row.problems as ScheduleProblem[], uploadRefusal: row.uploadRefusal ?? null, droppedRows: row.droppedRows as number[] };
 }
 
 export async function listSchedulesForProject(teamId: string, projectId: string) {
@@ -154,6 +158,10 @@ export async function listSchedulesForProject(teamId: string, projectId: string)
       status: schedules.status,
       rowCount: schedules.rowCount,
       fileName: schedules.fileName,
+      fileRowCount: schedules.fileRowCount,
+      cleanRowCount: sql<number>`jsonb_array_length(${schedules.previewRows})`,
+      problemCount: sql<number>`jsonb_array_length(${schedules.problems})`,
+      uploadRefusal: schedules.uploadRefusal,
       createdAt: schedules.createdAt,
       sized: sql<number>`(select count(*)::int from ${scheduleRows} r where r.schedule_id = "schedules"."id" and r.status <> 'pending')`,
     })
@@ -188,6 +196,7 @@ export async function storeSchedulePreview(teamId: string, actorId: string, sche
         previewRows: input.rows,
         problems: input.problems,
         fileRowCount: input.fileRowCount,
+        uploadRefusal: null,
         updatedAt: new Date(),
       })
       .where(eq(schedules.id, scheduleId));
@@ -198,6 +207,41 @@ export async function storeSchedulePreview(teamId: string, actorId: string, sche
       entity: 'schedule',
       entityId: scheduleId,
       detail: { fileName: input.fileName, sizeBytes: input.bytes.byteLength, rows: input.fileRowCount, clean: input.rows.length, problems: input.problems.length },
+    });
+  });
+}
+
+/**
+ * A refused upload of a draft schedule: the file before it and its preview are cleared (the page
+ * and the project list must not go on offering the old file as if it were the one just sent) and
+ * the refusal is kept for both to show. Audited; a queued schedule is left as it is.
+ */
+export async function recordRefusedUpload(teamId: string, actorId: string, scheduleId: string, refusal: { fileName: string; message: string }) {
+  if (!UUID.test(scheduleId)) return;
+  await getDb().transaction(async (tx) => {
+    const [current] = await tx.select({ status: schedules.status, fileName: schedules.fileName }).from(schedules).where(and(eq(schedules.teamId, teamId), eq(schedules.id, scheduleId))).for('update');
+    if (!current || current.status !== 'draft') return;
+    await tx
+      .update(schedules)
+      .set({
+        fileName: null,
+        mediaType: null,
+        sizeBytes: null,
+        content: null,
+        previewRows: [],
+        problems: [],
+        fileRowCount: 0,
+        uploadRefusal: { ...refusal, at: new Date().toISOString() },
+        updatedAt: new Date(),
+      })
+      .where(eq(schedules.id, scheduleId));
+    await recordAudit(tx, {
+      teamId,
+      actorId,
+      action: 'schedule.upload_refused',
+      entity: 'schedule',
+      entityId: scheduleId,
+      detail: { fileName: refusal.fileName, message: refusal.message, clearedFile: current.fileName },
     });
   });
 }
@@ -487,7 +531,13 @@ export async function previewScheduleUpload(
   const summary = await getSchedule(teamId, scheduleId);
   if (!summary) throw notFound();
   if (summary.status !== 'draft') throw new ScheduleOperationError(409, 'already_queued', 'This schedule has been queued; its file can no longer be replaced. Start a new schedule for another file.');
-  const records = await read(file.fileName, file.bytes);
+  let records: ScheduleRecord[];
+  try {
+    records = await read(file.fileName, file.bytes);
+  } catch (error) {
+    if (error instanceof ScheduleFileRefusal) await recordRefusedUpload(teamId, actorId, scheduleId, { fileName: file.fileName, message: error.message });
+    throw error;
+  }
   const families = await loadTeamFamilies(teamId);
   const validated = validateScheduleRecords(records, families);
   await storeSchedulePreview(teamId, actorId, scheduleId, { ...file, rows: validated.rows, problems: validated.problems, fileRowCount: records.length });

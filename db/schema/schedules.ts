@@ -36,6 +36,11 @@ export const schedules = pgTable(
     problems: jsonb('problems').notNull().default([]),
     /** Rows of the file the preview read (clean and bad). */
     fileRowCount: integer('file_row_count').notNull().default(0),
+    /**
+     * The last upload that was refused ({ fileName, message, at }), null after a file was read.
+     * A refused upload also clears the file before it, so that nobody sizes the old file thinking it is the new one.
+     */
+    uploadRefusal: jsonb('upload_refusal').$type<{ fileName: string; message: string; at: string } | null>().default(null),
     /** Family key → { label, kind, candidates } frozen when queued. */
     families: jsonb('families').notNull().default({}),
     /** The team's sizing options (lib/schedule FamilyOptions) frozen when queued, so a re-run sizes alike. */

@@ -255,3 +255,8 @@ export type StoredRow<K extends CatalogueKind> = CatalogueRowByKind[K] & { id: s
 export const rowPatchSchema = z.object({
   changes: z.record(z.string(), z.unknown()).refine((c) => Object.keys(c).length > 0, 'name at least one field to change'),
 });
+
+/** Body of the add-an-item form: the whole row (in SI), validated by the kind's row schema on the server, as an import row is. */
+export const rowCreateSchema = z.object({
+  row: z.record(z.string(), z.unknown()),
+});

@@ -6,3 +6,4 @@ export * from './files';
 export * from './size';
 export * from './results';
 export * from './toSheet';
+export * from './stateWords';

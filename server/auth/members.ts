@@ -8,7 +8,7 @@ import { z } from 'zod';
 import { getDb, type Executor } from '@/db/client';
 import { invitations, passwordResetTokens, teams, users } from '@/db/schema';
 import { recordAudit } from '@/db/queries/audit';
-import { countActiveAdmins, findSignInRow, getTeamMember, lockTeam } from '@/db/queries/members';
+import { countActiveAdmins, findSignInRow, getTeamMember, lockTeam, newerInvitationExists } from '@/db/queries/members';
 import { ApiError } from '@/server/http/errors';
 import { appBaseUrl, sendMail } from '@/server/mail/send';
 import { invitationMail, passwordResetMail } from '@/server/mail/templates';
@@ -42,7 +42,24 @@ function linkStateOf(row: { acceptedAt?: Date | null; revokedAt?: Date | null; u
   return 'valid';
 }
 
-const LINK_REFUSALS: Record<Exclude<LinkState, 'valid'>, ApiError> = {
+/**
+ * An invitation that no longer works says why: `replaced` when the team sent a newer invitation to
+ * the same address (the newer e-mail holds the working link), `revoked` when an admin withdrew it;
+ * "already been used" only when someone joined with it.
+ */
+export type InvitationState = LinkState | 'replaced' | 'revoked';
+
+async function invitationStateOf(
+  row: { id: string; teamId: string; email: string; createdAt: Date; acceptedAt: Date | null; revokedAt: Date | null; expiresAt: Date } | null,
+  tx: Executor = getDb(),
+): Promise<InvitationState> {
+  if (row && !row.acceptedAt && row.revokedAt) return (await newerInvitationExists(row.teamId, row.email, row, tx)) ? 'replaced' : 'revoked';
+  return linkStateOf(row);
+}
+
+const LINK_REFUSALS: Record<Exclude<InvitationState, 'valid'>, ApiError> = {
+  replaced: new ApiError(410, 'link_replaced', 'This invitation was replaced by a newer invitation to the same address. Use the link in the most recent invitation e-mail.'),
+  revoked: new ApiError(410, 'link_revoked', 'This invitation was withdrawn by an admin of the team. Ask them to invite you again.'),
   used: new ApiError(410, 'link_used', 'This link has already been used. Ask for a new one.'),
   expired: new ApiError(410, 'link_expired', 'This link has expired. Ask for a new one.'),
   unknown: new ApiError(404, 'link_unknown', 'This link is not valid. Check that it was copied whole, or ask for a new one.'),
@@ -96,17 +113,27 @@ export async function revokeInvitation(actor: SessionUser, invitationId: string)
   });
 }
 
-export type InvitationView = { state: 'valid'; email: string; role: Role; teamName: string } | { state: Exclude<LinkState, 'valid'> };
+export type InvitationView = { state: 'valid'; email: string; role: Role; teamName: string } | { state: Exclude<InvitationState, 'valid'> };
 
 /** What the /invite/[token] page shows before the form. */
 export async function inspectInvitation(token: string): Promise<InvitationView> {
   if (!looksLikeLinkToken(token)) return { state: 'unknown' };
   const [row] = await getDb()
-    .select({ email: invitations.email, role: invitations.role, teamName: teams.name, acceptedAt: invitations.acceptedAt, revokedAt: invitations.revokedAt, expiresAt: invitations.expiresAt })
+    .select({
+      id: invitations.id,
+      teamId: invitations.teamId,
+      email: invitations.email,
+      role: invitations.role,
+      teamName: teams.name,
+      createdAt: invitations.createdAt,
+      acceptedAt: invitations.acceptedAt,
+      revokedAt: invitations.revokedAt,
+      expiresAt: invitations.expiresAt,
+    })
     .from(invitations)
     .innerJoin(teams, eq(teams.id, invitations.teamId))
     .where(eq(invitations.tokenHash, hashLinkToken(token)));
-  const state = linkStateOf(row ?? null);
+  const state = await invitationStateOf(row ?? null);
   if (state !== 'valid') return { state };
   return { state, email: row!.email, role: row!.role, teamName: row!.teamName };
 }
@@ -119,7 +146,7 @@ export async function acceptInvitation(input: z.infer<typeof acceptInvitationSch
   const passwordHash = await hashPassword(input.password);
   return getDb().transaction(async (tx) => {
     const [invitation] = await tx.select().from(invitations).where(eq(invitations.tokenHash, hashLinkToken(input.token))).for('update');
-    const state = linkStateOf(invitation ?? null);
+    const state = await invitationStateOf(invitation ?? null, tx);
     if (state !== 'valid') throw LINK_REFUSALS[state];
     if (await findSignInRow(invitation.email, tx)) {
       throw new ApiError(409, 'email_taken', 'That e-mail address already has an Ampwarden account; sign in or reset its password.');

@@ -1,7 +1,9 @@
 // /catalogue in Chromium against the production build (issue 5): the grid renders the team's
 // catalogue, search and column filters narrow it, an admin's cell edit persists after a reload,
 // an import shows the bad row and commits nothing until the file is right, and the write
-// endpoints refuse non-admins with 403.
+// endpoints refuse non-admins with 403. Issue 23: the count says how many of how many are shown,
+// an admin adds an item through a form checked like an import row, a changed value asks for its
+// source (and is not saved without it), and each item shows its history from the audit log.
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
@@ -89,17 +91,97 @@ describe('/catalogue', () => {
     await screenshot(page, 'catalogue-filtered');
   });
 
+  it('the count label says how many items of how many the filters show', async () => {
+    await page.goto(appUrl('/catalogue?part=coverings'));
+    await page.waitForSelector('.ag-cell[col-id="key"]');
+    const total = (await listCoverings(teamId)).length;
+    const count = page.getByTestId('catalogue-count');
+    await expect.poll(() => count.innerText(), POLL).toBe(`${total} items`);
+    await page.getByRole('textbox', { name: 'Used as Filter Input' }).fill('sheath');
+    await expect.poll(() => count.innerText(), POLL).toBe(`2 of ${total} items`);
+    await page.getByLabel('Search insulation and finishes').fill('XLPE');
+    await expect.poll(() => count.innerText(), POLL).toBe(`0 of ${total} items`);
+    await page.getByRole('textbox', { name: 'Used as Filter Input' }).fill('');
+    await expect.poll(() => count.innerText(), POLL).toBe(`1 of ${total} items`);
+    await page.getByLabel('Search insulation and finishes').fill('');
+    await expect.poll(() => count.innerText(), POLL).toBe(`${total} items`);
+  });
+
   it('an admin edit persists after a reload', async () => {
     const rowId = await coveringId('pe-sheath');
     await page.goto(appUrl('/catalogue?part=coverings'));
     await page.waitForSelector('.ag-cell[col-id="key"]');
     await editCell(page, rowId, 'thermalResistivityKmPerW', '3.6');
+    const prompt = page.getByRole('dialog', { name: 'Source of the new value' });
+    await prompt.getByLabel('Source of resistivity for the new value').fill('Supplier datasheet PE-36 (e2e)');
+    await prompt.getByRole('button', { name: 'Save with this source' }).click();
     await page.getByRole('status').filter({ hasText: 'Saved Thermal resistivity' }).waitFor();
     await page.reload();
     await page.waitForSelector('.ag-cell[col-id="key"]');
     await expect.poll(() => cellOf(page, rowId, 'thermalResistivityKmPerW').innerText(), POLL).toBe('3.6');
     const [stored] = await getDb().select().from(catalogueCoverings).where(eq(catalogueCoverings.id, rowId));
-    expect(stored.thermalResistivityKmPerW).toBe('3.6');
+    expect([stored.thermalResistivityKmPerW, stored.resistivitySource]).toEqual(['3.6', 'Supplier datasheet PE-36 (e2e)']);
+  });
+
+  it('a changed value asks for its source: cancelled or left blank it is not saved', async () => {
+    const rowId = await coveringId('pvc-insulation');
+    const [before] = await getDb().select().from(catalogueCoverings).where(eq(catalogueCoverings.id, rowId));
+    await editCell(page, rowId, 'thermalResistivityKmPerW', '5.5');
+    const prompt = page.getByRole('dialog', { name: 'Source of the new value' });
+    await prompt.waitFor();
+    expect(await prompt.innerText()).toContain(`now cites “${before.resistivitySource}”`);
+    await prompt.getByRole('button', { name: 'Save with this source' }).click();
+    await prompt.getByRole('alert').filter({ hasText: 'Say where the new value comes from' }).waitFor();
+    await prompt.getByRole('button', { name: 'Cancel the change' }).click();
+    await page.getByRole('alert').filter({ hasText: 'a changed value needs its source' }).waitFor();
+    const [after] = await getDb().select().from(catalogueCoverings).where(eq(catalogueCoverings.id, rowId));
+    expect([after.thermalResistivityKmPerW, after.resistivitySource]).toEqual([before.thermalResistivityKmPerW, before.resistivitySource]);
+    expect(await cellOf(page, rowId, 'thermalResistivityKmPerW').innerText()).toBe(before.thermalResistivityKmPerW);
+    // The server refuses it too, whatever the browser does.
+    const { client } = await signInOverHttp(adminEmail, TEST_PASSWORD);
+    const response = await client.request(`/api/catalogue/coverings/${rowId}`, { method: 'PATCH', body: { changes: { thermalResistivityKmPerW: '5.5' } } });
+    expect(response.status).toBe(400);
+    expect(JSON.stringify(await response.json())).toContain('is required when Thermal resistivity changes');
+  });
+
+  it('shows an item’s history from the audit log: who changed which value from what to what', async () => {
+    const rowId = await coveringId('pe-sheath');
+    await page.goto(appUrl('/catalogue?part=coverings'));
+    await page.waitForSelector('.ag-cell[col-id="key"]');
+    await page.getByRole('button', { name: 'History of pe-sheath' }).click();
+    const history = page.getByRole('region', { name: 'History of pe-sheath' });
+    await history.getByText(/^Edited by admin /).waitFor();
+    const text = await history.innerText();
+    expect(text).toMatch(/Thermal resistivity \(K·m\/W\)\s+3\.5\s+→ 3\.6/);
+    expect(text).toMatch(/Source of resistivity\s+.+\s+→ Supplier datasheet PE-36 \(e2e\)/);
+    expect(rowId).toBeTruthy();
+  });
+
+  it('an admin adds an item with the form: refused like an import row, then added and shown', async () => {
+    await page.getByRole('button', { name: 'Add a covering' }).click();
+    const form = page.getByRole('form', { name: 'New covering' });
+    await form.getByLabel('Key').fill('aramid-e2e');
+    await form.getByLabel('Name').fill('Aramid tape (e2e)');
+    await form.getByLabel('Used as').selectOption('insulation');
+    await form.getByLabel(/^Thermal resistivity/).fill('abc');
+    await form.getByLabel('Source of resistivity').fill('Supplier datasheet');
+    await form.getByLabel('Source of limits').fill('Supplier datasheet');
+    await form.getByRole('button', { name: 'Add the covering' }).click();
+    await form.getByRole('alert').filter({ hasText: 'correct the fields marked below' }).waitFor();
+    // The import's own message for the same cell ("must be a number (got "abc")"), under the field.
+    await form.getByText('must be a number (got "abc")').waitFor();
+    expect(await form.getByText('Source of emissivity is required').count()).toBe(1);
+    expect((await listCoverings(teamId)).some((c) => c.key === 'aramid-e2e')).toBe(false);
+    await form.getByLabel(/^Thermal resistivity/).fill('5.5');
+    await form.getByLabel('Source of emissivity').fill('Supplier datasheet');
+    await form.getByRole('button', { name: 'Add the covering' }).click();
+    await page.getByRole('status').filter({ hasText: 'Added aramid-e2e.' }).waitFor();
+    await expect.poll(() => shownKeys(page), POLL).toEqual(['aramid-e2e']);
+    const added = (await listCoverings(teamId)).find((c) => c.key === 'aramid-e2e');
+    expect(added).toMatchObject({ name: 'Aramid tape (e2e)', role: 'insulation', thermalResistivityKmPerW: '5.5', emissivitySource: 'Supplier datasheet' });
+    await screenshot(page, 'catalogue-added');
+    // The form filters the grid to the new key; the tests after this one start from the whole part.
+    await page.getByLabel('Search insulation and finishes').fill('');
   });
 
   it('a value the schema refuses is not saved and the message names the column', async () => {

@@ -1,7 +1,14 @@
 import Link from 'next/link';
 import { listSchedulesForProject } from '@/db/queries/schedules';
+import { scheduleStateWords, type ScheduleStateTone } from '@/lib/schedule';
 
-const STATE_WORDS = { draft: 'waiting for a file', queued: 'sizing', done: 'sized' } as const;
+const TONE_CLASS: Record<ScheduleStateTone, string> = {
+  waiting: 'text-ink-600',
+  ready: 'text-within-dark',
+  problem: 'text-over-dark',
+  running: 'text-ink-800',
+  done: 'text-within-dark',
+};
 
 /** The schedules of a project, for the project page. */
 export async function ProjectSchedules({ teamId, projectId, mayCreate }: { teamId: string; projectId: string; mayCreate: boolean }) {
@@ -19,7 +26,15 @@ export async function ProjectSchedules({ teamId, projectId, mayCreate }: { teamI
             <li key={s.id} className="flex flex-wrap items-baseline gap-3 px-3 py-2">
               <Link href={`/schedules/${s.id}`} className="font-medium text-copper-700 hover:underline">{s.name}</Link>
               <span className="text-caption text-ink-500">{s.fileName ?? 'no file yet'}</span>
-              <span className="num text-caption">{s.status === 'draft' ? STATE_WORDS.draft : `${s.sized} of ${s.rowCount} circuits ${STATE_WORDS[s.status]}`}</span>
+              {(() => {
+                const state = scheduleStateWords({ ...s, uploadRefusal: s.uploadRefusal ?? null });
+                return (
+                  <span className={`num text-caption ${TONE_CLASS[state.tone]}`} data-testid="schedule-state">
+                    {state.tone === 'problem' ? '✕ ' : state.tone === 'ready' || state.tone === 'done' ? '✓ ' : ''}
+                    {state.words}
+                  </span>
+                );
+              })()}
             </li>
           ))}
         </ul>

@@ -1,3 +1,4 @@
+import { notFound } from 'next/navigation';
 import { AuthFrame } from '@/components/auth/AuthFrame';
 import { LinkRefusal } from '@/components/auth/LinkRefusal';
 import { SetPasswordForm } from '@/components/auth/SetPasswordForm';
@@ -10,6 +11,8 @@ export const dynamic = 'force-dynamic';
 export default async function InvitationPage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;
   const invitation = await inspectInvitation(token);
+  // A token nobody issued is a page that does not exist (404, ./not-found.tsx); a known one says why it stopped working.
+  if (invitation.state === 'unknown') notFound();
   if (invitation.state !== 'valid') {
     return (
       <AuthFrame title="Join your team">

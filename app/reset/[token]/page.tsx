@@ -1,3 +1,4 @@
+import { notFound } from 'next/navigation';
 import { AuthFrame } from '@/components/auth/AuthFrame';
 import { LinkRefusal } from '@/components/auth/LinkRefusal';
 import { SetPasswordForm } from '@/components/auth/SetPasswordForm';
@@ -9,6 +10,8 @@ export const dynamic = 'force-dynamic';
 export default async function ResetPasswordPage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;
   const reset = await inspectResetToken(token);
+  // A token nobody issued is a page that does not exist (404, ./not-found.tsx).
+  if (reset.state === 'unknown') notFound();
   return (
     <AuthFrame title="Choose a new password" intro={reset.state === 'valid' ? 'Saving it ends your sessions on other browsers.' : undefined}>
       {reset.state === 'valid' ? (

@@ -108,8 +108,21 @@ describe('invitations', () => {
     await inviteMember(admin, { email, role: 'viewer' });
     const firstToken = linkToken((await mailTo(email)).text, 'invite');
     const second = await inviteMember(admin, { email, role: 'designer' });
-    expect(await inspectInvitation(firstToken)).toEqual({ state: 'used' });
+    // Issue 23: replaced, not "used" — nobody joined with it.
+    expect(await inspectInvitation(firstToken)).toEqual({ state: 'replaced' });
+    expect(await refusal(acceptInvitation({ token: firstToken, name: 'Old Link', password: NEW_PASSWORD }))).toEqual({ status: 410, code: 'link_replaced' });
+    const catcher = process.env.MAIL_CATCHER_URL!;
+    let secondToken: string | undefined;
+    for (let attempt = 0; attempt < 50 && !secondToken; attempt += 1) {
+      const messages = ((await (await fetch(`${catcher}/messages`)).json()) as CaughtMessage[]).filter((m) => m.to.includes(email));
+      secondToken = messages.map((m) => linkToken(m.text, 'invite')).find((t) => t !== firstToken);
+      if (!secondToken) await new Promise((resolve) => setTimeout(resolve, 100));
+    }
+    expect(await inspectInvitation(secondToken!)).toMatchObject({ state: 'valid', role: 'designer' });
     await revokeInvitation(admin, second.id);
+    // Withdrawn by an admin with no newer invitation: says so, and is still not "used".
+    expect(await inspectInvitation(secondToken!)).toEqual({ state: 'revoked' });
+    expect(await refusal(acceptInvitation({ token: secondToken!, name: 'Withdrawn', password: NEW_PASSWORD }))).toEqual({ status: 410, code: 'link_revoked' });
     const open = await getDb().select().from(invitations).where(and(eq(invitations.email, email), sql`revoked_at is null`));
     expect(open).toEqual([]);
     expect(await refusal(revokeInvitation(otherAdmin, second.id))).toMatchObject({ status: 404 });

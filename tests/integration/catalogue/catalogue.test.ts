@@ -10,7 +10,9 @@ import { auditLog, catalogueConductors, catalogueImports } from '@/db/schema';
 import {
   CatalogueConflictError,
   CatalogueNotFoundError,
+  catalogueRowHistory,
   commitImport,
+  createCatalogueRow,
   countCatalogue,
   deleteCatalogueRow,
   getImportFile,
@@ -25,7 +27,7 @@ import {
 } from '@/db/queries/catalogue';
 import { copyStandardCatalogueToTeam } from '@/db/seed/catalogue';
 import { CATALOGUE_COLUMNS } from '@/lib/catalogue';
-import { FileRefusal, writeXlsx } from '@/lib/catalogue/files';
+import { FileRefusal, validateRecords, writeXlsx } from '@/lib/catalogue/files';
 import { createTestTeam, createTestUser } from '../../helpers/fixtures';
 
 afterAll(() => closeDb());
@@ -112,6 +114,97 @@ describe('edits', () => {
     await expect(deleteCatalogueRow(otherTeamId, adminId, 'materials', copper.id)).rejects.toBeInstanceOf(CatalogueNotFoundError);
     await expect(deleteCatalogueRow(teamId, adminId, 'materials', copper.id)).rejects.toBeInstanceOf(CatalogueConflictError);
     expect((await listMaterials(teamId)).some((m) => m.id === copper.id)).toBe(true);
+  });
+});
+
+describe('a changed value names its source (issue 23)', () => {
+  const refusal = async (promise: Promise<unknown>) => {
+    const error = await promise.catch((e: unknown) => e);
+    expect(error).toBeInstanceOf(ZodError);
+    return (error as ZodError).issues.map((i) => `${i.path.join('.')}: ${i.message}`);
+  };
+
+  it('refuses a changed value without its source and leaves the row as it was', async () => {
+    const row = (await listCoverings(teamId)).find((c) => c.key === 'pvc-insulation')!;
+    const issues = await refusal(updateCatalogueRow(teamId, adminId, 'coverings', row.id, { thermalResistivityKmPerW: '6' }));
+    expect(issues).toEqual([expect.stringMatching(/^resistivitySource: is required when Thermal resistivity changes/)]);
+    // A blank source is no source.
+    expect(await refusal(updateCatalogueRow(teamId, adminId, 'coverings', row.id, { thermalResistivityKmPerW: '6', resistivitySource: '  ' }))).toHaveLength(1);
+    const after = (await listCoverings(teamId)).find((c) => c.key === 'pvc-insulation')!;
+    expect(after.thermalResistivityKmPerW).toBe(row.thermalResistivityKmPerW);
+    expect(after.resistivitySource).toBe(row.resistivitySource);
+  });
+
+  it('saves the value with its source; the same value written differently, or a name, needs none', async () => {
+    const row = (await listCoverings(teamId)).find((c) => c.key === 'pvc-insulation')!;
+    const saved = await updateCatalogueRow(teamId, adminId, 'coverings', row.id, { thermalResistivityKmPerW: '6', resistivitySource: 'Supplier datasheet PV-6 (test)' });
+    expect([saved.thermalResistivityKmPerW, saved.resistivitySource]).toEqual(['6', 'Supplier datasheet PV-6 (test)']);
+    // "6.0" is the stored 6: not a change of value.
+    await updateCatalogueRow(teamId, adminId, 'coverings', row.id, { thermalResistivityKmPerW: '6.0' });
+    const renamed = await updateCatalogueRow(teamId, adminId, 'coverings', row.id, { name: 'PVC insulation (renamed in a test)' });
+    expect(renamed.name).toBe('PVC insulation (renamed in a test)');
+  });
+
+  it('applies to each cited value of every part: a bar’s thickness, a metal’s resistivity, a build’s layer', async () => {
+    const bar = (await listConductors(teamId)).find((c) => c.key === 'cu-bar-12x2')!;
+    expect(await refusal(updateCatalogueRow(teamId, adminId, 'conductors', bar.id, { thicknessMm: '2.5' }))).toEqual([expect.stringMatching(/^dimensionSource: /)]);
+    const copper = (await listMaterials(teamId)).find((m) => m.key === 'copper')!;
+    expect(await refusal(updateCatalogueRow(teamId, adminId, 'materials', copper.id, { rho20OhmM: '1.8e-8' }))).toEqual([expect.stringMatching(/^electricalSource: /)]);
+    const build = (await listBuilds(teamId)).find((b) => b.key === 'demo-cu-240-xlpe-pvc')!;
+    expect(await refusal(updateCatalogueRow(teamId, adminId, 'builds', build.id, { layer1ThicknessMm: '1.9' }))).toEqual([expect.stringMatching(/^layer1Source: /)]);
+  });
+});
+
+describe('adding an item (issue 23)', () => {
+  const header = CATALOGUE_COLUMNS.coverings.map((c) => c.header);
+  const asRecord = (line: string) => Object.fromEntries(header.map((h, i) => [h, line.split(',')[i] ?? '']));
+  const asRow = (line: string) => Object.fromEntries(CATALOGUE_COLUMNS.coverings.map((c, i) => [c.field, line.split(',')[i] ?? '']));
+
+  it('refuses exactly what an import refuses, with the same field and message', async () => {
+    const bad = 'mica-added,Mica tape,insulation,abc,Supplier datasheet,200,150,Supplier datasheet,1.5,';
+    const imported = validateRecords('coverings', [{ row: 2, values: asRecord(bad) }]).problems.map((p) => `${p.column}: ${p.message}`).sort();
+    const error = await createCatalogueRow(teamId, adminId, 'coverings', asRow(bad)).catch((e: unknown) => e);
+    expect(error).toBeInstanceOf(ZodError);
+    const added = (error as ZodError).issues.map((i) => `${CATALOGUE_COLUMNS.coverings.find((c) => c.field === i.path[0])!.header}: ${i.message}`).sort();
+    expect(imported.length).toBeGreaterThanOrEqual(3);
+    expect(added).toEqual(imported);
+    expect((await listCoverings(teamId)).some((c) => c.key === 'mica-added')).toBe(false);
+  });
+
+  it('adds a valid row and audits it; a taken key or an unknown reference is refused', async () => {
+    const good = 'silicone-added,Silicone rubber (added),insulation,4.5,Supplier datasheet,180,350,Supplier datasheet,0.9,Supplier datasheet';
+    const created = await createCatalogueRow(teamId, adminId, 'coverings', asRow(good));
+    expect(created).toMatchObject({ key: 'silicone-added', thermalResistivityKmPerW: '4.5', continuousLimitC: '180' });
+    const [entry] = await getDb().select().from(auditLog).where(and(eq(auditLog.entityId, created.id), eq(auditLog.action, 'catalogue.row.create')));
+    expect(entry.actorId).toBe(adminId);
+    const firstIssue = async (promise: Promise<unknown>) => ((await promise.catch((e: unknown) => e)) as ZodError).issues.map((i) => `${i.path.join('.')}: ${i.message}`);
+    expect(await firstIssue(createCatalogueRow(teamId, adminId, 'coverings', asRow(good)))).toEqual(['key: "silicone-added" is already used by another row']);
+    // Optional columns left out of the body are empty, as an empty cell of a file is.
+    const sparse = await createCatalogueRow(teamId, adminId, 'coverings', { key: 'sparse-added', name: 'Sparse', role: 'sheath', thermalResistivityKmPerW: '5', resistivitySource: 'S', limitsSource: 'S', emissivitySource: 'S' });
+    expect([sparse.continuousLimitC, sparse.emissivity]).toEqual([null, null]);
+    const conductor = { ...(await listConductors(teamId)).find((c) => c.key === 'cu-240')!, key: 'brass-240', materialKey: 'brass' } as Record<string, unknown>;
+    delete conductor.id;
+    delete conductor.updatedAt;
+    expect(await firstIssue(createCatalogueRow(teamId, adminId, 'conductors', conductor))).toEqual(['materialKey: no metal with key "brass" in this catalogue']);
+  });
+});
+
+describe('an item’s history from the audit log (issue 23)', () => {
+  it('lists the addition, each edit with from → to and who, and each import that changed it; nothing for another team', async () => {
+    const line = 'history-item,History covering,sheath,5.0,Test source A,,,Test source A,0.9,Test source A';
+    const created = await createCatalogueRow(teamId, adminId, 'coverings', Object.fromEntries(CATALOGUE_COLUMNS.coverings.map((c, i) => [c.field, line.split(',')[i]])));
+    await updateCatalogueRow(teamId, adminId, 'coverings', created.id, { emissivity: '0.8', emissivitySource: 'Test source B' });
+    const header = CATALOGUE_COLUMNS.coverings.map((c) => c.header).join(',');
+    const preview = await previewImport(teamId, adminId, 'coverings', csvFile('history.csv', `${header}
+${line.replace('5.0', '5.5')}
+`));
+    await commitImport(teamId, adminId, preview.importId);
+    const history = (await catalogueRowHistory(teamId, 'coverings', created.id))!;
+    expect(history.map((h) => h.action)).toEqual(['created', 'edited', 'imported']);
+    expect(history[0].actorName).toMatch(/^admin /);
+    expect(history[1].changes).toEqual({ emissivity: { from: '0.9', to: '0.8' }, emissivitySource: { from: 'Test source A', to: 'Test source B' } });
+    expect(history[2]).toMatchObject({ fileName: 'history.csv', changes: { thermalResistivityKmPerW: { from: '5.0', to: '5.5' }, emissivity: { from: '0.8', to: '0.9' } } });
+    expect(await catalogueRowHistory(otherTeamId, 'coverings', created.id)).toBeNull();
   });
 });
 

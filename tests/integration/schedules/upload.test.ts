@@ -4,9 +4,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { eq, sql } from 'drizzle-orm';
 import { closeDb, getDb } from '@/db/client';
 import { createProject } from '@/db/queries/projects';
-import { createSchedule, getSchedule, previewScheduleUpload, queueSchedule, ScheduleOperationError } from '@/db/queries/schedules';
+import { createSchedule, getSchedule, listSchedulesForProject, previewScheduleUpload, queueSchedule, ScheduleOperationError } from '@/db/queries/schedules';
 import { scheduleRows } from '@/db/schema';
-import { ScheduleFileRefusal } from '@/lib/schedule';
+import { ScheduleFileRefusal, scheduleStateWords } from '@/lib/schedule';
 import { enqueueScheduleBatches, SCHEDULE_QUEUE, stopWebBoss } from '@/server/jobs/boss';
 import { createTestTeam, createTestUser } from '../../helpers/fixtures';
 import { circuitRows, scheduleCsv, seedSmallCatalogue } from './helpers';
@@ -112,5 +112,30 @@ describe('schedule upload and preview', () => {
     expect(await getSchedule(other.id, id)).toBeNull();
     await expect(previewScheduleUpload(other.id, otherUser.id, id, { fileName: 'x.csv', mediaType: 'text/csv', bytes: scheduleCsv(circuitRows(1)) })).rejects.toMatchObject({ status: 404 });
     await expect(queueSchedule(other.id, otherUser.id, id, { dropBadRows: true }, enqueueScheduleBatches)).rejects.toMatchObject({ status: 404 });
+  });
+
+  it('a refused upload clears the file before it and its preview, and the project list says the file was refused (issue 23)', async () => {
+    const { id } = await createSchedule(teamId, userId, { projectId, name: 'refused after a good file' });
+    const stateOf = async () => {
+      const listed = (await listSchedulesForProject(teamId, projectId)).find((s) => s.id === id)!;
+      return scheduleStateWords(listed).words;
+    };
+    expect(await stateOf()).toBe('waiting for a file');
+    await previewScheduleUpload(teamId, userId, id, { fileName: 'good.csv', mediaType: 'text/csv', bytes: scheduleCsv(circuitRows(3)) });
+    // A checked file is not "waiting for a file".
+    expect(await stateOf()).toBe('file checked: 3 circuits ready to size');
+    await expect(
+      previewScheduleUpload(teamId, userId, id, { fileName: 'photo.csv', mediaType: 'text/csv', bytes: new Uint8Array([0xff, 0xd8, 0xff, 0xe0, 0, 0x10, 0x4a, 0x46]) }),
+    ).rejects.toBeInstanceOf(ScheduleFileRefusal);
+    const after = (await getSchedule(teamId, id))!;
+    expect([after.fileName, after.fileRowCount, after.cleanRowCount, after.problems]).toEqual([null, 0, 0, []]);
+    expect(after.uploadRefusal).toMatchObject({ fileName: 'photo.csv', message: expect.stringMatching(/binary/) });
+    expect(await stateOf()).toBe('file refused (photo.csv): upload a corrected one');
+    // Nothing of the old file can be queued any more.
+    await expect(queueSchedule(teamId, userId, id, { dropBadRows: true }, enqueueScheduleBatches)).rejects.toBeInstanceOf(ScheduleOperationError);
+    // A good file afterwards clears the refusal.
+    await previewScheduleUpload(teamId, userId, id, { fileName: 'fixed.csv', mediaType: 'text/csv', bytes: scheduleCsv(circuitRows(2)) });
+    expect((await getSchedule(teamId, id))!.uploadRefusal).toBeNull();
+    expect(await stateOf()).toBe('file checked: 2 circuits ready to size');
   });
 });

@@ -488,6 +488,34 @@ export const ENDPOINT_MATRIX: MatrixEntry[] = [
   },
   {
     kind: 'route',
+    method: 'POST',
+    route: '/api/catalogue/[kind]',
+    // An admin of team B adds to team B's own catalogue: nothing of team A is touched.
+    expect: signedIn(401, { viewer: 403, designer: 403, reviewer: 403, otherAdmin: 201, admin: 201 }),
+    request: (ctx) => ({
+      path: '/api/catalogue/coverings',
+      body: {
+        row: {
+          key: ctx.unique('matrix-added').toLowerCase().replace(/[^a-z0-9._-]+/g, '-'),
+          name: 'Matrix covering, added',
+          role: 'sheath',
+          thermalResistivityKmPerW: '5.0',
+          resistivitySource: 'Matrix test row',
+          limitsSource: 'Matrix test row',
+          emissivitySource: 'Matrix test row',
+        },
+      },
+    }),
+  },
+  {
+    kind: 'route',
+    method: 'GET',
+    route: '/api/catalogue/[kind]/[id]/history',
+    expect: signedIn(401, { viewer: 200, designer: 200, reviewer: 200, otherAdmin: 404, admin: 200 }),
+    request: async (ctx) => ({ path: `/api/catalogue/coverings/${(await freshCatalogueCovering(ctx.teamId)).id}/history` }),
+  },
+  {
+    kind: 'route',
     method: 'PATCH',
     route: '/api/catalogue/[kind]/[id]',
     expect: signedIn(401, { viewer: 403, designer: 403, reviewer: 403, otherAdmin: 404, admin: 200 }),

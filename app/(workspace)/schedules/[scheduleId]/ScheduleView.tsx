@@ -43,7 +43,11 @@ function UploadStep({ detail, mayWrite }: { detail: ScheduleDetail; mayWrite: bo
   const upload = useMutation({
     mutationFn: (file: File) => uploadScheduleFile(schedule.id, file),
     onMutate: () => setRefusal(null),
-    onError: (error) => setRefusal(error.message),
+    onError: (error) => {
+      setRefusal(error.message);
+      // The server cleared the file before it (a refused upload never leaves the old preview to be sized by mistake).
+      void queryClient.invalidateQueries({ queryKey: ['schedule', schedule.id] });
+    },
     onSuccess: () => queryClient.invalidateQueries({ queryKey: ['schedule', schedule.id] }),
   });
   const queue = useMutation({
@@ -51,13 +55,21 @@ function UploadStep({ detail, mayWrite }: { detail: ScheduleDetail; mayWrite: bo
     onSuccess: () => queryClient.invalidateQueries({ queryKey: ['schedule', schedule.id] }),
   });
   const badRows = [...new Set(schedule.problems.map((p) => p.row))];
-  const hasFile = schedule.fileName !== null;
+  // While an upload has just failed, the old preview and its button are gone at once, before the refetch confirms it.
+  const hasFile = schedule.fileName !== null && !upload.isError;
+  const lastRefusal = upload.isError ? { fileName: upload.variables?.name ?? 'the file', message: upload.error.message } : schedule.uploadRefusal;
 
   return (
     <div className="grid gap-4 lg:grid-cols-[1fr_320px]">
       <section aria-labelledby="preview-heading" className="space-y-3">
         <h2 id="preview-heading" className="font-semibold">{hasFile ? `Preview of ${schedule.fileName}` : 'Upload a schedule'}</h2>
-        {!hasFile ? (
+        {!hasFile && lastRefusal ? (
+          <div className="panel p-4" role="region" aria-label="Refused upload">
+            <p className="font-semibold text-over-dark">✕ {lastRefusal.fileName} was refused; nothing of it was read.</p>
+            <p className="mt-1 text-ink-700">{lastRefusal.message}</p>
+            <p className="mt-1 text-ink-600">Any file uploaded before it has been cleared, so that it is not sized by mistake. Upload a corrected file.</p>
+          </div>
+        ) : !hasFile ? (
           <div className="panel p-4 text-ink-600">
             <p>No file yet. Fill in the template (one circuit per row) and upload it here. Every row is checked before anything is sized.</p>
           </div>

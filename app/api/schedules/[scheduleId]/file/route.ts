@@ -1,4 +1,4 @@
-import { getSchedule, getScheduleFile, previewScheduleUpload } from '@/db/queries/schedules';
+import { getSchedule, getScheduleFile, previewScheduleUpload, recordRefusedUpload } from '@/db/queries/schedules';
 import { MAX_SCHEDULE_BYTES } from '@/lib/schedule';
 import { apiHandler, ApiError } from '@/server/http/api';
 import { downloadResponse } from '@/server/http/download';
@@ -10,7 +10,10 @@ export const POST = apiHandler({ permission: 'schedule:write' }, async (req, { u
   const declared = Number(req.headers.get('content-length') ?? '0');
   // Refuse before reading a body far beyond any schedule (multipart adds a little overhead).
   if (declared > MAX_SCHEDULE_BYTES + 64 * 1024) {
-    throw new ApiError(413, 'file_too_large', `The upload is ${(declared / 1048576).toFixed(1)} MB; a schedule file may be at most ${MAX_SCHEDULE_BYTES / 1048576} MB. Split it into smaller schedules.`);
+    const message = `The upload is ${(declared / 1048576).toFixed(1)} MB; a schedule file may be at most ${MAX_SCHEDULE_BYTES / 1048576} MB. Split it into smaller schedules.`;
+    // Like every refused upload, it clears the file before it (only ever in the caller's own team).
+    await recordRefusedUpload(user!.teamId, user!.id, params.scheduleId, { fileName: 'the upload', message });
+    throw new ApiError(413, 'file_too_large', message);
   }
   // Another team's schedule answers 404 before its body is even read.
   if (!(await getSchedule(user!.teamId, params.scheduleId))) throw new ApiError(404, 'not_found', 'No such schedule.');

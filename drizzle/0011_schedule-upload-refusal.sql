@@ -1,0 +1,1 @@
+ALTER TABLE "schedules" ADD COLUMN "upload_refusal" jsonb DEFAULT 'null'::jsonb;
