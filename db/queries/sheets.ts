@@ -408,7 +408,7 @@ export async function acknowledgeFlag(teamId: string, actor: Actor, sheetId: str
       throw new SheetOperationError(decision.code === 'forbidden' || decision.code === 'own_sheet' ? 403 : 409, decision.code, decision.reason);
     }
     const flag = current.result?.chosenFlags.find((f) => f.code === flagCode);
-    if (!flag) throw new SheetOperationError(404, 'not_found', `The chosen candidate has no flag ${flagCode}.`);
+    if (!flag) throw new SheetOperationError(404, 'not_found', `The chosen candidate has no such flag.`);
     if (flag.severity !== 'review') {
       throw new SheetOperationError(409, 'not_acknowledgeable', flag.severity === 'blocker' ? 'A blocker cannot be acknowledged away; the sheet must be changed.' : 'Notes need no acknowledgement.');
     }

@@ -15,6 +15,8 @@
  * may not review their own sheet at all. Returning a sheet approves nothing, so an editor or
  * submitter who holds the reviewer right may still return it with a comment.
  */
+import { flagTitleList } from './flagWords';
+
 export type SheetStatus = 'draft' | 'in_review' | 'approved' | 'returned';
 export type SheetAction = 'edit' | 'submit' | 'withdraw' | 'approve' | 'return' | 'acknowledge' | 'revise';
 export type SheetPermission = 'sheet:write' | 'sheet:submit' | 'sheet:review';
@@ -115,10 +117,10 @@ export function decide(action: SheetAction, sheet: SheetForTransition, actor: Ac
         if (!readiness) return deny('not_ready', 'The sheet has no server result to approve.');
         if (!readiness.hasChosenCandidate) return deny('not_ready', 'No candidate is chosen on this sheet.');
         if (readiness.blockerCodes.length > 0) {
-          return deny('blocked', `A blocker flag prevents approval: ${readiness.blockerCodes.join(', ')}.`);
+          return deny('blocked', `A blocker prevents approval: ${flagTitleList(readiness.blockerCodes)}.`);
         }
         if (readiness.unacknowledgedReviewCodes.length > 0) {
-          return deny('not_ready', `Acknowledge every review flag first: ${readiness.unacknowledgedReviewCodes.join(', ')}.`);
+          return deny('not_ready', `Acknowledge every review flag first: ${flagTitleList(readiness.unacknowledgedReviewCodes)}.`);
         }
       }
       return allow;

@@ -6,6 +6,7 @@
  * fixed band and a faint diagonal mark on every page; the caution is in the footer of every page.
  * Numbers come from the saved result snapshot only.
  */
+import { flagTitle } from '@/lib/sheet/flagWords';
 import { Document, Page, StyleSheet, Text, View } from '@react-pdf/renderer';
 import { CAUTION_TEXT } from '@/lib/caution';
 import { candidateRecords, chosenResultRows, formatDate, inputRows, METHOD_LINES } from '@/lib/sheet/sheetTables';
@@ -157,7 +158,7 @@ function FlagItem({ flag, ack }: { flag: AssumptionFlag; ack?: PdfSheet['acknowl
       <Text style={[styles.badge, { color: look.tone.text, backgroundColor: look.tone.light, borderColor: look.tone.fill }]}>{look.word}</Text>
       <View style={{ flex: 1 }}>
         <Text>
-          <Text style={{ fontWeight: 600 }}>{safe(`${flag.code} · ${flag.title}. `)}</Text>
+          <Text style={{ fontWeight: 600 }}>{safe(`${flag.title ?? flagTitle(flag.code)}. `)}</Text>
           {safe(flag.message)}
         </Text>
         <Text style={{ color: ack ? WITHIN.text : flag.severity === 'review' ? TIGHT.text : MUTED, marginTop: 1 }}>{safe(ackText)}</Text>
