@@ -379,6 +379,9 @@ export async function transitionSheet(
       .where(and(eq(sheets.teamId, teamId), eq(sheets.id, sheetId)))
       .returning({ version: sheets.version, status: sheets.status });
     if (action === 'submit') await recordContribution(tx, teamId, sheetId, actor.userId, 'submitted');
+    // The licence the approver signs with, as it stands now: a later profile change does not rewrite the package.
+    const [reviewerLicence] =
+      action === 'approve' ? await tx.select({ licenceNumber: users.licenceNumber, licenceJurisdiction: users.licenceJurisdiction }).from(users).where(and(eq(users.teamId, teamId), eq(users.id, actor.userId))) : [];
     await recordAudit(tx, {
       teamId,
       actorId: actor.userId,
@@ -390,7 +393,7 @@ export async function transitionSheet(
         to,
         ...(options.comment?.trim() ? { comment: options.comment.trim() } : {}),
         ...(action === 'approve'
-          ? { solverVersion: current.solverVersion, acknowledged: current.acknowledgements.map((a) => a.flagCode), chosenCandidateId: current.result?.chosenCandidateId ?? null }
+          ? { solverVersion: current.solverVersion, acknowledged: current.acknowledgements.map((a) => a.flagCode), chosenCandidateId: current.result?.chosenCandidateId ?? null, ...(reviewerLicence ? { reviewerLicence } : {}) }
           : {}),
       },
     });

@@ -10,6 +10,7 @@ import { formatNumber } from '../units';
 import { computeBeyondSteady } from './beyondSteady';
 import { computeEnclosureAir } from './enclosureAir';
 import type { SheetInputs } from './schema';
+import { alongRunPlot, overTimePlots, type PackagePlot } from './packagePlots';
 
 export interface OptionalCheckReport {
   /** Which check: 'Over time', 'Along the run', 'Inside the enclosure'. */
@@ -22,6 +23,8 @@ export interface OptionalCheckReport {
   flags: AssumptionFlag[];
   /** Why the check could not be computed, when it could not. */
   notComputed?: string;
+  /** The check's plots for the calculation package (absent in older snapshots). */
+  plots?: PackagePlot[];
 }
 
 const c = (v: number) => `${formatNumber(v, 4)} °C`;
@@ -67,7 +70,7 @@ export function optionalChecksReport(inputs: SheetInputs): OptionalCheckReport[]
       lines: t.ok ? overTimeLines(inputs, t.result) : [],
       method: 'Implicit-Euler heat balance on the same finite-volume model as the steady result (Patankar 1980, Numerical Heat Transfer and Fluid Flow).',
       flags: t.ok ? t.result.flags : [],
-      ...(t.ok ? {} : { notComputed: t.message }),
+      ...(t.ok ? { plots: overTimePlots(t.result) } : { notComputed: t.message }),
     });
   }
 
@@ -86,7 +89,7 @@ export function optionalChecksReport(inputs: SheetInputs): OptionalCheckReport[]
         : [],
       method: 'Conduction along the bar, sideways loss from the surface correlations at the local temperature, joints as point heat I²R (finite volumes, Patankar 1980).',
       flags: a.ok ? a.result.flags : [],
-      ...(a.ok ? {} : { notComputed: a.message }),
+      ...(a.ok ? { plots: [alongRunPlot(a.result)].filter((p): p is PackagePlot => p !== null) } : { notComputed: a.message }),
     });
   }
 

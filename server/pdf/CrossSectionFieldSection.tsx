@@ -124,7 +124,7 @@ export function CrossSectionFieldSection({ outcome, otherLabels = [] }: { outcom
         </View>
       </View>
       <View style={{ marginTop: 4 }}>
-        <View style={{ flexDirection: 'row', borderBottomWidth: 0.5, borderBottomColor: RULE, paddingVertical: 1.6, color: MUTED, fontWeight: 600, fontSize: 7.4 }} wrap={false}>
+        <View style={{ flexDirection: 'row', borderBottomWidth: 0.5, borderBottomColor: RULE, paddingVertical: 1.6, color: MUTED, fontWeight: 600, fontSize: 7.4 }} wrap={false} fixed>
           {columns.map((c) => (
             <Text key={c.title} style={{ width: c.width, paddingRight: 3 }}>
               {safe(c.title)}

@@ -117,7 +117,7 @@ export function BusbarSystemSection({ inputs, chosen }: { inputs: SheetInputs; c
       {pack ? (
         <View style={{ marginTop: 4 }}>
           <Text style={{ fontWeight: 600 }}>{safe(`Governs: ${hottestBarText(pack)}; the worst phase's R_ac/R_dc ${n(pack.acFactor)}.`)}</Text>
-          <View style={[row, { color: MUTED, fontWeight: 600, fontSize: 7.4 }]} wrap={false}>
+          <View style={[row, { color: MUTED, fontWeight: 600, fontSize: 7.4 }]} wrap={false} fixed>
             {['Bar', 'Temperature (°C)', 'Share of phase (%)', 'Current (A)', 'R_ac/R_dc', 'Loss (W/m)'].map((h, i) => (
               <Text key={h} style={{ width: i === 0 ? '30%' : '14%', textAlign: i === 0 ? 'left' : 'right', paddingRight: 3 }}>
                 {safe(h)}
