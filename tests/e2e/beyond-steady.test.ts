@@ -13,7 +13,7 @@ import { getSheet } from '@/db/queries/sheets';
 import { copyStandardCatalogueToTeam } from '@/db/seed/catalogue';
 import { computeBeyondSteady } from '@/lib/sheet/beyondSteady';
 import { formatNumber } from '@/lib/units';
-import { addCatalogueCopperBar, createSheetFromProject, signInInBrowser } from './sheet-steps';
+import { addCatalogueCopperBar, chooseOnlyCandidate, createSheetFromProject, signInInBrowser } from './sheet-steps';
 import { launchBrowser, screenshot } from '../helpers/browser';
 import { createTestTeam, createTestUser } from '../helpers/fixtures';
 
@@ -57,6 +57,7 @@ describe('over time on the sheet', () => {
     await page.getByTestId('picker-search').fill('copper XLPE/PVC 120 mm²');
     await page.getByTestId('candidate-picker').getByTestId('picker-add').first().click();
     await expect.poll(() => page.getByTestId('candidate-grid').innerText(), { timeout: 30_000 }).toContain('120 mm² copper XLPE/PVC single-core');
+    await chooseOnlyCandidate(page);
 
     const panel = page.getByTestId('beyond-steady');
     await panel.waitFor({ timeout: 30_000 });
