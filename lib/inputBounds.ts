@@ -70,7 +70,7 @@ export const INPUT_BOUNDS = {
     minExclusive: true,
     max: 36_000,
     basis:
-      'U₀ line to neutral up to 36 kV covers low- and medium-voltage distribution (product.md). The heat balance has no dielectric loss, which IEC 60287-1-1 adds for high-voltage cables (from memory), so higher voltages are refused rather than computed without it.',
+      'U₀ line to neutral up to 36 kV covers low- and medium-voltage distribution (the scope of this product). The heat balance has no dielectric loss, which IEC 60287-1-1 adds for high-voltage cables (from memory), so higher voltages are refused rather than computed without it.',
   },
   frequencyHz: { label: 'Frequency', unit: 'Hz', min: 0, max: 1000, basis: '0 is DC; 50/60 Hz mains and 400 Hz systems lie inside; the AC-resistance methods are flagged outside their main range.' },
   lengthM: { label: 'Route length', unit: 'm', min: 0, max: 100_000, basis: 'Up to 100 km: longer than any LV/MV feeder; the length enters only the voltage drop, losses and mass.' },

@@ -97,7 +97,10 @@ export function UserMenu({
               </li>
             </ul>
           </nav>
-          <SignOutButton className="btn-quiet mt-3 w-full justify-center" />
+          <a href="/profile" className="btn-quiet mt-3 w-full justify-center" data-testid="profile-link">
+            Profile and licence
+          </a>
+          <SignOutButton className="btn-quiet mt-1 w-full justify-center" />
         </div>
       ) : null}
     </div>

@@ -3,6 +3,7 @@
  * converted for display in the user's unit system, typed editors for admins, number filters on
  * numbers and text filters on text.
  */
+import { plainSource } from '@/lib/sheet/flagWords';
 import Decimal from 'decimal.js';
 import type { ColDef, ValueFormatterParams, ValueGetterParams } from 'ag-grid-community';
 import { CATALOGUE_COLUMNS, type ColumnSpec } from '@/lib/catalogue/columns';
@@ -97,6 +98,8 @@ export function columnDefsFor(
       width: isSource ? 260 : column.field === 'key' ? 170 : 200,
       filter: 'agTextColumnFilter',
       tooltipField: isSource ? column.field : undefined,
+      // Rows copied by an earlier version may name a design file of this repository (issue 22).
+      ...(isSource ? { valueFormatter: (p: ValueFormatterParams<GridRow>) => plainSource(String(p.value ?? '')), tooltipValueGetter: (p: { value?: unknown }) => plainSource(String(p.value ?? '')) } : {}),
       cellEditor: isSource ? 'agLargeTextCellEditor' : 'agTextCellEditor',
       cellEditorPopup: isSource,
       cellClass: isSource ? 'text-ink-600' : undefined,

@@ -7,6 +7,7 @@
  * flags and the caution. The sheet shows a live report; the sheet in review and the share page
  * show the one stored with the snapshot.
  */
+import { flagTitle, SEVERITY_WORDS } from '@/lib/sheet/flagWords';
 import { memo } from 'react';
 import { Plot, PLOT_CONFIG, PLOT_LAYOUT_BASE } from '@/components/plots/Plot';
 import { FIELD_CAUTION, type FieldReport } from '@/lib/sheet/crossSectionField';
@@ -109,8 +110,8 @@ export function FieldReportView({ report, units, otherLabels = [] }: { report: F
       {report.reviewFlags.length > 0 ? (
         <ul className="rounded-md border border-tight bg-tight-light px-3 py-1.5 text-body text-tight-dark" data-testid="field-review-flags">
           {report.reviewFlags.map((f) => (
-            <li key={f.code}>
-              <span className="font-mono">{f.code}</span> (review): {f.message}
+            <li key={f.code} data-flag-code={f.code}>
+              <span className="font-medium">{flagTitle(f.code)}</span> (for review): {f.message}
             </li>
           ))}
         </ul>
@@ -200,8 +201,8 @@ export function FieldReportView({ report, units, otherLabels = [] }: { report: F
           {report.flags.length > 0 ? (
             <ul className="mt-1 space-y-1 text-caption" data-testid="field-flags">
               {report.flags.map((f) => (
-                <li key={f.code + f.message} className={f.severity === 'review' ? 'text-tight-dark' : 'text-ink-600'}>
-                  <span className="font-mono">{f.code}</span> ({f.severity}): {f.message}
+                <li key={f.code + f.message} data-flag-code={f.code} className={f.severity === 'review' ? 'text-tight-dark' : 'text-ink-600'}>
+                  <span className="font-medium">{flagTitle(f.code)}</span> ({SEVERITY_WORDS[f.severity]}): {f.message}
                 </li>
               ))}
             </ul>

@@ -1,5 +1,8 @@
 'use client';
 
+import { flagTitle } from '@/lib/sheet/flagWords';
+import { sectionWords } from '@/lib/sheet/revisionWords';
+
 export interface HistoryItem {
   id: string;
   action: string;
@@ -24,10 +27,10 @@ const WORDS: Record<string, string> = {
 function describe(item: HistoryItem): string {
   const d = item.detail;
   if (item.action === 'sheet.save') {
-    const changed = Array.isArray(d.changed) && d.changed.length > 0 ? ` (${(d.changed as string[]).join(', ')})` : ' (no input changed)';
+    const changed = Array.isArray(d.changed) && d.changed.length > 0 ? ` (${(d.changed as string[]).map(sectionWords).join(', ')})` : ' (no input changed)';
     return `saved version ${String(d.toVersion ?? '')}${changed}`;
   }
-  if (item.action === 'sheet.flag.acknowledge') return `acknowledged ${String(d.flagCode)}: “${String(d.comment ?? '')}”`;
+  if (item.action === 'sheet.flag.acknowledge') return `acknowledged “${flagTitle(String(d.flagCode))}”: “${String(d.comment ?? '')}”`;
   if (item.action === 'sheet.create' && d.revisionOf) return `created revision ${String(d.revision)} from an approved sheet`;
   if (item.action === 'sheet.revise') return `started revision ${String(d.newRevision)}`;
   if (item.action === 'sheet.share.create') return `made a read-only link valid until ${String(d.expiresAt ?? '').slice(0, 16).replace('T', ' ')}`;

@@ -215,7 +215,7 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
   const addCandidate = (candidate: SheetCandidate) => {
     const next = [...values.candidates, candidate];
     form.setFieldValue('candidates', next);
-    if (values.chosenCandidateId === null && next.length === 1) form.setFieldValue('chosenCandidateId', candidate.id);
+    // Nothing is chosen for the designer (issue 22): the first candidate added waits for their choice.
     setFocusedId(candidate.id);
   };
   const removeCandidate = useCallback(
@@ -309,6 +309,11 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
             >
               Submit for review
             </button>
+          ) : null}
+          {editable && actor.can('sheet:submit') && !submitDecision.allowed ? (
+            <span className="max-w-md text-caption text-tight-dark" data-testid="submit-blocked-reason">
+              {submitDecision.reason}
+            </span>
           ) : null}
           {mayWithdraw ? (
             <button type="button" className="btn-quiet" onClick={() => transition.mutate({ action: 'withdraw' })} disabled={transition.isPending}>
@@ -477,7 +482,11 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
                   ▲ {mismatched.map((c) => c.label).join(', ')} {mismatched.length === 1 ? 'does' : 'do'} not suit the installation chosen ({values.installation.kind}); {mismatched.length === 1 ? 'it' : 'they'} will not evaluate until the installation matches.
                 </p>
               ) : null}
-              {values.chosenCandidateId === null ? <p className="mb-2 text-caption text-ink-600">No candidate chosen yet: choose one in the first column before submitting the sheet.</p> : null}
+              {values.chosenCandidateId === null && values.candidates.length > 0 ? (
+                <p role="status" className="mb-2 rounded-md border border-tight bg-tight-light px-3 py-1.5 text-body text-tight-dark" data-testid="choose-prompt">
+                  No candidate is chosen yet. Choose the one this sheet specifies with “Choose” in the first column; the sheet cannot be submitted for review until you do.
+                </p>
+              ) : null}
               <DeferredCandidateGrid rows={rows} units={units} focusedId={focusedId} onFocus={setFocusedId} onChoose={chooseCandidate} onRemove={removeCandidate} editable={editable} />
             </section>
           ) : null}

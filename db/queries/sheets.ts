@@ -379,6 +379,9 @@ export async function transitionSheet(
       .where(and(eq(sheets.teamId, teamId), eq(sheets.id, sheetId)))
       .returning({ version: sheets.version, status: sheets.status });
     if (action === 'submit') await recordContribution(tx, teamId, sheetId, actor.userId, 'submitted');
+    // The licence the approver signs with, as it stands now: a later profile change does not rewrite the package.
+    const [reviewerLicence] =
+      action === 'approve' ? await tx.select({ licenceNumber: users.licenceNumber, licenceJurisdiction: users.licenceJurisdiction }).from(users).where(and(eq(users.teamId, teamId), eq(users.id, actor.userId))) : [];
     await recordAudit(tx, {
       teamId,
       actorId: actor.userId,
@@ -390,7 +393,7 @@ export async function transitionSheet(
         to,
         ...(options.comment?.trim() ? { comment: options.comment.trim() } : {}),
         ...(action === 'approve'
-          ? { solverVersion: current.solverVersion, acknowledged: current.acknowledgements.map((a) => a.flagCode), chosenCandidateId: current.result?.chosenCandidateId ?? null }
+          ? { solverVersion: current.solverVersion, acknowledged: current.acknowledgements.map((a) => a.flagCode), chosenCandidateId: current.result?.chosenCandidateId ?? null, ...(reviewerLicence ? { reviewerLicence } : {}) }
           : {}),
       },
     });
@@ -408,7 +411,7 @@ export async function acknowledgeFlag(teamId: string, actor: Actor, sheetId: str
       throw new SheetOperationError(decision.code === 'forbidden' || decision.code === 'own_sheet' ? 403 : 409, decision.code, decision.reason);
     }
     const flag = current.result?.chosenFlags.find((f) => f.code === flagCode);
-    if (!flag) throw new SheetOperationError(404, 'not_found', `The chosen candidate has no flag ${flagCode}.`);
+    if (!flag) throw new SheetOperationError(404, 'not_found', `The chosen candidate has no such flag.`);
     if (flag.severity !== 'review') {
       throw new SheetOperationError(409, 'not_acknowledgeable', flag.severity === 'blocker' ? 'A blocker cannot be acknowledged away; the sheet must be changed.' : 'Notes need no acknowledgement.');
     }

@@ -47,6 +47,13 @@ export const users = pgTable(
     passwordHash: text('password_hash'),
     active: boolean('active').notNull().default(true),
     unitSystem: unitSystemEnum('unit_system').notNull().default('si'),
+    /**
+     * A reviewer's professional licence or registration number and the jurisdiction that issued
+     * it, printed beside their approval in the calculation package (issue 22); empty until the
+     * person enters them on their profile.
+     */
+    licenceNumber: text('licence_number').notNull().default(''),
+    licenceJurisdiction: text('licence_jurisdiction').notNull().default(''),
     /** Bumped on deactivation or password change so that older sessions stop working. */
     sessionEpoch: integer('session_epoch').notNull().default(0),
     createdAt: createdAt(),

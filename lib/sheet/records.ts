@@ -53,3 +53,33 @@ export interface SheetListItem {
   chosenLabel: string | null;
   chosenPasses: boolean | null;
 }
+
+/** One revision of a sheet in the calculation package's revision table (issue 22). */
+export interface RevisionRecord {
+  revision: number;
+  status: SheetStatus;
+  /** Parts of the inputs changed since the previous revision, in words; null for the first issue. */
+  changed: string[] | null;
+  editedBy: string[];
+  submittedBy: string[];
+  /** Who approved or returned it, and when. */
+  reviewedBy: string | null;
+  decision: 'approved' | 'returned' | null;
+  decidedAt: Date | null;
+  createdAt: Date;
+}
+
+/** What the calculation package adds to a sheet: its document number, its revisions and the approver's licence. */
+export interface CalculationPackage {
+  /** Stable across the revisions of one sheet (from its first revision). */
+  documentNumber: string;
+  /** Oldest first, ending with the sheet printed. */
+  revisions: RevisionRecord[];
+  /** The approver of the printed revision, with the licence recorded at approval (or their profile's). */
+  approver: { name: string; licenceNumber: string; licenceJurisdiction: string } | null;
+}
+
+/** "AW-1F3A9C2E": the first eight hex digits of the first revision's id. */
+export function documentNumberOf(firstRevisionId: string): string {
+  return `AW-${firstRevisionId.replace(/-/g, '').slice(0, 8).toUpperCase()}`;
+}

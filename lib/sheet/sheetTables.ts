@@ -5,6 +5,7 @@
  * come from candidateRow (lib/sheet/candidateRow.ts), which the candidate grid uses too. Pure
  * TypeScript (no React, no server code): the browser and the server both use it. SI units, as stored.
  */
+import { flagTitleList } from './flagWords';
 import type { CandidateEvaluation, CandidateEvaluationOk } from '@/lib/electrical/sizing/types';
 import { describeArrangement, sectionPerPhaseMm2, type SheetCandidate } from '@/lib/sheet/candidates';
 import type { SheetInputs } from '@/lib/sheet/schema';
@@ -327,7 +328,9 @@ export const CANDIDATE_EXPORT_COLUMNS: ReadonlyArray<{ header: string; value: (r
   { header: 'overload coordination', value: (r) => r.coordination },
   { header: 'smallest coordinated device (A)', value: (r) => r.smallestDeviceA },
   { header: 'disconnection', value: (r) => r.disconnection },
-  { header: 'assumption flags', value: (r) => r.flagCodes.join(' ') },
+  { header: 'assumption flags', value: (r) => flagTitleList(r.flagCodes) },
+  // The codes too, for a spreadsheet that filters on them (they are the API's stable keys).
+  { header: 'flag codes', value: (r) => r.flagCodes.join(' ') },
   { header: 'marked', value: (r) => r.marks.join('; ') },
   { header: 'not evaluated because', value: (r) => r.error },
 ];
@@ -391,8 +394,8 @@ function groupRows(e: CandidateEvaluationOk, otherLabels: readonly string[]): Ch
 export const METHOD_LINES: readonly string[] = [
   'Heat balance: steady one-dimensional finite-volume method (Patankar 1980) through the conductor and its coverings, with temperature-dependent Joule heating ρ(T) = ρ20[1 + α20(T − 20 °C)] (IEC 60287-1-1 Table 1 coefficients).',
   'Surfaces: natural convection by the Churchill and Chu (1975) correlations, forced convection by Churchill and Bernstein (1977) or flat-plate correlations, radiation with the Stefan–Boltzmann law, absorbed sun per IEC 60287-2-1 where outdoors.',
-  'Cables are rated as the group they lie in (physics.md §8): in free air by the IEC 60287-2-1 §4.2.1 surface law of the arrangement (an isolated cable by the correlations and radiation above); in the ground by superposition with images (IEC 60287-2-1 §4.2.3), each cable’s heat at its own temperature, the closed forms of §4.2.4 for a touching trefoil or row, ducts and backfill by §4.2.7; the hottest cable governs. Skin and proximity effects by IEC 60287-1-1 §2.1, screen losses by §2.3 where the screen is given.',
-  'Bus bars are rated as the three-phase system they form (physics.md §10): each bar’s share of the current and its R_ac/R_dc by the filament (partial-inductance) method, each bar of a pack in its own heat balance (outer faces as plates, gaps as channels by Bar-Cohen and Rohsenow 1984, radiation by view factors), the hottest bar governing; the maker’s AC/DC ratio where entered. Short-circuit forces on the bars and supports by IEC 60865-1 with i_p from IEC 60909-0, where the supports are described.',
+  'Cables are rated as the group they lie in: in free air by the IEC 60287-2-1 §4.2.1 surface law of the arrangement (an isolated cable by the correlations and radiation above); in the ground by superposition with images (IEC 60287-2-1 §4.2.3), each cable’s heat at its own temperature, the closed forms of §4.2.4 for a touching trefoil or row, ducts and backfill by §4.2.7; the hottest cable governs. Skin and proximity effects by IEC 60287-1-1 §2.1, screen losses by §2.3 where the screen is given.',
+  'Bus bars are rated as the three-phase system they form: each bar’s share of the current and its R_ac/R_dc by the filament (partial-inductance) method, each bar of a pack in its own heat balance (outer faces as plates, gaps as channels by Bar-Cohen and Rohsenow 1984, radiation by view factors), the hottest bar governing; the maker’s AC/DC ratio where entered. Short-circuit forces on the bars and supports by IEC 60865-1 with i_p from IEC 60909-0, where the supports are described.',
   'Protection, where a device is given: overload coordination by IEC 60364-4-43 §433.1 with I_z the rated ampacity above, automatic disconnection by IEC 60364-4-41 §411 with the conductors at their fault temperature, the protective conductor by IEC 60364-5-54 §543.1, third harmonics by IEC 60364-5-52 Annex E.',
   'Ampacity: the highest current at which the governing temperature stays at or under its limit, found by bracketing; cross-checked against an IEC 60287-style closed form.',
   'Voltage drop: IEC 60364-5-52 Annex G. Short circuit: IEC 60949 adiabatic method. Life-cycle cost: IEC 60287-3-2 loss-cost approach, where included.',

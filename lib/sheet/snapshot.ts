@@ -6,7 +6,8 @@
 import type { AssumptionFlag } from '../electrical/sizing/flags';
 import type { CandidateEvaluation, CandidateEvaluationOk } from '../electrical/sizing/types';
 import { SOLVER_VERSION } from '../electrical/version';
-import { computeSheet } from './compute';
+import { computeSheetWithCurves, type HotSpotCurve } from './compute';
+import { acrossPackPlot, hotSpotCurvePlot, type PackagePlot } from './packagePlots';
 import { savedFieldCheck, type FieldCheckOutcome } from './crossSectionField';
 import { optionalChecksReport, type OptionalCheckReport } from './optionalChecksReport';
 import type { SheetInputs } from './schema';
@@ -42,6 +43,12 @@ export interface ResultSnapshot {
    * and in snapshots older than the option.
    */
   crossSection?: FieldCheckOutcome;
+  /**
+   * The chosen candidate's plots for the calculation package: hot spot against current and, for a
+   * bus-bar pack, each bar's temperature across the packs (absent in older snapshots; the checks
+   * over time and along the run keep theirs in optionalChecks).
+   */
+  plots?: PackagePlot[];
 }
 
 /** The name of the two-dimensional cross-section among the optional checks (in the failures list). */
@@ -72,8 +79,14 @@ function slim(evaluation: CandidateEvaluation): CandidateEvaluation {
   return { ...evaluation, ampacity: { ...ampacity, profile: { geometry: _dropped.geometry, positionsM: [], temperaturesC: [], layers: _dropped.layers, hotSpot: _dropped.hotSpot } } };
 }
 
+function chosenPlots(chosen: CandidateEvaluationOk, curves: HotSpotCurve[]): PackagePlot[] {
+  const curve = curves.find((c) => c.candidateId === chosen.id);
+  return [curve ? hotSpotCurvePlot(curve, chosen) : null, acrossPackPlot(chosen)].filter((p): p is PackagePlot => p !== null);
+}
+
 export function buildSnapshot(inputs: SheetInputs, now = new Date()): ResultSnapshot {
-  const computation = computeSheet(inputs);
+  const chosenId = inputs.chosenCandidateId ?? undefined;
+  const { computation, curves } = computeSheetWithCurves(inputs, chosenId !== undefined, chosenId);
   const evaluations = computation.ok ? computation.comparison.evaluations.map(slim) : [];
   const idAt = (index: number | null) => (index === null ? null : (evaluations[index]?.id ?? null));
   const chosen = evaluations.find((e) => e.id === inputs.chosenCandidateId) ?? null;
@@ -100,6 +113,7 @@ export function buildSnapshot(inputs: SheetInputs, now = new Date()): ResultSnap
     optionalCheckFailures: optional.failures,
     optionalChecks,
     ...(crossSection ? { crossSection } : {}),
+    ...(chosen && chosen.ok ? { plots: chosenPlots(chosen, curves) } : {}),
   };
 }
 

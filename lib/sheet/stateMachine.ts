@@ -15,6 +15,8 @@
  * may not review their own sheet at all. Returning a sheet approves nothing, so an editor or
  * submitter who holds the reviewer right may still return it with a comment.
  */
+import { flagTitleList } from './flagWords';
+
 export type SheetStatus = 'draft' | 'in_review' | 'approved' | 'returned';
 export type SheetAction = 'edit' | 'submit' | 'withdraw' | 'approve' | 'return' | 'acknowledge' | 'revise';
 export type SheetPermission = 'sheet:write' | 'sheet:submit' | 'sheet:review';
@@ -115,10 +117,10 @@ export function decide(action: SheetAction, sheet: SheetForTransition, actor: Ac
         if (!readiness) return deny('not_ready', 'The sheet has no server result to approve.');
         if (!readiness.hasChosenCandidate) return deny('not_ready', 'No candidate is chosen on this sheet.');
         if (readiness.blockerCodes.length > 0) {
-          return deny('blocked', `A blocker flag prevents approval: ${readiness.blockerCodes.join(', ')}.`);
+          return deny('blocked', `A blocker prevents approval: ${flagTitleList(readiness.blockerCodes)}.`);
         }
         if (readiness.unacknowledgedReviewCodes.length > 0) {
-          return deny('not_ready', `Acknowledge every review flag first: ${readiness.unacknowledgedReviewCodes.join(', ')}.`);
+          return deny('not_ready', `Acknowledge every review flag first: ${flagTitleList(readiness.unacknowledgedReviewCodes)}.`);
         }
       }
       return allow;
@@ -126,7 +128,11 @@ export function decide(action: SheetAction, sheet: SheetForTransition, actor: Ac
       if (sheet.hasNewerRevision) return deny('wrong_state', 'A newer revision of this sheet exists; revise that one.');
       return allow;
     case 'submit':
-      if (readiness && !readiness.hasChosenCandidate) return deny('not_ready', 'Choose a candidate before submitting the sheet.');
+      // Nothing is chosen for the designer (issue 22), and a chosen candidate that fails is not sent to a reviewer.
+      if (readiness && !readiness.hasChosenCandidate) return deny('not_ready', 'Choose a candidate before submitting the sheet: none is chosen yet.');
+      if (readiness && readiness.blockerCodes.length > 0) {
+        return deny('blocked', `The chosen candidate has a blocker, so the sheet cannot be submitted: ${flagTitleList(readiness.blockerCodes)}. Change the sheet or choose another candidate.`);
+      }
       return allow;
     default:
       return allow;
@@ -162,8 +168,8 @@ export function availableActions(sheet: SheetForTransition, actor: Actor, readin
   const all: SheetAction[] = ['edit', 'submit', 'withdraw', 'acknowledge', 'approve', 'return', 'revise'];
   return all.filter((action) => {
     const decision = decide(action, sheet, actor, readiness);
-    // Approve stays visible (disabled, with the reason) when only the flags stand in the way.
-    return decision.allowed || (action === 'approve' && (decision.code === 'blocked' || decision.code === 'not_ready'));
+    // Approve and submit stay visible (disabled, with the reason) when only the result stands in the way.
+    return decision.allowed || ((action === 'approve' || action === 'submit') && (decision.code === 'blocked' || decision.code === 'not_ready'));
   });
 }
 

@@ -7,6 +7,7 @@
  * the governing cable, the ampacity by the field against the rating's, the mesh, the solver's
  * flags and the caution.
  */
+import { flagLine } from '@/lib/sheet/flagWords';
 import { Circle, Line, Rect, Svg, Text as SvgText, Text, View } from '@react-pdf/renderer';
 import { FIELD_CAUTION, fieldCableRows, fieldReportSentences, type FieldCheckOutcome, type FieldReport } from '@/lib/sheet/crossSectionField';
 import { isothermLevels, isotherms, viridisColour } from '@/lib/sheet/fieldPicture';
@@ -116,14 +117,14 @@ export function CrossSectionFieldSection({ outcome, otherLabels = [] }: { outcom
           ))}
           {report.reviewFlags.map((f) => (
             <Text key={f.code} style={{ marginTop: 2, color: '#6b4a06' }}>
-              {safe(`Flag ${f.code} (${f.severity}): ${f.message}`)}
+              {safe(`Flag: ${flagLine(f)}`)}
             </Text>
           ))}
           <Text style={{ marginTop: 2, color: MUTED }}>{safe(words.method)}</Text>
         </View>
       </View>
       <View style={{ marginTop: 4 }}>
-        <View style={{ flexDirection: 'row', borderBottomWidth: 0.5, borderBottomColor: RULE, paddingVertical: 1.6, color: MUTED, fontWeight: 600, fontSize: 7.4 }} wrap={false}>
+        <View style={{ flexDirection: 'row', borderBottomWidth: 0.5, borderBottomColor: RULE, paddingVertical: 1.6, color: MUTED, fontWeight: 600, fontSize: 7.4 }} wrap={false} fixed>
           {columns.map((c) => (
             <Text key={c.title} style={{ width: c.width, paddingRight: 3 }}>
               {safe(c.title)}
@@ -150,7 +151,7 @@ export function CrossSectionFieldSection({ outcome, otherLabels = [] }: { outcom
       ) : (
         report.flags.map((f, i) => (
           <Text key={i} style={{ marginTop: 1 }}>
-            {safe(`Field solver ${f.code} (${f.severity}): ${f.message}`)}
+            {safe(`Field solver: ${flagLine(f)}`)}
           </Text>
         ))
       )}

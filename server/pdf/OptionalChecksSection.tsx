@@ -3,6 +3,7 @@
  * run, inside the enclosure — physics.md §6) as the saved snapshot holds them (the wording of
  * lib/sheet/optionalChecksReport.ts, which the share link prints too), each with its own flags.
  */
+import { flagLine } from '@/lib/sheet/flagWords';
 import { Text, View } from '@react-pdf/renderer';
 import type { SheetInputs } from '@/lib/sheet/schema';
 import { savedOptionalChecks, type ResultSnapshot } from '@/lib/sheet/snapshot';
@@ -30,7 +31,7 @@ export function OptionalChecksSection({ inputs, snapshot }: { inputs: SheetInput
               <Text style={{ marginTop: 2, color: '#5b6b7d' }}>{safe(report.method)}</Text>
               {report.flags.map((f) => (
                 <Text key={f.code} style={{ marginTop: 1 }}>
-                  {safe(`Flag ${f.code} (${f.severity}): ${f.message}`)}
+                  {safe(`Flag: ${flagLine(f)}`)}
                 </Text>
               ))}
             </View>

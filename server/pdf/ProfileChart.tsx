@@ -27,24 +27,46 @@ export function niceTicks(min: number, max: number, count = 5): number[] {
   return ticks;
 }
 
-export function ProfileChart({ profile, limitC, limitLabel, widthPt = 523, heightPt = 210 }: { profile: HeatProfile; limitC: number; limitLabel: string; widthPt?: number; heightPt?: number }) {
+/**
+ * `soil`: a buried cable's surroundings, drawn beyond its surface as a band not to scale (the
+ * external resistance T₄ is a logarithm of the depth, not a layer of the radius) with the fall
+ * from the cable surface to the undisturbed ground temperature.
+ */
+export function ProfileChart({
+  profile,
+  limitC,
+  limitLabel,
+  widthPt = 523,
+  heightPt = 210,
+  soil,
+}: {
+  profile: HeatProfile;
+  limitC: number;
+  limitLabel: string;
+  widthPt?: number;
+  heightPt?: number;
+  soil?: { groundC: number; externalResistanceKmPerW: number | null };
+}) {
   const margin = { left: 42, right: 12, top: 22, bottom: 30 };
   const plotW = widthPt - margin.left - margin.right;
   const plotH = heightPt - margin.top - margin.bottom;
   const xsMm = profile.positionsM.map((m) => m * 1000);
-  const xMaxMm = Math.max(...profile.layers.map((l) => l.endM * 1000), ...xsMm);
+  const cableMaxMm = Math.max(...profile.layers.map((l) => l.endM * 1000), ...xsMm);
+  // The soil band takes a third more of the width beyond the surface.
+  const xMaxMm = soil ? cableMaxMm * 1.45 : cableMaxMm;
   const temps = profile.temperaturesC;
-  const tLow = Math.min(...temps, limitC);
+  const tLow = Math.min(...temps, limitC, ...(soil ? [soil.groundC] : []));
   const tHigh = Math.max(...temps, limitC);
   const pad = Math.max(2, (tHigh - tLow) * 0.08);
   const yTicks = niceTicks(tLow - pad, tHigh + pad, 5);
   const yMin = Math.min(yTicks[0], tLow - pad);
   const yMax = Math.max(yTicks[yTicks.length - 1], tHigh + pad);
-  const xTicks = niceTicks(0, xMaxMm, 6);
+  const xTicks = niceTicks(0, cableMaxMm, 6);
   const x = (mm: number) => margin.left + (mm / xMaxMm) * plotW;
   const y = (c: number) => margin.top + plotH - ((c - yMin) / (yMax - yMin)) * plotH;
   const points = xsMm.map((mm, i) => `${x(mm).toFixed(2)},${y(temps[i]).toFixed(2)}`).join(' ');
   const axisWord = profile.geometry === 'cylinder' ? 'radius from the conductor axis (mm)' : 'depth through the bar (mm)';
+  const surfaceC = temps[temps.length - 1];
   return (
     <Svg width={widthPt} height={heightPt} viewBox={`0 0 ${widthPt} ${heightPt}`}>
       {profile.layers.map((layer, i) => {
@@ -62,6 +84,18 @@ export function ProfileChart({ profile, limitC, limitLabel, widthPt = 523, heigh
           </G>
         );
       })}
+      {soil ? (
+        <G>
+          <Rect x={x(cableMaxMm)} y={margin.top} width={x(xMaxMm) - x(cableMaxMm)} height={plotH} fill="#efe6d6" />
+          <Text x={(x(cableMaxMm) + x(xMaxMm)) / 2} y={margin.top - 4} textAnchor="middle" style={{ fontSize: 6.5 }} fill={MUTED}>
+            soil (not to scale)
+          </Text>
+          <Line x1={x(cableMaxMm)} x2={x(xMaxMm)} y1={y(surfaceC)} y2={y(soil.groundC)} stroke={LINE} strokeWidth={1.1} strokeDasharray="3,2" />
+          <Text x={x(xMaxMm) - 2} y={y(soil.groundC) - 3} textAnchor="end" style={{ fontSize: 6.5 }} fill={INK}>
+            {pdfSafeText(`ground ${formatNumber(soil.groundC, 4)} °C${soil.externalResistanceKmPerW === null ? '' : `, T₄ = ${formatNumber(soil.externalResistanceKmPerW, 3)} K·m/W`}`)}
+          </Text>
+        </G>
+      ) : null}
       {yTicks.map((t) => (
         <G key={`y${t}`}>
           <Line x1={margin.left} x2={margin.left + plotW} y1={y(t)} y2={y(t)} stroke={GRID} strokeWidth={0.5} />

@@ -6,16 +6,21 @@
  * fixed band and a faint diagonal mark on every page; the caution is in the footer of every page.
  * Numbers come from the saved result snapshot only.
  */
+import { flagTitle } from '@/lib/sheet/flagWords';
 import { Document, Page, StyleSheet, Text, View } from '@react-pdf/renderer';
 import { CAUTION_TEXT } from '@/lib/caution';
 import { candidateRecords, chosenResultRows, formatDate, inputRows, METHOD_LINES } from '@/lib/sheet/sheetTables';
 import type { AssumptionFlag } from '@/lib/electrical/sizing/flags';
-import { chosenEvaluation, type ResultSnapshot } from '@/lib/sheet/snapshot';
+import { chosenEvaluation, savedOptionalChecks, type ResultSnapshot } from '@/lib/sheet/snapshot';
 import { STATUS_LABELS, type SheetStatus } from '@/lib/sheet/stateMachine';
 import type { SheetInputs } from '@/lib/sheet/schema';
+import type { CalculationPackage } from '@/lib/sheet/records';
 import { formatNumber } from '@/lib/units';
 import { PDF_FONT_FAMILY, pdfSafeText as safe } from './fonts';
 import { ProfileChart } from './ProfileChart';
+import { LineChart, legendWords } from './LineChart';
+import { CalculationPackageSection, RevisionTable } from './CalculationPackageSection';
+import type { PackagePlot } from '@/lib/sheet/packagePlots';
 import { OptionalChecksSection } from './OptionalChecksSection';
 import { CrossSectionChart } from './CrossSectionChart';
 import { BusbarSystemSection, ProtectionSection } from './SystemSection';
@@ -40,6 +45,8 @@ export interface PdfSheet {
   approvedAt: Date | string | null;
   updatedAt: Date | string;
   acknowledgements: { flagCode: string; comment: string; reviewerName: string | null; createdAt: Date | string }[];
+  /** Document number, revision table and the approver's licence (server/pdf/pdfRenderer sheetPackagePdf); absent in a bare rendering. */
+  calculationPackage?: CalculationPackage;
 }
 
 /** The marking of a sheet that is not approved: the same words on every page. */
@@ -73,7 +80,7 @@ const styles = StyleSheet.create({
   title: { fontSize: 16, fontWeight: 600, marginTop: 1 },
   subtitle: { fontSize: 10, color: MUTED },
   block: { marginTop: 8, flexDirection: 'row', flexWrap: 'wrap', borderWidth: 0.7, borderColor: RULE },
-  blockCell: { width: '25%', padding: 4, borderRightWidth: 0.5, borderBottomWidth: 0.5, borderColor: RULE },
+  blockCell: { width: '20%', padding: 4, borderRightWidth: 0.5, borderBottomWidth: 0.5, borderColor: RULE },
   blockLabel: { fontSize: 6.8, color: MUTED, textTransform: 'uppercase', letterSpacing: 0.4 },
   blockValue: { fontSize: 9, fontWeight: 600 },
   h2: { marginTop: 12, marginBottom: 3, fontSize: 11, fontWeight: 600, borderBottomWidth: 1, borderBottomColor: RULE, paddingBottom: 2 },
@@ -98,6 +105,7 @@ function toneOf(snapshotChosen: ReturnType<typeof chosenEvaluation>) {
 
 function TitleBlock({ sheet, generatedAt }: { sheet: PdfSheet; generatedAt: Date }) {
   const cells: [string, string][] = [
+    ['Document number', sheet.calculationPackage?.documentNumber ?? 'not numbered (no package data)'],
     ['Project', sheet.projectName],
     ['Circuit', `${sheet.circuitTag} — ${sheet.title}`],
     ['Revision', `${sheet.revision} (saved version ${sheet.version})`],
@@ -106,6 +114,7 @@ function TitleBlock({ sheet, generatedAt }: { sheet: PdfSheet; generatedAt: Date
     ['Reviewer', sheet.reviewerName ?? 'not reviewed yet'],
     [sheet.status === 'approved' ? 'Approved on' : 'Last saved', formatDate(sheet.status === 'approved' ? sheet.approvedAt : sheet.updatedAt)],
     ['Printed', formatDate(generatedAt)],
+    ['Units', 'SI throughout'],
   ];
   return (
     <View style={styles.block}>
@@ -122,7 +131,8 @@ function TitleBlock({ sheet, generatedAt }: { sheet: PdfSheet; generatedAt: Date
 function Table({ columns, rows, bold }: { columns: { title: string; width: string; align?: 'right' }[]; rows: string[][]; bold?: (index: number) => boolean }) {
   return (
     <View>
-      <View style={[styles.row, styles.head]} wrap={false}>
+      {/* fixed: the header row repeats on every page the table runs onto. */}
+      <View style={[styles.row, styles.head]} wrap={false} fixed>
         {columns.map((c) => (
           <Text key={c.title} style={{ width: c.width, paddingRight: 3, textAlign: c.align ?? 'left' }}>
             {safe(c.title)}
@@ -157,11 +167,62 @@ function FlagItem({ flag, ack }: { flag: AssumptionFlag; ack?: PdfSheet['acknowl
       <Text style={[styles.badge, { color: look.tone.text, backgroundColor: look.tone.light, borderColor: look.tone.fill }]}>{look.word}</Text>
       <View style={{ flex: 1 }}>
         <Text>
-          <Text style={{ fontWeight: 600 }}>{safe(`${flag.code} · ${flag.title}. `)}</Text>
+          <Text style={{ fontWeight: 600 }}>{safe(`${flag.title ?? flagTitle(flag.code)}. `)}</Text>
           {safe(flag.message)}
         </Text>
         <Text style={{ color: ack ? WITHIN.text : flag.severity === 'review' ? TIGHT.text : MUTED, marginTop: 1 }}>{safe(ackText)}</Text>
       </View>
+    </View>
+  );
+}
+
+function PlotBlock({ plot }: { plot: PackagePlot }) {
+  const legend = legendWords(plot);
+  return (
+    <View wrap={false} style={{ marginTop: 6 }}>
+      <Text style={{ fontWeight: 600, fontSize: 9 }}>{safe(`Plot: ${plot.title}`)}</Text>
+      <LineChart plot={plot} />
+      {legend ? <Text style={styles.muted}>{safe(legend)}</Text> : null}
+    </View>
+  );
+}
+
+/**
+ * The plots a reviewer looks at: the heat-balance profile (for a buried cable with the soil to the
+ * ground), hot spot against current, and where the sheet has them over time, along the run and
+ * across a bus-bar pack. A bar's temperature through its thickness is flat by physics (copper
+ * conducts within a fraction of a kelvin), so a bar shows the run or the pack instead when it has
+ * them, and says why its profile is flat when it has not.
+ */
+function ReviewPlots({ sheet }: { sheet: PdfSheet }) {
+  const snapshot = sheet.result;
+  const chosen = chosenEvaluation(snapshot);
+  if (!chosen) return null;
+  const optionalPlots = savedOptionalChecks(snapshot, sheet.inputs).flatMap((r) => r.plots ?? []);
+  const plots = [...(snapshot?.plots ?? []), ...optionalPlots];
+  const barHasMore = chosen.kind === 'bar' && plots.some((p) => p.id === 'along-run' || p.id === 'across-pack');
+  const buried = sheet.inputs.installation.kind === 'buried';
+  return (
+    <View>
+      <Text style={styles.h2} minPresenceAhead={120}>{safe(`Plots for review: ${chosen.label}`)}</Text>
+      {chosen.profile && !barHasMore ? (
+        <View wrap={false}>
+          <Text style={{ fontWeight: 600, fontSize: 9 }}>
+            {safe(`Plot: heat-balance profile at ${formatNumber(chosen.designCurrentA, 4)} A${chosen.kind === 'cable' ? ', through the conductor and its layers' : ', through the thickness of the bar'}${buried ? ', with the soil to the ground' : ''}`)}
+          </Text>
+          <ProfileChart
+            profile={chosen.profile}
+            limitC={chosen.limit.temperatureC}
+            limitLabel={chosen.limit.layer ?? chosen.limit.source}
+            {...(buried ? { soil: { groundC: chosen.ambientC, externalResistanceKmPerW: chosen.ampacity.closedForm?.externalResistanceKmPerW ?? null } } : {})}
+          />
+          {chosen.kind === 'bar' ? <Text style={styles.muted}>The temperature through a bar’s thickness is flat: the metal conducts the heat across within a fraction of a kelvin.</Text> : null}
+        </View>
+      ) : null}
+      {plots.map((plot) => (
+        <PlotBlock key={`${plot.id}-${plot.title}`} plot={plot} />
+      ))}
+      {snapshot?.plots === undefined ? <Text style={[styles.muted, { marginTop: 3 }]}>The hot spot against current was not saved with this result (an earlier version saved it); save the sheet again to include it.</Text> : null}
     </View>
   );
 }
@@ -194,19 +255,19 @@ export function SizingSheetDocument({ sheet, generatedAt = new Date() }: { sheet
         <View style={styles.footer} fixed>
           <Text>{safe(`Caution: ${CAUTION_TEXT.join(' ')}`)}</Text>
           <View style={styles.footerRow}>
-            <Text>{safe(`${sheet.circuitTag} rev ${sheet.revision} · ${approved ? 'Approved' : NOT_APPROVED_MARK}`)}</Text>
-            <Text render={({ pageNumber, totalPages }) => `page ${pageNumber} of ${totalPages}`} />
+            <Text>{safe(`${sheet.calculationPackage ? `${sheet.calculationPackage.documentNumber} · ` : ''}${sheet.circuitTag} rev ${sheet.revision} · ${approved ? 'Approved' : NOT_APPROVED_MARK}`)}</Text>
+            <Text render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`} />
           </View>
         </View>
         <View style={styles.header} fixed>
           <View style={styles.headerLine}>
-            <Text>{safe(`Ampwarden sizing sheet · ${sheet.circuitTag} · revision ${sheet.revision}`)}</Text>
+            <Text>{safe(`Calculation package${sheet.calculationPackage ? ` ${sheet.calculationPackage.documentNumber}` : ''} · ${sheet.circuitTag} · revision ${sheet.revision}`)}</Text>
             <Text>{safe(`${sheet.projectName} · ${STATUS_LABELS[sheet.status]}`)}</Text>
           </View>
           {!approved ? <Text style={styles.draftBand}>{safe(notApprovedLine(sheet.status))}</Text> : null}
         </View>
 
-        <Text style={styles.brand}>AMPWARDEN · SIZING SHEET</Text>
+        <Text style={styles.brand}>AMPWARDEN · SIZING SHEET · CALCULATION PACKAGE</Text>
         <Text style={styles.title}>{safe(`${sheet.circuitTag} — ${sheet.title}`)}</Text>
         <Text style={styles.subtitle}>{safe(sheet.projectName)}</Text>
         <TitleBlock sheet={sheet} generatedAt={generatedAt} />
@@ -220,6 +281,8 @@ export function SizingSheetDocument({ sheet, generatedAt = new Date() }: { sheet
             <Text style={{ marginTop: 2, fontWeight: 600 }}>{safe(reEvaluationFiguresLine(reEvaluation))}</Text>
           </View>
         ) : null}
+
+        <RevisionTable sheet={sheet} />
 
         <Text style={styles.h2} minPresenceAhead={80}>Result of the chosen candidate</Text>
         {chosen ? (
@@ -305,12 +368,7 @@ export function SizingSheetDocument({ sheet, generatedAt = new Date() }: { sheet
         <Text style={styles.h2} minPresenceAhead={60}>{safe(`Assumption flags of the chosen candidate (${flags.length})`)}</Text>
         {flags.length === 0 ? <Text style={styles.muted}>No assumption flags were raised for the chosen candidate.</Text> : flags.map((f) => <FlagItem key={f.code} flag={f} ack={ackByCode.get(f.code)} />)}
 
-        {chosen?.profile ? (
-          <View wrap={false}>
-            <Text style={styles.h2}>{safe(`Heat-balance profile at ${formatNumber(chosen.designCurrentA, 4)} A: ${chosen.label}`)}</Text>
-            <ProfileChart profile={chosen.profile} limitC={chosen.limit.temperatureC} limitLabel={chosen.limit.layer ?? chosen.limit.source} />
-          </View>
-        ) : null}
+        <ReviewPlots sheet={sheet} />
 
         <Text style={styles.h2} minPresenceAhead={60}>{safe(`Candidates compared (${records.length})`)}</Text>
         {records.length === 0 ? (
@@ -378,6 +436,8 @@ export function SizingSheetDocument({ sheet, generatedAt = new Date() }: { sheet
           </Text>
         ))}
         <Text style={{ marginTop: 2 }}>Every result above rests on the assumption flags listed with it; a flag is never hidden or dropped from this document.</Text>
+
+        <CalculationPackageSection sheet={sheet} />
 
       </Page>
     </Document>

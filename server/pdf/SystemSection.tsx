@@ -6,6 +6,7 @@
  * and the protection verdicts — each with the flags of that check beside it, in the words of
  * lib/sheet/systemWords (which the sheet and the share page use too).
  */
+import { flagLine } from '@/lib/sheet/flagWords';
 import { Line, Rect, Svg, Text, View } from '@react-pdf/renderer';
 import type { CandidateEvaluationOk } from '@/lib/electrical/sizing/types';
 import { busbarDrawing, busbarDrawingInputOf, type BusbarPrimitive, type BusbarView } from '@/lib/sheet/busbarDrawing';
@@ -84,7 +85,7 @@ function Flags({ e, codes }: { e: CandidateEvaluationOk; codes: readonly string[
     <View style={{ marginTop: 2 }}>
       {flags.map((f) => (
         <Text key={f.code} style={{ marginTop: 1, color: f.severity === 'blocker' ? OVER : MUTED }}>
-          {safe(`Flag ${f.code} (${f.severity}): ${f.message}`)}
+          {safe(`Flag: ${flagLine(f)}`)}
         </Text>
       ))}
     </View>
@@ -116,7 +117,7 @@ export function BusbarSystemSection({ inputs, chosen }: { inputs: SheetInputs; c
       {pack ? (
         <View style={{ marginTop: 4 }}>
           <Text style={{ fontWeight: 600 }}>{safe(`Governs: ${hottestBarText(pack)}; the worst phase's R_ac/R_dc ${n(pack.acFactor)}.`)}</Text>
-          <View style={[row, { color: MUTED, fontWeight: 600, fontSize: 7.4 }]} wrap={false}>
+          <View style={[row, { color: MUTED, fontWeight: 600, fontSize: 7.4 }]} wrap={false} fixed>
             {['Bar', 'Temperature (°C)', 'Share of phase (%)', 'Current (A)', 'R_ac/R_dc', 'Loss (W/m)'].map((h, i) => (
               <Text key={h} style={{ width: i === 0 ? '30%' : '14%', textAlign: i === 0 ? 'left' : 'right', paddingRight: 3 }}>
                 {safe(h)}

@@ -11,6 +11,7 @@
  * out first.
  */
 import { Worker } from 'node:worker_threads';
+import { calculationPackageOf } from '@/db/queries/calculationPackage';
 import { ApiError } from '@/server/http/errors';
 import { ThreadCrashError, ThreadPool, ThreadTaskError, ThreadTimeLimitError } from '@/server/threads/pool';
 import type { PdfSheet } from './SizingSheetDocument';
@@ -96,4 +97,13 @@ export function sheetPdf(sheet: PdfSheet & { version: number }): Promise<Uint8Ar
   );
   evict(entries);
   return entry.pdf;
+}
+
+/**
+ * The calculation package of a saved sheet (issue 22): the sheet with its document number,
+ * revision table and approver's licence, rendered as above. Every route that hands out a sheet's
+ * PDF uses this.
+ */
+export async function sheetPackagePdf(sheet: PdfSheet & { teamId: string; previousRevisionId: string | null; reviewerId: string | null }): Promise<Uint8Array> {
+  return sheetPdf({ ...sheet, calculationPackage: await calculationPackageOf(sheet.teamId, sheet) });
 }

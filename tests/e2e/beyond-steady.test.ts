@@ -4,6 +4,7 @@
 // the hot-spot plot. The figures on screen are the ones lib/sheet computeBeyondSteady gives for the
 // same inputs, run here in the test. A bad CSV is refused with a message naming the row and the
 // cell, and leaves the good profile in place. Saved and reloaded, the inputs are still there.
+import { flagLine, flagTitle, SEVERITY_WORDS } from '@/lib/sheet/flagWords';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { closeDb } from '@/db/client';
@@ -12,7 +13,7 @@ import { getSheet } from '@/db/queries/sheets';
 import { copyStandardCatalogueToTeam } from '@/db/seed/catalogue';
 import { computeBeyondSteady } from '@/lib/sheet/beyondSteady';
 import { formatNumber } from '@/lib/units';
-import { addCatalogueCopperBar, createSheetFromProject, signInInBrowser } from './sheet-steps';
+import { addCatalogueCopperBar, chooseOnlyCandidate, createSheetFromProject, signInInBrowser } from './sheet-steps';
 import { launchBrowser, screenshot } from '../helpers/browser';
 import { createTestTeam, createTestUser } from '../helpers/fixtures';
 
@@ -56,6 +57,7 @@ describe('over time on the sheet', () => {
     await page.getByTestId('picker-search').fill('copper XLPE/PVC 120 mm²');
     await page.getByTestId('candidate-picker').getByTestId('picker-add').first().click();
     await expect.poll(() => page.getByTestId('candidate-grid').innerText(), { timeout: 30_000 }).toContain('120 mm² copper XLPE/PVC single-core');
+    await chooseOnlyCandidate(page);
 
     const panel = page.getByTestId('beyond-steady');
     await panel.waitFor({ timeout: 30_000 });
@@ -119,7 +121,7 @@ describe('over time on the sheet', () => {
     expect(resultText).toContain(`Daily load, peak after ${daily!.days} days`);
     expect(resultText).toContain(`${formatNumber(daily!.peakC, 4)} °C at ${formatNumber(daily!.peakTimeS / 3600, 3)} h`);
     expect(flags.map((f) => f.code)).toContain('OVERLOAD_LIMIT_REACHED');
-    for (const flag of flags) expect(flagText).toContain(`${flag.code} (${flag.severity})`);
+    for (const flag of flags) expect(flagText).toContain(`${flagTitle(flag.code)} (${SEVERITY_WORDS[flag.severity]})`);
     expect(plotted).toContain(`limit ${formatNumber(limitC, 3)} °C`);
 
     // Reload: the checks and their inputs come back from the server.
@@ -165,7 +167,7 @@ describe('over time on the sheet', () => {
     expect(resultText).toContain(`${formatNumber(hotSpot.temperatureC, 4)} °C at ${formatNumber(hotSpot.positionM, 3)} m of ${formatNumber(limitC, 4)} °C`);
     expect(joints[0].assumed).toBe(true);
     expect(flags.map((f) => f.code)).toContain('JOINT_RESISTANCE_ASSUMED');
-    for (const flag of flags) expect(flagText).toContain(`${flag.code} (${flag.severity})`);
+    for (const flag of flags) expect(flagText).toContain(`${flagTitle(flag.code)} (${SEVERITY_WORDS[flag.severity]})`);
     await page.context().close();
   }, 300_000);
 });

@@ -30,7 +30,19 @@ export async function createSheetFromProject(page: Page, projectId: string, shee
   return page.url().split('/').pop()!;
 }
 
-/** Adds one copper bar of the team's catalogue to a sheet that has no candidates yet. */
+/**
+ * Chooses the sheet's one candidate with its "Choose" link, as a designer must: nothing is chosen
+ * for them (issue 22).
+ */
+export async function chooseOnlyCandidate(page: Page): Promise<void> {
+  const choose = page.getByTestId('candidate-grid').locator('[data-testid^="choose-"]');
+  await expect.poll(() => choose.count(), { timeout: 30_000 }).toBeGreaterThan(0);
+  // dispatched: the sticky result strip may cover the grid after Playwright scrolls to it
+  await choose.first().dispatchEvent('click');
+  await expect.poll(() => page.getByTestId('result-strip').innerText(), { timeout: 30_000 }).toMatch(/Chosen:/);
+}
+
+/** Adds one copper bar of the team's catalogue to a sheet that has no candidates yet, and chooses it. */
 export async function addCatalogueCopperBar(page: Page, size: string): Promise<void> {
   await page.getByTestId('no-candidates').getByTestId('add-candidates').click();
   const picker = page.getByTestId('candidate-picker');
@@ -40,4 +52,5 @@ export async function addCatalogueCopperBar(page: Page, size: string): Promise<v
   await page.getByTestId('picker-search').fill(size);
   await picker.getByRole('button', { name: `Add 1 × ${size} mm Copper bar`, exact: true }).click();
   await expect.poll(() => page.getByTestId('candidate-grid').innerText(), { timeout: 30_000 }).toContain(`${size} mm Copper bar`);
+  await chooseOnlyCandidate(page);
 }

@@ -22,7 +22,7 @@ import type { CandidateEvaluationOk } from '@/lib/electrical/sizing/types';
 import { computeSheet } from '@/lib/sheet/compute';
 import { forcesLines, hottestBarText, packBarRows } from '@/lib/sheet/systemWords';
 import { formatNumber, formatQuantity } from '@/lib/units';
-import { createSheetFromProject, signInInBrowser } from './sheet-steps';
+import { chooseOnlyCandidate, createSheetFromProject, signInInBrowser } from './sheet-steps';
 import { appUrl, launchBrowser, screenshot } from '../helpers/browser';
 import { createTestTeam, createTestUser } from '../helpers/fixtures';
 
@@ -88,6 +88,7 @@ describe('a bus-bar pack and its protection on the sheet', () => {
     await picker.getByRole('button', { name: 'Add 3 × 100 × 10 mm Copper bar', exact: true }).click();
     await expect.poll(() => page.getByTestId('candidate-grid').innerText(), { timeout: 30_000 }).toContain('3 × 100 × 10 mm Copper bar');
     await picker.getByRole('button', { name: 'Done' }).click();
+    await chooseOnlyCandidate(page);
 
     // The system: typed, and the supports chosen from the keyboard.
     await page.getByTestId('input-phase-spacing').fill('200');

@@ -40,14 +40,14 @@ export type BusbarFlagCode = (typeof BUSBAR_FLAG_CODES)[number];
 /** Severity, title and basis of each code, as the sizing layer's registry holds them (lib/electrical/sizing/flags.ts). */
 export const BUSBAR_FLAG_DEFINITIONS: Readonly<Record<BusbarFlagCode, Readonly<{ severity: BusbarFlagSeverity; title: string; basis: string }>>> = Object.freeze({
   BUSBAR_CHANNEL_OUT_OF_RANGE: { severity: 'review', title: 'Gap between bars outside the channel correlation', basis: 'Bar-Cohen & Rohsenow (1984) vertical parallel-plate channels, stated range' },
-  BUSBAR_CHANNEL_LIMITED_TO_PLATE: { severity: 'note', title: 'Gap convection capped at the open-plate value', basis: 'physics.md §10 (a channel never cools better than a free plate)' },
-  BUSBAR_FLAT_GAP_NO_CONVECTION: { severity: 'review', title: 'No convection credited inside flat bars\u2019 gaps', basis: 'physics.md §10 (horizontal gaps: cautious)' },
+  BUSBAR_CHANNEL_LIMITED_TO_PLATE: { severity: 'note', title: 'Gap convection capped at the open-plate value', basis: 'Bar-Cohen & Rohsenow (1984) channels against Churchill & Chu (1975) plates (a channel never cools better than a free plate)' },
+  BUSBAR_FLAT_GAP_NO_CONVECTION: { severity: 'review', title: 'No convection credited inside flat bars\u2019 gaps', basis: 'Bar-Cohen & Rohsenow (1984) covers vertical channels only (horizontal gaps: cautious)' },
   BUSBAR_FLAT_SLOT_RADIATION_TO_ROOM: { severity: 'note', title: 'Radiation leaving a flat pack\u2019s gaps counted as reaching the room', basis: 'view factors of the gap openings (slightly optimistic)' },
-  BUSBAR_EDGE_CONVECTION: { severity: 'note', title: 'Narrow edges of the bars', basis: 'physics.md §2 (edges convect as the plate)' },
+  BUSBAR_EDGE_CONVECTION: { severity: 'note', title: 'Narrow edges of the bars', basis: 'Churchill & Chu (1975) plate correlation (edges convect as the plate)' },
   BUSBAR_PLATE_OUT_OF_RANGE: { severity: 'review', title: 'Plate correlation outside its stated range', basis: 'Churchill & Chu (1975), stated range' },
   BUSBAR_BARS_ISOTHERMAL: { severity: 'note', title: 'Each bar at one temperature', basis: 'conduction across a copper or aluminium bar keeps it within a fraction of a kelvin' },
   BUSBAR_PACK_ISOTHERMAL: { severity: 'review', title: 'A pack\u2019s bars taken at one temperature', basis: 'the optimistic bound: perfectly conducting spacers' },
-  BUSBAR_NO_STEADY_STATE: { severity: 'blocker', title: 'No steady state for the bus-bar pack', basis: 'physics.md §1 (runaway)' },
+  BUSBAR_NO_STEADY_STATE: { severity: 'blocker', title: 'No steady state for the bus-bar pack', basis: 'thermal runaway: no steady heat balance exists (Patankar (1980), Numerical Heat Transfer and Fluid Flow)' },
   BUSBAR_KAPPA_DEFAULTED: { severity: 'review', title: 'Peak factor κ assumed', basis: 'IEC 60909-0 κ from R/X (κ = 2.0 without it, cautious)' },
   BUSBAR_DYNAMIC_FACTORS_DEFAULTED: { severity: 'review', title: 'Dynamic factors of IEC 60865-1 assumed', basis: 'IEC 60865-1 V_σ·V_r, V_F·V_r without reclosing (from memory)' },
   BUSBAR_YIELD_STRENGTH_DEFAULTED: { severity: 'review', title: 'Yield strength of the bar material assumed', basis: 'R_p0.2 default per material (from memory)' },

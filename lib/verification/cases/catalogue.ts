@@ -33,7 +33,7 @@ function tableCase(id: string, title: string, material: 'copper' | 'aluminium', 
     id,
     title,
     area: 'catalogue',
-    source: { kind: 'from memory', fromMemory: true, citation: `IEC 60228 Table 2, class 2 plain ${material === 'copper' ? 'copper' : 'aluminium'}, maximum Ω/km at 20 °C (references.md, from memory)` },
+    source: { kind: 'from memory', fromMemory: true, citation: `IEC 60228 Table 2, class 2 plain ${material === 'copper' ? 'copper' : 'aluminium'}, maximum Ω/km at 20 °C (from memory)` },
     inputs: [
       { name: 'catalogue', value: 'standard catalogue seeded into every team (lib/catalogue/standardData.ts)' },
       { name: 'sizes checked', value: table.map(([s]) => s).join(', '), unit: 'mm²' },

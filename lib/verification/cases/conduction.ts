@@ -51,7 +51,7 @@ const planeWall: VerificationCase = {
   notes:
     "T(x) = q'''L²/(2k)·(1 − x²/L²) + (T₂ − T₁)/2·x/L + (T₁ + T₂)/2 on x ∈ [−L, L]; q'''L²/k = 100 K. " +
     'The half-cell boundary flux of a cell-centred scheme does not reproduce a parabola, so the nodal error is of second order and not zero: ' +
-    'a few hundredths of a kelvin at 60 cells (references.md). Heat leaving both faces together equals 2Lq\'\'\' exactly.',
+    'a few hundredths of a kelvin at 60 cells (Patankar 1980, second-order cell-centred scheme). Heat leaving both faces together equals 2Lq\'\'\' exactly.',
   quantities: [
     { key: 'maxError', label: 'largest nodal error against the closed form, 60 cells', unit: 'K', reference: 0, tolerance: { kind: 'absolute', value: 0.05 } },
     { key: 'heatOut', label: 'heat leaving both faces', unit: 'W/m²', reference: 2 * wall.halfThicknessM * wall.generation, tolerance: { kind: 'relative', value: 1e-6 } },

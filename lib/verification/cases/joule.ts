@@ -46,7 +46,7 @@ const commonInputs = [
 const arithmetic = `R₂₀ = ρ₂₀/(πr²) = ${r20.toPrecision(6)} Ω/m; R_th = ${rTh.toPrecision(6)} K·m/W; I_r = 1/√(R₂₀αR_th) = ${runawayA.toPrecision(7)} A.`;
 const source = {
   kind: 'textbook' as const,
-  citation: 'references.md closed form: conductor with R(T) behind a constant R_th (IEC 60287-1-1 eq. (1) structure, W_d = 0, λ = 0)',
+  citation: 'Closed form worked by hand: conductor with R(T) behind a constant R_th (IEC 60287-1-1 eq. (1) structure, W_d = 0, λ = 0)',
 };
 
 const designCurrentA = 1000;

@@ -590,6 +590,14 @@ export const ENDPOINT_MATRIX: MatrixEntry[] = [
   },
   {
     kind: 'action',
+    file: 'server/auth/profileActions.ts',
+    name: 'saveProfessionalProfileAction',
+    // Every signed-in person edits their own licence and jurisdiction (issue 22), nobody else's.
+    expect: signedIn(401, { viewer: 200, designer: 200, reviewer: 200, otherAdmin: 200, admin: 200 }),
+    args: () => [{ licenceNumber: 'PE-0001 (test)', licenceJurisdiction: 'Invented Province (test)' }],
+  },
+  {
+    kind: 'action',
     file: 'app/(workspace)/projects/actions.ts',
     name: 'createProjectAction',
     // Success ends in redirect() to the new project, which a fetch-style action call answers with 200 and an

@@ -5,6 +5,7 @@
 // saved inputs (lib/sheet/beyondSteady.ts computeBeyondSteady, run here in the test), every flag
 // of both checks with its code, severity and sentence, and the caution on the pages that show
 // them. The same sheet saved with the checks off has no such section.
+import { flagLine, flagTitle, SEVERITY_WORDS } from '@/lib/sheet/flagWords';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { extractText, getDocumentProxy } from 'unpdf';
 import { closeDb } from '@/db/client';
@@ -129,7 +130,7 @@ describe('PDF: "Over time" and "Along the run"', () => {
     // 7000 A is well above this bar's ampacity: the hour-long overload cannot be carried.
     expect(o.passes).toBe(false);
     expect(codes).toContain('OVERLOAD_LIMIT_REACHED');
-    for (const flag of [...t.flags, ...a.flags]) expect(all).toContain(fold(`Flag ${flag.code} (${flag.severity}): ${flag.message}`));
+    for (const flag of [...t.flags, ...a.flags]) expect(all).toContain(fold(`Flag: ${flagLine(flag)}`));
 
     // The caution on every page that shows these results.
     const showing = pages.filter((p) => p.includes(OVER_TIME_HEADING) || p.includes(ALONG_RUN_HEADING));
@@ -146,7 +147,7 @@ describe('PDF: "Over time" and "Along the run"', () => {
     expect(all).toContain(bar.label);
     expect(all).not.toContain(OVER_TIME_HEADING);
     expect(all).not.toContain(ALONG_RUN_HEADING);
-    expect(all).not.toContain('FAULT_HEAT_INTO_COVERINGS');
-    expect(all).not.toContain('JOINT_RESISTANCE_ASSUMED');
+    expect(all).not.toContain(flagTitle('FAULT_HEAT_INTO_COVERINGS'));
+    expect(all).not.toContain(flagTitle('JOINT_RESISTANCE_ASSUMED'));
   });
 });

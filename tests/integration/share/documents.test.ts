@@ -2,6 +2,7 @@
 // (extracted with unpdf) names the circuit, the chosen section, the hot spot and the limit of the
 // saved snapshot, every flag code of the chosen candidate and the cautions, and a sheet that is not
 // approved says "NOT APPROVED" on every page. The CSV and XLSX hold the saved snapshot's numbers.
+import { flagTitle } from '@/lib/sheet/flagWords';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import ExcelJS from 'exceljs';
 import Papa from 'papaparse';
@@ -12,6 +13,7 @@ import { CAUTION_TEXT } from '@/lib/caution';
 import { chosenEvaluation } from '@/lib/sheet';
 import { formatNumber } from '@/lib/units';
 import { renderSheetPdf } from '@/server/pdf/renderSheetPdf';
+import { pdfSafeText } from '@/server/pdf/pdfText';
 import { NOT_APPROVED_MARK } from '@/server/pdf/SizingSheetDocument';
 import { candidatesCsv, candidatesXlsx } from '@/server/share/candidateExport';
 import { createTestTeam, createTestUser } from '../../helpers/fixtures';
@@ -52,7 +54,9 @@ describe('the PDF sizing sheet', () => {
     expect(all).toContain(`${formatNumber(chosen.ampacityA, 4)} A`);
     const codes = sheet.result!.chosenFlags.map((f) => f.code);
     expect(codes.length).toBeGreaterThan(0);
-    for (const code of codes) expect(all).toContain(code);
+    // Each flag by its title, never its code (issue 22).
+    for (const code of codes) expect(all).toContain(pdfSafeText(flagTitle(code)));
+    for (const code of codes) expect(all).not.toContain(code);
     for (const line of CAUTION_TEXT) expect(all).toContain(line);
     expect(all).toContain('IEC 60949');
     expect(all).toContain('IEC 60364-5-52 Annex G');
@@ -85,7 +89,8 @@ describe('candidate exports', () => {
       expect(Number(row['hot spot (°C)'])).toBe(e.hotSpotC);
       expect(Number(row['ampacity (A)'])).toBe(e.ampacityA);
       expect(Number(row['limit (°C)'])).toBe(e.limit.temperatureC);
-      expect(row['assumption flags'].split(' ').sort()).toEqual(e.flags.map((f) => f.code).sort());
+      expect(row['flag codes'].split(' ').sort()).toEqual(e.flags.map((f) => f.code).sort());
+      expect(row['assumption flags']).toBe(e.flags.map((f) => flagTitle(f.code)).join('; '));
       expect(row.chosen).toBe(e.id === 'cu-xlpe-240' ? 'yes' : 'no');
     }
     // The 50 mm² PVC cable at 400 A is far over its 70 °C limit: the export says so in words.

@@ -3,6 +3,7 @@
 // for the same saved inputs (lib/sheet/enclosureAir.ts computeEnclosureAir, run here in the test),
 // the method named, every flag in full, and the caution on the page that shows them; the same sheet
 // with the check off has no such section.
+import { flagLine, flagTitle, SEVERITY_WORDS } from '@/lib/sheet/flagWords';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { extractText, getDocumentProxy } from 'unpdf';
 import { closeDb } from '@/db/client';
@@ -76,7 +77,7 @@ describe('PDF: "Inside the enclosure"', () => {
     const codes = r.flags.map((f) => f.code);
     expect(codes).toContain('ENCLOSURE_AIR_ESTIMATED');
     expect(codes).toContain('ENCLOSURE_AIR_ABOVE_AMBIENT');
-    for (const flag of r.flags) expect(all).toContain(fold(`Flag ${flag.code} (${flag.severity}): ${flag.message}`));
+    for (const flag of r.flags) expect(all).toContain(fold(`Flag: ${flagLine(flag)}`));
     const showing = pages.filter((p) => p.includes(HEADING));
     expect(showing.length).toBeGreaterThan(0);
     for (const page of showing) for (const line of CAUTION_TEXT) expect(page).toContain(line);
@@ -87,6 +88,6 @@ describe('PDF: "Inside the enclosure"', () => {
     const all = (await pagesOf(await renderSheetPdf(withoutCheck, new Date('2026-01-01T00:00:00Z')))).join(' ');
     expect(all).toContain(withoutCheck.circuitTag);
     expect(all).not.toContain(HEADING);
-    expect(all).not.toContain('ENCLOSURE_AIR_ESTIMATED');
+    expect(all).not.toContain(flagTitle('ENCLOSURE_AIR_ESTIMATED'));
   });
 });

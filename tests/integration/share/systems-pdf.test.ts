@@ -4,6 +4,7 @@
 // pack with its temperature and share, the governing bar, the IEC 60865-1 lines with κ by hand
 // (κ = 1.02 + 0.98·e^(−3·0.1) = 1.746, IEC 60909-0 eq. 55), the protection verdicts — and the flags
 // of each check beside it; a cable sheet without a device prints neither section.
+import { flagTitle } from '@/lib/sheet/flagWords';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { extractText, getDocumentProxy } from 'unpdf';
 import { closeDb } from '@/db/client';
@@ -77,9 +78,9 @@ describe('PDF: the bus-bar system and the protection', () => {
     for (const line of forcesLines(e.forces!, 0.5)) expect(text).toContain(fold(line.value));
     expect(text).toContain(fold(`Protection: ${deviceWords(packSheet.inputs.protection.device)}`));
     expect(text).toContain(`Overload coordination: ${e.protection!.coordination!.verdict === 'pass' ? 'passes' : 'fails'}`);
-    expect(text).toContain('Flag DISCONNECTION_NOT_CHECKED (review)');
-    expect(text).toContain('Flag PACK_RATED_AS_SYSTEM (note)');
-    expect(text).toContain('Flag BUSBAR_DYNAMIC_FACTORS_DEFAULTED (review)');
+    expect(text).toContain(`Flag: ${flagTitle('DISCONNECTION_NOT_CHECKED')} (for review)`);
+    expect(text).toContain(`Flag: ${flagTitle('PACK_RATED_AS_SYSTEM')} (note)`);
+    expect(text).toContain(`Flag: ${flagTitle('BUSBAR_DYNAMIC_FACTORS_DEFAULTED')} (for review)`);
     // The printed inputs carry the system as entered (SI, mm).
     expect(text).toContain('Phase spacing (centre to centre) 200 mm');
   });

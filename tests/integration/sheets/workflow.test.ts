@@ -255,9 +255,24 @@ describe('review transitions by role', () => {
     expect(approved.approvedAt).not.toBeNull();
   });
 
+  it('a sheet whose chosen candidate has a blocker is not submitted (issue 22), nor one with no candidate chosen', async () => {
+    const id = await newSheet(blockedInputs());
+    const refused = await transitionSheet(team.id, actor(people.author), id, 'submit').then(
+      () => null,
+      (e: SheetOperationError) => ({ status: e.status, code: e.code, message: e.message }),
+    );
+    expect(refused).toMatchObject({ status: 409, code: 'blocked' });
+    expect(refused!.message).toContain('Hot spot above the temperature limit');
+    expect(refused!.message).not.toContain('OVER_LIMIT');
+    expect((await getSheet(team.id, id))!.status).toBe('draft');
+    const none = await newSheet({ ...blockedInputs(), chosenCandidateId: null });
+    expect(await refusal(transitionSheet(team.id, actor(people.author), none, 'submit'))).toEqual({ status: 409, code: 'not_ready' });
+  });
+
   it('a blocker flag prevents approval, and cannot be acknowledged away', async () => {
     const id = await newSheet(blockedInputs());
-    await transitionSheet(team.id, actor(people.author), id, 'submit');
+    // In review with a blocker, as a sheet submitted before submission checked for blockers would be.
+    await getDb().update(sheets).set({ status: 'in_review' }).where(and(eq(sheets.teamId, team.id), eq(sheets.id, id)));
     const sheet = (await getSheet(team.id, id))!;
     const blockers = sheet.result!.chosenFlags.filter((f) => f.severity === 'blocker').map((f) => f.code);
     expect(blockers).toContain('OVER_LIMIT');

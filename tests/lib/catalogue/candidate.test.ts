@@ -35,7 +35,7 @@ describe('cable build → CableCandidate', () => {
     expect(candidate.emissivity).toBe(0.9);
   });
   it('carries every source and notices "from memory"', () => {
-    expect(candidate.sourceNotes).toContain('240 mm² R₂₀: IEC 60228 Table 2, class 2, maximum at 20 °C (from memory, as listed in references.md)');
+    expect(candidate.sourceNotes).toContain('240 mm² R₂₀: IEC 60228 Table 2, class 2, maximum at 20 °C (from memory)');
     expect(candidate.dataFromMemory).toBe(true);
     expect(candidate.costs?.conductorPricePerKg).toBe('9.50');
   });

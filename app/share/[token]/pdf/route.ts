@@ -9,7 +9,7 @@ import { openShare } from '@/db/queries/shares';
 import { apiHandler, ApiError } from '@/server/http/api';
 import { clientAddressFrom } from '@/server/http/clientAddress';
 import { SHARE_PDF_LIMIT, sharePdfRetryAfterS } from '@/server/limits/sharePdf';
-import { sheetPdf } from '@/server/pdf/pdfRenderer';
+import { sheetPackagePdf } from '@/server/pdf/pdfRenderer';
 import { pdfResponse, sheetFileStem } from '@/server/pdf/renderSheetPdf';
 
 export const runtime = 'nodejs';
@@ -24,5 +24,5 @@ export const GET = apiHandler({ permission: 'public' }, async (req, { params }) 
   if (opened.state === 'invalid') throw new ApiError(404, 'link_not_valid', 'This link is not valid.');
   if (opened.state === 'revoked') throw new ApiError(410, 'link_revoked', 'This link was revoked by the team that shared it.');
   if (opened.state === 'expired') throw new ApiError(410, 'link_expired', 'This link has expired.');
-  return pdfResponse(await sheetPdf(opened.sheet), sheetFileStem(opened.sheet));
+  return pdfResponse(await sheetPackagePdf(opened.sheet), sheetFileStem(opened.sheet));
 });

@@ -10,7 +10,7 @@ import { STATUS_LABELS } from '@/lib/sheet/stateMachine';
 import { apiHandler, ApiError } from '@/server/http/api';
 import { appBaseUrl, sendMail } from '@/server/mail/send';
 import { SHARE_MAIL_LIMIT, shareMailRetryAfterS } from '@/server/limits/shareMail';
-import { sheetPdf } from '@/server/pdf/pdfRenderer';
+import { sheetPackagePdf } from '@/server/pdf/pdfRenderer';
 import { sheetFileStem } from '@/server/pdf/renderSheetPdf';
 import { sheetMail } from '@/server/share/mail';
 import { emailSheetBodySchema } from '@/server/share/schemas';
@@ -34,7 +34,7 @@ export const POST = apiHandler({ permission: 'sheet:share' }, async (req, { user
       { 'retry-after': String(retryAfterS) },
     );
   }
-  const pdf = body.attachPdf ? Buffer.from(await sheetPdf(sheet)) : undefined;
+  const pdf = body.attachPdf ? Buffer.from(await sheetPackagePdf(sheet)) : undefined;
   const base = appBaseUrl();
   const share = await createMailedShare(user!.teamId, user!.id, sheet.id, { to: body.to, message: body.message, pdfAttached: body.attachPdf, expiresInDays: body.expiresInDays });
   if (!share) throw new ApiError(404, 'not_found', 'No such sizing sheet.');
