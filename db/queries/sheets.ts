@@ -10,6 +10,8 @@ import { aliasedTable, and, asc, desc, eq, ne, sql } from 'drizzle-orm';
 import { getDb, type Executor } from '../client';
 import { auditLog, projects, sheetContributions, sheetFlagAcknowledgements, sheets, users } from '../schema';
 import { recordAudit } from './audit';
+import { recordTransitionNotices, type MailNotice } from './notifications';
+import { notificationKindOf } from '../../lib/notifications/kinds';
 import {
   approvalReadiness,
   buildSnapshot,
@@ -394,7 +396,19 @@ export async function transitionSheet(
           : {}),
       },
     });
-    return updated;
+    // Who is told: written with the decision, so a notification exists exactly when the decision does.
+    const kind = notificationKindOf(action);
+    let notices: MailNotice[] = [];
+    if (kind) {
+      const [me] = await tx.select({ name: users.name }).from(users).where(and(eq(users.teamId, teamId), eq(users.id, actor.userId)));
+      notices = await recordTransitionNotices(tx, teamId, {
+        kind,
+        actorId: actor.userId,
+        actorName: me?.name ?? 'A member',
+        sheet: { id: sheetId, authorId: current.authorId, circuitTag: current.circuitTag, title: current.title, revision: current.revision },
+      });
+    }
+    return { ...updated, notices };
   });
 }
 
