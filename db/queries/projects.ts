@@ -1,4 +1,4 @@
-import { and, desc, eq, sql } from 'drizzle-orm';
+import { and, desc, eq, isNull, sql } from 'drizzle-orm';
 import { getDb, type Executor } from '../client';
 import { projects, sheets } from '../schema';
 import { recordAudit } from './audit';
@@ -14,7 +14,8 @@ export async function listProjects(teamId: string) {
       sheetCount: sql<number>`(select count(*)::int from ${sheets} where ${sheets.projectId} = ${projects.id})`,
     })
     .from(projects)
-    .where(eq(projects.teamId, teamId))
+    // Archived and deleted projects are kept out of the normal list (issue 23).
+    .where(and(eq(projects.teamId, teamId), isNull(projects.archivedAt), isNull(projects.deletedAt)))
     .orderBy(desc(projects.updatedAt));
 }
 
@@ -22,7 +23,8 @@ export async function getProject(teamId: string, projectId: string, tx: Executor
   const [project] = await tx
     .select()
     .from(projects)
-    .where(and(eq(projects.teamId, teamId), eq(projects.id, projectId)));
+    // A deleted project is gone for everyone but the admins' restore (db/queries/documents).
+    .where(and(eq(projects.teamId, teamId), eq(projects.id, projectId), isNull(projects.deletedAt)));
   return project ?? null;
 }
 

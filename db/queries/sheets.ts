@@ -6,7 +6,7 @@
  * Result snapshots are computed here on the server from the inputs being saved (lib/sheet
  * buildSnapshot) — a client's numbers are never stored.
  */
-import { aliasedTable, and, asc, desc, eq, ne, sql } from 'drizzle-orm';
+import { aliasedTable, and, asc, desc, eq, isNull, ne, sql } from 'drizzle-orm';
 import { getDb, type Executor } from '../client';
 import { auditLog, projects, sheetContributions, sheetFlagAcknowledgements, sheets, users } from '../schema';
 import { recordAudit } from './audit';
@@ -68,7 +68,7 @@ const sheetColumns = {
   approvedAt: sheets.approvedAt,
   createdAt: sheets.createdAt,
   updatedAt: sheets.updatedAt,
-  newerRevisionId: sql<string | null>`(select n.id from ${sheets} n where n.previous_revision_id = ${sheets.id} limit 1)`,
+  newerRevisionId: sql<string | null>`(select n.id from ${sheets} n where n.previous_revision_id = "sheets"."id" and n.deleted_at is null limit 1)`,
   editorIds: contributorsOf('edited'),
   submitterIds: contributorsOf('submitted'),
 };
@@ -78,7 +78,7 @@ function contributorsOf(kind: 'edited' | 'submitted') {
 }
 
 /** Records that this person edited or submitted this revision (once per person and kind; the last time is kept). */
-async function recordContribution(tx: Executor, teamId: string, sheetId: string, userId: string, kind: 'edited' | 'submitted') {
+export async function recordContribution(tx: Executor, teamId: string, sheetId: string, userId: string, kind: 'edited' | 'submitted') {
   await tx
     .insert(sheetContributions)
     .values({ teamId, sheetId, userId, kind })
@@ -94,7 +94,8 @@ async function loadSheetRow(teamId: string, sheetId: string, tx: Executor) {
     .innerJoin(projects, eq(projects.id, sheets.projectId))
     .leftJoin(authors, eq(authors.id, sheets.authorId))
     .leftJoin(reviewers, eq(reviewers.id, sheets.reviewerId))
-    .where(and(eq(sheets.teamId, teamId), eq(sheets.id, sheetId)));
+    // A deleted sheet, or one of a deleted project, is not found (issue 23: soft delete).
+    .where(and(eq(sheets.teamId, teamId), eq(sheets.id, sheetId), isNull(sheets.deletedAt), isNull(projects.deletedAt)));
   return row ?? null;
 }
 
@@ -174,7 +175,7 @@ export async function listSheetsForProject(teamId: string, projectId: string): P
     .from(sheets)
     .innerJoin(projects, eq(projects.id, sheets.projectId))
     .leftJoin(authors, eq(authors.id, sheets.authorId))
-    .where(and(eq(sheets.teamId, teamId), eq(sheets.projectId, projectId)))
+    .where(and(eq(sheets.teamId, teamId), eq(sheets.projectId, projectId), isNull(sheets.archivedAt), isNull(sheets.deletedAt)))
     .orderBy(asc(sheets.circuitTag), desc(sheets.revision));
   return rows.map(listItem);
 }
@@ -190,6 +191,9 @@ export async function listReviewQueue(teamId: string, reviewerId: string): Promi
       and(
         eq(sheets.teamId, teamId),
         eq(sheets.status, 'in_review'),
+        isNull(sheets.archivedAt),
+        isNull(sheets.deletedAt),
+        isNull(projects.deletedAt),
         ne(sheets.authorId, reviewerId),
         sql`not exists (select 1 from ${sheetContributions} c where c.sheet_id = ${sheets.id} and c.user_id = ${reviewerId})`,
       ),
@@ -213,7 +217,7 @@ export async function createSheet(teamId: string, actor: Actor, input: NewSheet)
     const [project] = await tx
       .select({ id: projects.id })
       .from(projects)
-      .where(and(eq(projects.teamId, teamId), eq(projects.id, input.projectId)));
+      .where(and(eq(projects.teamId, teamId), eq(projects.id, input.projectId), isNull(projects.deletedAt)));
     if (!project) throw new SheetOperationError(404, 'not_found', 'No such project.');
     const [sheet] = await tx
       .insert(sheets)
@@ -517,7 +521,7 @@ export async function sheetStatusCounts(teamId: string, projectId: string) {
   const rows = await getDb()
     .select({ status: sheets.status, count: sql<number>`count(*)::int` })
     .from(sheets)
-    .where(and(eq(sheets.teamId, teamId), eq(sheets.projectId, projectId)))
+    .where(and(eq(sheets.teamId, teamId), eq(sheets.projectId, projectId), isNull(sheets.archivedAt), isNull(sheets.deletedAt)))
     .groupBy(sheets.status);
   return Object.fromEntries(rows.map((r) => [r.status, r.count])) as Partial<Record<SheetStatus, number>>;
 }

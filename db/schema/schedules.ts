@@ -48,6 +48,11 @@ export const schedules = pgTable(
     updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
     queuedAt: timestamp('queued_at', { withTimezone: true }),
     completedAt: timestamp('completed_at', { withTimezone: true }),
+    /** Archived: kept as it is, hidden from the normal lists (issue 23); null = in use. */
+    archivedAt: timestamp('archived_at', { withTimezone: true }),
+    /** Deleted: hidden everywhere, restorable by an admin for 30 days, then purged; null = not deleted. */
+    deletedAt: timestamp('deleted_at', { withTimezone: true }),
+    deletedBy: uuid('deleted_by').references(() => users.id, { onDelete: 'set null' }),
   },
   (t) => [index('schedules_team_idx').on(t.teamId), index('schedules_project_idx').on(t.projectId)],
 );

@@ -1,10 +1,22 @@
 import Link from 'next/link';
 import { listSchedulesForProject } from '@/db/queries/schedules';
+import { DocumentActions, type DocumentActionState } from '@/components/shell/DocumentActions';
 
 const STATE_WORDS = { draft: 'waiting for a file', queued: 'sizing', done: 'sized' } as const;
 
 /** The schedules of a project, for the project page. */
-export async function ProjectSchedules({ teamId, projectId, mayCreate }: { teamId: string; projectId: string; mayCreate: boolean }) {
+export async function ProjectSchedules({
+  teamId,
+  projectId,
+  mayCreate,
+  manageAction,
+}: {
+  teamId: string;
+  projectId: string;
+  mayCreate: boolean;
+  /** Rename, duplicate, archive, delete (issue 23), for those who may write schedules. */
+  manageAction?: (state: DocumentActionState, formData: FormData) => Promise<DocumentActionState>;
+}) {
   const schedules = await listSchedulesForProject(teamId, projectId);
   return (
     <section aria-labelledby="project-schedules-heading" className="mt-6">
@@ -20,6 +32,7 @@ export async function ProjectSchedules({ teamId, projectId, mayCreate }: { teamI
               <Link href={`/schedules/${s.id}`} className="font-medium text-copper-700 hover:underline">{s.name}</Link>
               <span className="text-caption text-ink-500">{s.fileName ?? 'no file yet'}</span>
               <span className="num text-caption">{s.status === 'draft' ? STATE_WORDS.draft : `${s.sized} of ${s.rowCount} circuits ${STATE_WORDS[s.status]}`}</span>
+              {manageAction ? <span className="ml-auto"><DocumentActions kind="schedule" id={s.id} name={s.name} action={manageAction} label={`Manage schedule ${s.name}`} /></span> : null}
             </li>
           ))}
         </ul>
