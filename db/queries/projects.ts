@@ -11,7 +11,11 @@ export async function listProjects(teamId: string) {
       site: projects.site,
       description: projects.description,
       updatedAt: projects.updatedAt,
-      sheetCount: sql<number>`(select count(*)::int from ${sheets} where ${sheets.projectId} = ${projects.id})`,
+      // Written with an alias and the outer table named in full: in a select from one table drizzle
+      // renders a column without its table, so sheets.projectId = projects.id became
+      // `"project_id" = "id"` inside the subquery — both read from sheets, and every project counted 0
+      // (issue 23). The count is of the sheets the project page lists (not archived, not deleted).
+      sheetCount: sql<number>`(select count(*)::int from ${sheets} s where s.project_id = "projects"."id" and s.archived_at is null and s.deleted_at is null)`,
     })
     .from(projects)
     // Archived and deleted projects are kept out of the normal list (issue 23).
