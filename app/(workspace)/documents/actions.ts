@@ -6,11 +6,11 @@
  * the caller's team, so another team's id is simply "not found".
  */
 import { revalidatePath } from 'next/cache';
-import { redirect } from 'next/navigation';
+import { forbidden, redirect } from 'next/navigation';
 import { z } from 'zod';
 import { deleteDocument, DocumentError, duplicateDocument, renameDocument, restoreDocument, setArchived } from '@/db/queries/documents';
 import { isUuid } from '@/db/queries/sheets';
-import { DOCUMENT_KINDS } from '@/lib/documents/rules';
+import { DOCUMENT_KINDS, mayManage } from '@/lib/documents/rules';
 import { authorizeAction } from '@/server/auth/actions';
 
 export interface DocumentActionState {
@@ -34,6 +34,8 @@ export async function documentAction(_state: DocumentActionState, formData: Form
   const parsed = commandSchema.safeParse(Object.fromEntries(formData.entries()));
   if (!parsed.success) return { message: parsed.error.issues[0]?.message ?? 'That command could not be read.' };
   const command = parsed.data;
+  // The role is answered with HTTP 403 like every action; a document of another team is "not found" in the form state.
+  if (!mayManage(user.role, command.kind, command.op)) forbidden();
   const actor = { userId: user.id, role: user.role };
   let result: DocumentActionState;
   try {
