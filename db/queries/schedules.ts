@@ -211,7 +211,7 @@ export async function getScheduleFile(teamId: string, scheduleId: string) {
 }
 
 /** Runs `work` in one transaction on one pool client, giving drizzle and raw SQL the same connection (pg-boss inserts its jobs through it). */
-async function withClientTransaction<T>(work: (db: Db, client: PoolClient) => Promise<T>): Promise<T> {
+export async function withClientTransaction<T>(work: (db: Db, client: PoolClient) => Promise<T>): Promise<T> {
   const client = await getPool().connect();
   try {
     await client.query('BEGIN');

@@ -209,11 +209,12 @@ export interface NewSheet {
   inputs: SheetInputs;
 }
 
-export async function createSheet(teamId: string, actor: Actor, input: NewSheet) {
+/** `within`: the caller's transaction (the sheet is then made in a savepoint of it, e.g. with a batch item). */
+export async function createSheet(teamId: string, actor: Actor, input: NewSheet, within: Executor = getDb()) {
   const decision = decide('edit', { status: 'draft', authorId: actor.userId }, actor);
   if (!decision.allowed) throw new SheetOperationError(403, decision.code, decision.reason);
   const snapshot = buildSnapshot(input.inputs);
-  return getDb().transaction(async (tx) => {
+  return within.transaction(async (tx) => {
     const [project] = await tx
       .select({ id: projects.id })
       .from(projects)

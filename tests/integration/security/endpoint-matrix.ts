@@ -477,6 +477,21 @@ export const ENDPOINT_MATRIX: MatrixEntry[] = [
     expect: signedIn(401, { viewer: 403, designer: 404, reviewer: 403, otherAdmin: 404, admin: 404 }),
     request: async (ctx) => ({ path: `/api/schedules/${await teamASchedule(ctx)}/rows/2/sheet` }),
   },
+  {
+    kind: 'route',
+    method: 'POST',
+    route: '/api/schedules/[scheduleId]/sheets',
+    // "Make sizing sheets" for chosen rows: the draft schedule has no row 2, so 404 for those allowed to create sheets.
+    expect: signedIn(401, { viewer: 403, designer: 404, reviewer: 403, otherAdmin: 404, admin: 404 }),
+    request: async (ctx) => ({ path: `/api/schedules/${await teamASchedule(ctx)}/sheets`, body: { rowNumbers: [2] } }),
+  },
+  {
+    kind: 'route',
+    method: 'GET',
+    route: '/api/schedules/[scheduleId]/sheets/[batchId]',
+    expect: signedIn(401, { viewer: 404, designer: 404, reviewer: 404, otherAdmin: 404, admin: 404 }),
+    request: async (ctx) => ({ path: `/api/schedules/${await teamASchedule(ctx)}/sheets/00000000-0000-4000-8000-000000000000` }),
+  },
 
   // ── catalogue (issue 5): everyone of the team reads; admins write ─────────────────────────────
   {
