@@ -57,7 +57,6 @@ export function DocumentActions({
         data-testid={`doc-${op}`}
       >
         {text}
-        {refusal ? <span id={`${id}-${op}-why`} className="sr-only"> — {refusal}</span> : null}
       </button>
     );
   };
@@ -91,6 +90,14 @@ export function DocumentActions({
             )}
           </div>
         )}
+        {(['rename', 'duplicate', 'archive', 'unarchive', 'delete'] as const)
+          .filter((op) => refusals[op] && (op !== 'archive' || !archived) && (op !== 'unarchive' || archived))
+          .map((op) => (
+            <p key={op} id={`${id}-${op}-why`} className="text-caption text-ink-600" data-testid={`doc-${op}-why`}>
+              <span aria-hidden="true">◐ </span>
+              {refusals[op]}
+            </p>
+          ))}
         {confirmingDelete ? <p className="text-caption text-ink-600">Deleted items are hidden at once; an admin can restore them for 30 days.</p> : null}
         {state.message ? (
           <p role={state.ok ? 'status' : 'alert'} className={state.ok ? 'text-body text-within-dark' : 'field-error'} data-testid="doc-message">

@@ -28,10 +28,10 @@ export function NotificationSettingsForm({
           <p className="text-caption text-ink-500">{k.who}</p>
           <div className="flex gap-4">
             <label className="flex items-center gap-1">
-              <input type="checkbox" name={`${k.kind}.email`} defaultChecked={k.email} data-testid={`setting-${k.kind}-email`} /> by e-mail
+              <input type="checkbox" className="accent-copper-500" name={`${k.kind}.email`} defaultChecked={k.email} data-testid={`setting-${k.kind}-email`} /> by e-mail
             </label>
             <label className="flex items-center gap-1">
-              <input type="checkbox" name={`${k.kind}.inApp`} defaultChecked={k.inApp} data-testid={`setting-${k.kind}-inApp`} /> in the app
+              <input type="checkbox" className="accent-copper-500" name={`${k.kind}.inApp`} defaultChecked={k.inApp} data-testid={`setting-${k.kind}-inApp`} /> in the app
             </label>
           </div>
         </fieldset>

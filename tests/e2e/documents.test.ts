@@ -57,7 +57,7 @@ describe('documents on the project page', () => {
     // The approved sheet refuses Delete and says why.
     const approvedMenu = await openMenu(page, ids.approved);
     await expect(approvedMenu.getByTestId('doc-delete').isDisabled()).resolves.toBe(true);
-    await expect(approvedMenu.getByTestId('doc-delete').innerText()).resolves.toMatch(/Approved revisions are never deleted/);
+    await expect(approvedMenu.getByTestId('doc-delete-why').innerText()).resolves.toMatch(/Approved revisions are never deleted; archive it instead/);
 
     // Duplicate it: a new draft naming its origin.
     await approvedMenu.getByTestId('doc-duplicate').click();

@@ -401,7 +401,7 @@ function MakeSheets({ scheduleId, chosen }: { scheduleId: string; chosen: number
               {p.created.map((s) => (
                 <li key={s.sheetId}>
                   <span className="num text-caption text-ink-500">Row {s.rowNumber}</span>{' '}
-                  <Link href={`/sheets/${s.sheetId}`} className="text-copper-700 underline">{s.circuitTag} — {s.title}</Link>
+                  <Link href={`/sheets/${s.sheetId}`} className="text-copper-700 underline">{s.title || s.circuitTag}</Link>
                 </li>
               ))}
             </ul>
