@@ -7,6 +7,10 @@
 import { hostname } from 'node:os';
 import { closeDb } from '../db/client';
 import { startScheduleWorker } from '../server/jobs/scheduleWorker';
+import { purgeExpiredDeletions } from '../db/queries/documents';
+
+/** Deleted documents are kept 30 days (issue 23); every worker purges the expired ones hourly (idempotent). */
+const PURGE_EVERY_MS = 3600_000;
 
 async function main() {
   const workerId = process.env.WORKER_ID || `${hostname()}:${process.pid}`;
@@ -15,6 +19,15 @@ async function main() {
     onBatch: (report) => console.log(JSON.stringify({ event: 'batch', worker: workerId, ...report })),
   });
   console.log(JSON.stringify({ event: 'ready', worker: worker.workerId }));
+  const purge = () =>
+    purgeExpiredDeletions()
+      .then((gone) => {
+        if (gone.projects + gone.sheets + gone.schedules > 0) console.log(JSON.stringify({ event: 'purge', worker: workerId, ...gone }));
+      })
+      .catch((error) => console.error(`purge of expired deletions failed: ${error instanceof Error ? error.message : String(error)}`));
+  const purgeTimer = setInterval(purge, PURGE_EVERY_MS);
+  purgeTimer.unref();
+  void purge();
   let stopping = false;
   const stop = async () => {
     if (stopping) return;

@@ -1,4 +1,4 @@
-import { and, desc, eq, sql } from 'drizzle-orm';
+import { and, desc, eq, isNull, sql } from 'drizzle-orm';
 import { getDb, type Executor } from '../client';
 import { projects, sheets } from '../schema';
 import { recordAudit } from './audit';
@@ -11,10 +11,15 @@ export async function listProjects(teamId: string) {
       site: projects.site,
       description: projects.description,
       updatedAt: projects.updatedAt,
-      sheetCount: sql<number>`(select count(*)::int from ${sheets} where ${sheets.projectId} = ${projects.id})`,
+      // Written with an alias and the outer table named in full: in a select from one table drizzle
+      // renders a column without its table, so sheets.projectId = projects.id became
+      // `"project_id" = "id"` inside the subquery — both read from sheets, and every project counted 0
+      // (issue 23). The count is of the sheets the project page lists (not archived, not deleted).
+      sheetCount: sql<number>`(select count(*)::int from ${sheets} s where s.project_id = "projects"."id" and s.archived_at is null and s.deleted_at is null)`,
     })
     .from(projects)
-    .where(eq(projects.teamId, teamId))
+    // Archived and deleted projects are kept out of the normal list (issue 23).
+    .where(and(eq(projects.teamId, teamId), isNull(projects.archivedAt), isNull(projects.deletedAt)))
     .orderBy(desc(projects.updatedAt));
 }
 
@@ -22,7 +27,8 @@ export async function getProject(teamId: string, projectId: string, tx: Executor
   const [project] = await tx
     .select()
     .from(projects)
-    .where(and(eq(projects.teamId, teamId), eq(projects.id, projectId)));
+    // A deleted project is gone for everyone but the admins' restore (db/queries/documents).
+    .where(and(eq(projects.teamId, teamId), eq(projects.id, projectId), isNull(projects.deletedAt)));
   return project ?? null;
 }
 

@@ -3,7 +3,7 @@
  * transaction), progress, results, and the worker's idempotent result writes. Every function
  * that a request calls takes the team id first and never touches another team's rows.
  */
-import { and, asc, desc, eq, inArray, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, isNull, sql } from 'drizzle-orm';
 import { drizzle } from 'drizzle-orm/node-postgres';
 import type { PoolClient } from 'pg';
 import { getDb, getPool, type Db, type Executor } from '../client';
@@ -144,7 +144,8 @@ export async function getSchedule(teamId: string, scheduleId: string, tx: Execut
     })
     .from(schedules)
     .innerJoin(projects, eq(projects.id, schedules.projectId))
-    .where(and(eq(schedules.teamId, teamId), eq(schedules.id, scheduleId)));
+    // A deleted schedule, or one of a deleted project, is not found (issue 23: soft delete).
+    .where(and(eq(schedules.teamId, teamId), eq(schedules.id, scheduleId), isNull(schedules.deletedAt), isNull(projects.deletedAt)));
   if (!row) return null;
   return { ...row, problems: row.problems as ScheduleProblem[], uploadRefusal: row.uploadRefusal ?? null, droppedRows: row.droppedRows as number[] };
 }
@@ -166,7 +167,7 @@ export async function listSchedulesForProject(teamId: string, projectId: string)
       sized: sql<number>`(select count(*)::int from ${scheduleRows} r where r.schedule_id = "schedules"."id" and r.status <> 'pending')`,
     })
     .from(schedules)
-    .where(and(eq(schedules.teamId, teamId), eq(schedules.projectId, projectId)))
+    .where(and(eq(schedules.teamId, teamId), eq(schedules.projectId, projectId), isNull(schedules.archivedAt), isNull(schedules.deletedAt)))
     .orderBy(desc(schedules.createdAt));
 }
 
@@ -183,7 +184,7 @@ export interface SchedulePreviewInput {
 export async function storeSchedulePreview(teamId: string, actorId: string, scheduleId: string, input: SchedulePreviewInput) {
   if (!UUID.test(scheduleId)) throw notFound();
   return getDb().transaction(async (tx) => {
-    const [current] = await tx.select({ status: schedules.status }).from(schedules).where(and(eq(schedules.teamId, teamId), eq(schedules.id, scheduleId))).for('update');
+    const [current] = await tx.select({ status: schedules.status }).from(schedules).where(and(eq(schedules.teamId, teamId), eq(schedules.id, scheduleId), isNull(schedules.deletedAt))).for('update');
     if (!current) throw notFound();
     if (current.status !== 'draft') throw new ScheduleOperationError(409, 'already_queued', 'This schedule has been queued; its file can no longer be replaced. Start a new schedule for another file.');
     await tx
@@ -256,7 +257,7 @@ export async function getScheduleFile(teamId: string, scheduleId: string) {
 }
 
 /** Runs `work` in one transaction on one pool client, giving drizzle and raw SQL the same connection (pg-boss inserts its jobs through it). */
-async function withClientTransaction<T>(work: (db: Db, client: PoolClient) => Promise<T>): Promise<T> {
+export async function withClientTransaction<T>(work: (db: Db, client: PoolClient) => Promise<T>): Promise<T> {
   const client = await getPool().connect();
   try {
     await client.query('BEGIN');
@@ -297,7 +298,7 @@ export async function queueSchedule(
     const [schedule] = await db
       .select({ status: schedules.status, previewRows: schedules.previewRows, problems: schedules.problems, fileName: schedules.fileName })
       .from(schedules)
-      .where(and(eq(schedules.teamId, teamId), eq(schedules.id, scheduleId)))
+      .where(and(eq(schedules.teamId, teamId), eq(schedules.id, scheduleId), isNull(schedules.deletedAt)))
       .for('update');
     if (!schedule) throw notFound();
     if (schedule.status !== 'draft') throw new ScheduleOperationError(409, 'already_queued', 'This schedule is already queued.');
@@ -415,7 +416,7 @@ export async function getScheduleRow(teamId: string, scheduleId: string, rowNumb
     .select({ input: scheduleRows.input, result: scheduleRows.result, projectId: schedules.projectId, families: schedules.families, scheduleName: schedules.name })
     .from(scheduleRows)
     .innerJoin(schedules, eq(schedules.id, scheduleRows.scheduleId))
-    .where(and(eq(scheduleRows.teamId, teamId), eq(scheduleRows.scheduleId, scheduleId), eq(scheduleRows.rowNumber, rowNumber)));
+    .where(and(eq(scheduleRows.teamId, teamId), eq(scheduleRows.scheduleId, scheduleId), eq(scheduleRows.rowNumber, rowNumber), isNull(schedules.deletedAt)));
   if (!row) return null;
   const input = row.input as ScheduleRow;
   const family = (row.families as Record<string, { label: string; kind: 'cable' | 'bar'; candidates: Candidate[] }>)[input.family];

@@ -6,10 +6,12 @@
  * Result snapshots are computed here on the server from the inputs being saved (lib/sheet
  * buildSnapshot) — a client's numbers are never stored.
  */
-import { aliasedTable, and, asc, desc, eq, ne, sql } from 'drizzle-orm';
+import { aliasedTable, and, asc, desc, eq, isNull, ne, sql } from 'drizzle-orm';
 import { getDb, type Executor } from '../client';
 import { auditLog, projects, sheetContributions, sheetFlagAcknowledgements, sheets, users } from '../schema';
 import { recordAudit } from './audit';
+import { recordTransitionNotices, type MailNotice } from './notifications';
+import { notificationKindOf } from '../../lib/notifications/kinds';
 import {
   approvalReadiness,
   buildSnapshot,
@@ -66,7 +68,7 @@ const sheetColumns = {
   approvedAt: sheets.approvedAt,
   createdAt: sheets.createdAt,
   updatedAt: sheets.updatedAt,
-  newerRevisionId: sql<string | null>`(select n.id from ${sheets} n where n.previous_revision_id = ${sheets.id} limit 1)`,
+  newerRevisionId: sql<string | null>`(select n.id from ${sheets} n where n.previous_revision_id = "sheets"."id" and n.deleted_at is null limit 1)`,
   editorIds: contributorsOf('edited'),
   submitterIds: contributorsOf('submitted'),
 };
@@ -76,7 +78,7 @@ function contributorsOf(kind: 'edited' | 'submitted') {
 }
 
 /** Records that this person edited or submitted this revision (once per person and kind; the last time is kept). */
-async function recordContribution(tx: Executor, teamId: string, sheetId: string, userId: string, kind: 'edited' | 'submitted') {
+export async function recordContribution(tx: Executor, teamId: string, sheetId: string, userId: string, kind: 'edited' | 'submitted') {
   await tx
     .insert(sheetContributions)
     .values({ teamId, sheetId, userId, kind })
@@ -92,7 +94,8 @@ async function loadSheetRow(teamId: string, sheetId: string, tx: Executor) {
     .innerJoin(projects, eq(projects.id, sheets.projectId))
     .leftJoin(authors, eq(authors.id, sheets.authorId))
     .leftJoin(reviewers, eq(reviewers.id, sheets.reviewerId))
-    .where(and(eq(sheets.teamId, teamId), eq(sheets.id, sheetId)));
+    // A deleted sheet, or one of a deleted project, is not found (issue 23: soft delete).
+    .where(and(eq(sheets.teamId, teamId), eq(sheets.id, sheetId), isNull(sheets.deletedAt), isNull(projects.deletedAt)));
   return row ?? null;
 }
 
@@ -172,7 +175,7 @@ export async function listSheetsForProject(teamId: string, projectId: string): P
     .from(sheets)
     .innerJoin(projects, eq(projects.id, sheets.projectId))
     .leftJoin(authors, eq(authors.id, sheets.authorId))
-    .where(and(eq(sheets.teamId, teamId), eq(sheets.projectId, projectId)))
+    .where(and(eq(sheets.teamId, teamId), eq(sheets.projectId, projectId), isNull(sheets.archivedAt), isNull(sheets.deletedAt)))
     .orderBy(asc(sheets.circuitTag), desc(sheets.revision));
   return rows.map(listItem);
 }
@@ -188,6 +191,9 @@ export async function listReviewQueue(teamId: string, reviewerId: string): Promi
       and(
         eq(sheets.teamId, teamId),
         eq(sheets.status, 'in_review'),
+        isNull(sheets.archivedAt),
+        isNull(sheets.deletedAt),
+        isNull(projects.deletedAt),
         ne(sheets.authorId, reviewerId),
         sql`not exists (select 1 from ${sheetContributions} c where c.sheet_id = ${sheets.id} and c.user_id = ${reviewerId})`,
       ),
@@ -203,15 +209,16 @@ export interface NewSheet {
   inputs: SheetInputs;
 }
 
-export async function createSheet(teamId: string, actor: Actor, input: NewSheet) {
+/** `within`: the caller's transaction (the sheet is then made in a savepoint of it, e.g. with a batch item). */
+export async function createSheet(teamId: string, actor: Actor, input: NewSheet, within: Executor = getDb()) {
   const decision = decide('edit', { status: 'draft', authorId: actor.userId }, actor);
   if (!decision.allowed) throw new SheetOperationError(403, decision.code, decision.reason);
   const snapshot = buildSnapshot(input.inputs);
-  return getDb().transaction(async (tx) => {
+  return within.transaction(async (tx) => {
     const [project] = await tx
       .select({ id: projects.id })
       .from(projects)
-      .where(and(eq(projects.teamId, teamId), eq(projects.id, input.projectId)));
+      .where(and(eq(projects.teamId, teamId), eq(projects.id, input.projectId), isNull(projects.deletedAt)));
     if (!project) throw new SheetOperationError(404, 'not_found', 'No such project.');
     const [sheet] = await tx
       .insert(sheets)
@@ -397,7 +404,19 @@ export async function transitionSheet(
           : {}),
       },
     });
-    return updated;
+    // Who is told: written with the decision, so a notification exists exactly when the decision does.
+    const kind = notificationKindOf(action);
+    let notices: MailNotice[] = [];
+    if (kind) {
+      const [me] = await tx.select({ name: users.name }).from(users).where(and(eq(users.teamId, teamId), eq(users.id, actor.userId)));
+      notices = await recordTransitionNotices(tx, teamId, {
+        kind,
+        actorId: actor.userId,
+        actorName: me?.name ?? 'A member',
+        sheet: { id: sheetId, authorId: current.authorId, circuitTag: current.circuitTag, title: current.title, revision: current.revision },
+      });
+    }
+    return { ...updated, notices };
   });
 }
 
@@ -506,7 +525,7 @@ export async function sheetStatusCounts(teamId: string, projectId: string) {
   const rows = await getDb()
     .select({ status: sheets.status, count: sql<number>`count(*)::int` })
     .from(sheets)
-    .where(and(eq(sheets.teamId, teamId), eq(sheets.projectId, projectId)))
+    .where(and(eq(sheets.teamId, teamId), eq(sheets.projectId, projectId), isNull(sheets.archivedAt), isNull(sheets.deletedAt)))
     .groupBy(sheets.status);
   return Object.fromEntries(rows.map((r) => [r.status, r.count])) as Partial<Record<SheetStatus, number>>;
 }

@@ -72,6 +72,11 @@ export const projects = pgTable(
     site: text('site').notNull().default(''),
     description: text('description').notNull().default(''),
     createdBy: uuid('created_by').references(() => users.id, { onDelete: 'set null' }),
+    /** Archived: kept as it is, hidden from the normal lists (issue 23); null = in use. */
+    archivedAt: timestamp('archived_at', { withTimezone: true }),
+    /** Deleted: hidden everywhere, restorable by an admin for 30 days, then purged; null = not deleted. */
+    deletedAt: timestamp('deleted_at', { withTimezone: true }),
+    deletedBy: uuid('deleted_by').references(() => users.id, { onDelete: 'set null' }),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },
@@ -103,6 +108,14 @@ export const sheets = pgTable(
     authorId: uuid('author_id').notNull().references(() => users.id),
     reviewerId: uuid('reviewer_id').references(() => users.id),
     approvedAt: timestamp('approved_at', { withTimezone: true }),
+    /** A duplicate names the sheet and revision it was copied from; its own history starts fresh. */
+    duplicatedFromId: uuid('duplicated_from_id'),
+    duplicatedFromRevision: integer('duplicated_from_revision'),
+    /** Archived: kept as it is, hidden from the normal lists (issue 23); null = in use. */
+    archivedAt: timestamp('archived_at', { withTimezone: true }),
+    /** Deleted: hidden everywhere, restorable by an admin for 30 days, then purged; null = not deleted. */
+    deletedAt: timestamp('deleted_at', { withTimezone: true }),
+    deletedBy: uuid('deleted_by').references(() => users.id, { onDelete: 'set null' }),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },

@@ -6,3 +6,4 @@ export * from './sheets';
 export * from './schedules';
 export * from './apiTokens';
 export * from './shares';
+export * from './notifications';

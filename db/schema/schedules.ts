@@ -9,7 +9,7 @@
  */
 import { sql } from 'drizzle-orm';
 import { check, customType, doublePrecision, index, integer, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
-import { projects, teams, users } from './core';
+import { projects, sheets, teams, users } from './core';
 
 const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => 'bytea' });
 
@@ -55,6 +55,11 @@ export const schedules = pgTable(
     updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
     queuedAt: timestamp('queued_at', { withTimezone: true }),
     completedAt: timestamp('completed_at', { withTimezone: true }),
+    /** Archived: kept as it is, hidden from the normal lists (issue 23); null = in use. */
+    archivedAt: timestamp('archived_at', { withTimezone: true }),
+    /** Deleted: hidden everywhere, restorable by an admin for 30 days, then purged; null = not deleted. */
+    deletedAt: timestamp('deleted_at', { withTimezone: true }),
+    deletedBy: uuid('deleted_by').references(() => users.id, { onDelete: 'set null' }),
   },
   (t) => [index('schedules_team_idx').on(t.teamId), index('schedules_project_idx').on(t.projectId)],
 );
@@ -85,4 +90,41 @@ export const scheduleRows = pgTable(
     check('schedule_rows_row_number', sql`${t.rowNumber} >= 2`),
     check('schedule_rows_result_when_sized', sql`(${t.status} = 'pending') = (${t.result} is null)`),
   ],
+);
+
+/**
+ * "Make sizing sheets" for a chosen set of schedule rows (issue 23), done in the background: one
+ * batch per request, one item per row. A worker fills an item's sheet_id in the same transaction
+ * that creates the sheet, so a retried job never makes a row's sheet twice; a row that cannot be
+ * made into a sheet keeps its reason in `error`.
+ */
+export const sheetBatchStatusEnum = pgEnum('schedule_sheet_batch_status', ['queued', 'done']);
+
+export const scheduleSheetBatches = pgTable(
+  'schedule_sheet_batches',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    teamId: uuid('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
+    scheduleId: uuid('schedule_id').notNull().references(() => schedules.id, { onDelete: 'cascade' }),
+    requestedBy: uuid('requested_by').references(() => users.id, { onDelete: 'set null' }),
+    status: sheetBatchStatusEnum('status').notNull().default('queued'),
+    total: integer('total').notNull(),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    completedAt: timestamp('completed_at', { withTimezone: true }),
+  },
+  (t) => [index('schedule_sheet_batches_team_schedule_idx').on(t.teamId, t.scheduleId)],
+);
+
+export const scheduleSheetBatchItems = pgTable(
+  'schedule_sheet_batch_items',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    teamId: uuid('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
+    batchId: uuid('batch_id').notNull().references(() => scheduleSheetBatches.id, { onDelete: 'cascade' }),
+    rowNumber: integer('row_number').notNull(),
+    sheetId: uuid('sheet_id').references(() => sheets.id, { onDelete: 'set null' }),
+    error: text('error'),
+    doneAt: timestamp('done_at', { withTimezone: true }),
+  },
+  (t) => [uniqueIndex('schedule_sheet_batch_items_row_unique').on(t.batchId, t.rowNumber), index('schedule_sheet_batch_items_team_idx').on(t.teamId)],
 );

@@ -17,6 +17,8 @@ export const PERMISSIONS = [
   'members:manage',
   'schedule:write',
   'apitoken:manage',
+  /** Bring back a deleted project, sheet or schedule within its 30 days (issue 23): admins only. */
+  'document:restore',
 ] as const;
 export type Permission = (typeof PERMISSIONS)[number];
 

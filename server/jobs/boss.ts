@@ -11,6 +11,13 @@
 import PgBoss from 'pg-boss';
 
 export const SCHEDULE_QUEUE = 'schedule-rows';
+/** "Make sizing sheets" for chosen schedule rows (issue 23): one job per request. */
+export const SHEET_BATCH_QUEUE = 'schedule-sheets';
+
+export interface SheetBatchJob {
+  teamId: string;
+  batchId: string;
+}
 
 export interface ScheduleBatchJob {
   teamId: string;
@@ -62,12 +69,14 @@ export async function ensureScheduleQueue(boss: PgBoss): Promise<void> {
     retryDelay: settings.retryDelaySeconds,
     expireInSeconds: settings.expireInSeconds,
   };
-  if (!(await boss.getQueue(SCHEDULE_QUEUE))) {
-    try {
-      await boss.createQueue(SCHEDULE_QUEUE, options);
-    } catch (error) {
-      // Another process created it at the same moment.
-      if (!(await boss.getQueue(SCHEDULE_QUEUE))) throw error;
+  for (const name of [SCHEDULE_QUEUE, SHEET_BATCH_QUEUE]) {
+    if (!(await boss.getQueue(name))) {
+      try {
+        await boss.createQueue(name, { ...options, name });
+      } catch (error) {
+        // Another process created it at the same moment.
+        if (!(await boss.getQueue(name))) throw error;
+      }
     }
   }
 }
@@ -125,4 +134,11 @@ export async function enqueueScheduleBatches(
   const jobs = batchJobs(teamId, scheduleId, rowNumbers);
   if (jobs.length > 0) await boss.insert(jobs, { db: { executeSql } });
   return jobs.length;
+}
+
+/** Inserts the job of a sheet batch through the caller's transaction (visible once the batch is committed). */
+export async function enqueueSheetBatch(executeSql: PgBoss.Db['executeSql'], job: SheetBatchJob): Promise<void> {
+  const boss = await getWebBoss();
+  const { expireInSeconds, retryLimit, retryDelaySeconds } = queueSettings();
+  await boss.insert([{ name: SHEET_BATCH_QUEUE, data: job, expireInSeconds, retryLimit, retryDelay: retryDelaySeconds }], { db: { executeSql } });
 }

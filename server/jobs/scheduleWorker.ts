@@ -8,7 +8,8 @@ import { hostname } from 'node:os';
 import PgBoss from 'pg-boss';
 import { completeScheduleIfDone, loadScheduleForWorker, pendingRows, storeRowResults, type RowResultWrite } from '../../db/queries/schedules';
 import { sizeCircuit } from '../../lib/schedule';
-import { bossOptions, ensureScheduleQueue, queueSettings, SCHEDULE_QUEUE, type ScheduleBatchJob } from './boss';
+import { processSheetBatchItems } from '../../db/queries/sheetBatches';
+import { bossOptions, ensureScheduleQueue, queueSettings, SCHEDULE_QUEUE, SHEET_BATCH_QUEUE, type ScheduleBatchJob, type SheetBatchJob } from './boss';
 
 export interface BatchReport {
   scheduleId: string;
@@ -107,6 +108,13 @@ export async function startScheduleWorker(options: { workerId?: string; onBatch?
       },
     );
   }
+  // One loop makes the sizing sheets asked for from schedule rows (issue 23); each job is one request.
+  await boss.work<SheetBatchJob>(SHEET_BATCH_QUEUE, { batchSize: 1, pollingIntervalSeconds: queueSettings().pollingIntervalSeconds }, async (jobs) => {
+    for (const job of jobs) {
+      if (typeof job.data?.teamId !== 'string' || typeof job.data?.batchId !== 'string') continue;
+      await processSheetBatchItems(job.data);
+    }
+  });
   return {
     workerId,
     boss,

@@ -1,6 +1,7 @@
 /** The wording of the mail Ampwarden sends: plain text first, a simple HTML twin beside it. */
 import { ROLE_LABELS, type Role } from '@/lib/auth/permissions';
 import type { OutgoingMail } from './send';
+import type { NotificationKind } from '@/lib/notifications/kinds';
 
 function escapeHtml(text: string): string {
   return text.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
@@ -38,5 +39,26 @@ export function passwordResetMail(input: { to: string; link: string; expiresAt: 
     subject: 'A new password for Ampwarden',
     text: `${lines[0]}\n\n${lines[1]}\n\n${input.link}\n\n${lines[2]}\n`,
     html: html(lines, { href: input.link, label: 'Choose a new password' }),
+  };
+}
+
+const NOTICE_ENDINGS: Record<NotificationKind, string> = {
+  sheet_submitted: 'It waits for a reviewer of your team: open it to check the flags and approve or return it.',
+  sheet_returned: 'Open it to read the reviewer’s comment in its history, change it and submit it again.',
+  sheet_approved: 'It is frozen as approved; editing it makes a new revision.',
+};
+
+/** A review notification: what happened to which sheet, and the link to it. */
+export function notificationMail(input: { to: string; recipientName: string; title: string; kind: NotificationKind; link: string }): OutgoingMail {
+  const lines = [
+    `${input.title}.`,
+    NOTICE_ENDINGS[input.kind],
+    'You can turn these messages off on the Notifications page of Ampwarden (settings).',
+  ];
+  return {
+    to: input.to,
+    subject: input.title,
+    text: `${lines[0]}\n\n${lines[1]}\n\n${input.link}\n\n${lines[2]}\n`,
+    html: html(lines, { href: input.link, label: 'Open the sizing sheet' }),
   };
 }

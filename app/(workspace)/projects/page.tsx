@@ -5,14 +5,18 @@ import { can } from '@/lib/auth/permissions';
 import { requirePageUser } from '@/server/auth/session';
 import { ReviewQueue } from '@/components/sheet/ReviewQueue';
 import { CreateProjectForm } from './CreateProjectForm';
+import { listArchivedProjects } from '@/db/queries/documents';
+import { DocumentActions } from '@/components/shell/DocumentActions';
+import { documentAction } from '../documents/actions';
 
 export const metadata = { title: 'Projects' };
 export const dynamic = 'force-dynamic';
 
 export default async function ProjectsPage() {
   const user = await requirePageUser('team:read');
-  const [projects, queue] = await Promise.all([
+  const [projects, archived, queue] = await Promise.all([
     listProjects(user.teamId),
+    listArchivedProjects(user.teamId),
     can(user.role, 'sheet:review') ? listReviewQueue(user.teamId, user.id) : Promise.resolve(null),
   ]);
   const mayCreate = can(user.role, 'project:write');
@@ -44,10 +48,28 @@ export default async function ProjectsPage() {
             ))}
           </ul>
         )}
+        {archived.length > 0 ? (
+          <section aria-labelledby="archived-projects-heading" className="mt-6" data-testid="archived-projects">
+            <h2 id="archived-projects-heading" className="font-semibold">Archived projects</h2>
+            <ul className="panel mt-2 divide-y divide-ink-50">
+              {archived.map((p) => (
+                <li key={p.id} className="flex flex-wrap items-center gap-3 px-3 py-2">
+                  <Link href={`/projects/${p.id}`} className="font-medium text-copper-700 hover:underline">{p.name}</Link>
+                  {mayCreate ? <span className="ml-auto"><DocumentActions kind="project" id={p.id} name={p.name} archived action={documentAction} label={`Manage archived project ${p.name}`} /></span> : null}
+                </li>
+              ))}
+            </ul>
+          </section>
+        ) : null}
       </section>
-      {mayCreate ? (
-        <aside>
-          <CreateProjectForm />
+      {mayCreate || can(user.role, 'document:restore') ? (
+        <aside className="space-y-4">
+          {mayCreate ? <CreateProjectForm /> : null}
+          {can(user.role, 'document:restore') ? (
+            <p className="panel p-4 text-body">
+              <Link href="/admin/deleted" className="text-copper-700 underline">Recently deleted</Link>: projects, sheets and schedules deleted in the last 30 days, to restore.
+            </p>
+          ) : null}
         </aside>
       ) : null}
     </div>

@@ -1,6 +1,7 @@
 import Link from 'next/link';
 import { listSchedulesForProject } from '@/db/queries/schedules';
 import { scheduleStateWords, type ScheduleStateTone } from '@/lib/schedule';
+import { DocumentActions, type DocumentActionState } from '@/components/shell/DocumentActions';
 
 const TONE_CLASS: Record<ScheduleStateTone, string> = {
   waiting: 'text-ink-600',
@@ -11,7 +12,18 @@ const TONE_CLASS: Record<ScheduleStateTone, string> = {
 };
 
 /** The schedules of a project, for the project page. */
-export async function ProjectSchedules({ teamId, projectId, mayCreate }: { teamId: string; projectId: string; mayCreate: boolean }) {
+export async function ProjectSchedules({
+  teamId,
+  projectId,
+  mayCreate,
+  manageAction,
+}: {
+  teamId: string;
+  projectId: string;
+  mayCreate: boolean;
+  /** Rename, duplicate, archive, delete (issue 23), for those who may write schedules. */
+  manageAction?: (state: DocumentActionState, formData: FormData) => Promise<DocumentActionState>;
+}) {
   const schedules = await listSchedulesForProject(teamId, projectId);
   return (
     <section aria-labelledby="project-schedules-heading" className="mt-6">
@@ -35,6 +47,7 @@ export async function ProjectSchedules({ teamId, projectId, mayCreate }: { teamI
                   </span>
                 );
               })()}
+              {manageAction ? <span className="ml-auto"><DocumentActions kind="schedule" id={s.id} name={s.name} action={manageAction} label={`Manage schedule ${s.name}`} /></span> : null}
             </li>
           ))}
         </ul>

@@ -1,5 +1,6 @@
 /** The schedule API as the browser calls it (react-query query and mutation functions). */
 import type { ScheduleProgress, ScheduleSummary } from '@/db/queries/schedules';
+import type { SheetBatchProgress } from '@/db/queries/sheetBatches';
 import type { ResultLine, ScheduleProblem, ScheduleRow, ScheduleTotals } from '@/lib/schedule';
 
 export class ScheduleApiFailure extends Error {
@@ -56,3 +57,15 @@ export async function createScheduleRequest(projectId: string, name: string) {
 export async function openRowAsSheet(id: string, rowNumber: number) {
   return (await json<{ sheet: { id: string } }>(await fetch(`/api/schedules/${id}/rows/${rowNumber}/sheet`, { method: 'POST' }))).sheet;
 }
+
+/** "Make sizing sheets" for chosen rows (issue 23): answers the batch at once; the sheets are made in the background. */
+export async function requestSheetsForRows(id: string, rowNumbers: number[]) {
+  return (
+    await json<{ batch: { id: string; total: number } }>(
+      await fetch(`/api/schedules/${id}/sheets`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ rowNumbers }) }),
+    )
+  ).batch;
+}
+
+export const fetchSheetBatch = async (id: string, batchId: string) =>
+  (await json<{ progress: SheetBatchProgress }>(await fetch(`/api/schedules/${id}/sheets/${batchId}`, { cache: 'no-store' }))).progress;

@@ -477,6 +477,21 @@ export const ENDPOINT_MATRIX: MatrixEntry[] = [
     expect: signedIn(401, { viewer: 403, designer: 404, reviewer: 403, otherAdmin: 404, admin: 404 }),
     request: async (ctx) => ({ path: `/api/schedules/${await teamASchedule(ctx)}/rows/2/sheet` }),
   },
+  {
+    kind: 'route',
+    method: 'POST',
+    route: '/api/schedules/[scheduleId]/sheets',
+    // "Make sizing sheets" for chosen rows: the draft schedule has no row 2, so 404 for those allowed to create sheets.
+    expect: signedIn(401, { viewer: 403, designer: 404, reviewer: 403, otherAdmin: 404, admin: 404 }),
+    request: async (ctx) => ({ path: `/api/schedules/${await teamASchedule(ctx)}/sheets`, body: { rowNumbers: [2] } }),
+  },
+  {
+    kind: 'route',
+    method: 'GET',
+    route: '/api/schedules/[scheduleId]/sheets/[batchId]',
+    expect: signedIn(401, { viewer: 404, designer: 404, reviewer: 404, otherAdmin: 404, admin: 404 }),
+    request: async (ctx) => ({ path: `/api/schedules/${await teamASchedule(ctx)}/sheets/00000000-0000-4000-8000-000000000000` }),
+  },
 
   // ── catalogue (issue 5): everyone of the team reads; admins write ─────────────────────────────
   {
@@ -634,5 +649,52 @@ export const ENDPOINT_MATRIX: MatrixEntry[] = [
     name: 'revokeApiTokenAction',
     expect: signedIn(401, { viewer: 403, designer: 403, reviewer: 403, otherAdmin: 404, admin: 200 }),
     args: async (ctx) => [{}, formData({ tokenId: await freshApiToken(ctx) })],
+  },
+  // Notifications (issue 23): each member reads and marks only their own; another team's id changes nothing.
+  {
+    kind: 'action',
+    file: 'app/(workspace)/notifications/actions.ts',
+    name: 'markReadAction',
+    expect: signedIn(401, { viewer: 200, designer: 200, reviewer: 200, otherAdmin: 200, admin: 200 }),
+    args: () => [formData({ id: '00000000-0000-4000-8000-000000000000' })],
+  },
+  {
+    kind: 'action',
+    file: 'app/(workspace)/notifications/actions.ts',
+    name: 'markAllReadAction',
+    expect: signedIn(401, { viewer: 200, designer: 200, reviewer: 200, otherAdmin: 200, admin: 200 }),
+    args: () => [],
+  },
+  {
+    kind: 'action',
+    file: 'app/(workspace)/notifications/actions.ts',
+    name: 'saveSettingsAction',
+    expect: signedIn(401, { viewer: 200, designer: 200, reviewer: 200, otherAdmin: 200, admin: 200 }),
+    args: () => [{}, formData({ 'sheet_submitted.email': 'on', 'sheet_submitted.inApp': 'on', 'sheet_returned.email': 'on', 'sheet_returned.inApp': 'on', 'sheet_approved.email': 'on', 'sheet_approved.inApp': 'on' })],
+  },
+  // Documents (issue 23): the kind's write right, restore for admins; team B finds nothing of team A (form state, 200).
+  {
+    kind: 'action',
+    file: 'app/(workspace)/documents/actions.ts',
+    name: 'documentAction',
+    expect: signedIn(401, { viewer: 403, designer: 200, reviewer: 403, otherAdmin: 200, admin: 200 }),
+    args: async (ctx) => [{}, formData({ op: 'rename', kind: 'sheet', id: (await ctx.freshSheet()).id, name: ctx.unique('renamed') })],
+    check: ({ status, text }, actor) => {
+      if (status !== 200) return null;
+      if (actor === 'otherAdmin') return /Renamed to/.test(text) ? 'team B renamed a sheet of team A' : null;
+      return /Renamed to/.test(text) ? null : 'the sheet was not renamed';
+    },
+  },
+  {
+    kind: 'action',
+    file: 'app/(workspace)/documents/actions.ts',
+    name: 'restoreFormAction',
+    expect: signedIn(401, { viewer: 403, designer: 403, reviewer: 403, otherAdmin: 200, admin: 200 }),
+    args: async (ctx) => {
+      const { deleteDocument } = await import('@/db/queries/documents');
+      const sheet = await ctx.freshSheet();
+      await deleteDocument(ctx.teamId, { userId: ctx.users.designer.id, role: 'designer' }, 'sheet', sheet.id);
+      return [formData({ kind: 'sheet', id: sheet.id })];
+    },
   },
 ];

@@ -5,7 +5,8 @@ import { can, PERMISSIONS, ROLES, type Permission, type Role } from '@/lib/auth/
 // Read off product.md, written out by hand (never copied from the table under test): admin may do
 // everything — read, projects, sheets, submit, review, share, catalogue edits and imports, members
 // and roles, schedules, API tokens; designer creates and edits projects, sheets and schedules,
-// submits and shares; reviewer reads and approves or returns; viewer reads.
+// submits and shares; reviewer reads and approves or returns; viewer reads. Issue 23 adds: an
+// admin restores a deleted project, sheet or schedule (document:restore).
 const EVERY_RIGHT: Permission[] = [
   'team:read',
   'project:write',
@@ -17,6 +18,7 @@ const EVERY_RIGHT: Permission[] = [
   'members:manage',
   'schedule:write',
   'apitoken:manage',
+  'document:restore',
 ];
 const EXPECTED: Record<Role, Permission[]> = {
   admin: EVERY_RIGHT,
@@ -36,7 +38,7 @@ describe('can(role, permission)', () => {
   });
 
   it('keeps members, catalogue edits and API tokens for admins alone', () => {
-    for (const permission of ['members:manage', 'catalogue:write', 'apitoken:manage'] as const) {
+    for (const permission of ['members:manage', 'catalogue:write', 'apitoken:manage', 'document:restore'] as const) {
       expect(ROLES.filter((role) => can(role, permission))).toEqual(['admin']);
     }
   });

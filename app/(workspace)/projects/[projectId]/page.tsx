@@ -7,6 +7,10 @@ import { requirePageUser } from '@/server/auth/session';
 import { StatusBadge } from '@/components/sheet/StatusBadge';
 import { ReviewQueue } from '@/components/sheet/ReviewQueue';
 import { CreateSheetForm } from './CreateSheetForm';
+import { DocumentActions } from '@/components/shell/DocumentActions';
+import { listArchivedInProject } from '@/db/queries/documents';
+import { sheetRefusal, projectDeleteRefusal } from '@/lib/documents/rules';
+import { documentAction } from '../../documents/actions';
 import { ProjectSchedules } from '../../schedules/ProjectSchedules';
 import { NewScheduleForm } from '../../schedules/NewScheduleForm';
 
@@ -24,10 +28,13 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
   const user = await requirePageUser('team:read');
   const project = isUuid(projectId) ? await getProject(user.teamId, projectId) : null;
   if (!project) notFound();
-  const [sheets, queue] = await Promise.all([
+  const [sheets, queue, archived] = await Promise.all([
     listSheetsForProject(user.teamId, project.id),
     can(user.role, 'sheet:review') ? listReviewQueue(user.teamId, user.id) : Promise.resolve(null),
+    listArchivedInProject(user.teamId, project.id),
   ]);
+  const mayManageSheets = can(user.role, 'sheet:write');
+  const approvedCount = sheets.filter((s) => s.status === 'approved').length + archived.sheets.filter((s) => s.status === 'approved').length;
   const projectQueue = queue?.filter((s) => s.projectId === project.id) ?? null;
   const mayCreate = can(user.role, 'sheet:write');
   return (
@@ -36,7 +43,15 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
         <nav aria-label="Breadcrumb" className="text-caption text-ink-500">
           <Link href="/projects" className="hover:underline">Projects</Link> /
         </nav>
-        <h1 id="project-heading" className="text-title">{project.name}</h1>
+        <div className="flex items-start gap-3">
+          <h1 id="project-heading" className="text-title">{project.name}</h1>
+          {can(user.role, 'project:write') ? (
+            <div className="ml-auto">
+              <DocumentActions kind="project" id={project.id} name={project.name} archived={project.archivedAt !== null} refusals={{ delete: projectDeleteRefusal(approvedCount) }} action={documentAction} label={`Manage project ${project.name}`} />
+            </div>
+          ) : null}
+        </div>
+        {project.archivedAt ? <p role="note" className="mt-1 text-tight-dark">◐ This project is archived: it is kept as it is and hidden from the projects list.</p> : null}
         {project.site ? <p className="text-ink-600">{project.site}</p> : null}
         {project.description ? <p className="mt-1 max-w-3xl text-ink-600">{project.description}</p> : null}
         {projectQueue && projectQueue.length > 0 ? <ReviewQueue sheets={projectQueue} className="mt-4" /> : null}
@@ -60,6 +75,7 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
                   <th className="px-3 py-2">Chosen candidate</th>
                   <th className="px-3 py-2">Author</th>
                   <th className="px-3 py-2">Updated</th>
+                  {mayManageSheets ? <th className="px-3 py-2"><span className="sr-only">Manage</span></th> : null}
                 </tr>
               </thead>
               <tbody>
@@ -74,13 +90,49 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
                     <td className="px-3 py-2">{sheet.chosenLabel ?? <span className="text-ink-400">none yet</span>}</td>
                     <td className="px-3 py-2">{sheet.authorName}</td>
                     <td className="px-3 py-2 num text-caption">{sheet.updatedAt.toISOString().slice(0, 16).replace('T', ' ')}</td>
+                    {mayManageSheets ? (
+                      <td className="px-3 py-2">
+                        <DocumentActions
+                          kind="sheet"
+                          id={sheet.id}
+                          name={sheet.title}
+                          refusals={{ rename: sheetRefusal('rename', sheet.status), archive: sheetRefusal('archive', sheet.status), delete: sheetRefusal('delete', sheet.status) }}
+                          action={documentAction}
+                          label={`Manage sheet ${sheet.circuitTag} revision ${sheet.revision}`}
+                        />
+                      </td>
+                    ) : null}
                   </tr>
                 ))}
               </tbody>
             </table>
           </div>
         )}
-        <ProjectSchedules teamId={user.teamId} projectId={project.id} mayCreate={can(user.role, 'schedule:write')} />
+        <ProjectSchedules teamId={user.teamId} projectId={project.id} mayCreate={can(user.role, 'schedule:write')} manageAction={can(user.role, 'schedule:write') ? documentAction : undefined} />
+        {archived.sheets.length + archived.schedules.length > 0 ? (
+          <section aria-labelledby="archived-heading" className="mt-6" data-testid="archived-in-project">
+            <h2 id="archived-heading" className="font-semibold">Archived</h2>
+            <p className="text-caption text-ink-600">Kept as they are and left out of the lists above.</p>
+            <ul className="panel mt-2 divide-y divide-ink-50">
+              {archived.sheets.map((s) => (
+                <li key={s.id} className="flex flex-wrap items-center gap-3 px-3 py-2">
+                  <Link href={`/sheets/${s.id}`} className="num font-medium text-copper-700 hover:underline">{s.circuitTag}</Link>
+                  <span>{s.title}</span>
+                  <StatusBadge status={s.status} />
+                  <span className="num text-caption">rev. {s.revision}</span>
+                  {mayManageSheets ? <span className="ml-auto"><DocumentActions kind="sheet" id={s.id} name={s.title} archived refusals={{ rename: sheetRefusal('rename', s.status), delete: sheetRefusal('delete', s.status) }} action={documentAction} label={`Manage archived sheet ${s.circuitTag}`} /></span> : null}
+                </li>
+              ))}
+              {archived.schedules.map((s) => (
+                <li key={s.id} className="flex flex-wrap items-center gap-3 px-3 py-2">
+                  <Link href={`/schedules/${s.id}`} className="font-medium text-copper-700 hover:underline">{s.name}</Link>
+                  <span className="text-caption">schedule</span>
+                  {can(user.role, 'schedule:write') ? <span className="ml-auto"><DocumentActions kind="schedule" id={s.id} name={s.name} archived action={documentAction} label={`Manage archived schedule ${s.name}`} /></span> : null}
+                </li>
+              ))}
+            </ul>
+          </section>
+        ) : null}
       </section>
       {mayCreate || can(user.role, 'schedule:write') ? (
         <aside className="space-y-4">

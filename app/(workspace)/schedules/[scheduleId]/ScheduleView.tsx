@@ -5,12 +5,13 @@
  * size it, then the result grid with filters, totals, exports and "open as sizing sheet".
  */
 import { useMemo, useRef, useState } from 'react';
+import Link from 'next/link';
 import { useRouter } from 'next/navigation';
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { ColDef, ICellRendererParams, RowClickedEvent } from 'ag-grid-community';
+import type { ColDef, ICellRendererParams, RowClickedEvent, SelectionChangedEvent } from 'ag-grid-community';
 import { DataGrid } from '@/components/grid/DataGrid';
 import type { ResultLine } from '@/lib/schedule';
-import { fetchProgress, fetchResults, fetchSchedule, openRowAsSheet, queueScheduleRows, uploadScheduleFile, type ScheduleDetail } from '../api';
+import { fetchProgress, fetchResults, fetchSchedule, fetchSheetBatch, openRowAsSheet, queueScheduleRows, requestSheetsForRows, uploadScheduleFile, type ScheduleDetail } from '../api';
 
 /** Without a stored row for this long, the page says that no worker seems to be running. */
 const STALL_SECONDS = 120;
@@ -253,6 +254,8 @@ function Results({ scheduleId, mayOpenSheet, fileName }: { scheduleId: string; m
   const results = useQuery({ queryKey: ['schedule-results', scheduleId], queryFn: () => fetchResults(scheduleId) });
   const [filter, setFilter] = useState<Filter>('all');
   const [selected, setSelected] = useState<ResultLine | null>(null);
+  // Rows ticked for "Make sizing sheets" (issue 23), in the order of the file.
+  const [chosen, setChosen] = useState<number[]>([]);
   const openSheet = useMutation({
     mutationFn: (rowNumber: number) => openRowAsSheet(scheduleId, rowNumber),
     onSuccess: (sheet) => router.push(`/sheets/${sheet.id}`),
@@ -323,7 +326,8 @@ function Results({ scheduleId, mayOpenSheet, fileName }: { scheduleId: string; m
           rowData={shown}
           columnDefs={columns}
           getRowId={(p) => String(p.data.rowNumber)}
-          rowSelection={{ mode: 'singleRow', checkboxes: false, enableClickSelection: true }}
+          rowSelection={mayOpenSheet ? { mode: 'multiRow', checkboxes: true, headerCheckbox: true, selectAll: 'filtered', enableClickSelection: false } : { mode: 'singleRow', checkboxes: false, enableClickSelection: true }}
+          onSelectionChanged={(e: SelectionChangedEvent<ResultLine>) => setChosen(e.api.getSelectedRows().map((r) => r.rowNumber).sort((a, b) => a - b))}
           onRowClicked={(e: RowClickedEvent<ResultLine>) => setSelected(e.data ?? null)}
           heightPx={560}
           noMatchText={filter === 'all' ? 'No circuits.' : 'No circuit matches this filter.'}
@@ -331,6 +335,7 @@ function Results({ scheduleId, mayOpenSheet, fileName }: { scheduleId: string; m
       </section>
 
       <aside className="space-y-3">
+        {mayOpenSheet ? <MakeSheets scheduleId={scheduleId} chosen={chosen} /> : null}
         <div className="panel p-4" aria-labelledby="totals-heading">
           <h2 id="totals-heading" className="font-semibold">Totals of the sized circuits</h2>
           <dl className="mt-2 grid grid-cols-[1fr_auto] gap-x-3 gap-y-1 text-body">
@@ -364,5 +369,64 @@ function Results({ scheduleId, mayOpenSheet, fileName }: { scheduleId: string; m
         </div>
       </aside>
     </div>
+  );
+}
+
+// ───────────────────────── sheets for chosen rows ─────────────────────────
+
+/** "Make sizing sheets" for the ticked rows: queued at once, made by the workers, progress and the list of made sheets. */
+function MakeSheets({ scheduleId, chosen }: { scheduleId: string; chosen: number[] }) {
+  const [batchId, setBatchId] = useState<string | null>(null);
+  const request = useMutation({
+    mutationFn: () => requestSheetsForRows(scheduleId, chosen),
+    onSuccess: (batch) => setBatchId(batch.id),
+  });
+  const progress = useQuery({
+    queryKey: ['sheet-batch', scheduleId, batchId],
+    queryFn: () => fetchSheetBatch(scheduleId, batchId!),
+    enabled: batchId !== null,
+    refetchInterval: (query) => (query.state.data?.status === 'done' ? false : 1000),
+  });
+  const p = progress.data;
+  const running = batchId !== null && p?.status !== 'done';
+  return (
+    <section className="panel space-y-2 p-4" aria-labelledby="make-sheets-heading" data-testid="make-sheets">
+      <h2 id="make-sheets-heading" className="font-semibold">Sizing sheets from rows</h2>
+      <p className="text-caption text-ink-600">Tick rows in the grid; each becomes a draft sizing sheet in this project, with the row’s inputs and its family’s sizes as candidates.</p>
+      <button type="button" className="btn-primary" disabled={chosen.length === 0 || request.isPending || running} onClick={() => request.mutate()} data-testid="make-sheets-button">
+        {request.isPending ? 'Queueing…' : chosen.length === 0 ? 'Tick rows to make sheets' : `Make sizing sheets for the ${chosen.length} chosen ${chosen.length === 1 ? 'row' : 'rows'}`}
+      </button>
+      {request.isError ? <p role="alert" className="field-error">{request.error.message}</p> : null}
+      {batchId && !p ? <p role="status" className="text-ink-500">Queued…</p> : null}
+      {p ? (
+        <div className="space-y-2" aria-live="polite">
+          <div role="progressbar" aria-label="Sheets made" aria-valuemin={0} aria-valuemax={p.total} aria-valuenow={p.done} className="h-3 w-full overflow-hidden rounded bg-ink-100">
+            <div className={`h-full ${p.status === 'done' ? 'bg-within' : 'bg-copper-500'} transition-[width]`} style={{ width: `${p.total > 0 ? (100 * p.done) / p.total : 0}%` }} />
+          </div>
+          <p className="num text-body" data-testid="make-sheets-progress">
+            {p.status === 'done' ? '✓ Done: ' : 'Making sheets in the background: '}
+            {p.done} of {p.total}
+            {p.failed > 0 ? <span className="text-over-dark"> · ✕ {p.failed} not made</span> : null}
+          </p>
+          {p.created.length > 0 ? (
+            <ul className="max-h-64 space-y-1 overflow-auto text-body" data-testid="made-sheets">
+              {p.created.map((s) => (
+                <li key={s.sheetId}>
+                  <span className="num text-caption text-ink-500">Row {s.rowNumber}</span>{' '}
+                  <Link href={`/sheets/${s.sheetId}`} className="text-copper-700 underline">{s.title || s.circuitTag}</Link>
+                </li>
+              ))}
+            </ul>
+          ) : null}
+          {p.failures.length > 0 ? (
+            <ul className="space-y-1 text-body text-over-dark">
+              {p.failures.map((f) => <li key={f.rowNumber}>✕ Row {f.rowNumber}: {f.message}</li>)}
+            </ul>
+          ) : null}
+          {!running ? <button type="button" className="btn-quiet" onClick={() => { setBatchId(null); request.reset(); }}>Make more</button> : null}
+        </div>
+      ) : null}
+      {progress.isError ? <p role="alert" className="field-error">Could not refresh the progress: {progress.error.message}</p> : null}
+    </section>
   );
 }

@@ -1,6 +1,6 @@
 import { z } from 'zod';
-import { transitionSheet } from '@/db/queries/sheets';
 import { apiHandler } from '@/server/http/api';
+import { transitionSheetAndNotify } from '@/server/notifications/mail';
 import { commentSchema, expectedVersionSchema, sheetActor, sheetOperation } from '../../_shared/sheetApi';
 import { readJsonBody } from '@/server/http/body';
 
@@ -13,12 +13,14 @@ const bodySchema = z.object({
 /**
  * Moves the sheet through review. Who may do what depends on the action and on the sheet (a
  * reviewer may not approve their own), so the state machine decides: 403 for the role or own
- * sheet, 409 for the wrong state, a standing blocker or unacknowledged review flags.
+ * sheet, 409 for the wrong state, a standing blocker or unacknowledged review flags. The people
+ * concerned are notified (in the app with the decision, by mail after it; a mail failure is logged
+ * and does not undo the decision).
  */
 export const POST = apiHandler({ permission: 'team:read' }, async (req, { user, params }) => {
   const body = await readJsonBody(req, bodySchema);
   return sheetOperation(async () => {
-    const updated = await transitionSheet(user!.teamId, sheetActor(user!), params.sheetId, body.action, body);
+    const { mail: _mail, ...updated } = await transitionSheetAndNotify(user!.teamId, sheetActor(user!), params.sheetId, body.action, body);
     return Response.json(updated);
   });
 });
