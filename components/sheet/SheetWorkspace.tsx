@@ -44,6 +44,7 @@ import { CrossSectionFieldPanel } from './CrossSectionFieldPanel';
 import { ReEvaluationNotice } from './ReEvaluationNotice';
 import { arrangementRefusalOf, plainMessage, refusalSentence, refusalSubject } from '@/lib/sheet/arrangementCheck';
 import { reEvaluationOf } from '@/lib/sheet/reEvaluation';
+import type { CandidateGridColumns } from '@/lib/user/preferences';
 
 // The plots and the grid are the slow part of a render (Plotly, AG Grid): they take the new result
 // in a deferred render, so that the result strip shows a keystroke's result at once.
@@ -68,7 +69,21 @@ const same = (a: unknown, b: unknown) => JSON.stringify(a) === JSON.stringify(b)
 /** Quiet time after the last edit before a draft saves itself. */
 const AUTOSAVE_MS = 2000;
 
-export function SheetWorkspace({ initialSheet, initialHistory, user }: { initialSheet: ClientSheet; initialHistory: HistoryItem[]; user: WorkspaceUser }) {
+export function SheetWorkspace({
+  initialSheet,
+  initialHistory,
+  user,
+  gridColumns = {},
+  onGridColumnsChange,
+}: {
+  initialSheet: ClientSheet;
+  initialHistory: HistoryItem[];
+  user: WorkspaceUser;
+  /** The user's own choice of comparison-grid columns (users.preferences). */
+  gridColumns?: CandidateGridColumns;
+  /** Stores that choice for the user (a server action handed down by the page). */
+  onGridColumnsChange?: (columns: CandidateGridColumns) => Promise<{ ok: true } | { ok: false; message: string }>;
+}) {
   const router = useRouter();
   const queryClient = useQueryClient();
   const sheetId = initialSheet.id;
@@ -536,7 +551,17 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
                 </p>
               ) : null}
               {values.chosenCandidateId === null ? <p className="mb-2 text-caption text-ink-600">No candidate chosen yet: choose one in the first column before submitting the sheet.</p> : null}
-              <DeferredCandidateGrid rows={rows} units={units} focusedId={focusedId} onFocus={setFocusedId} onChoose={chooseCandidate} onRemove={removeCandidate} editable={editable} />
+              <DeferredCandidateGrid
+                rows={rows}
+                units={units}
+                focusedId={focusedId}
+                onFocus={setFocusedId}
+                onChoose={chooseCandidate}
+                onRemove={removeCandidate}
+                editable={editable}
+                columnChoice={gridColumns}
+                onColumnChoiceChange={onGridColumnsChange}
+              />
             </section>
           ) : null}
 

@@ -162,6 +162,8 @@ export interface CandidateRecord {
   utilisationText: string;
   lossWPerM: number | null;
   voltageDropPercent: number | null;
+  /** The sheet's voltage-drop limit, per cent; null when none is set (the grid shows the verdict beside the figure). */
+  voltageDropLimitPercent: number | null;
   shortCircuit: string;
   massKg: number | null;
   materialCost: string | null;
@@ -227,6 +229,7 @@ export function candidateRecords(candidates: SheetCandidate[], results: Candidat
         utilisationText: '',
         lossWPerM: null,
         voltageDropPercent: null,
+        voltageDropLimitPercent: null,
         shortCircuit: '',
         massKg: null,
         materialCost: null,
@@ -268,6 +271,7 @@ export function candidateRecords(candidates: SheetCandidate[], results: Candidat
       utilisationText: row.utilisationText,
       lossWPerM: row.lossWPerM,
       voltageDropPercent: row.voltageDropPercent,
+      voltageDropLimitPercent: row.voltageDropLimitPercent,
       shortCircuit: row.shortCircuit,
       massKg: row.massKg,
       materialCost: row.materialCost,
