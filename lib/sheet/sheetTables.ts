@@ -8,7 +8,7 @@
 import type { CandidateEvaluation, CandidateEvaluationOk } from '@/lib/electrical/sizing/types';
 import { describeArrangement, sectionPerPhaseMm2, type SheetCandidate } from '@/lib/sheet/candidates';
 import type { SheetInputs } from '@/lib/sheet/schema';
-import { formatNumber, formatQuantity } from '@/lib/units';
+import { formatNumber, formatPower, formatQuantity, lossPerLengthWords } from '@/lib/units';
 import { candidateRow, type CandidateRow, type ComparisonMarks, type ResultState } from './candidateRow';
 import { plainMessage } from './arrangementCheck';
 import { FORMATION_WORDS, governingCableOf, groupMethodWords, otherCircuitWords } from './groupWords';
@@ -361,7 +361,7 @@ export function chosenResultRows(e: CandidateEvaluationOk, lengthM: number, othe
     { label: 'AC/DC resistance ratio', value: n(e.acFactor, 4) },
     {
       label: 'Loss of the circuit',
-      value: e.lossWPerM === null ? '—' : `${formatQuantity(e.lossWPerM, 'powerWPerM', 'si')}, ${n((e.lossWPerM * lengthM) / 1000, 3)} kW over the route`,
+      value: e.lossWPerM === null ? '—' : `${lossPerLengthWords(e.lossWPerM, 'si')}, ${formatPower(e.lossWPerM * lengthM)} over the route`,
     },
     {
       label: 'Voltage drop (IEC 60364-5-52 Annex G)',
