@@ -314,8 +314,8 @@ export function CandidateGrid({
             ),
         },
         // Names wrap rather than being cut ("95 mm² copper XLPE/PVC single-core" is long), with the whole name as a tooltip too.
-        { colId: 'label', headerName: 'Name', field: 'label', width: 170, pinned: 'left', lockPinned: true, tooltipField: 'label', wrapText: true, autoHeight: true, cellClass: 'leading-5 py-1' },
-        { colId: 'marks', headerName: 'Marked', field: 'marks', width: 150, pinned: 'left', lockPinned: true, sortable: false, cellRenderer: MarksCell, autoHeight: true, cellClass: 'py-1', valueFormatter: (p) => (p.value as string[]).join(' · ') },
+        { colId: 'label', headerName: 'Name', field: 'label', width: 170, pinned: 'left', lockPinned: true, tooltipField: 'label', wrapText: true, autoHeight: true, cellStyle: { lineHeight: '20px', paddingTop: '5px', paddingBottom: '5px' } },
+        { colId: 'marks', headerName: 'Marked', field: 'marks', width: 150, pinned: 'left', lockPinned: true, sortable: false, cellRenderer: MarksCell, autoHeight: true, cellStyle: { paddingTop: '5px', paddingBottom: '5px' }, valueFormatter: (p) => (p.value as string[]).join(' · ') },
       ],
     };
     const groups: ColGroupDef<CandidateGridRow>[] = CANDIDATE_GRID_GROUPS.map((group) => ({
@@ -385,7 +385,9 @@ export function CandidateGrid({
         </fieldset>
       ) : null}
       {choiceProblem ? <p role="alert" className="field-error">{choiceProblem}</p> : null}
-      <div className="w-full [&_.ag-center-cols-container]:!min-h-0 [&_.ag-center-cols-viewport]:!min-h-0" data-testid="candidate-grid">
+      {/* Where the browser's scrollbars overlay the page (no width of their own), AG Grid floats its
+          horizontal scrollbar over the last row; here it takes its own line below the rows instead. */}
+      <div className="w-full [&_.ag-body-horizontal-scroll.ag-scrollbar-invisible]:!relative" data-testid="candidate-grid">
         <AgGridReact<CandidateGridRow>
           theme={gridTheme}
           rowData={rows}

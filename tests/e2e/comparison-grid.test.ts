@@ -74,9 +74,11 @@ async function checkPinnedInView(page: Page, widthPx: number) {
   expect(marks.size).toBeGreaterThan(0);
   const section = page.locator('section[aria-labelledby="compare-heading"]');
   await section.scrollIntoViewIfNeeded();
-  const pinned = page.getByTestId('candidate-grid').locator('.ag-pinned-left-cols-container');
+  // AG Grid 36 draws each row's pinned cells in its own sticky `.ag-grid-pinned-left-cells` part.
+  const grid = page.getByTestId('candidate-grid');
+  const pinnedCell = (id: string, colId: string) => grid.locator(`.ag-row[row-id="${id}"] .ag-grid-pinned-left-cells [col-id="${colId}"]`);
   for (const c of inputs.candidates) {
-    const name = pinned.locator(`[row-id="${c.id}"] [col-id="label"]`);
+    const name = pinnedCell(c.id, 'label');
     await expect(name.innerText()).resolves.toBe(c.label);
     // Whole, not cut with an ellipsis: the text fits its cell.
     const fits = await name.evaluate((el) => el.scrollWidth <= el.clientWidth + 1);
@@ -85,7 +87,7 @@ async function checkPinnedInView(page: Page, widthPx: number) {
     expect(box.x + box.width).toBeLessThanOrEqual(widthPx);
   }
   for (const [id, words] of marks) {
-    const cell = pinned.locator(`[row-id="${id}"] [col-id="marks"]`);
+    const cell = pinnedCell(id, 'marks');
     for (const word of words) await expect(cell.innerText()).resolves.toContain(word);
     const box = (await cell.boundingBox())!;
     expect(box.x).toBeGreaterThanOrEqual(0);
@@ -107,11 +109,18 @@ describe('the candidate comparison grid', () => {
     await page.setViewportSize({ width: 1024, height: 900 });
     await openGrid(page);
     // The other columns do not fit beside them at this width: they scroll, the pinned ones do not.
-    const centre = page.getByTestId('candidate-grid').locator('.ag-center-cols-viewport');
-    await expect(centre.evaluate((el) => el.scrollWidth > el.clientWidth)).resolves.toBe(true);
-    await centre.evaluate((el) => { el.scrollLeft = el.scrollWidth; });
+    // (AG Grid 36 scrolls the body in `.ag-grid-viewport`; scrolled to its right end here.)
+    const overflowPx = await page.getByTestId('candidate-grid').evaluate((root) => {
+      let most = 0;
+      for (const el of root.querySelectorAll<HTMLElement>('.ag-grid-viewport, .ag-body-horizontal-scroll-viewport')) {
+        most = Math.max(most, el.scrollWidth - el.clientWidth);
+        el.scrollLeft = el.scrollWidth;
+      }
+      return most;
+    });
+    expect(overflowPx).toBeGreaterThan(0);
+    await page.waitForTimeout(300);
     const section = await checkPinnedInView(page, 1024);
-    await centre.evaluate((el) => { el.scrollLeft = 0; });
     await gridScreenshot(section, 'comparison-grid-1024');
     await page.context().close();
   }, 180_000);
@@ -125,7 +134,7 @@ describe('the candidate comparison grid', () => {
     for (const group of ['Candidate', 'Thermal', 'Electrical', 'Cost']) expect(groupHeaders.map((t) => t.trim())).toContain(group);
 
     for (const c of inputs.candidates) {
-      const row = grid.locator(`.ag-center-cols-container [row-id="${c.id}"]`);
+      const row = grid.locator(`.ag-row[row-id="${c.id}"] .ag-grid-scrolling-cells`);
       // State, short circuit, voltage drop and flags: an icon and words in each, not colour alone.
       await expect(row.locator('[col-id="state"]').innerText()).resolves.toMatch(/^[✔▲✖]\s*(Within limit|Margin under 10 %|Over limit)/);
       await expect(row.locator('[col-id="shortCircuit"]').innerText()).resolves.toMatch(/^(✔ passes|✖ fails|not checked)$/);

@@ -107,7 +107,8 @@ describe('the small items of issue 23', () => {
 
     const page = await signInInBrowser(browser, designerEmail);
     await page.goto(appUrl(`/sheets/${sheetId}`));
-    const loss = page.getByTestId('loss-of-circuit');
+    // Found by its label, as a reader finds it.
+    const loss = page.locator('dt', { hasText: 'Loss of the circuit' }).locator('xpath=following-sibling::dd');
     await loss.waitFor({ timeout: 60_000 });
     await expect.poll(() => loss.innerText(), { timeout: 30_000 }).toContain(`${formatPower(routeW)} over the route`);
     await expect(loss.innerText()).resolves.toMatch(/\d mW over the route/);

@@ -37,7 +37,7 @@ export const commentSchema = z.string().trim().max(2000, 'A comment must be at m
 export const sheetTitleSchema = z
   .string()
   .trim()
-  .min(1, 'Say what the circuit feeds (title): it is required')
+  .min(1, 'What the circuit feeds (title) is required')
   .max(200, 'What the circuit feeds (title) must be at most 200 characters');
 
 export const createSheetBodySchema = z.object({
