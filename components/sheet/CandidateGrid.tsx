@@ -357,7 +357,7 @@ export function CandidateGrid({
   return (
     <div className="w-full space-y-1">
       <div className="flex flex-wrap items-center gap-2 text-caption">
-        <button type="button" className="btn-quiet py-0.5" aria-expanded={pickerOpen} aria-controls="grid-column-picker" data-testid="column-picker-toggle" onClick={() => setPickerOpen((v) => !v)}>
+        <button type="button" className="btn-quiet py-0.5" aria-expanded={pickerOpen} aria-controls={pickerOpen ? "grid-column-picker" : undefined} data-testid="column-picker-toggle" onClick={() => setPickerOpen((v) => !v)}>
           Columns{hiddenCount > 0 ? ` (${hiddenCount} hidden)` : ''}
         </button>
         <span className="text-ink-500">The name and its marks stay on the left; scroll sideways for the rest.</span>

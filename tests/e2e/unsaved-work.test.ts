@@ -64,7 +64,7 @@ afterAll(async () => {
 });
 
 describe('unsaved work on the sizing sheet', () => {
-  it('a draft saves itself about 2 s after the last of several edits, in one save, and the title line goes Not saved → Saved', async () => {
+  it('a draft saves itself about 2 s after the last of several edits (debounced), and the title line goes Not saved → Saved', async () => {
     const sheetId = await draftSheet('UW-1');
     const before = (await getSheet(teamId, sheetId))!;
     const page = await signInInBrowser(browser, designer.email);
@@ -72,22 +72,32 @@ describe('unsaved work on the sizing sheet', () => {
     const saves = recordSaves(page, sheetId);
 
     const current = page.getByTestId('input-design-current');
+    const editedAt: number[] = [];
     for (const value of ['900', '950', '1000']) {
       await current.fill(value);
+      editedAt.push(Date.now());
+      // At once after an edit (well inside the 2 s the autosave waits) the title line says so.
+      if (value === '900') await expect.poll(() => page.getByTestId('save-state').innerText(), { timeout: 1_500 }).toBe('Not saved');
       await page.waitForTimeout(300);
     }
-    const lastEditAt = Date.now() - 300;
-    await expect(page.getByTestId('save-state').innerText()).resolves.toBe('Not saved');
-    await screenshot(page, 'unsaved-01-not-saved');
     await expect.poll(() => page.getByTestId('save-state').innerText(), { timeout: 30_000 }).toBe('Saved');
-    await screenshot(page, 'unsaved-02-saved-by-itself');
+    await screenshot(page, 'unsaved-01-saved-by-itself');
 
-    expect(saves).toHaveLength(1);
-    // Debounced: the one save left no sooner than the quiet time after the last edit (2 s, less a margin for the clock).
-    expect(saves[0].at - lastEditAt).toBeGreaterThanOrEqual(1_700);
-    expect(saves[0].request.postDataJSON()).toMatchObject({ expectedVersion: before.version, inputs: { circuit: { designCurrentA: 1000 } } });
+    // Debounced: every save left no sooner than the quiet time (2 s, less a margin for the clock)
+    // after the edit before it, and the last one carries the last edit. On a loaded machine a gap
+    // between two fills may itself pass 2 s, and then that save is right; when none did, one save.
+    const sent = saves.map((s) => ({ at: s.at, currentA: (s.request.postDataJSON() as { inputs: { circuit: { designCurrentA: number } } }).inputs.circuit.designCurrentA }));
+    expect(sent.length).toBeGreaterThan(0);
+    for (const save of sent) {
+      const lastEdit = Math.max(...editedAt.filter((t) => t <= save.at));
+      expect(save.at - lastEdit).toBeGreaterThanOrEqual(1_700);
+    }
+    expect(sent.at(-1)!.currentA).toBe(1000);
+    const longGaps = editedAt.slice(1).filter((t, i) => t - editedAt[i] >= 1_700).length;
+    if (longGaps === 0) expect(sent).toHaveLength(1);
+    expect((saves[0].request.postDataJSON() as { expectedVersion: number }).expectedVersion).toBe(before.version);
     const after = (await getSheet(teamId, sheetId))!;
-    expect(after.version).toBe(before.version + 1);
+    expect(after.version).toBe(before.version + sent.length);
     expect(after.inputs.circuit.designCurrentA).toBe(1000);
     await page.context().close();
   }, 180_000);
@@ -102,18 +112,23 @@ describe('unsaved work on the sizing sheet', () => {
       void dialog.dismiss();
     });
 
+    // A negative design current is refused by the inputs' schema, so the change stays unsaved
+    // however slow the machine is (a valid edit would save itself after 2 s, leaving nothing to warn about).
     const current = page.getByTestId('input-design-current');
     await current.click();
-    await current.fill('1200');
+    await current.fill('-5');
+    await expect.poll(() => page.getByTestId('save-state').innerText()).toBe('Not saved');
+    await expect(page.getByTestId('save-state-why').innerText()).resolves.toMatch(/complete the inputs/);
     await page.getByRole('navigation', { name: 'Workspace' }).getByRole('link', { name: 'Catalogue' }).click();
     await expect.poll(() => dialogs.length, { timeout: 10_000 }).toBe(1);
     expect(dialogs[0].type).toBe('confirm');
     expect(dialogs[0].message).toMatch(/not saved/);
     // Dismissed: still on the sheet with the edit in the form.
     expect(new URL(page.url()).pathname).toBe(`/sheets/${sheetId}`);
-    await expect(current.inputValue()).resolves.toBe('1200');
+    await expect(current.inputValue()).resolves.toBe('-5');
 
     // Once the draft has saved itself, the same link leaves without asking.
+    await current.fill('1200');
     await expect.poll(() => page.getByTestId('save-state').innerText(), { timeout: 30_000 }).toBe('Saved');
     await page.getByRole('navigation', { name: 'Workspace' }).getByRole('link', { name: 'Catalogue' }).click();
     await page.waitForURL(/\/catalogue/, { timeout: 30_000 });
@@ -123,7 +138,8 @@ describe('unsaved work on the sizing sheet', () => {
     // Closing the tab (the same prompt as a reload) with an edit not yet saved: the browser's own "leave this page?".
     await openSheet(page, sheetId);
     await current.click();
-    await current.fill('1300');
+    await current.fill('-5');
+    await expect.poll(() => page.getByTestId('save-state').innerText()).toBe('Not saved');
     await page.close({ runBeforeUnload: true });
     await expect.poll(() => dialogs.map((d) => d.type), { timeout: 10_000 }).toContain('beforeunload');
     await page.context().close();
@@ -135,12 +151,12 @@ describe('unsaved work on the sizing sheet', () => {
     await openSheet(page, sheetId);
     const current = page.getByTestId('input-design-current');
     await current.fill('1100');
-    const request = page.waitForRequest((r) => r.method() === 'PUT' && new URL(r.url()).pathname === `/api/sheets/${sheetId}`, { timeout: 1_000 });
+    const request = page.waitForRequest((r) => r.method() === 'PUT' && new URL(r.url()).pathname === `/api/sheets/${sheetId}`, { timeout: 1_500 });
     const pressedAt = Date.now();
     await page.keyboard.press('Control+s');
     const sent = await request;
-    // Well inside the 2 s quiet time the autosave waits for.
-    expect(Date.now() - pressedAt).toBeLessThan(1_000);
+    // Inside the 2 s quiet time the autosave waits for.
+    expect(Date.now() - pressedAt).toBeLessThan(1_500);
     expect(sent.postDataJSON()).toMatchObject({ inputs: { circuit: { designCurrentA: 1100 } } });
     await expect.poll(() => page.getByTestId('save-state').innerText(), { timeout: 30_000 }).toBe('Saved');
     expect((await getSheet(teamId, sheetId))!.inputs.circuit.designCurrentA).toBe(1100);
