@@ -364,7 +364,7 @@ export function CandidateGrid({
       </div>
       {pickerOpen ? (
         <fieldset id="grid-column-picker" className="rounded border border-ink-200 bg-paper p-2" data-testid="column-picker">
-          <legend className="px-1 text-caption font-medium">Columns to show (remembered for you)</legend>
+          <legend className="px-1 text-caption font-medium">Columns to show{onColumnChoiceChange ? ' (remembered for you)' : ' (on this page only)'}</legend>
           <div className="flex flex-wrap gap-x-6 gap-y-2">
             {CANDIDATE_GRID_GROUPS.map((group) => {
               const inGroup = offered.filter((c) => c.group === group);

@@ -1,7 +1,7 @@
 import { notFound } from 'next/navigation';
 import { getSheet, sheetHistory } from '@/db/queries/sheets';
 import { getUserPreferences } from '@/db/queries/preferences';
-import { saveCandidateGridColumnsAction } from './actions';
+import { saveCandidateGridColumnsAction } from '@/server/auth/preferenceActions';
 import { requirePageUser } from '@/server/auth/session';
 import { SheetWorkspace, type ClientSheet } from '@/components/sheet/SheetWorkspace';
 import type { HistoryItem } from '@/components/sheet/HistoryList';
