@@ -43,6 +43,11 @@ const nextConfig = {
   async headers() {
     return [{ source: '/:path*', headers: securityHeaders }];
   },
+  // Browsers and feed readers that ask for /favicon.ico without reading the page's <link rel="icon">
+  // get our one icon (app/icon.svg) instead of a 404.
+  async redirects() {
+    return [{ source: '/favicon.ico', destination: '/icon.svg', permanent: true }];
+  },
 };
 
 export default nextConfig;

@@ -3,7 +3,7 @@ import type { HotSpotCurve } from '@/lib/sheet/compute';
 import type { UnitSystem } from '@/lib/units';
 import { convertFromSi, unitLabel } from '@/lib/units';
 import { Plot, PLOT_CONFIG, PLOT_LAYOUT_BASE } from './Plot';
-import { CANDIDATE_COLOURS } from './ramp';
+import { candidateColour, candidateMarker } from './ramp';
 
 /** Hot spot against current for each candidate, with the design current and each ampacity marked. */
 export function HotSpotCurvePlot({
@@ -20,7 +20,8 @@ export function HotSpotCurvePlot({
   const toT = (c: number) => convertFromSi(c, 'temperature', units);
   const tUnit = unitLabel('temperature', units);
   const data = curves.flatMap((curve, i) => {
-    const colour = CANDIDATE_COLOURS[i % CANDIDATE_COLOURS.length];
+    const colour = candidateColour(i, curves.length);
+    const symbol = candidateMarker(i);
     const points = curve.points.filter((p) => p.hotSpotC !== null);
     const limit = limits[curve.candidateId];
     return [
@@ -28,9 +29,11 @@ export function HotSpotCurvePlot({
         x: points.map((p) => p.currentA),
         y: points.map((p) => toT(p.hotSpotC as number)),
         type: 'scatter' as const,
-        mode: 'lines' as const,
+        mode: 'lines+markers' as const,
         name: curve.label,
         line: { color: colour, width: 2, shape: 'spline' as const },
+        // A shape on every few points as well as the colour, so the lines can be told apart by shape.
+        marker: { color: colour, size: 7, symbol, maxdisplayed: 12 },
         hovertemplate: `${curve.label}<br>%{x:.0f} A → %{y:.1f} ${tUnit}<extra></extra>`,
       },
       {

@@ -1,13 +1,13 @@
 'use client';
 import type { CandidateEvaluationOk } from '@/lib/electrical/sizing/types';
-import { formatNumber, formatQuantity, KG_PER_POUND, type UnitSystem } from '@/lib/units';
+import { formatNumber, formatPower, formatQuantity, KG_PER_POUND, lossPerLengthWords, type UnitSystem } from '@/lib/units';
 
-function Row({ label, children, state }: { label: string; children: React.ReactNode; state?: 'pass' | 'fail' | 'none' }) {
+function Row({ label, children, state, testId }: { label: string; children: React.ReactNode; state?: 'pass' | 'fail' | 'none'; testId?: string }) {
   const mark = state === 'pass' ? <span className="text-within-dark">✔ passes</span> : state === 'fail' ? <span className="font-semibold text-over-dark">✖ fails</span> : null;
   return (
     <div className="flex items-baseline justify-between gap-2 border-b border-ink-50 py-1 last:border-0">
       <dt className="text-ink-600">{label}</dt>
-      <dd className="num text-right text-ink-900">
+      <dd className="num text-right text-ink-900" data-testid={testId}>
         {children} {mark}
       </dd>
     </div>
@@ -22,8 +22,8 @@ export function ChecksPanel({ evaluation, units, lengthM }: { evaluation: Candid
     <section aria-labelledby="checks-heading" className="panel p-3">
       <h2 id="checks-heading" className="text-body font-semibold">Losses, voltage drop, short circuit</h2>
       <dl className="mt-1 text-body">
-        <Row label="Loss of the circuit">
-          {evaluation.lossWPerM === null ? '—' : `${formatQuantity(evaluation.lossWPerM, 'powerWPerM', units)} · ${formatNumber((evaluation.lossWPerM * lengthM) / 1000, 3)} kW over the route`}
+        <Row label="Loss of the circuit" testId="loss-of-circuit">
+          {evaluation.lossWPerM === null ? '—' : `${lossPerLengthWords(evaluation.lossWPerM, units)} · ${formatPower(evaluation.lossWPerM * lengthM)} over the route`}
         </Row>
         <Row label="Conductor temperature (mean)">{evaluation.conductorC === null ? '—' : formatQuantity(evaluation.conductorC, 'temperature', units)}</Row>
         <Row label="AC/DC resistance ratio">{formatNumber(evaluation.acFactor, 4)}</Row>

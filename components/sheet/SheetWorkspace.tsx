@@ -36,6 +36,7 @@ import { InputsForm } from './InputsForm';
 import { ResultStrip } from './ResultStrip';
 import { StatusBadge } from './StatusBadge';
 import { useLiveComputation } from './useLiveComputation';
+import { useUnsavedGuard } from './useUnsavedGuard';
 import { GroupPanel } from './GroupPanel';
 import { BusbarResults } from './BusbarResults';
 import { ProtectionPanel } from './ProtectionPanel';
@@ -43,6 +44,7 @@ import { CrossSectionFieldPanel } from './CrossSectionFieldPanel';
 import { ReEvaluationNotice } from './ReEvaluationNotice';
 import { arrangementRefusalOf, plainMessage, refusalSentence, refusalSubject } from '@/lib/sheet/arrangementCheck';
 import { reEvaluationOf } from '@/lib/sheet/reEvaluation';
+import type { CandidateGridColumns } from '@/lib/user/preferences';
 
 // The plots and the grid are the slow part of a render (Plotly, AG Grid): they take the new result
 // in a deferred render, so that the result strip shows a keystroke's result at once.
@@ -64,7 +66,24 @@ export interface WorkspaceUser {
 
 const same = (a: unknown, b: unknown) => JSON.stringify(a) === JSON.stringify(b);
 
-export function SheetWorkspace({ initialSheet, initialHistory, user }: { initialSheet: ClientSheet; initialHistory: HistoryItem[]; user: WorkspaceUser }) {
+/** Quiet time after the last edit before a draft saves itself. */
+const AUTOSAVE_MS = 2000;
+
+export function SheetWorkspace({
+  initialSheet,
+  initialHistory,
+  user,
+  gridColumns = {},
+  onGridColumnsChange,
+}: {
+  initialSheet: ClientSheet;
+  initialHistory: HistoryItem[];
+  user: WorkspaceUser;
+  /** The user's own choice of comparison-grid columns (users.preferences). */
+  gridColumns?: CandidateGridColumns;
+  /** Stores that choice for the user (a server action handed down by the page). */
+  onGridColumnsChange?: (columns: CandidateGridColumns) => Promise<{ ok: true } | { ok: false; message: string }>;
+}) {
   const router = useRouter();
   const queryClient = useQueryClient();
   const sheetId = initialSheet.id;
@@ -152,17 +171,21 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
     ]);
   }, [queryClient, sheetId]);
 
+  // What failed to save (not a conflict): autosave waits for the next edit instead of retrying the same inputs.
+  const [failedInputs, setFailedInputs] = useState<SheetInputs | null>(null);
   const save = useMutation({
-    mutationFn: (override?: { expectedVersion: number }) =>
-      sheetApi.save(sheetId, { expectedVersion: override?.expectedVersion ?? baseVersion, inputs: sheetInputsSchema.parse(values) }),
-    onSuccess: async (answer) => {
-      setSavedInputs(values);
+    // The inputs sent travel with the call, so that edits made while it is in flight stay unsaved.
+    mutationFn: ({ inputs, expectedVersion }: { inputs: SheetInputs; expectedVersion: number; auto: boolean }) =>
+      sheetApi.save(sheetId, { expectedVersion, inputs: sheetInputsSchema.parse(inputs) }),
+    onSuccess: async (answer, sent) => {
+      setSavedInputs(sent.inputs);
       setBaseVersion(answer.version);
       setConflict(null);
-      setNotice({ tone: 'ok', text: `Saved as version ${answer.version}; the server computed and stored its own result.` });
+      setFailedInputs(null);
+      setNotice(sent.auto ? null : { tone: 'ok', text: `Saved as version ${answer.version}; the server computed and stored its own result.` });
       await refresh();
     },
-    onError: (error) => {
+    onError: (error, sent) => {
       if (error instanceof SheetApiError && error.code === 'version_conflict') {
         setConflict({
           message: error.message,
@@ -172,9 +195,15 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
         });
         return;
       }
-      setNotice({ tone: 'error', text: error.message });
+      setFailedInputs(sent.inputs);
+      setNotice({ tone: 'error', text: `Not saved: ${error.message}` });
     },
   });
+  const saveNow = useCallback(
+    (auto: boolean, expectedVersion = baseVersion) => save.mutate({ inputs: values, expectedVersion, auto }),
+    // eslint-disable-next-line react-hooks/exhaustive-deps -- mutate is stable; the timer restarts only when the inputs change
+    [save.mutate, values, baseVersion],
+  );
 
   const transition = useMutation({
     mutationFn: (body: { action: 'submit' | 'withdraw' | 'approve' | 'return'; comment?: string }) => sheetApi.transition(sheetId, { ...body, expectedVersion: sheet.version }),
@@ -199,6 +228,42 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
     onSuccess: (answer) => router.push(`/sheets/${answer.sheet.id}`),
     onError: (error) => setNotice({ tone: 'error', text: error.message }),
   });
+
+  // Autosave (issue 23): a draft the user may edit saves itself AUTOSAVE_MS after the last edit,
+  // with the same optimistic version check as the Save button — a 409 shows the conflict and
+  // overwrites nothing. Inputs that cannot be saved (incomplete, refused, or just refused by the
+  // server) wait for the user.
+  // Only once the live result is of these very inputs, so that a refusal still being computed is not saved.
+  const liveCurrent = live.inputsKey === JSON.stringify(values);
+  const retryingFailed = failedInputs !== null && same(values, failedInputs);
+  const autosaveReady = editable && dirty && conflict === null && !save.isPending && !live.invalid && liveCurrent && refusal === null && !retryingFailed;
+  useEffect(() => {
+    if (!autosaveReady) return;
+    const timer = window.setTimeout(() => saveNow(true), AUTOSAVE_MS);
+    return () => window.clearTimeout(timer);
+  }, [autosaveReady, saveNow]);
+  const mayManualSave = (dirty || reEvaluation !== null) && !save.isPending && !live.invalid && refusal === null;
+  useUnsavedGuard({
+    dirty: editable && (dirty || save.isPending),
+    // Ctrl/Cmd+S on an editable sheet is ours (never the browser's "save page"), even when there is nothing to save.
+    onSaveShortcut: editable ? () => { if (mayManualSave && conflict === null) saveNow(false); } : null,
+  });
+  const saveState: { words: 'Saved' | 'Saving…' | 'Not saved'; why: string } = save.isPending
+    ? { words: 'Saving…', why: '' }
+    : conflict
+      ? { words: 'Not saved', why: 'someone saved a newer version; see below' }
+      : dirty
+        ? {
+            words: 'Not saved',
+            why: refusal
+              ? `while ${refusalSubject(refusal)}`
+              : live.invalid
+                ? 'complete the inputs marked to save'
+                : retryingFailed
+                  ? 'the server refused the last save; see the message'
+                  : 'saves by itself in a moment (Ctrl+S saves now)',
+          }
+        : { words: 'Saved', why: reEvaluation ? 'with an earlier method: save to re-evaluate' : '' };
 
   const readiness = approvalReadiness(snapshot, sheet.acknowledgements.map((a) => a.flagCode));
   const submitDecision = decide('submit', sheet, actor, readiness);
@@ -256,11 +321,22 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
           <nav aria-label="Breadcrumb" className="text-caption text-ink-500">
             <Link href="/projects" className="hover:underline">Projects</Link> / <Link href={`/projects/${sheet.projectId}`} className="hover:underline">{sheet.projectName}</Link> /
           </nav>
-          <h1 className="flex flex-wrap items-center gap-x-3 text-title">
-            <span className="num">{sheet.circuitTag}</span>
-            <span className="font-normal text-ink-700">{sheet.title}</span>
-            <StatusBadge status={sheet.status} />
-          </h1>
+          <div className="flex flex-wrap items-center gap-x-3">
+            <h1 className="flex flex-wrap items-center gap-x-3 text-title">
+              <span className="num">{sheet.circuitTag}</span>
+              <span className="font-normal text-ink-700">{sheet.title}</span>
+              <StatusBadge status={sheet.status} />
+            </h1>
+            {editable ? (
+              <p className="text-caption" aria-live="polite" data-save-state={saveState.words}>
+                <span className={saveState.words === 'Saved' ? 'font-medium text-within-dark' : saveState.words === 'Saving…' ? 'font-medium text-ink-600' : 'font-medium text-tight-dark'}>
+                  <span aria-hidden="true">{saveState.words === 'Saved' ? '✔ ' : saveState.words === 'Saving…' ? '⟳ ' : '● '}</span>
+                  <span data-testid="save-state">{saveState.words}</span>
+                </span>
+                {saveState.why ? <span className="text-ink-500" data-testid="save-state-why">{` — ${saveState.why}`}</span> : null}
+              </p>
+            ) : null}
+          </div>
           <p className="text-caption text-ink-500">
             Revision {sheet.revision} · version <span data-testid="sheet-version">{sheet.version}</span> · by {sheet.authorName ?? 'unknown'}
             {sheet.reviewerName ? ` · reviewed by ${sheet.reviewerName}` : ''}
@@ -282,17 +358,14 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
         <div className="flex flex-wrap items-center gap-2">
           {editable ? (
             <>
-              <span className="text-caption text-ink-500" data-testid="save-state" aria-live="polite">
-                {save.isPending ? 'Saving…' : dirty ? 'Unsaved changes' : reEvaluation ? 'Saved with an earlier method: save to re-evaluate' : 'All changes saved'}
-              </span>
               <button
                 type="button"
                 className="btn-primary"
                 data-testid="save-button"
                 // A result saved by an earlier method may be saved again as it stands, to store the current one.
-                disabled={(!dirty && !reEvaluation) || save.isPending || live.invalid || refusal !== null}
+                disabled={!mayManualSave}
                 title={refusal ? `Not saved while ${refusalSubject(refusal)}: ${refusalSentence(refusal)}` : undefined}
-                onClick={() => save.mutate(undefined)}
+                onClick={() => saveNow(false)}
               >
                 Save
               </button>
@@ -358,7 +431,7 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
             setConflict(null);
             void refresh();
           }}
-          onKeepMine={() => save.mutate({ expectedVersion: conflict.currentVersion })}
+          onKeepMine={() => saveNow(false, conflict.currentVersion)}
         />
       ) : null}
 
@@ -487,7 +560,17 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
                   No candidate is chosen yet. Choose the one this sheet specifies with “Choose” in the first column; the sheet cannot be submitted for review until you do.
                 </p>
               ) : null}
-              <DeferredCandidateGrid rows={rows} units={units} focusedId={focusedId} onFocus={setFocusedId} onChoose={chooseCandidate} onRemove={removeCandidate} editable={editable} />
+              <DeferredCandidateGrid
+                rows={rows}
+                units={units}
+                focusedId={focusedId}
+                onFocus={setFocusedId}
+                onChoose={chooseCandidate}
+                onRemove={removeCandidate}
+                editable={editable}
+                columnChoice={gridColumns}
+                onColumnChoiceChange={onGridColumnsChange}
+              />
             </section>
           ) : null}
 

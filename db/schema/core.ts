@@ -13,6 +13,7 @@ import {
   uuid,
 } from 'drizzle-orm/pg-core';
 import { ROLES } from '../../lib/auth/permissions';
+import type { UserPreferences } from '../../lib/user/preferences';
 
 /**
  * Roles and what they may do: ../shared/design/product.md, "People and roles". The list is
@@ -56,6 +57,8 @@ export const users = pgTable(
     licenceJurisdiction: text('licence_jurisdiction').notNull().default(''),
     /** Bumped on deactivation or password change so that older sessions stop working. */
     sessionEpoch: integer('session_epoch').notNull().default(0),
+    /** The user's own screen settings (lib/user/preferences.ts), e.g. the comparison grid's columns. */
+    preferences: jsonb('preferences').$type<UserPreferences>().notNull().default({}),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },

@@ -9,7 +9,7 @@ import { flagTitleList } from './flagWords';
 import type { CandidateEvaluation, CandidateEvaluationOk } from '@/lib/electrical/sizing/types';
 import { describeArrangement, sectionPerPhaseMm2, type SheetCandidate } from '@/lib/sheet/candidates';
 import type { SheetInputs } from '@/lib/sheet/schema';
-import { formatNumber, formatQuantity } from '@/lib/units';
+import { formatNumber, formatPower, formatQuantity, lossPerLengthWords } from '@/lib/units';
 import { candidateRow, type CandidateRow, type ComparisonMarks, type ResultState } from './candidateRow';
 import { plainMessage } from './arrangementCheck';
 import { FORMATION_WORDS, governingCableOf, groupMethodWords, otherCircuitWords } from './groupWords';
@@ -163,6 +163,8 @@ export interface CandidateRecord {
   utilisationText: string;
   lossWPerM: number | null;
   voltageDropPercent: number | null;
+  /** The sheet's voltage-drop limit, per cent; null when none is set (the grid shows the verdict beside the figure). */
+  voltageDropLimitPercent: number | null;
   shortCircuit: string;
   massKg: number | null;
   materialCost: string | null;
@@ -228,6 +230,7 @@ export function candidateRecords(candidates: SheetCandidate[], results: Candidat
         utilisationText: '',
         lossWPerM: null,
         voltageDropPercent: null,
+        voltageDropLimitPercent: null,
         shortCircuit: '',
         massKg: null,
         materialCost: null,
@@ -269,6 +272,7 @@ export function candidateRecords(candidates: SheetCandidate[], results: Candidat
       utilisationText: row.utilisationText,
       lossWPerM: row.lossWPerM,
       voltageDropPercent: row.voltageDropPercent,
+      voltageDropLimitPercent: row.voltageDropLimitPercent,
       shortCircuit: row.shortCircuit,
       massKg: row.massKg,
       materialCost: row.materialCost,
@@ -360,7 +364,7 @@ export function chosenResultRows(e: CandidateEvaluationOk, lengthM: number, othe
     { label: 'AC/DC resistance ratio', value: n(e.acFactor, 4) },
     {
       label: 'Loss of the circuit',
-      value: e.lossWPerM === null ? '—' : `${formatQuantity(e.lossWPerM, 'powerWPerM', 'si')}, ${n((e.lossWPerM * lengthM) / 1000, 3)} kW over the route`,
+      value: e.lossWPerM === null ? '—' : `${lossPerLengthWords(e.lossWPerM, 'si')}, ${formatPower(e.lossWPerM * lengthM)} over the route`,
     },
     {
       label: 'Voltage drop (IEC 60364-5-52 Annex G)',

@@ -210,3 +210,35 @@ export function formatQuantity(
   if (options.withUnit === false) return text;
   return `${text} ${unitLabel(quantity, system)}`;
 }
+
+/** Prefixes for a power, largest first: the first whose size the value reaches is used. */
+const POWER_PREFIXES: ReadonlyArray<{ prefix: string; factor: number }> = [
+  { prefix: 'M', factor: 1e6 },
+  { prefix: 'k', factor: 1e3 },
+  { prefix: '', factor: 1 },
+  // mW is the smallest: a loss below a milliwatt reads "0.646 mW", which a designer reads as "nothing".
+  { prefix: 'm', factor: 1e-3 },
+];
+
+/**
+ * A power in watts with the unit picked by its size (MW, kW, W, mW), so that a small loss reads
+ * "0.646 mW" rather than "0.000000646 kW"; `per` adds a denominator ("/m" → "12.1 kW/m").
+ * The figure keeps `digits` significant digits, as formatNumber does.
+ */
+export function formatPower(watts: number, options: { digits?: number; per?: string } = {}): string {
+  if (!Number.isFinite(watts)) return '';
+  const digits = options.digits ?? 3;
+  const unit = (prefix: string) => `${prefix}W${options.per ?? ''}`;
+  if (watts === 0) return `0 ${unit('')}`;
+  const size = Math.abs(watts);
+  // Rounding first, so that 999.96 W becomes "1 kW", not "1000 W".
+  const rounded = Number(size.toPrecision(digits));
+  const chosen = POWER_PREFIXES.find((p) => rounded >= p.factor) ?? POWER_PREFIXES[POWER_PREFIXES.length - 1];
+  return `${formatNumber(watts / chosen.factor, digits)} ${unit(chosen.prefix)}`;
+}
+
+/** A loss per length in the user's system: SI picks its prefix by size (mW/m, W/m, kW/m); imperial stays W/ft. */
+export function lossPerLengthWords(lossWPerM: number, system: UnitSystem): string {
+  if (system === 'si') return formatPower(lossWPerM, { digits: QUANTITIES.powerWPerM.digits, per: '/m' });
+  return formatQuantity(lossWPerM, 'powerWPerM', system);
+}

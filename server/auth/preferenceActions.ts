@@ -3,6 +3,8 @@
 import { revalidatePath } from 'next/cache';
 import { authorizeAction } from './actions';
 import { setUnitSystem, unitSystemSchema } from './members';
+import { updateUserPreferences } from '@/db/queries/preferences';
+import { candidateGridColumnsSchema } from '@/lib/user/preferences';
 
 /** The SI / imperial switch of the user menu; stored in users.unit_system. */
 export async function setUnitSystemAction(unitSystem: unknown): Promise<{ unitSystem: 'si' | 'imperial' }> {
@@ -11,4 +13,16 @@ export async function setUnitSystemAction(unitSystem: unknown): Promise<{ unitSy
   await setUnitSystem(user, parsed);
   revalidatePath('/', 'layout');
   return { unitSystem: parsed };
+}
+
+/**
+ * The comparison grid's column picker on a sizing sheet, remembered per user (users.preferences).
+ * Every signed-in role compares candidates, so every role may keep its own columns.
+ */
+export async function saveCandidateGridColumnsAction(columns: unknown): Promise<{ ok: true } | { ok: false; message: string }> {
+  const user = await authorizeAction('authenticated');
+  const parsed = candidateGridColumnsSchema.safeParse(columns);
+  if (!parsed.success) return { ok: false, message: parsed.error.issues[0]?.message ?? 'Not a column choice' };
+  const saved = await updateUserPreferences(user.teamId, user.id, { candidateGridColumns: parsed.data });
+  return saved ? { ok: true } : { ok: false, message: 'Your account was not found.' };
 }

@@ -13,7 +13,7 @@ import { getSheet } from '@/db/queries/sheets';
 import { copyStandardCatalogueToTeam } from '@/db/seed/catalogue';
 import { computeBeyondSteady } from '@/lib/sheet/beyondSteady';
 import { formatNumber } from '@/lib/units';
-import { addCatalogueCopperBar, chooseOnlyCandidate, createSheetFromProject, signInInBrowser } from './sheet-steps';
+import { addCatalogueCopperBar, chooseOnlyCandidate, createSheetFromProject, signInInBrowser, saveSheet } from './sheet-steps';
 import { launchBrowser, screenshot } from '../helpers/browser';
 import { createTestTeam, createTestUser } from '../helpers/fixtures';
 
@@ -102,8 +102,7 @@ describe('over time on the sheet', () => {
     await screenshot(page, 'beyond-03-bad-csv');
 
     // Save: the server holds what was entered.
-    await page.getByTestId('save-button').click();
-    await expect.poll(() => page.getByTestId('save-state').innerText(), { timeout: 30_000 }).toBe('All changes saved');
+    await saveSheet(page);
     const stored = (await getSheet(teamId, sheetId))!.inputs;
     expect(stored.overTime).toEqual({ checked: true, overloadCurrentA: OVERLOAD_A, overloadDurationS: OVERLOAD_MIN * 60, dailyProfileA: dailyA, faultWithCoverings: false });
 
@@ -157,8 +156,7 @@ describe('over time on the sheet', () => {
     await expect.poll(plotText, { timeout: 30_000 }).toContain('Temperature along the run');
     await screenshot(page, 'beyond-05-along-the-run');
 
-    await page.getByTestId('save-button').click();
-    await expect.poll(() => page.getByTestId('save-state').innerText(), { timeout: 30_000 }).toBe('All changes saved');
+    await saveSheet(page);
     const stored = (await getSheet(teamId, sheetId))!.inputs;
     expect(stored.alongRun).toMatchObject({ checked: true, lengthM: 5, joints: [{ positionM: 2, resistanceMicroOhm: null }] });
     const expected = computeBeyondSteady(stored, stored.candidates[0].id)!.alongRun!;

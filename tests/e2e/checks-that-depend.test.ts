@@ -12,7 +12,7 @@ import { getSheet } from '@/db/queries/sheets';
 import { copyStandardCatalogueToTeam } from '@/db/seed/catalogue';
 import { computeSheet } from '@/lib/sheet/compute';
 import { formatNumber } from '@/lib/units';
-import { addCatalogueCopperBar, createSheetFromProject, signInInBrowser } from './sheet-steps';
+import { addCatalogueCopperBar, createSheetFromProject, signInInBrowser, saveSheet } from './sheet-steps';
 import { launchBrowser, screenshot } from '../helpers/browser';
 import { createTestTeam, createTestUser } from '../helpers/fixtures';
 
@@ -61,8 +61,7 @@ describe('results that match the checks they depend on', () => {
     await expect.poll(() => page.getByTestId('hot-spot').innerText(), { timeout: 30_000 }).not.toBe(roomHotSpot);
     await screenshot(page, 'depend-01-enclosure-headline');
 
-    await page.getByTestId('save-button').click();
-    await expect.poll(() => page.getByTestId('save-state').innerText(), { timeout: 30_000 }).toBe('All changes saved');
+    await saveSheet(page);
     const stored = (await getSheet(teamId, sheetId))!.inputs;
     const computed = computeSheet(stored);
     if (!computed.ok) throw new Error(computed.error.message);
@@ -103,8 +102,7 @@ describe('results that match the checks they depend on', () => {
     await expect.poll(() => page.getByTestId('flag-USER_LIMIT_ABOVE_RATING').innerText(), { timeout: 30_000 }).toContain(reason);
     await screenshot(page, 'depend-03-raised-limit-justified');
 
-    await page.getByTestId('save-button').click();
-    await expect.poll(() => page.getByTestId('save-state').innerText(), { timeout: 30_000 }).toBe('All changes saved');
+    await saveSheet(page);
     const stored = (await getSheet(teamId, sheetId))!.inputs;
     expect(stored.limits).toMatchObject({ temperatureLimitC: 105, raiseMaterialLimit: true, raiseJustification: reason });
     await page.context().close();

@@ -22,7 +22,7 @@ import { createShare } from '@/db/queries/shares';
 import { defaultSheetInputs, type SheetInputs } from '@/lib/sheet';
 import { solveSheetCrossSection } from '@/lib/sheet/crossSectionField';
 import { formatNumber } from '@/lib/units';
-import { signInInBrowser } from './sheet-steps';
+import { signInInBrowser, saveSheet } from './sheet-steps';
 import { appUrl, launchBrowser, screenshot } from '../helpers/browser';
 import { createTestTeam, createTestUser } from '../helpers/fixtures';
 import { testCable240 } from '../helpers/sheetCandidates';
@@ -154,8 +154,7 @@ describe('the cross-section in two dimensions on the sheet', () => {
     expect(pageMs).toBeGreaterThan(0);
 
     // Saved: the server computes and stores its own field for the chosen candidate, on its coarser mesh.
-    await page.getByTestId('save-button').click();
-    await expect.poll(() => page.getByTestId('save-state').innerText(), { timeout: 60_000 }).toBe('All changes saved');
+    await saveSheet(page, 60_000);
     const stored = (await getSheet(teamId, sheetId))!;
     expect(stored.inputs.crossSection).toEqual({ checked: true, surface: 'isothermal', heatTransferCoefficientWPerM2K: 10 });
     const part = stored.result?.crossSection;

@@ -14,7 +14,7 @@ import { CAUTION_TEXT } from '@/lib/caution';
 import { copyStandardCatalogueToTeam } from '@/db/seed/catalogue';
 import { computeEnclosureAir } from '@/lib/sheet/enclosureAir';
 import { celsiusToFahrenheit, feetToMetres, formatNumber } from '@/lib/units';
-import { addCatalogueCopperBar, createSheetFromProject, signInInBrowser } from './sheet-steps';
+import { addCatalogueCopperBar, createSheetFromProject, signInInBrowser, saveSheet } from './sheet-steps';
 import { appUrl, launchBrowser, screenshot } from '../helpers/browser';
 import { createTestTeam, createTestUser } from '../helpers/fixtures';
 
@@ -81,8 +81,7 @@ describe('inside the enclosure on the sheet', () => {
     await expect.poll(plotText, { timeout: 30_000 }).toContain('Temperatures in and around the enclosure');
     await screenshot(page, 'enclosure-02-results');
 
-    await page.getByTestId('save-button').click();
-    await expect.poll(() => page.getByTestId('save-state').innerText(), { timeout: 30_000 }).toBe('All changes saved');
+    await saveSheet(page);
     const stored = (await getSheet(teamId, sheetId))!.inputs;
     // Stored in SI whatever the screen shows (6.5 ft = 1.9812 m, 95 °F = 35 °C).
     expect(stored.enclosureAir.checked).toBe(true);

@@ -21,7 +21,7 @@ import { computeSheet } from '@/lib/sheet/compute';
 import { cableTitle, governingCableOf, governingText } from '@/lib/sheet/groupWords';
 import { figuresText, reEvaluationOf } from '@/lib/sheet/reEvaluation';
 import { formatNumber, formatQuantity } from '@/lib/units';
-import { signInInBrowser } from './sheet-steps';
+import { signInInBrowser, saveSheet } from './sheet-steps';
 import { appUrl, launchBrowser, screenshot } from '../helpers/browser';
 import { createTestTeam, createTestUser } from '../helpers/fixtures';
 import { testCable240 } from '../helpers/sheetCandidates';
@@ -115,8 +115,7 @@ describe('the cross-section on the sheet', () => {
     await expect.poll(() => page.getByTestId('candidate-grid').innerText(), { timeout: 30_000 }).toContain(governing.words);
     await screenshot(page, 'groups-01-flat-beside-another');
 
-    await page.getByTestId('save-button').click();
-    await expect.poll(() => page.getByTestId('save-state').innerText(), { timeout: 30_000 }).toBe('All changes saved');
+    await saveSheet(page);
     const stored = (await getSheet(teamId, sheetId))!;
     expect(stored.inputs.installation).toMatchObject({ formation: 'flat', spacingM: 0.07, circuitSpacingM: 0.3, circuitRow: 'horizontal' });
     expect(stored.inputs.installation.otherCircuits).toEqual(expected.installation.otherCircuits);
@@ -131,7 +130,7 @@ describe('the cross-section on the sheet', () => {
     await expect(page.locator('#other-label-0').inputValue()).resolves.toBe('Pump house feeder');
     await expect(page.getByTestId('input-circuit-spacing').inputValue()).resolves.toBe('300');
     await expect.poll(() => page.getByTestId('result-governing').innerText(), { timeout: 30_000 }).toBe(governingLine);
-    await expect(page.getByTestId('save-state').innerText()).resolves.toBe('All changes saved');
+    await expect(page.getByTestId('save-state').innerText()).resolves.toBe('Saved');
     await page.context().close();
   }, 300_000);
 

@@ -105,7 +105,8 @@ describe('a read-only link over HTTP', () => {
     expect(html).toMatch(/<meta name="robots" content="noindex, nofollow/);
     // Nothing of team B, and no path into the team's pages: only its own PDF and the app's static files.
     for (const secret of [sheetB.circuitTag, sheetB.title, sheetB.projectName, sheetA.sheetId, sheetA.projectId]) expect(html).not.toContain(secret);
-    const elsewhere = linksIn(html).filter((href) => href !== `/share/${link.token}/pdf` && !href.startsWith('/_next/') && !href.startsWith('data:'));
+    // The page's icon (app/icon.svg) is a static file, not a way into the team.
+    const elsewhere = linksIn(html).filter((href) => href !== `/share/${link.token}/pdf` && !href.startsWith('/_next/') && !href.startsWith('data:') && !/^\/icon\.svg(\?|$)/.test(href));
     expect(elsewhere).toEqual([]);
     // Read-only: no form and no button that changes anything is rendered on the server.
     expect(html).not.toMatch(/<form|>Save<|>Submit for review<|>Approve</);

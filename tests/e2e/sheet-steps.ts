@@ -54,3 +54,13 @@ export async function addCatalogueCopperBar(page: Page, size: string): Promise<v
   await expect.poll(() => page.getByTestId('candidate-grid').innerText(), { timeout: 30_000 }).toContain(`${size} mm Copper bar`);
   await chooseOnlyCandidate(page);
 }
+
+/**
+ * Saves the open sheet and waits for "Saved". A draft also saves itself two seconds after the last
+ * edit (issue 23), so the Save button may already be disabled by then: Ctrl+S saves what is unsaved
+ * and does nothing when the autosave got there first.
+ */
+export async function saveSheet(page: Page, timeoutMs = 30_000): Promise<void> {
+  await page.keyboard.press('Control+s');
+  await expect.poll(() => page.getByTestId('save-state').innerText(), { timeout: timeoutMs }).toBe('Saved');
+}

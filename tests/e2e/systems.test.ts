@@ -22,7 +22,7 @@ import type { CandidateEvaluationOk } from '@/lib/electrical/sizing/types';
 import { computeSheet } from '@/lib/sheet/compute';
 import { forcesLines, hottestBarText, packBarRows } from '@/lib/sheet/systemWords';
 import { formatNumber, formatQuantity } from '@/lib/units';
-import { chooseOnlyCandidate, createSheetFromProject, signInInBrowser } from './sheet-steps';
+import { chooseOnlyCandidate, createSheetFromProject, signInInBrowser, saveSheet } from './sheet-steps';
 import { appUrl, launchBrowser, screenshot } from '../helpers/browser';
 import { createTestTeam, createTestUser } from '../helpers/fixtures';
 
@@ -117,8 +117,7 @@ describe('a bus-bar pack and its protection on the sheet', () => {
     await page.getByTestId('protection-panel').waitFor({ timeout: 60_000 });
     await screenshot(page, 'systems-01-pack-forces-protection');
 
-    await page.getByTestId('save-button').click();
-    await expect.poll(() => page.getByTestId('save-state').innerText(), { timeout: 30_000 }).toBe('All changes saved');
+    await saveSheet(page);
 
     // Saved SI, as entered.
     const stored = (await getSheet(teamId, sheetId))!;
@@ -193,9 +192,8 @@ describe('a bus-bar pack and its protection on the sheet', () => {
     await page.getByTestId('input-phase-spacing').waitFor({ timeout: 60_000 });
     await expect(page.getByTestId('input-phase-spacing').inputValue()).resolves.toBe('7.87402');
     await page.getByTestId('input-phase-spacing').fill('10');
-    await expect.poll(() => page.getByTestId('save-state').innerText(), { timeout: 30_000 }).toBe('Unsaved changes');
-    await page.getByTestId('save-button').click();
-    await expect.poll(() => page.getByTestId('save-state').innerText(), { timeout: 30_000 }).toBe('All changes saved');
+    await expect.poll(() => page.getByTestId('save-state').innerText(), { timeout: 30_000 }).toBe('Not saved');
+    await saveSheet(page);
     // 10 in = 254 mm, stored in metres.
     expect((await getSheet(teamId, sheetId))!.inputs.busbarSystem.phaseSpacingM).toBeCloseTo(0.254, 12);
     await page.context().close();

@@ -613,6 +613,15 @@ export const ENDPOINT_MATRIX: MatrixEntry[] = [
   },
   {
     kind: 'action',
+    file: 'server/auth/preferenceActions.ts',
+    name: 'saveCandidateGridColumnsAction',
+    // Each user's own row (the session's): team B's admin stores team B's admin's choice, nothing of team A.
+    expect: signedIn(401, { viewer: 200, designer: 200, reviewer: 200, otherAdmin: 200, admin: 200 }),
+    args: () => [{ mass: false }],
+    check: ({ status, text }) => (status === 200 && !text.includes('"ok":true') ? `the choice was not stored: ${text.slice(0, 200)}` : null),
+  },
+  {
+    kind: 'action',
     file: 'app/(workspace)/projects/actions.ts',
     name: 'createProjectAction',
     // Success ends in redirect() to the new project, which a fetch-style action call answers with 200 and an

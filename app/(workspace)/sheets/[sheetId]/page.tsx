@@ -1,5 +1,7 @@
 import { notFound } from 'next/navigation';
 import { getSheet, sheetHistory } from '@/db/queries/sheets';
+import { getUserPreferences } from '@/db/queries/preferences';
+import { saveCandidateGridColumnsAction } from '@/server/auth/preferenceActions';
 import { requirePageUser } from '@/server/auth/session';
 import { SheetWorkspace, type ClientSheet } from '@/components/sheet/SheetWorkspace';
 import type { HistoryItem } from '@/components/sheet/HistoryList';
@@ -18,9 +20,18 @@ export default async function SheetPage({ params }: { params: Promise<{ sheetId:
   const user = await requirePageUser('team:read');
   const sheet = await getSheet(user.teamId, sheetId);
   if (!sheet) notFound();
-  const history = await sheetHistory(user.teamId, sheet.id);
+  const [history, preferences] = await Promise.all([sheetHistory(user.teamId, sheet.id), getUserPreferences(user.teamId, user.id)]);
   // The client gets the same JSON shape the API answers (dates as ISO strings).
   const initialSheet = JSON.parse(JSON.stringify(sheet)) as ClientSheet;
   const initialHistory = JSON.parse(JSON.stringify(history)) as HistoryItem[];
-  return <SheetWorkspace key={sheet.id} initialSheet={initialSheet} initialHistory={initialHistory} user={{ id: user.id, role: user.role, unitSystem: user.unitSystem }} />;
+  return (
+    <SheetWorkspace
+      key={sheet.id}
+      initialSheet={initialSheet}
+      initialHistory={initialHistory}
+      user={{ id: user.id, role: user.role, unitSystem: user.unitSystem }}
+      gridColumns={preferences.candidateGridColumns ?? {}}
+      onGridColumnsChange={saveCandidateGridColumnsAction}
+    />
+  );
 }

@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { getSheet, saveSheet } from '@/db/queries/sheets';
 import { sheetInputsSchema } from '@/lib/sheet';
 import { apiHandler, ApiError } from '@/server/http/api';
-import { expectedVersionSchema, sheetActor, sheetOperation } from '../_shared/sheetApi';
+import { expectedVersionSchema, sheetActor, sheetOperation, sheetTitleSchema } from '../_shared/sheetApi';
 import { readJsonBody } from '@/server/http/body';
 
 export const GET = apiHandler({ permission: 'team:read' }, async (_req, { user, params }) => {
@@ -14,7 +14,7 @@ export const GET = apiHandler({ permission: 'team:read' }, async (_req, { user, 
 const saveBodySchema = z.object({
   expectedVersion: expectedVersionSchema,
   inputs: sheetInputsSchema,
-  title: z.string().trim().min(1, 'Title is required').max(200).optional(),
+  title: sheetTitleSchema.optional(),
   circuitTag: z.string().trim().min(1, 'Circuit tag is required').max(40).optional(),
 });
 

@@ -33,9 +33,16 @@ export const expectedVersionSchema = z
 
 export const commentSchema = z.string().trim().max(2000, 'A comment must be at most 2000 characters');
 
+/** The sheet's title. The form labels it "What the circuit feeds": the messages name that field, and the API's name for it. */
+export const sheetTitleSchema = z
+  .string()
+  .trim()
+  .min(1, 'What the circuit feeds (title) is required')
+  .max(200, 'What the circuit feeds (title) must be at most 200 characters');
+
 export const createSheetBodySchema = z.object({
   circuitTag: z.string().trim().min(1, 'Circuit tag is required').max(40, 'Circuit tag must be at most 40 characters'),
-  title: z.string().trim().min(1, 'Title is required').max(200, 'Title must be at most 200 characters'),
+  title: sheetTitleSchema,
   installation: z.enum(['bar-on-edge', 'bar-flat', 'cable-in-air', 'buried', 'enclosure']).default('cable-in-air'),
 });
 
