@@ -10,7 +10,7 @@ import { createProject } from '@/db/queries/projects';
 import { getSheet } from '@/db/queries/sheets';
 import { copyStandardCatalogueToTeam } from '@/db/seed/catalogue';
 import { flagTitle } from '@/lib/sheet/flagWords';
-import { createSheetFromProject, signInInBrowser } from './sheet-steps';
+import { createSheetFromProject, saveSheet, signInInBrowser } from './sheet-steps';
 import { launchBrowser, screenshot } from '../helpers/browser';
 import { createTestTeam, createTestUser } from '../helpers/fixtures';
 
@@ -34,10 +34,8 @@ afterAll(async () => {
   await closeDb();
 });
 
-async function save(page: Page): Promise<void> {
-  await page.getByTestId('save-button').click();
-  await expect.poll(() => page.getByTestId('save-state').innerText(), { timeout: 30_000 }).toBe('All changes saved');
-}
+/** Saves at once (Ctrl+S), whether or not an autosave has started. */
+const save = (page: Page): Promise<void> => saveSheet(page);
 
 /** The server's answer to a submission asked for from the page (same origin, the designer's session). */
 async function submitOverHttp(page: Page, sheetId: string): Promise<{ status: number; body: { error?: { code: string; message: string } } }> {
