@@ -153,7 +153,15 @@ export function singleBarAcFactor(m: BusbarSystemModel, lowC: number, highC: num
     });
   const a = at(lowC);
   const b = at(highC);
-  return (t) => (highC === lowC ? a : a + ((b - a) * (t - lowC)) / (highC - lowC));
+  // Outside the two ends the ratio is held at the nearer end, not extrapolated: a search that
+  // tries a current far above the rating reaches hundreds of °C, where a straight line through
+  // the falling ratio would pass below 1 (an AC resistance below the DC one). Holding the end
+  // value there keeps the ratio physical and, above the limit, errs high (cautious).
+  return (t) => {
+    if (highC === lowC) return a;
+    const clamped = Math.min(Math.max(t, Math.min(lowC, highC)), Math.max(lowC, highC));
+    return a + ((b - a) * (clamped - lowC)) / (highC - lowC);
+  };
 }
 
 /** Ampacity of the pack system per phase (one run), its bar temperatures and current shares. */

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { ampacity, evaluateCandidate, type CandidateEvaluationOk } from '@/lib/electrical';
+import { ampacity, evaluateCandidate, type BarCandidate, type CandidateEvaluationOk, type Conditions } from '@/lib/electrical';
 import { packRatingBreakdown, prepareBusbarSystem, rateIsolatedBar } from '@/lib/electrical/busbar';
 import { barConditions, copperBar } from './fixtures';
 
@@ -112,5 +112,23 @@ describe('a pack whose limit is its ambient carries nothing, and says so', () =>
     const e = ok(evaluateCandidate(copperBar(0.05, 0.005, { barsPerPhase: 4, barGapM: 0.005, terminalLimitC: 5e-324 }), barConditions({ ambientC: 0, designCurrentA: 10, fault: undefined })));
     expect(e.ampacityA).toBe(0);
     expect(e.passes).toBe(false);
+  });
+});
+
+describe('a single bar far above its rating', () => {
+  // Found in a browser test: a 60 × 10 mm copper bar at 3000 A (its rating is about 1950 A) could
+  // not be evaluated, because the R_ac/R_dc of the filament method was extrapolated along a straight
+  // line to the hundreds of °C the design point reaches, below 1 (an AC resistance below the DC
+  // one, which no conductor has). The ratio is now held at its value at the limit above the limit.
+  const bar60: BarCandidate = { kind: 'bar', id: 'b60', label: '60 × 10 mm Cu', material: 'copper', widthM: 0.06, thicknessM: 0.01, r20OhmPerM: 1.7241e-8 / (0.06 * 0.01), emissivity: 0.9, terminalLimitC: 105 };
+  const at = (designCurrentA: number): Conditions => ({ designCurrentA, frequencyHz: 50, phases: 3, nominalVoltageV: 400, lengthM: 10, powerFactor: 0.9, ambientC: 35, installation: { kind: 'bar-on-edge' } });
+  it('evaluates at 1.5 and 2.5 times its rating: it fails with its hot spot and an AC factor of at least 1', () => {
+    for (const currentA of [3000, 5000]) {
+      const e = evaluateCandidate(bar60, at(currentA));
+      if (!e.ok) throw new Error(`${currentA} A: ${e.error.message}`);
+      expect(e.passes).toBe(false);
+      expect(e.hotSpotC!).toBeGreaterThan(105);
+      expect(e.acFactor).toBeGreaterThanOrEqual(1);
+    }
   });
 });
