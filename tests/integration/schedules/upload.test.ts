@@ -22,6 +22,9 @@ async function rowsStored(scheduleId: string) {
 }
 
 async function jobsQueued(scheduleId: string) {
+  // pg-boss makes its schema when a queue first starts; before that nothing can have been queued.
+  const exists = await getDb().execute(sql`select to_regclass('pgboss.job') is not null as present`);
+  if (!(exists.rows[0] as { present: boolean }).present) return 0;
   const result = await getDb().execute(sql`select count(*)::int as n from pgboss.job where name = ${SCHEDULE_QUEUE} and data->>'scheduleId' = ${scheduleId}`);
   return Number((result.rows[0] as { n: number }).n);
 }

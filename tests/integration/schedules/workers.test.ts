@@ -123,7 +123,9 @@ describe('schedule workers', () => {
   });
 
   it('two workers on one database share a schedule: every row stored exactly once', { timeout: 180_000 }, async () => {
-    const total = 48;
+    // Enough rows that one worker alone needs well over the other's polling interval (0.5 s):
+    // with 48 rows a fast worker could drain the queue before the other's first poll.
+    const total = 144;
     const workers = [spawnWorker('alpha'), spawnWorker('beta')];
     started.push(...workers);
     await Promise.all(workers.map((w) => w.ready));

@@ -659,6 +659,15 @@ export const ENDPOINT_MATRIX: MatrixEntry[] = [
     expect: signedIn(401, { viewer: 403, designer: 403, reviewer: 403, otherAdmin: 404, admin: 200 }),
     args: async (ctx) => [{}, formData({ tokenId: await freshApiToken(ctx) })],
   },
+  {
+    kind: 'action',
+    file: 'app/(workspace)/admin/members/teamSettingsActions.ts',
+    name: 'setMinParallelSectionAction',
+    // The team's own setting (the session's team): team B's admin clears team B's, never team A's.
+    expect: signedIn(401, { viewer: 403, designer: 403, reviewer: 403, otherAdmin: 200, admin: 200 }),
+    args: () => [{}, formData({ minParallelSectionMm2: '' })],
+    check: ({ status, text }) => (status === 200 && !text.includes('default again') ? `the setting was not cleared: ${text.slice(0, 200)}` : null),
+  },
   // Notifications (issue 23): each member reads and marks only their own; another team's id changes nothing.
   {
     kind: 'action',
