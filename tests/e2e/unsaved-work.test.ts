@@ -118,7 +118,7 @@ describe('unsaved work on the sizing sheet', () => {
     await current.click();
     await current.fill('-5');
     await expect.poll(() => page.getByTestId('save-state').innerText()).toBe('Not saved');
-    await expect(page.getByTestId('save-state-why').innerText()).resolves.toMatch(/complete the inputs/);
+    await expect.poll(() => page.getByTestId('save-state-why').innerText(), { timeout: 15_000 }).toMatch(/complete the inputs/);
     await page.getByRole('navigation', { name: 'Workspace' }).getByRole('link', { name: 'Catalogue' }).click();
     await expect.poll(() => dialogs.length, { timeout: 10_000 }).toBe(1);
     expect(dialogs[0].type).toBe('confirm');
