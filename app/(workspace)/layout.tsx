@@ -2,7 +2,8 @@ import type { ReactNode } from 'react';
 import { WorkspaceNav } from '@/components/shell/WorkspaceNav';
 import { QueryProvider } from '@/components/providers/QueryProvider';
 import { UserMenu } from '@/components/auth/UserMenu';
-import { setUnitSystemAction } from '@/server/auth/preferenceActions';
+import { NumberFormatProvider } from '@/components/providers/NumberFormatProvider';
+import { setDecimalSeparatorAction, setUnitSystemAction } from '@/server/auth/preferenceActions';
 import { requirePageUser } from '@/server/auth/session';
 
 export default async function WorkspaceLayout({ children }: { children: ReactNode }) {
@@ -10,9 +11,13 @@ export default async function WorkspaceLayout({ children }: { children: ReactNod
   const user = await requirePageUser();
   return (
     <div className="min-h-screen">
-      <WorkspaceNav isAdmin={user.role === 'admin'} userSlot={<UserMenu name={user.name} teamName={user.teamName} role={user.role} unitSystem={user.unitSystem} onUnitSystemChange={setUnitSystemAction} />} />
+      <WorkspaceNav isAdmin={user.role === 'admin'} userSlot={<UserMenu name={user.name} teamName={user.teamName} role={user.role} unitSystem={user.unitSystem} onUnitSystemChange={setUnitSystemAction} decimalSeparator={user.decimalSeparator} onDecimalSeparatorChange={setDecimalSeparatorAction} />} />
       <main className="mx-auto max-w-sheet px-4 py-6">
-        <QueryProvider>{children}</QueryProvider>
+        <QueryProvider>
+          <NumberFormatProvider chosen={user.decimalSeparator} currency={user.teamCurrency}>
+            {children}
+          </NumberFormatProvider>
+        </QueryProvider>
       </main>
     </div>
   );

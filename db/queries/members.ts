@@ -20,6 +20,8 @@ export async function findSessionRow(userId: string, sessionId?: string, tx: Exe
       name: users.name,
       email: users.email,
       unitSystem: users.unitSystem,
+      decimalSeparator: users.decimalSeparator,
+      teamCurrency: teams.currency,
       active: users.active,
       sessionEpoch: users.sessionEpoch,
       revoked,
