@@ -11,6 +11,7 @@ import type { UnitSystem } from '@/lib/units';
 import { ApiFailure, catalogueQueryKey, fetchCatalogue, patchCatalogueRow } from './api';
 import { columnDefsFor, headerOf, toStoredValue, type GridRow } from './columnDefs';
 import { EmptyCatalogue } from './EmptyCatalogue';
+import { useDecimalSeparator } from '@/components/providers/NumberFormatProvider';
 
 type Notice = { tone: 'saved' | 'refused'; text: string } | null;
 
@@ -36,7 +37,8 @@ export function CatalogueTable({ kind, units, canEdit, search }: { kind: Catalog
   const [hidden, setHidden] = useState<Set<string>>(() => new Set(CATALOGUE_COLUMNS[kind].filter((c) => c.hiddenByDefault).map((c) => c.field)));
   const rows = useQuery({ queryKey: catalogueQueryKey(kind), queryFn: () => fetchCatalogue(kind) });
   const referenceOptions = useReferenceOptions(kind, canEdit);
-  const columnDefs = useMemo(() => columnDefsFor(kind, units, canEdit, referenceOptions), [kind, units, canEdit, referenceOptions]);
+  const separator = useDecimalSeparator();
+  const columnDefs = useMemo(() => columnDefsFor(kind, units, canEdit, referenceOptions, separator), [kind, units, canEdit, referenceOptions, separator]);
 
   const save = useMutation({
     mutationFn: (edit: { id: string; key: string; field: string; value: unknown }) => patchCatalogueRow(kind, edit.id, { [edit.field]: edit.value }),
@@ -58,7 +60,12 @@ export function CatalogueTable({ kind, units, canEdit, search }: { kind: Catalog
     const field = event.colDef.colId ?? event.colDef.field;
     const column = field ? columnByField(kind, field) : undefined;
     if (!column || !event.data) return;
-    const value = toStoredValue(event.newValue, column, units);
+    const typed = toStoredValue(event.newValue, column, units, separator);
+    if ('refusal' in typed) {
+      setNotice({ tone: 'refused', text: `Not saved (${String(event.data.key)} · ${headerOf(column, units)}): ${typed.refusal}` });
+      return;
+    }
+    const value = typed.value;
     const current = event.data[column.field];
     if ((current ?? '') === (value ?? '')) return;
     // The same schema the server applies: refuse at once with the field and the reason.

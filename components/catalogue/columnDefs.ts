@@ -8,6 +8,7 @@ import type { ColDef, ValueFormatterParams, ValueGetterParams } from 'ag-grid-co
 import { CATALOGUE_COLUMNS, type ColumnSpec } from '@/lib/catalogue/columns';
 import type { CatalogueKind } from '@/lib/catalogue/schemas';
 import { convertFromSi, convertToSi, formatNumber, unitLabel, type UnitSystem } from '@/lib/units';
+import { parseNumber, writeNumber, type DecimalSeparator } from '@/lib/units/parse';
 
 export type GridRow = Record<string, unknown> & { id: string };
 
@@ -27,16 +28,17 @@ export function displayNumber(value: unknown, column: ColumnSpec, units: UnitSys
 }
 
 /** Text of a decimal cell: the stored decimal exactly in SI; four significant figures when converted. */
-export function formatDecimalCell(value: unknown, column: ColumnSpec, units: UnitSystem): string {
+export function formatDecimalCell(value: unknown, column: ColumnSpec, units: UnitSystem, separator: DecimalSeparator = '.'): string {
   if (value === null || value === undefined || value === '') return '';
   if (!column.quantity || units === 'si') {
-    // As stored (keeps the figures the source gives), except long runs of zeros, shown with an exponent.
+    // As stored (keeps the figures the source gives); long runs of zeros written out in full
+    // (the number parser takes no exponent forms, and an edit starts from this text).
     const text = String(value);
     const decimal = new Decimal(text);
-    return !decimal.isZero() && decimal.abs().lt('0.0001') ? decimal.toString() : text;
+    return writeNumber(decimal.toFixed(), separator);
   }
   const shown = displayNumber(value, column, units);
-  return shown === null ? '' : formatNumber(shown, 4);
+  return shown === null ? '' : writeNumber(formatNumber(shown, 4), separator);
 }
 
 /**
@@ -44,13 +46,16 @@ export function formatDecimalCell(value: unknown, column: ColumnSpec, units: Uni
  * passes through as typed (exact); converted input is rounded to 6 significant figures, more than
  * any catalogue value carries, so that 0.3048-type factors do not leave 1e-17 tails.
  */
-export function toStoredValue(typed: unknown, column: ColumnSpec, units: UnitSystem): unknown {
-  if (column.type !== 'decimal') return typeof typed === 'string' ? typed : typed ?? '';
-  if (typed === null || typed === undefined || typed === '') return null;
-  if (!column.quantity || units === 'si') return String(typed);
-  const n = Number(typed);
-  if (!Number.isFinite(n)) return String(typed);
-  return new Decimal(convertToSi(n, column.quantity, units)).toSignificantDigits(6).toFixed();
+export function toStoredValue(typed: unknown, column: ColumnSpec, units: UnitSystem, separator: DecimalSeparator = '.'): { value: unknown } | { refusal: string } {
+  if (column.type !== 'decimal') return { value: typeof typed === 'string' ? typed : typed ?? '' };
+  if (typed === null || typed === undefined || (typeof typed === 'string' && typed.trim() === '')) return { value: null };
+  // The one parser (lib/units/parse): the user's separator, nothing ambiguous, no hex or exponents.
+  const text = String(typed).trim().replace(/\u2212/g, '-');
+  const parsed = parseNumber(text, { decimalSeparator: separator, field: column.label });
+  if (!parsed.ok) return { refusal: parsed.message };
+  // SI input keeps its typed digits (exact decimal), only the separator becomes a point.
+  if (!column.quantity || units === 'si') return { value: new Decimal(separator === ',' ? text.replace(',', '.') : text).toFixed() };
+  return { value: new Decimal(convertToSi(parsed.value, column.quantity, units)).toSignificantDigits(6).toFixed() };
 }
 
 export function columnDefsFor(
@@ -58,6 +63,7 @@ export function columnDefsFor(
   units: UnitSystem,
   editable: boolean,
   referenceOptions: Partial<Record<CatalogueKind, string[]>>,
+  separator: DecimalSeparator = '.',
 ): ColDef<GridRow>[] {
   return CATALOGUE_COLUMNS[kind].map((column): ColDef<GridRow> => {
     const base: ColDef<GridRow> = {
@@ -77,7 +83,7 @@ export function columnDefsFor(
         width: 140,
         filter: 'agNumberColumnFilter',
         valueGetter: (p: ValueGetterParams<GridRow>) => displayNumber(p.data?.[column.field], column, units),
-        valueFormatter: (p: ValueFormatterParams<GridRow>) => formatDecimalCell(p.data?.[column.field], column, units),
+        valueFormatter: (p: ValueFormatterParams<GridRow>) => formatDecimalCell(p.data?.[column.field], column, units, separator),
         cellEditor: 'agTextCellEditor',
         // The editor starts from what the cell shows, so that SI decimals stay exact.
         valueParser: (p) => p.newValue,

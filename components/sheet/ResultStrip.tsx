@@ -11,7 +11,7 @@ const LIMIT_SOURCES: Record<string, string> = { insulation: 'insulation', coatin
 function Figure({ label, value, testId }: { label: string; value: string; testId?: string }) {
   return (
     <div className="min-w-0">
-      <p className="text-caption uppercase tracking-wide text-ink-500">{label}</p>
+      <p className="text-caption tracking-wide text-ink-500">{label}</p>
       <p className="num truncate text-lead font-semibold text-ink-900" data-testid={testId}>{value}</p>
     </div>
   );
@@ -24,7 +24,13 @@ export function ResultStrip({
   source,
   chosen,
   otherLabels = [],
+  notCurrent = null,
 }: {
+  /**
+   * Why the result is not the result of the inputs on the screen (a field it cannot read, inputs
+   * out of range), or null. A result that is not current never shows a passing state.
+   */
+  notCurrent?: string | null;
   evaluation: CandidateEvaluation | null;
   /** Names of the other circuits on the sheet, for the governing cable's words. */
   otherLabels?: readonly string[];
@@ -45,6 +51,22 @@ export function ResultStrip({
       <div className={`panel border-2 p-3 ${RESULT_STATES.over.box}`} data-testid="result-strip" role="status">
         <p className={`font-semibold ${RESULT_STATES.over.text}`}>✖ {evaluation.label}: could not be evaluated</p>
         <p className="text-body text-ink-800">{evaluation.error.field ? plainMessage(evaluation.error.message, evaluation.error.field) : evaluation.error.message}</p>
+      </div>
+    );
+  }
+  if (notCurrent) {
+    return (
+      <div className="panel border-2 border-dashed border-tight bg-tight-light p-3" data-testid="result-strip" data-state="not-current" role="status" aria-live="polite">
+        <p className="font-semibold text-tight-dark" data-testid="result-state">
+          <span aria-hidden="true">⚠</span> Not current: {notCurrent}
+        </p>
+        <p className="text-caption text-ink-700">
+          The figures below belong to the last inputs that could be read ({evaluation.label} at <span className="num">{formatNumber(evaluation.designCurrentA, 4)} A</span>), not to what is entered now.
+        </p>
+        <div className="mt-2 grid grid-cols-2 gap-3 opacity-60 sm:grid-cols-4">
+          <Figure label="Hot spot (last readable)" value={evaluation.hotSpotC === null ? '—' : formatQuantity(evaluation.hotSpotC, 'temperature', units, { digits: 4 })} />
+          <Figure label="Ampacity (last readable)" value={`${formatNumber(evaluation.ampacityA, 4)} A`} />
+        </div>
       </div>
     );
   }

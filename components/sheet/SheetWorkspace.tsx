@@ -43,6 +43,7 @@ import { CrossSectionFieldPanel } from './CrossSectionFieldPanel';
 import { ReEvaluationNotice } from './ReEvaluationNotice';
 import { arrangementRefusalOf, plainMessage, refusalSentence, refusalSubject } from '@/lib/sheet/arrangementCheck';
 import { reEvaluationOf } from '@/lib/sheet/reEvaluation';
+import { UnreadFieldsContext, useUnreadFieldsState } from './unreadFields';
 
 // The plots and the grid are the slow part of a render (Plotly, AG Grid): they take the new result
 // in a deferred render, so that the result strip shows a keystroke's result at once.
@@ -107,12 +108,26 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
 
   const editable = decide('edit', sheet, actor).allowed;
   const live = useLiveComputation(values, { enabled: true, withCurves: true });
+  // Text a field could not read (lib/units/parse) leaves the form at its last readable value: the
+  // result on the strip is then not the result of what is on the screen.
+  const unreadFields = useUnreadFieldsState();
+  const unreadMessages = Object.values(unreadFields.problems);
+  const firstFormError = Object.values(form.errors).find((e) => typeof e === 'string' && e !== '') as string | undefined;
   const snapshot = sheet.result;
   const liveEvaluations = live.computation?.ok ? live.computation.comparison.evaluations : null;
   // A frozen or submitted sheet shows the server's stored result; a sheet being edited shows the live one.
   const evaluations: CandidateEvaluation[] | null = editable ? liveEvaluations : (snapshot?.evaluations ?? null);
+  // Why the result shown is not the result of the inputs on the screen (null when it is): the strip
+  // then never shows a passing state (issue 22).
+  const notCurrent = !editable
+    ? null
+    : unreadMessages.length > 0
+      ? unreadMessages[0]
+      : live.invalid
+        ? (firstFormError ?? 'the inputs are incomplete or out of range')
+        : null;
   const sourceWords = editable
-    ? live.invalid
+    ? live.invalid || unreadMessages.length > 0
       ? 'inputs incomplete: showing the last valid result'
       : dirty
         ? 'computed live in your browser, not saved'
@@ -250,6 +265,7 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
   const mismatched = values.candidates.filter((c) => !installationSuits(values.installation.kind, c.kind, values.installation.enclosureInside));
 
   return (
+    <UnreadFieldsContext.Provider value={unreadFields}>
     <div className="space-y-3" data-testid="sheet-workspace">
       <header className="flex flex-wrap items-start justify-between gap-3">
         <div className="min-w-0">
@@ -290,8 +306,8 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
                 className="btn-primary"
                 data-testid="save-button"
                 // A result saved by an earlier method may be saved again as it stands, to store the current one.
-                disabled={(!dirty && !reEvaluation) || save.isPending || live.invalid || refusal !== null}
-                title={refusal ? `Not saved while ${refusalSubject(refusal)}: ${refusalSentence(refusal)}` : undefined}
+                disabled={(!dirty && !reEvaluation) || save.isPending || live.invalid || refusal !== null || unreadMessages.length > 0}
+                title={refusal ? `Not saved while ${refusalSubject(refusal)}: ${refusalSentence(refusal)}` : unreadMessages.length > 0 ? `Not saved while ${unreadMessages[0]}` : undefined}
                 onClick={() => save.mutate(undefined)}
               >
                 Save
@@ -369,7 +385,7 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
 
         <div className="min-w-0 space-y-3">
           <div className="sticky top-0 z-10 -mx-1 bg-paper px-1 pb-1 pt-0.5">
-            <ResultStrip evaluation={focused ?? null} units={units} source={live.computing && editable ? 'computing…' : sourceWords} chosen={focusedId !== null && focusedId === values.chosenCandidateId} otherLabels={otherLabels} />
+            <ResultStrip evaluation={focused ?? null} notCurrent={notCurrent} units={units} source={live.computing && editable ? 'computing…' : sourceWords} chosen={focusedId !== null && focusedId === values.chosenCandidateId} otherLabels={otherLabels} />
           </div>
           <FlagsPanel
             flags={chosenFlags}
@@ -500,5 +516,6 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
         </div>
       </div>
     </div>
+    </UnreadFieldsContext.Provider>
   );
 }

@@ -68,6 +68,7 @@ export const SHEET_FIELD_UNITS = {
   'alongRun.lengthM': { quantity: 'lengthM' },
   'alongRun.terminalTemperatureC': { quantity: 'temperature' },
   'alongRun.jointPositionM': { quantity: 'lengthM' },
+  'alongRun.jointResistanceMicroOhm': { quantity: 'none', fixedUnit: 'µΩ' },
   'enclosureAir.heightM': { quantity: 'lengthM' },
   'enclosureAir.widthM': { quantity: 'lengthM' },
   'enclosureAir.depthM': { quantity: 'lengthM' },

@@ -54,7 +54,10 @@ export function parseNumber(text: string, { decimalSeparator, field }: ParseNumb
   if (/^(\d+[.,]?\d*|[.,]\d+)e[-+]?\d+$/i.test(body)) {
     return refuse(field, `${shown}: write the number in full, without an exponent`);
   }
-  if (/[\s'\u00a0\u202f_]/.test(body)) return refuse(field, `${shown}: write the number without spaces or thousands groupings`);
+  // Digits with spaces, apostrophes or underscores between them: a thousands grouping (anything else is just not a number).
+  if (/[\s'\u00a0\u202f_]/.test(body)) {
+    return /^\d[\d.,\s'\u00a0\u202f_]*$/.test(body) ? refuse(field, `${shown}: write the number without spaces or thousands groupings`) : refuse(field, `${shown} is not a number`);
+  }
 
   // The separator of the other convention: ambiguous when it can read as a thousands grouping.
   if (body.includes(other)) {
@@ -123,4 +126,16 @@ export function decimalSeparatorOfLocale(locale?: string | readonly string[]): D
 
 export function isDecimalSeparator(value: unknown): value is DecimalSeparator {
   return value === '.' || value === ',';
+}
+
+/**
+ * The decimal separator of a CSV file from its delimiter: a comma-delimited file cannot write
+ * decimal commas without quoting, so it uses points; a semicolon-delimited file is the usual
+ * export where the comma is the decimal mark (common practice); otherwise (tab, one column) the
+ * user's own separator.
+ */
+export function decimalSeparatorOfDelimiter(delimiter: string | undefined, userSeparator: DecimalSeparator): DecimalSeparator {
+  if (delimiter === ',') return '.';
+  if (delimiter === ';') return ',';
+  return userSeparator;
 }
