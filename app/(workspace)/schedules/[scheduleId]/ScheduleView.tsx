@@ -71,7 +71,7 @@ function UploadStep({ detail, mayWrite }: { detail: ScheduleDetail; mayWrite: bo
               <div className="panel overflow-x-auto" role="region" aria-label="Problems in the file">
                 <table className="w-full text-left text-body">
                   <caption className="px-3 pt-2 text-left font-semibold text-over-dark">✕ Problems — correct the file and upload it again, or leave these rows out</caption>
-                  <thead className="border-b border-ink-100 text-caption uppercase tracking-wide text-ink-500">
+                  <thead className="border-b border-ink-100 text-caption tracking-wide text-ink-500">
                     <tr><th className="px-3 py-2">Row</th><th className="px-3 py-2">Column</th><th className="px-3 py-2">Problem</th></tr>
                   </thead>
                   <tbody>
@@ -90,7 +90,7 @@ function UploadStep({ detail, mayWrite }: { detail: ScheduleDetail; mayWrite: bo
             {previewRows.length > 0 ? (
               <div className="panel max-h-80 overflow-auto" role="region" aria-label="Clean rows">
                 <table className="w-full text-left text-body">
-                  <thead className="sticky top-0 border-b border-ink-100 bg-paper text-caption uppercase tracking-wide text-ink-500">
+                  <thead className="sticky top-0 border-b border-ink-100 bg-paper text-caption tracking-wide text-ink-500">
                     <tr><th className="px-3 py-2">Row</th><th className="px-3 py-2">Circuit</th><th className="px-3 py-2">From → to</th><th className="px-3 py-2 text-right">I_B (A)</th><th className="px-3 py-2 text-right">Length (m)</th><th className="px-3 py-2">Installation</th><th className="px-3 py-2">Family</th></tr>
                   </thead>
                   <tbody>
