@@ -22,7 +22,10 @@ export function NumberField({
   placeholder,
   disabled = false,
   testId,
+  warning,
 }: {
+  /** An accepted value that needs a word (lib/sheet/inputWarnings), shown under the field. */
+  warning?: string;
   field: SheetNumericField;
   label: string;
   value: number | null;
@@ -97,6 +100,12 @@ export function NumberField({
         }}
       />
       <p id={`${id}-error`} className="field-error" aria-live="polite">{shownError ?? ''}</p>
+      {warning && !shownError ? (
+        <p className="mt-0.5 text-caption text-tight-dark" data-testid={testId ? `${testId}-warning` : undefined} role="note">
+          <span aria-hidden="true">▲ </span>
+          {warning}
+        </p>
+      ) : null}
       {help ? <p id={`${id}-help`} className="-mt-0.5 text-[0.6875rem] leading-4 text-ink-500">{help}</p> : null}
     </div>
   );

@@ -17,6 +17,20 @@ function Figure({ label, value, testId }: { label: string; value: string; testId
   );
 }
 
+function WarningList({ warnings }: { warnings: readonly string[] }) {
+  if (warnings.length === 0) return null;
+  return (
+    <ul className="mt-2 space-y-0.5 border-t border-ink-100 pt-1 text-caption text-tight-dark" data-testid="result-warnings" aria-label="Inputs to check">
+      {warnings.map((w) => (
+        <li key={w}>
+          <span aria-hidden="true">▲ </span>
+          {w}
+        </li>
+      ))}
+    </ul>
+  );
+}
+
 /** Hot spot / limit / margin / ampacity of the candidate in focus, with its state as word, icon and colour. */
 export function ResultStrip({
   evaluation,
@@ -25,7 +39,10 @@ export function ResultStrip({
   chosen,
   otherLabels = [],
   notCurrent = null,
+  warnings = [],
 }: {
+  /** Accepted inputs that need a word (lib/sheet/inputWarnings): listed with the result they shape. */
+  warnings?: readonly string[];
   /**
    * Why the result is not the result of the inputs on the screen (a field it cannot read, inputs
    * out of range), or null. A result that is not current never shows a passing state.
@@ -67,6 +84,7 @@ export function ResultStrip({
           <Figure label="Hot spot (last readable)" value={evaluation.hotSpotC === null ? '—' : formatQuantity(evaluation.hotSpotC, 'temperature', units, { digits: 4 })} />
           <Figure label="Ampacity (last readable)" value={`${formatNumber(evaluation.ampacityA, 4)} A`} />
         </div>
+        <WarningList warnings={warnings} />
       </div>
     );
   }
@@ -104,6 +122,7 @@ export function ResultStrip({
           {governingText(governing, t)}
         </p>
       ) : null}
+      <WarningList warnings={warnings} />
     </div>
   );
 }

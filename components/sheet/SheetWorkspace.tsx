@@ -43,6 +43,7 @@ import { CrossSectionFieldPanel } from './CrossSectionFieldPanel';
 import { ReEvaluationNotice } from './ReEvaluationNotice';
 import { arrangementRefusalOf, plainMessage, refusalSentence, refusalSubject } from '@/lib/sheet/arrangementCheck';
 import { reEvaluationOf } from '@/lib/sheet/reEvaluation';
+import { inputWarnings } from '@/lib/sheet/inputWarnings';
 import { UnreadFieldsContext, useUnreadFieldsState } from './unreadFields';
 
 // The plots and the grid are the slow part of a render (Plotly, AG Grid): they take the new result
@@ -385,7 +386,7 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
 
         <div className="min-w-0 space-y-3">
           <div className="sticky top-0 z-10 -mx-1 bg-paper px-1 pb-1 pt-0.5">
-            <ResultStrip evaluation={focused ?? null} notCurrent={notCurrent} units={units} source={live.computing && editable ? 'computing…' : sourceWords} chosen={focusedId !== null && focusedId === values.chosenCandidateId} otherLabels={otherLabels} />
+            <ResultStrip evaluation={focused ?? null} notCurrent={notCurrent} warnings={editable ? inputWarnings(values, units).map((w) => w.message) : []} units={units} source={live.computing && editable ? 'computing…' : sourceWords} chosen={focusedId !== null && focusedId === values.chosenCandidateId} otherLabels={otherLabels} />
           </div>
           <FlagsPanel
             flags={chosenFlags}
