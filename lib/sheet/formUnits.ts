@@ -32,7 +32,9 @@ export const SHEET_FIELD_UNITS = {
   'circuit.powerFactor': { quantity: 'none' },
   'circuit.maxVoltageDropPercent': { quantity: 'none', fixedUnit: '%' },
   'circuit.reactanceOhmPerM': { quantity: 'resistanceOhmPerKm' },
-  'fault.currentA': { quantity: 'none', fixedUnit: 'A' },
+  // Fault currents in kA on every surface (the schedule's column, the sheet, the printed tables):
+  // switchgear and fault studies quote them in kA (common practice). Stored in A (API field currentA).
+  'fault.currentA': { quantity: 'none', fixedUnit: 'kA' },
   'fault.durationS': { quantity: 'none', fixedUnit: 's' },
   'environment.ambientC': { quantity: 'temperature' },
   'environment.windSpeedMPerS': { quantity: 'speedMPerS' },
@@ -114,6 +116,8 @@ const STORED_TO_QUANTITY_SCALE: Partial<Record<SheetNumericField, number>> = {
   'installation.duct.innerDiameterM': 1000,
   'installation.duct.outerDiameterM': 1000,
   'circuit.reactanceOhmPerM': 1000,
+  // Stored in A, shown in kA.
+  'fault.currentA': 1 / 1000,
   // Stored in seconds, shown in minutes.
   'overTime.overloadDurationS': 1 / 60,
   // The bus-bar system's lengths are stored in m and shown in mm (or in); the source impedance in Ω, shown in mΩ.

@@ -53,7 +53,7 @@ export function inputRows(inputs: SheetInputs): InputRow[] {
   ];
   if (fault.checked) {
     rows.push(
-      { section: 'Fault', label: 'Prospective fault current', value: n(fault.currentA), unit: 'A' },
+      { section: 'Fault', label: 'Prospective fault current', value: n(fault.currentA / 1000), unit: 'kA' },
       { section: 'Fault', label: 'Clearing time', value: n(fault.durationS, 3), unit: 's' },
     );
   }
@@ -367,7 +367,7 @@ export function chosenResultRows(e: CandidateEvaluationOk, lengthM: number, othe
       label: 'Short circuit (IEC 60949 adiabatic)',
       value: !sc.checked
         ? `not checked${sc.reason ? `: ${sc.reason}` : ''}`
-        : `${n(sc.currentA ?? 0)} A for ${n(sc.durationS ?? 0, 3)} s: ${sc.finalC === null || sc.finalC === undefined ? 'beyond the method' : t(sc.finalC)} of ${t(sc.limitC)} allowed; needs at least ${formatQuantity(sc.minimumSectionMm2 ?? 0, 'areaMm2', 'si')}: ${sc.withstands ? 'passes' : 'fails'}`,
+        : `${n((sc.currentA ?? 0) / 1000)} kA for ${n(sc.durationS ?? 0, 3)} s: ${sc.finalC === null || sc.finalC === undefined ? 'beyond the method' : t(sc.finalC)} of ${t(sc.limitC)} allowed; needs at least ${formatQuantity(sc.minimumSectionMm2 ?? 0, 'areaMm2', 'si')}: ${sc.withstands ? 'passes' : 'fails'}`,
     },
     { label: 'Conductor mass', value: `${n(e.massKg)} kg` },
     { label: 'Material cost / life-cycle cost', value: `${e.materialCost ?? '—'} / ${e.lifeCycleCost ?? '—'}` },
