@@ -5,7 +5,7 @@ import { AllCommunityModule, ModuleRegistry, themeQuartz, type ColDef, type ICel
 import type { CandidateEvaluation } from '@/lib/electrical/sizing/types';
 import type { SheetCandidate } from '@/lib/sheet/candidates';
 import { candidateRecords } from '@/lib/sheet/sheetTables';
-import { convertFromSi, formatNumber, unitLabel, type UnitSystem } from '@/lib/units';
+import { convertFromSi, formatNumber, quantitiesInWords, unitLabel, type UnitSystem } from '@/lib/units';
 import { RESULT_STATES } from './resultState';
 
 ModuleRegistry.registerModules([AllCommunityModule]);
@@ -81,7 +81,8 @@ export function candidateRows(
     const counts = r.flagCounts;
     return {
       id: r.id,
-      label: r.label,
+      // Names are the catalogue's (SI); in imperial each quantity in them reads in both systems.
+      label: quantitiesInWords(r.label, units),
       section: convertFromSi(r.sectionPerPhaseMm2, 'areaMm2', units),
       arrangement: r.arrangement,
       hotSpot: r.hotSpotC === null ? null : convertFromSi(r.hotSpotC, 'temperature', units),

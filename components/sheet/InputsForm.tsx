@@ -3,7 +3,7 @@ import type { UseFormReturnType } from '@mantine/form';
 import type { ReactNode } from 'react';
 import { DEFAULT_SOURCES, type SheetInputs } from '@/lib/sheet/schema';
 import { displayText, type SheetNumericField } from '@/lib/sheet/formUnits';
-import type { UnitSystem } from '@/lib/units';
+import { quantitiesInWords, type UnitSystem } from '@/lib/units';
 import { NumberField } from './NumberField';
 import { inputWarnings } from '@/lib/sheet/inputWarnings';
 import { ArrangementInputs } from './ArrangementInputs';
@@ -99,7 +99,7 @@ export function InputsForm({
             {num('circuit.maxVoltageDropPercent', 'Allowed drop', { nullable: true, placeholder: 'no limit' })}
             {num('circuit.reactanceOhmPerM', 'Reactance', { nullable: true, placeholder: `${displayText('circuit.reactanceOhmPerM', 0.08e-3, units)} (Annex G)` })}
           </div>
-          <p className="text-[0.6875rem] leading-4 text-ink-500">{DEFAULT_SOURCES.maxVoltageDropPercent} {DEFAULT_SOURCES.reactanceOhmPerM}</p>
+          <p className="text-[0.6875rem] leading-4 text-ink-500">{DEFAULT_SOURCES.maxVoltageDropPercent} {quantitiesInWords(DEFAULT_SOURCES.reactanceOhmPerM, units)}</p>
         </Section>
 
         <Section title="Fault">

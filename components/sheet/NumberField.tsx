@@ -1,7 +1,7 @@
 'use client';
 import { useEffect, useId, useRef, useState } from 'react';
 import { displayText, displayUnit, fromDisplay, type SheetNumericField } from '@/lib/sheet/formUnits';
-import type { UnitSystem } from '@/lib/units';
+import { quantitiesInWords, type UnitSystem } from '@/lib/units';
 import { parseNumber, writeNumber } from '@/lib/units/parse';
 import { useDecimalSeparator } from '@/components/providers/NumberFormatProvider';
 import { useUnreadFields } from './unreadFields';
@@ -106,7 +106,7 @@ export function NumberField({
           {warning}
         </p>
       ) : null}
-      {help ? <p id={`${id}-help`} className="-mt-0.5 text-[0.6875rem] leading-4 text-ink-500">{help}</p> : null}
+      {help ? <p id={`${id}-help`} className="-mt-0.5 text-[0.6875rem] leading-4 text-ink-500">{quantitiesInWords(help, units)}</p> : null}
     </div>
   );
 }

@@ -154,10 +154,17 @@ export function displayUnit(field: SheetNumericField, system: UnitSystem): strin
   return unitLabel(spec.quantity, system);
 }
 
-/** A stored value as the text a field shows: rounded for reading, without float noise (0.30000000000000004). */
+/**
+ * A stored value as the text a field shows: rounded for reading, without float noise
+ * (0.30000000000000004). An SI value shows what was typed (six significant figures); a value
+ * converted to US customary units shows four (6 m reads 19.69 ft, not 19.685 ft) — the stored SI
+ * value keeps its precision until the field is edited.
+ */
 export function displayText(field: SheetNumericField, storedValue: number | null, system: UnitSystem): string {
   if (storedValue === null || !Number.isFinite(storedValue)) return '';
-  return formatNumber(toDisplay(field, storedValue, system), 6);
+  const spec: FieldUnit = SHEET_FIELD_UNITS[field];
+  const converted = system === 'imperial' && spec.quantity !== 'none';
+  return formatNumber(toDisplay(field, storedValue, system), converted ? 4 : 6);
 }
 
 /** Temperatures on the result strip and plots, in the user's system. */

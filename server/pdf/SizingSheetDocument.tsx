@@ -13,7 +13,7 @@ import type { AssumptionFlag } from '@/lib/electrical/sizing/flags';
 import { chosenEvaluation, type ResultSnapshot } from '@/lib/sheet/snapshot';
 import { STATUS_LABELS, type SheetStatus } from '@/lib/sheet/stateMachine';
 import type { SheetInputs } from '@/lib/sheet/schema';
-import { formatNumber } from '@/lib/units';
+import { DOCUMENT_UNITS_LINE, formatNumber } from '@/lib/units';
 import { PDF_FONT_FAMILY, pdfSafeText as safe } from './fonts';
 import { ProfileChart } from './ProfileChart';
 import { OptionalChecksSection } from './OptionalChecksSection';
@@ -209,6 +209,7 @@ export function SizingSheetDocument({ sheet, generatedAt = new Date() }: { sheet
         <Text style={styles.brand}>AMPWARDEN · SIZING SHEET</Text>
         <Text style={styles.title}>{safe(`${sheet.circuitTag} — ${sheet.title}`)}</Text>
         <Text style={styles.subtitle}>{safe(sheet.projectName)}</Text>
+        <Text style={{ fontSize: 7.5, color: MUTED, marginBottom: 4 }}>{safe(DOCUMENT_UNITS_LINE)}</Text>
         <TitleBlock sheet={sheet} generatedAt={generatedAt} />
         <View style={styles.caution}>
           <Text>{safe(`Caution. ${CAUTION_TEXT.join(' ')}`)}</Text>
