@@ -6,6 +6,8 @@ import type { CandidateEvaluation } from '@/lib/electrical/sizing/types';
 import type { SheetCandidate } from '@/lib/sheet/candidates';
 import { candidateRecords } from '@/lib/sheet/sheetTables';
 import { convertFromSi, formatNumber, quantitiesInWords, unitLabel, type UnitSystem } from '@/lib/units';
+import { formatMoney, withCurrency } from '@/lib/units/money';
+import { useNumberFormat } from '@/components/providers/NumberFormatProvider';
 import { RESULT_STATES } from './resultState';
 
 ModuleRegistry.registerModules([AllCommunityModule]);
@@ -137,7 +139,10 @@ export function CandidateGrid({
   onChoose,
   onRemove,
   editable,
+  currency: currencyProp,
 }: {
+  /** The team's currency where the page has no workspace around it (the share page); else the workspace's. */
+  currency?: string;
   rows: CandidateGridRow[];
   units: UnitSystem;
   focusedId: string | null;
@@ -149,6 +154,8 @@ export function CandidateGrid({
   // The bus-bar and protection columns show when some candidate has those results.
   const hasBars = rows.some((r) => r.forces !== '');
   const hasDevice = rows.some((r) => r.device !== '');
+  const workspace = useNumberFormat();
+  const currency = currencyProp ?? workspace.currency;
   const columns = useMemo<ColDef<CandidateGridRow>[]>(() => {
     const t = unitLabel('temperature', units);
     return [
@@ -201,8 +208,9 @@ export function CandidateGrid({
       { headerName: 'Voltage drop (%)', field: 'voltageDropPercent', width: 118, type: 'numericColumn', valueFormatter: num(3) },
       { headerName: 'Short circuit', field: 'shortCircuit', width: 108 },
       { headerName: 'Mass (kg)', field: 'massKg', width: 96, type: 'numericColumn', valueFormatter: num(4) },
-      { headerName: 'Cost', field: 'cost', width: 96, type: 'numericColumn', valueFormatter: (p) => p.value ?? '—' },
-      { headerName: 'Life-cycle cost', field: 'lifeCycleCost', width: 118, type: 'numericColumn', valueFormatter: (p) => p.value ?? '—' },
+      // Every amount names the team's currency (teams.currency), rounded to cents.
+      { headerName: withCurrency('Cost', currency), colId: 'cost', field: 'cost', width: 120, type: 'numericColumn', valueFormatter: (p) => formatMoney(p.value, currency) },
+      { headerName: withCurrency('Life-cycle cost', currency), colId: 'lifeCycleCost', field: 'lifeCycleCost', width: 140, type: 'numericColumn', valueFormatter: (p) => formatMoney(p.value, currency) },
       { headerName: 'Flags', field: 'flags', width: 96, headerTooltip: '✖ blocker, ▲ review, i note' },
       { headerName: 'Marked', field: 'marks', width: 170, valueFormatter: (p) => (p.value as string[]).join(' · '), cellClass: 'font-medium text-within-dark' },
       ...(editable
@@ -220,7 +228,7 @@ export function CandidateGrid({
           ]
         : []),
     ];
-  }, [units, editable, onChoose, onRemove, hasBars, hasDevice]);
+  }, [units, editable, onChoose, onRemove, hasBars, hasDevice, currency]);
 
   return (
     <div className="w-full [&_.ag-center-cols-container]:!min-h-0 [&_.ag-center-cols-viewport]:!min-h-0" data-testid="candidate-grid">

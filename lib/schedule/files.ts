@@ -83,6 +83,8 @@ function withNumbersRead(record: ScheduleRecord, decimalSeparator: DecimalSepara
 export interface Table {
   headers: string[];
   rows: Array<Array<string | number | null>>;
+  /** Columns (0-based) holding money: written as numbers with a two-decimal number format in XLSX. */
+  moneyColumns?: number[];
 }
 
 /** Through the shared CSV writer (lib/files/csv.ts): a circuit tag such as "=cmd()" cannot run as a formula. */
@@ -97,6 +99,7 @@ export async function tableToXlsx(table: Table, sheetName: string, notes?: Array
   sheet.addRow(table.headers).font = { bold: true };
   for (const row of table.rows) sheet.addRow(row);
   sheet.columns.forEach((col) => (col.width = 18));
+  for (const i of table.moneyColumns ?? []) sheet.getColumn(i + 1).numFmt = '#,##0.00';
   sheet.views = [{ state: 'frozen', ySplit: 1 }];
   if (notes) {
     const about = workbook.addWorksheet('About these columns');

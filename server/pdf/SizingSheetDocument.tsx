@@ -40,6 +40,8 @@ export interface PdfSheet {
   approvedAt: Date | string | null;
   updatedAt: Date | string;
   acknowledgements: { flagCode: string; comment: string; reviewerName: string | null; createdAt: Date | string }[];
+  /** ISO 4217 code of the team's money, named with every amount. */
+  teamCurrency: string;
 }
 
 /** The marking of a sheet that is not approved: the same words on every page. */
@@ -174,7 +176,7 @@ export function SizingSheetDocument({ sheet, generatedAt = new Date() }: { sheet
   const flags = snapshot?.chosenFlags ?? [];
   const ackByCode = new Map(sheet.acknowledgements.map((a) => [a.flagCode, a]));
   const tone = toneOf(chosen);
-  const inputs = inputRows(sheet.inputs);
+  const inputs = inputRows(sheet.inputs, sheet.teamCurrency);
   const n = (v: number | null, d = 4) => (v === null ? '—' : formatNumber(v, d));
   const otherLabels = sheet.inputs.installation.otherCircuits.map((o) => o.label);
   const reEvaluation = reEvaluationOf(sheet.inputs, snapshot);
@@ -245,7 +247,7 @@ export function SizingSheetDocument({ sheet, generatedAt = new Date() }: { sheet
                   { title: 'Quantity', width: '34%' },
                   { title: 'Value', width: '66%' },
                 ]}
-                rows={chosenResultRows(chosen, sheet.inputs.circuit.lengthM, otherLabels).map((r) => [r.label, r.value])}
+                rows={chosenResultRows(chosen, sheet.inputs.circuit.lengthM, otherLabels, sheet.teamCurrency).map((r) => [r.label, r.value])}
               />
             </View>
           </View>

@@ -1,6 +1,8 @@
 import { listPendingInvitations, listTeamMembers } from '@/db/queries/members';
 import { requirePageUser } from '@/server/auth/session';
 import { MembersAdmin } from './MembersAdmin';
+import { TeamCurrency } from './TeamCurrency';
+import { setTeamCurrencyAction } from './currencyAction';
 
 export const metadata = { title: 'Members' };
 export const dynamic = 'force-dynamic';
@@ -14,6 +16,7 @@ export default async function MembersPage() {
         Members of {user.teamName}
       </h1>
       <p className="mt-2 text-ink-600">Invite colleagues by e-mail, change what they may do, or close their access.</p>
+      <TeamCurrency currency={user.teamCurrency} onChange={setTeamCurrencyAction} />
       <MembersAdmin
         currentUserId={user.id}
         members={members.map((m) => ({ ...m, createdAt: m.createdAt.toISOString() }))}

@@ -10,6 +10,8 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { ColDef, ICellRendererParams, RowClickedEvent } from 'ag-grid-community';
 import { DataGrid } from '@/components/grid/DataGrid';
 import type { ResultLine } from '@/lib/schedule';
+import { formatMoney, withCurrency } from '@/lib/units/money';
+import { useNumberFormat } from '@/components/providers/NumberFormatProvider';
 import { fetchProgress, fetchResults, fetchSchedule, openRowAsSheet, queueScheduleRows, uploadScheduleFile, type ScheduleDetail } from '../api';
 
 /** Without a stored row for this long, the page says that no worker seems to be running. */
@@ -246,6 +248,7 @@ function Results({ scheduleId, mayOpenSheet, fileName }: { scheduleId: string; m
     onSuccess: (sheet) => router.push(`/sheets/${sheet.id}`),
   });
 
+  const { currency } = useNumberFormat();
   const columns = useMemo<ColDef<ResultLine>[]>(
     () => [
       { field: 'rowNumber', headerName: 'Row', width: 80, pinned: 'left', cellClass: 'num' },
@@ -272,10 +275,10 @@ function Results({ scheduleId, mayOpenSheet, fileName }: { scheduleId: string; m
       { field: 'smallestDeviceA', headerName: 'Smallest coordinated (A)', type: 'numericColumn', cellClass: 'num', valueFormatter: (p) => fmt(p.value, 0), width: 170 },
       { field: 'lossW', headerName: 'Losses (W)', type: 'numericColumn', cellClass: 'num', valueFormatter: (p) => fmt(p.value, 0), width: 110 },
       { field: 'massKg', headerName: 'Conductor mass (kg)', type: 'numericColumn', cellClass: 'num', valueFormatter: (p) => fmt(p.value, 1), width: 150 },
-      { field: 'materialCost', headerName: 'Material cost', type: 'numericColumn', cellClass: 'num', width: 120 },
+      { field: 'materialCost', headerName: withCurrency('Material cost', currency), type: 'numericColumn', cellClass: 'num', width: 140, valueFormatter: (p) => formatMoney(p.value, currency) },
       { field: 'remark', headerName: 'Remark', width: 320, tooltipField: 'remark' },
     ],
-    [],
+    [currency],
   );
 
   if (results.isPending) return <p role="status" className="text-ink-500">Loading the results…</p>;
@@ -325,7 +328,7 @@ function Results({ scheduleId, mayOpenSheet, fileName }: { scheduleId: string; m
             <dt>Circuits sized</dt><dd className="num text-right">{totals.sized} of {totals.circuits}</dd>
             <dt>Conductor mass</dt><dd className="num text-right">{fmt(totals.massKg, 0)} kg</dd>
             <dt>Losses at design current</dt><dd className="num text-right">{fmt(totals.lossW / 1000, 2)} kW</dd>
-            <dt>Material cost</dt><dd className="num text-right">{totals.materialCost}</dd>
+            <dt>Material cost</dt><dd className="num text-right">{formatMoney(totals.materialCost, currency)}</dd>
           </dl>
           {totals.circuitsWithoutCost > 0 ? <p className="mt-1 text-caption text-ink-600">{totals.circuitsWithoutCost} sized circuits have no price in the catalogue and are not in the cost.</p> : null}
           {totals.failing > 0 ? <p className="mt-1 text-caption text-over-dark">✕ {totals.failing} circuits have no passing size and are not in these totals.</p> : null}
