@@ -130,9 +130,18 @@ const STORED_TO_QUANTITY_SCALE: Partial<Record<SheetNumericField, number>> = {
   'protection.sourceImpedanceOhm': 1000,
 };
 
+/**
+ * `value × scale`, dividing by the whole number 1/scale where the scale is a fraction (1/1000 for
+ * kA, 1/60 for minutes): 25 kA is then exactly 25 000 A, not 25 / 0.001 = 24 999.999…
+ */
+function scaled(value: number, scale: number): number {
+  if (scale >= 1) return value * scale;
+  return value / Math.round(1 / scale);
+}
+
 export function toDisplay(field: SheetNumericField, storedValue: number, system: UnitSystem): number {
   const spec: FieldUnit = SHEET_FIELD_UNITS[field];
-  const value = storedValue * (STORED_TO_QUANTITY_SCALE[field] ?? 1);
+  const value = scaled(storedValue, STORED_TO_QUANTITY_SCALE[field] ?? 1);
   if (spec.quantity === 'none') return value;
   if (spec.quantity === 'speedMPerS') return system === 'si' ? value : metresToFeet(value);
   return convertFromSi(value, spec.quantity, system);
@@ -144,7 +153,7 @@ export function fromDisplay(field: SheetNumericField, shownValue: number, system
   if (spec.quantity === 'none') value = shownValue;
   else if (spec.quantity === 'speedMPerS') value = system === 'si' ? shownValue : feetToMetres(shownValue);
   else value = convertToSi(shownValue, spec.quantity, system);
-  return value / (STORED_TO_QUANTITY_SCALE[field] ?? 1);
+  return scaled(value, 1 / (STORED_TO_QUANTITY_SCALE[field] ?? 1));
 }
 
 export function displayUnit(field: SheetNumericField, system: UnitSystem): string {
