@@ -11,7 +11,7 @@ import type { UnitSystem } from '@/lib/units';
 import { ApiFailure, catalogueQueryKey, fetchCatalogue, patchCatalogueRow } from './api';
 import { columnDefsFor, headerOf, toStoredValue, type GridRow } from './columnDefs';
 import { EmptyCatalogue } from './EmptyCatalogue';
-import { useDecimalSeparator } from '@/components/providers/NumberFormatProvider';
+import { useNumberFormat } from '@/components/providers/NumberFormatProvider';
 
 type Notice = { tone: 'saved' | 'refused'; text: string } | null;
 
@@ -37,8 +37,8 @@ export function CatalogueTable({ kind, units, canEdit, search }: { kind: Catalog
   const [hidden, setHidden] = useState<Set<string>>(() => new Set(CATALOGUE_COLUMNS[kind].filter((c) => c.hiddenByDefault).map((c) => c.field)));
   const rows = useQuery({ queryKey: catalogueQueryKey(kind), queryFn: () => fetchCatalogue(kind) });
   const referenceOptions = useReferenceOptions(kind, canEdit);
-  const separator = useDecimalSeparator();
-  const columnDefs = useMemo(() => columnDefsFor(kind, units, canEdit, referenceOptions, separator), [kind, units, canEdit, referenceOptions, separator]);
+  const { decimalSeparator: separator, currency } = useNumberFormat();
+  const columnDefs = useMemo(() => columnDefsFor(kind, units, canEdit, referenceOptions, separator, currency), [kind, units, canEdit, referenceOptions, separator, currency]);
 
   const save = useMutation({
     mutationFn: (edit: { id: string; key: string; field: string; value: unknown }) => patchCatalogueRow(kind, edit.id, { [edit.field]: edit.value }),
@@ -62,7 +62,7 @@ export function CatalogueTable({ kind, units, canEdit, search }: { kind: Catalog
     if (!column || !event.data) return;
     const typed = toStoredValue(event.newValue, column, units, separator);
     if ('refusal' in typed) {
-      setNotice({ tone: 'refused', text: `Not saved (${String(event.data.key)} · ${headerOf(column, units)}): ${typed.refusal}` });
+      setNotice({ tone: 'refused', text: `Not saved (${String(event.data.key)} · ${headerOf(column, units, currency)}): ${typed.refusal}` });
       return;
     }
     const value = typed.value;
@@ -119,7 +119,7 @@ export function CatalogueTable({ kind, units, canEdit, search }: { kind: Catalog
             {CATALOGUE_COLUMNS[kind].map((column) => (
               <label key={column.field} className="flex items-center gap-2 py-0.5 text-body text-ink-800">
                 <input type="checkbox" checked={!hidden.has(column.field)} onChange={(e) => toggleColumn(column.field, e.target.checked)} />
-                {headerOf(column, units)}
+                {headerOf(column, units, currency)}
               </label>
             ))}
           </fieldset>

@@ -12,8 +12,10 @@ import { parseNumber, writeNumber, type DecimalSeparator } from '@/lib/units/par
 
 export type GridRow = Record<string, unknown> & { id: string };
 
-export function headerOf(column: ColumnSpec, units: UnitSystem): string {
-  const unit = column.quantity ? unitLabel(column.quantity, units) : column.fixedUnit;
+/** The header with its unit; a price names the team's currency ("Metal price (EUR/kg)"). */
+export function headerOf(column: ColumnSpec, units: UnitSystem, currency = ''): string {
+  const plain = column.quantity ? unitLabel(column.quantity, units) : column.fixedUnit;
+  const unit = column.quantity === 'pricePerKg' && currency ? `${currency}${plain}` : plain;
   return unit ? `${column.label} (${unit})` : column.label;
 }
 
@@ -64,11 +66,12 @@ export function columnDefsFor(
   editable: boolean,
   referenceOptions: Partial<Record<CatalogueKind, string[]>>,
   separator: DecimalSeparator = '.',
+  currency = '',
 ): ColDef<GridRow>[] {
   return CATALOGUE_COLUMNS[kind].map((column): ColDef<GridRow> => {
     const base: ColDef<GridRow> = {
       colId: column.field,
-      headerName: headerOf(column, units),
+      headerName: headerOf(column, units, currency),
       headerTooltip: column.hint,
       hide: column.hiddenByDefault ?? false,
       editable: editable,
