@@ -5,7 +5,7 @@ import { AllCommunityModule, ModuleRegistry, themeQuartz, type ColDef, type ICel
 import type { CandidateEvaluation } from '@/lib/electrical/sizing/types';
 import type { SheetCandidate } from '@/lib/sheet/candidates';
 import { candidateRecords } from '@/lib/sheet/sheetTables';
-import { convertFromSi, formatNumber, quantitiesInWords, unitLabel, type UnitSystem } from '@/lib/units';
+import { convertFromSi, formatNumber, nameInSystem, unitLabel, type UnitSystem } from '@/lib/units';
 import { formatMoney, withCurrency } from '@/lib/units/money';
 import { useNumberFormat } from '@/components/providers/NumberFormatProvider';
 import { RESULT_STATES } from './resultState';
@@ -83,8 +83,8 @@ export function candidateRows(
     const counts = r.flagCounts;
     return {
       id: r.id,
-      // Names are the catalogue's (SI); in imperial each quantity in them reads in both systems.
-      label: quantitiesInWords(r.label, units),
+      // Names are the catalogue's, as written; in imperial the size follows in US customary units.
+      label: nameInSystem(r.label, units),
       section: convertFromSi(r.sectionPerPhaseMm2, 'areaMm2', units),
       arrangement: r.arrangement,
       hotSpot: r.hotSpotC === null ? null : convertFromSi(r.hotSpotC, 'temperature', units),

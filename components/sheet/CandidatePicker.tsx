@@ -10,7 +10,7 @@ import { useQuery } from '@tanstack/react-query';
 import Decimal from 'decimal.js';
 import { barToCandidate, buildLayers, cableBuildToCandidate, type StoredRow } from '@/lib/catalogue';
 import { sheetCandidateSchema, type SheetCandidate } from '@/lib/sheet/candidates';
-import { convertToSi, formatQuantity, quantitiesInWords, unitLabel, type UnitSystem } from '@/lib/units';
+import { convertToSi, formatQuantity, nameInSystem, unitLabel, type UnitSystem } from '@/lib/units';
 import { parseNumber } from '@/lib/units/parse';
 import { useDecimalSeparator } from '@/components/providers/NumberFormatProvider';
 import { INPUT_BOUNDS } from '@/lib/inputBounds';
@@ -183,7 +183,7 @@ export function CandidatePicker({
               return (
                 <li key={option.key} className="flex items-center gap-3 px-2 py-1 text-body">
                   <div className="min-w-0 flex-1">
-                    <p className="truncate font-medium">{quantitiesInWords(option.label, units)}</p>
+                    <p className="truncate font-medium">{nameInSystem(option.label, units)}</p>
                     <p className="truncate text-caption text-ink-500">
                       <span className="num">{formatQuantity(option.sectionMm2, 'areaMm2', units)}</span> · {option.material} · {option.detail}
                     </p>

@@ -1,6 +1,6 @@
 'use client';
 import type { CandidateEvaluation } from '@/lib/electrical/sizing/types';
-import { formatNumber, formatQuantity, quantitiesInWords, type UnitSystem } from '@/lib/units';
+import { formatNumber, formatQuantity, nameInSystem, type UnitSystem } from '@/lib/units';
 import { failureWords, thermalState } from '@/lib/sheet/candidateRow';
 import { governingCableOf, governingText } from '@/lib/sheet/groupWords';
 import { plainMessage } from '@/lib/sheet/arrangementCheck';
@@ -108,7 +108,7 @@ export function ResultStrip({
         </p>
         <p className="text-caption text-ink-600">
           {chosen ? 'Chosen: ' : 'Viewing: '}
-          <span className="font-medium text-ink-800">{quantitiesInWords(evaluation.label, units)}</span> at <span className="num">{formatNumber(evaluation.designCurrentA, 4)} A</span> · {source}
+          <span className="font-medium text-ink-800">{nameInSystem(evaluation.label, units)}</span> at <span className="num">{formatNumber(evaluation.designCurrentA, 4)} A</span> · {source}
         </p>
       </div>
       <div className="mt-2 grid grid-cols-2 gap-3 sm:grid-cols-4">

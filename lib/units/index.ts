@@ -255,3 +255,17 @@ export function quantitiesInWords(text: string, system: UnitSystem): string {
  */
 export const DOCUMENT_UNITS_LINE =
   'Units: SI throughout — temperatures in °C, temperature differences (margins, rises) in K, lengths in m and mm, sections in mm², currents in A, fault currents in kA, losses in W/m. Figures are not converted to the reader’s unit setting.';
+
+/**
+ * A catalogue name for a reader in the chosen system: kept as written (it is the name the
+ * catalogue and the drawings use), with its size in US customary units after it in imperial —
+ * "60 × 10 mm Copper bar (2.36 × 0.394 in)", "95 mm² copper XLPE/PVC single-core (187 kcmil)".
+ */
+export function nameInSystem(name: string, system: UnitSystem): string {
+  if (system === 'si') return name;
+  const bar = /(\d+(?:\.\d+)?) × (\d+(?:\.\d+)?) mm(?![²\p{L}])/u.exec(name);
+  if (bar) return `${name} (${formatNumber(mmToInches(Number(bar[1])), 3)} × ${formatNumber(mmToInches(Number(bar[2])), 3)} in)`;
+  const section = /(\d+(?:\.\d+)?) mm²/.exec(name);
+  if (section) return `${name} (${formatNumber(mm2ToKcmil(Number(section[1])), 3)} kcmil)`;
+  return name;
+}

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatQuantity, quantitiesInWords } from '@/lib/units';
+import { formatQuantity, nameInSystem, quantitiesInWords } from '@/lib/units';
 import { displayText } from '@/lib/sheet/formUnits';
 
 describe('imperial finished (issue 22)', () => {
@@ -23,5 +23,11 @@ describe('imperial finished (issue 22)', () => {
     // Units inside other units and standard numbers stay as they are.
     expect(quantitiesInWords('1000 W/m²: full sun (IEC 60287-2-1)', 'imperial')).toBe('1000 W/m²: full sun (IEC 60287-2-1)');
     expect(quantitiesInWords('0.7 m', 'si')).toBe('0.7 m');
+  });
+
+  it('catalogue names stay as written, with the size in US customary units after them (1 in = 25.4 mm)', () => {
+    expect(nameInSystem('1 × 60 × 10 mm Copper bar', 'imperial')).toBe('1 × 60 × 10 mm Copper bar (2.36 × 0.394 in)');
+    expect(nameInSystem('95 mm² copper XLPE/PVC single-core', 'imperial')).toBe('95 mm² copper XLPE/PVC single-core (187 kcmil)');
+    expect(nameInSystem('95 mm² copper XLPE/PVC single-core', 'si')).toBe('95 mm² copper XLPE/PVC single-core');
   });
 });
