@@ -2,7 +2,7 @@
 import type { UseFormReturnType } from '@mantine/form';
 import type { ReactNode } from 'react';
 import { DEFAULT_SOURCES, type SheetInputs } from '@/lib/sheet/schema';
-import { displayText, type SheetNumericField } from '@/lib/sheet/formUnits';
+import { displayText, messageInDisplayUnit, type SheetNumericField } from '@/lib/sheet/formUnits';
 import { quantitiesInWords, type UnitSystem } from '@/lib/units';
 import { NumberField } from './NumberField';
 import { inputWarnings } from '@/lib/sheet/inputWarnings';
@@ -50,7 +50,7 @@ export function InputsForm({
       units={units}
       value={getIn(values, field) as number | null}
       onChange={(v) => form.setFieldValue(field, v as never)}
-      error={(form.errors[field] as string | undefined) ?? externalErrors[field]}
+      error={messageInDisplayUnit(field, (form.errors[field] as string | undefined) ?? externalErrors[field])}
       disabled={disabled}
       warning={warnings.get(field)}
       {...extra}

@@ -44,6 +44,7 @@ import { ReEvaluationNotice } from './ReEvaluationNotice';
 import { arrangementRefusalOf, plainMessage, refusalSentence, refusalSubject } from '@/lib/sheet/arrangementCheck';
 import { reEvaluationOf } from '@/lib/sheet/reEvaluation';
 import { inputWarnings } from '@/lib/sheet/inputWarnings';
+import { messageInDisplayUnit, type SheetNumericField } from '@/lib/sheet/formUnits';
 import { UnreadFieldsContext, useUnreadFieldsState } from './unreadFields';
 
 // The plots and the grid are the slow part of a render (Plotly, AG Grid): they take the new result
@@ -113,7 +114,8 @@ export function SheetWorkspace({ initialSheet, initialHistory, user }: { initial
   // result on the strip is then not the result of what is on the screen.
   const unreadFields = useUnreadFieldsState();
   const unreadMessages = Object.values(unreadFields.problems);
-  const firstFormError = Object.values(form.errors).find((e) => typeof e === 'string' && e !== '') as string | undefined;
+  const firstFormErrorEntry = Object.entries(form.errors).find(([, e]) => typeof e === 'string' && e !== '');
+  const firstFormError = firstFormErrorEntry ? (messageInDisplayUnit(firstFormErrorEntry[0] as SheetNumericField, String(firstFormErrorEntry[1])) ?? undefined) : undefined;
   const snapshot = sheet.result;
   const liveEvaluations = live.computation?.ok ? live.computation.comparison.evaluations : null;
   // A frozen or submitted sheet shows the server's stored result; a sheet being edited shows the live one.

@@ -183,3 +183,13 @@ export function temperatureIn(system: UnitSystem, temperatureC: number): number 
 export function temperatureFrom(system: UnitSystem, shown: number): number {
   return system === 'si' ? shown : fahrenheitToCelsius(shown);
 }
+
+/**
+ * A message of the stored quantity (the bounds speak the stored unit: "at most 500000 A") in the
+ * unit the field shows, for the field whose display unit differs by a scale alone (the fault
+ * current, stored in A and shown in kA): "at most 500 kA".
+ */
+export function messageInDisplayUnit(field: SheetNumericField, message: string | undefined): string | undefined {
+  if (message === undefined || field !== 'fault.currentA') return message;
+  return message.replace(/(\d+(?:\.\d+)?) A\b/g, (_all, value: string) => `${formatNumber(Number(value) / 1000, 6)} kA`);
+}

@@ -31,3 +31,13 @@ describe('imperial finished (issue 22)', () => {
     expect(nameInSystem('95 mm² copper XLPE/PVC single-core', 'si')).toBe('95 mm² copper XLPE/PVC single-core');
   });
 });
+
+describe('the fault current in kA (issue 22)', () => {
+  it('the stored bound in A reads in the field’s kA: 500 000 A is 500 kA', async () => {
+    const { messageInDisplayUnit, displayText, fromDisplay } = await import('@/lib/sheet/formUnits');
+    expect(messageInDisplayUnit('fault.currentA', 'Fault current must be at most 500000 A')).toBe('Fault current must be at most 500 kA');
+    expect(messageInDisplayUnit('circuit.designCurrentA', 'Design current must be at most 100000 A')).toBe('Design current must be at most 100000 A');
+    expect(displayText('fault.currentA', 25_000, 'si')).toBe('25');
+    expect(fromDisplay('fault.currentA', 25, 'si')).toBe(25_000);
+  });
+});
