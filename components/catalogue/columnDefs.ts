@@ -33,11 +33,11 @@ export function displayNumber(value: unknown, column: ColumnSpec, units: UnitSys
 export function formatDecimalCell(value: unknown, column: ColumnSpec, units: UnitSystem, separator: DecimalSeparator = '.'): string {
   if (value === null || value === undefined || value === '') return '';
   if (!column.quantity || units === 'si') {
-    // As stored (keeps the figures the source gives); long runs of zeros written out in full
-    // (the number parser takes no exponent forms, and an edit starts from this text).
+    // As stored (keeps the figures the source gives), except long runs of zeros, shown with an
+    // exponent (the grid's editor takes exponents: a resistivity of 1.72e-8 Ω·m is meant so).
     const text = String(value);
     const decimal = new Decimal(text);
-    return writeNumber(decimal.toFixed(), separator);
+    return writeNumber(!decimal.isZero() && decimal.abs().lt('0.0001') ? decimal.toString() : text, separator);
   }
   const shown = displayNumber(value, column, units);
   return shown === null ? '' : writeNumber(formatNumber(shown, 4), separator);
@@ -53,10 +53,10 @@ export function toStoredValue(typed: unknown, column: ColumnSpec, units: UnitSys
   if (typed === null || typed === undefined || (typeof typed === 'string' && typed.trim() === '')) return { value: null };
   // The one parser (lib/units/parse): the user's separator, nothing ambiguous, no hex or exponents.
   const text = String(typed).trim().replace(/\u2212/g, '-');
-  const parsed = parseNumber(text, { decimalSeparator: separator, field: column.label });
+  const parsed = parseNumber(text, { decimalSeparator: separator, field: column.label, exponent: true });
   if (!parsed.ok) return { refusal: parsed.message };
   // SI input keeps its typed digits (exact decimal), only the separator becomes a point.
-  if (!column.quantity || units === 'si') return { value: new Decimal(separator === ',' ? text.replace(',', '.') : text).toFixed() };
+  if (!column.quantity || units === 'si') return { value: separator === ',' ? text.replace(',', '.') : text };
   return { value: new Decimal(convertToSi(parsed.value, column.quantity, units)).toSignificantDigits(6).toFixed() };
 }
 

@@ -31,6 +31,11 @@ export interface ParseNumberOptions {
   decimalSeparator: DecimalSeparator;
   /** The field's name as the person reads it ("Design current"): every message starts with it. */
   field: string;
+  /**
+   * Accept "1.72e-8": only where a person means it — catalogue properties that are tiny by nature
+   * (a resistivity in Ω·m). Never on the sheet, where "1e3" is a slip.
+   */
+  exponent?: boolean;
 }
 
 const OTHER: Record<DecimalSeparator, DecimalSeparator> = { '.': ',', ',': '.' };
@@ -41,7 +46,7 @@ function refuse(field: string, message: string, empty = false): ParsedNumber {
 }
 
 /** Parses `text` as a number written with the user's decimal separator; see the rule above. */
-export function parseNumber(text: string, { decimalSeparator, field }: ParseNumberOptions): ParsedNumber {
+export function parseNumber(text: string, { decimalSeparator, field, exponent = false }: ParseNumberOptions): ParsedNumber {
   const trimmed = text.trim().replace(/\u2212/g, '-');
   if (trimmed === '') return refuse(field, 'enter a number', true);
   const shown = text.trim();
@@ -51,9 +56,14 @@ export function parseNumber(text: string, { decimalSeparator, field }: ParseNumb
 
   if (/^0x/i.test(body) || /^0[bo]/i.test(body)) return refuse(field, `${shown} is not a decimal number — write it in decimal digits`);
   if (/^(infinity|inf|nan)$/i.test(body)) return refuse(field, `${shown} is not a number`);
-  if (/^(\d+[.,]?\d*|[.,]\d+)e[-+]?\d+$/i.test(body)) {
-    return refuse(field, `${shown}: write the number in full, without an exponent`);
+  const exponentForm = /^(\d+[.,]?\d*|[.,]\d+)e[-+]?\d+$/i.exec(body);
+  if (exponentForm && exponent) {
+    const mantissa = parseNumber(sign + body.slice(0, body.search(/e/i)), { decimalSeparator, field });
+    if (!mantissa.ok) return mantissa;
+    const value = Number(`${mantissa.value}e${body.slice(body.search(/e/i) + 1)}`);
+    return Number.isFinite(value) ? { ok: true, value } : refuse(field, `${shown} is too large`);
   }
+  if (exponentForm) return refuse(field, `${shown}: write the number in full, without an exponent`);
   // Digits with spaces, apostrophes or underscores between them: a thousands grouping (anything else is just not a number).
   if (/[\s'\u00a0\u202f_]/.test(body)) {
     return /^\d[\d.,\s'\u00a0\u202f_]*$/.test(body) ? refuse(field, `${shown}: write the number without spaces or thousands groupings`) : refuse(field, `${shown} is not a number`);

@@ -103,3 +103,12 @@ describe('decimalSeparatorOfLocale', () => {
     expect(decimalSeparatorOfLocale('fr-FR')).toBe(',');
   });
 });
+
+describe('parseNumber with exponents allowed (catalogue properties only)', () => {
+  it('reads "1.72e-8" and "1,72e-8" under its separator, and still refuses hex and ambiguity', () => {
+    expect(parseNumber('1.72e-8', { decimalSeparator: '.', field: 'ρ20', exponent: true })).toEqual({ ok: true, value: 1.72e-8 });
+    expect(parseNumber('1,72e-8', { decimalSeparator: ',', field: 'ρ20', exponent: true })).toEqual({ ok: true, value: 1.72e-8 });
+    expect(parseNumber('0x4E2', { decimalSeparator: '.', field: 'ρ20', exponent: true }).ok).toBe(false);
+    expect(parseNumber('1,250e-3', { decimalSeparator: '.', field: 'ρ20', exponent: true }).ok).toBe(false);
+  });
+});
