@@ -2,7 +2,8 @@ import type { ReactNode } from 'react';
 import { WorkspaceNav } from '@/components/shell/WorkspaceNav';
 import { QueryProvider } from '@/components/providers/QueryProvider';
 import { UserMenu } from '@/components/auth/UserMenu';
-import { setUnitSystemAction } from '@/server/auth/preferenceActions';
+import { NumberFormatProvider } from '@/components/providers/NumberFormatProvider';
+import { setDecimalSeparatorAction, setUnitSystemAction } from '@/server/auth/preferenceActions';
 import { requirePageUser } from '@/server/auth/session';
 import { can } from '@/lib/auth/permissions';
 import { NotificationBell } from '@/components/shell/NotificationBell';
@@ -27,12 +28,18 @@ export default async function WorkspaceLayout({ children }: { children: ReactNod
             onUnitSystemChange={setUnitSystemAction}
             canManageMembers={can(user.role, 'members:manage')}
             canManageTokens={can(user.role, 'apitoken:manage')}
+            decimalSeparator={user.decimalSeparator}
+            onDecimalSeparatorChange={setDecimalSeparatorAction}
             />
           </>
         }
       />
       <main className="mx-auto max-w-sheet px-4 py-6">
-        <QueryProvider>{children}</QueryProvider>
+        <QueryProvider>
+          <NumberFormatProvider chosen={user.decimalSeparator} currency={user.teamCurrency}>
+            {children}
+          </NumberFormatProvider>
+        </QueryProvider>
       </main>
     </div>
   );

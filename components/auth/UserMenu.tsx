@@ -5,6 +5,13 @@ import { useState, useTransition } from 'react';
 import { SignOutButton } from './SignOutButton';
 
 type UnitSystemChoice = 'si' | 'imperial';
+type SeparatorChoice = '.' | ',' | 'browser';
+
+const SEPARATOR_CHOICES: ReadonlyArray<{ value: SeparatorChoice; label: string; title: string }> = [
+  { value: 'browser', label: 'Browser', title: "Your browser's language decides" },
+  { value: '.', label: '1.5', title: 'A point: 1.5' },
+  { value: ',', label: '1,5', title: 'A comma: 1,5' },
+];
 
 /**
  * Who is signed in, in which team and role; the units switch; sign out. The switch stores the
@@ -21,6 +28,8 @@ export function UserMenu({
   onUnitSystemChange,
   canManageMembers = false,
   canManageTokens = false,
+  decimalSeparator,
+  onDecimalSeparatorChange,
 }: {
   name: string;
   teamName: string;
@@ -29,8 +38,12 @@ export function UserMenu({
   onUnitSystemChange: (unitSystem: UnitSystemChoice) => Promise<unknown>;
   canManageMembers?: boolean;
   canManageTokens?: boolean;
+  /** The stored choice; null when the browser's locale decides. */
+  decimalSeparator: '.' | ',' | null;
+  onDecimalSeparatorChange: (choice: SeparatorChoice) => Promise<unknown>;
 }) {
   const [units, setUnits] = useState(unitSystem);
+  const [separator, setSeparator] = useState<SeparatorChoice>(decimalSeparator ?? 'browser');
   const [pending, startTransition] = useTransition();
   const [open, setOpen] = useState(false);
 
@@ -69,6 +82,35 @@ export function UserMenu({
                     }}
                   />
                   {choice === 'si' ? 'SI' : 'Imperial'}
+                </label>
+              ))}
+            </div>
+          </fieldset>
+          <fieldset className="mt-3">
+            <legend className="field-label">Decimal separator</legend>
+            <div className="mt-1 flex gap-1" role="radiogroup">
+              {SEPARATOR_CHOICES.map((choice) => (
+                <label key={choice.value} title={choice.title} className={`flex-1 cursor-pointer rounded-md border px-2 py-1 text-center ${separator === choice.value ? 'border-copper-500 bg-copper-300/20 font-medium' : 'border-ink-200'}`}>
+                  <input
+                    type="radio"
+                    name="decimal-separator"
+                    value={choice.value}
+                    aria-label={choice.title}
+                    checked={separator === choice.value}
+                    disabled={pending}
+                    className="sr-only"
+                    onChange={() => {
+                      setSeparator(choice.value);
+                      startTransition(async () => {
+                        try {
+                          await onDecimalSeparatorChange(choice.value);
+                        } catch {
+                          setSeparator(decimalSeparator ?? 'browser');
+                        }
+                      });
+                    }}
+                  />
+                  {choice.label}
                 </label>
               ))}
             </div>

@@ -21,6 +21,7 @@ export function countLabel(shown: number, total: number): string {
   const noun = (n: number) => (n === 1 ? 'item' : 'items');
   return shown === total ? `${total} ${noun(total)}` : `${shown} of ${total} ${noun(total)}`;
 }
+import { useNumberFormat } from '@/components/providers/NumberFormatProvider';
 
 type Notice = { tone: 'saved' | 'refused'; text: string } | null;
 
@@ -34,6 +35,7 @@ export function CatalogueTable({ kind, units, canEdit, search }: { kind: Catalog
   const [shown, setShown] = useState<number | null>(null);
   const [pending, setPending] = useState<PendingEdit | null>(null);
   const [historyOf, setHistoryOf] = useState<{ id: string; key: string } | null>(null);
+  const { decimalSeparator: separator, currency } = useNumberFormat();
   const columnDefs = useMemo((): ColDef<GridRow>[] => {
     const history: ColDef<GridRow> = {
       colId: 'history',
@@ -58,8 +60,8 @@ export function CatalogueTable({ kind, units, canEdit, search }: { kind: Catalog
           </button>
         ) : null,
     };
-    return [...columnDefsFor(kind, units, canEdit, referenceOptions), history];
-  }, [kind, units, canEdit, referenceOptions]);
+    return [...columnDefsFor(kind, units, canEdit, referenceOptions, separator, currency), history];
+  }, [kind, units, canEdit, referenceOptions, separator, currency]);
   const onModelUpdated = useCallback((event: ModelUpdatedEvent<GridRow>) => setShown(event.api.getDisplayedRowCount()), []);
 
   const save = useMutation({
@@ -83,7 +85,12 @@ export function CatalogueTable({ kind, units, canEdit, search }: { kind: Catalog
     const field = event.colDef.colId ?? event.colDef.field;
     const column = field ? columnByField(kind, field) : undefined;
     if (!column || !event.data) return;
-    const value = toStoredValue(event.newValue, column, units);
+    const typed = toStoredValue(event.newValue, column, units, separator);
+    if ('refusal' in typed) {
+      setNotice({ tone: 'refused', text: `Not saved (${String(event.data.key)} · ${headerOf(column, units, currency)}): ${typed.refusal}` });
+      return;
+    }
+    const value = typed.value;
     const current = event.data[column.field];
     if ((current ?? '') === (value ?? '')) return;
     // The same schema the server applies: refuse at once with the field and the reason.
@@ -157,7 +164,7 @@ export function CatalogueTable({ kind, units, canEdit, search }: { kind: Catalog
             {CATALOGUE_COLUMNS[kind].map((column) => (
               <label key={column.field} className="flex items-center gap-2 py-0.5 text-body text-ink-800">
                 <input type="checkbox" checked={!hidden.has(column.field)} onChange={(e) => toggleColumn(column.field, e.target.checked)} />
-                {headerOf(column, units)}
+                {headerOf(column, units, currency)}
               </label>
             ))}
           </fieldset>

@@ -138,7 +138,7 @@ export function ImportPanel({ kind, onClose }: { kind: CatalogueKind; onClose: (
               </p>
               <table className="w-full max-w-4xl text-left text-body">
                 <caption className="sr-only">Problems in the file</caption>
-                <thead className="text-caption uppercase text-ink-500">
+                <thead className="text-caption text-ink-500">
                   <tr>
                     <th scope="col" className="py-1 pr-3">Row</th>
                     <th scope="col" className="py-1 pr-3">Column</th>
@@ -161,7 +161,7 @@ export function ImportPanel({ kind, onClose }: { kind: CatalogueKind; onClose: (
             <>
               <table className="w-full text-left text-body">
                 <caption className="text-left text-caption text-ink-600">First rows as they will be stored</caption>
-                <thead className="text-caption uppercase text-ink-500">
+                <thead className="text-caption text-ink-500">
                   <tr>
                     <th scope="col" className="py-1 pr-3">Row</th>
                     {sampleColumns.map((c) => (

@@ -34,7 +34,7 @@ export function RecentImports() {
       <summary className="cursor-pointer text-ink-700">Recent files ({imports.data.length})</summary>
       <table className="mt-2 w-full max-w-4xl text-left">
         <caption className="sr-only">Recent catalogue files</caption>
-        <thead className="text-caption uppercase text-ink-500">
+        <thead className="text-caption text-ink-500">
           <tr>
             <th scope="col" className="py-1 pr-3">File</th>
             <th scope="col" className="py-1 pr-3">Part</th>

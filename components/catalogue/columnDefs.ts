@@ -9,11 +9,14 @@ import type { ColDef, ValueFormatterParams, ValueGetterParams } from 'ag-grid-co
 import { CATALOGUE_COLUMNS, type ColumnSpec } from '@/lib/catalogue/columns';
 import type { CatalogueKind } from '@/lib/catalogue/schemas';
 import { convertFromSi, convertToSi, formatNumber, unitLabel, type UnitSystem } from '@/lib/units';
+import { parseNumber, writeNumber, type DecimalSeparator } from '@/lib/units/parse';
 
 export type GridRow = Record<string, unknown> & { id: string };
 
-export function headerOf(column: ColumnSpec, units: UnitSystem): string {
-  const unit = column.quantity ? unitLabel(column.quantity, units) : column.fixedUnit;
+/** The header with its unit; a price names the team's currency ("Metal price (EUR/kg)"). */
+export function headerOf(column: ColumnSpec, units: UnitSystem, currency = ''): string {
+  const plain = column.quantity ? unitLabel(column.quantity, units) : column.fixedUnit;
+  const unit = column.quantity === 'pricePerKg' && currency ? `${currency}${plain}` : plain;
   return unit ? `${column.label} (${unit})` : column.label;
 }
 
@@ -28,16 +31,17 @@ export function displayNumber(value: unknown, column: ColumnSpec, units: UnitSys
 }
 
 /** Text of a decimal cell: the stored decimal exactly in SI; four significant figures when converted. */
-export function formatDecimalCell(value: unknown, column: ColumnSpec, units: UnitSystem): string {
+export function formatDecimalCell(value: unknown, column: ColumnSpec, units: UnitSystem, separator: DecimalSeparator = '.'): string {
   if (value === null || value === undefined || value === '') return '';
   if (!column.quantity || units === 'si') {
-    // As stored (keeps the figures the source gives), except long runs of zeros, shown with an exponent.
+    // As stored (keeps the figures the source gives), except long runs of zeros, shown with an
+    // exponent (the grid's editor takes exponents: a resistivity of 1.72e-8 Ω·m is meant so).
     const text = String(value);
     const decimal = new Decimal(text);
-    return !decimal.isZero() && decimal.abs().lt('0.0001') ? decimal.toString() : text;
+    return writeNumber(!decimal.isZero() && decimal.abs().lt('0.0001') ? decimal.toString() : text, separator);
   }
   const shown = displayNumber(value, column, units);
-  return shown === null ? '' : formatNumber(shown, 4);
+  return shown === null ? '' : writeNumber(formatNumber(shown, 4), separator);
 }
 
 /**
@@ -45,13 +49,16 @@ export function formatDecimalCell(value: unknown, column: ColumnSpec, units: Uni
  * passes through as typed (exact); converted input is rounded to 6 significant figures, more than
  * any catalogue value carries, so that 0.3048-type factors do not leave 1e-17 tails.
  */
-export function toStoredValue(typed: unknown, column: ColumnSpec, units: UnitSystem): unknown {
-  if (column.type !== 'decimal') return typeof typed === 'string' ? typed : typed ?? '';
-  if (typed === null || typed === undefined || typed === '') return null;
-  if (!column.quantity || units === 'si') return String(typed);
-  const n = Number(typed);
-  if (!Number.isFinite(n)) return String(typed);
-  return new Decimal(convertToSi(n, column.quantity, units)).toSignificantDigits(6).toFixed();
+export function toStoredValue(typed: unknown, column: ColumnSpec, units: UnitSystem, separator: DecimalSeparator = '.'): { value: unknown } | { refusal: string } {
+  if (column.type !== 'decimal') return { value: typeof typed === 'string' ? typed : typed ?? '' };
+  if (typed === null || typed === undefined || (typeof typed === 'string' && typed.trim() === '')) return { value: null };
+  // The one parser (lib/units/parse): the user's separator, nothing ambiguous, no hex or exponents.
+  const text = String(typed).trim().replace(/\u2212/g, '-');
+  const parsed = parseNumber(text, { decimalSeparator: separator, field: column.label, exponent: true });
+  if (!parsed.ok) return { refusal: parsed.message };
+  // SI input keeps its typed digits (exact decimal), only the separator becomes a point.
+  if (!column.quantity || units === 'si') return { value: separator === ',' ? text.replace(',', '.') : text };
+  return { value: new Decimal(convertToSi(parsed.value, column.quantity, units)).toSignificantDigits(6).toFixed() };
 }
 
 export function columnDefsFor(
@@ -59,11 +66,13 @@ export function columnDefsFor(
   units: UnitSystem,
   editable: boolean,
   referenceOptions: Partial<Record<CatalogueKind, string[]>>,
+  separator: DecimalSeparator = '.',
+  currency = '',
 ): ColDef<GridRow>[] {
   return CATALOGUE_COLUMNS[kind].map((column): ColDef<GridRow> => {
     const base: ColDef<GridRow> = {
       colId: column.field,
-      headerName: headerOf(column, units),
+      headerName: headerOf(column, units, currency),
       headerTooltip: column.hint,
       hide: column.hiddenByDefault ?? false,
       editable: editable,
@@ -78,7 +87,7 @@ export function columnDefsFor(
         width: 140,
         filter: 'agNumberColumnFilter',
         valueGetter: (p: ValueGetterParams<GridRow>) => displayNumber(p.data?.[column.field], column, units),
-        valueFormatter: (p: ValueFormatterParams<GridRow>) => formatDecimalCell(p.data?.[column.field], column, units),
+        valueFormatter: (p: ValueFormatterParams<GridRow>) => formatDecimalCell(p.data?.[column.field], column, units, separator),
         cellEditor: 'agTextCellEditor',
         // The editor starts from what the cell shows, so that SI decimals stay exact.
         valueParser: (p) => p.newValue,

@@ -33,6 +33,8 @@ export interface SharedSheet {
   acknowledgements: { flagCode: string; comment: string; reviewerName: string | null }[];
   /** The optional checks switched on, for the chosen candidate, in words (lib/sheet/optionalChecksReport.ts). */
   optionalChecks: OptionalCheckReport[];
+  /** ISO 4217 code of the team's money, named with every amount. */
+  teamCurrency: string;
 }
 
 function OptionalChecks({ reports }: { reports: OptionalCheckReport[] }) {
@@ -80,7 +82,7 @@ export function SharedSheetView({ sheet }: { sheet: SharedSheet }) {
   const arrangement = arrangementSentences(sheet.inputs);
   const limits = Object.fromEntries((evaluations ?? []).filter((e): e is CandidateEvaluationOk => e.ok).map((e) => [e.id, e.limit.temperatureC]));
   const flags = isChosen ? (snapshot?.chosenFlags ?? []) : (focusedOk?.flags ?? []);
-  const inputs = inputRows(sheet.inputs);
+  const inputs = inputRows(sheet.inputs, sheet.teamCurrency);
 
   return (
     <div className="grid gap-4 lg:grid-cols-[300px_minmax(0,1fr)]">
@@ -161,7 +163,7 @@ export function SharedSheetView({ sheet }: { sheet: SharedSheet }) {
           <h2 id="compare-heading" className="mb-2 text-body font-semibold">
             Candidates compared <span className="font-normal text-ink-500">— click a row to see it above</span>
           </h2>
-          {rows.length === 0 ? <p className="text-caption text-ink-500">No candidates on this sheet.</p> : <CandidateGrid rows={rows} units="si" focusedId={focusedId} onFocus={setFocusedId} onChoose={noop} onRemove={noop} editable={false} />}
+          {rows.length === 0 ? <p className="text-caption text-ink-500">No candidates on this sheet.</p> :  <CandidateGrid rows={rows} units="si" currency={sheet.teamCurrency} focusedId={focusedId} onFocus={setFocusedId} onChoose={noop} onRemove={noop} editable={false} />}
         </section>
       </div>
     </div>

@@ -9,7 +9,7 @@
 import type { UseFormReturnType } from '@mantine/form';
 import { DEFAULT_SOURCES, ductMaterials, newOtherCircuit, type SheetInputs } from '@/lib/sheet/schema';
 import type { SheetNumericField } from '@/lib/sheet/formUnits';
-import type { UnitSystem } from '@/lib/units';
+import { quantitiesInWords, type UnitSystem } from '@/lib/units';
 import { NumberField } from './NumberField';
 
 type Form = UseFormReturnType<SheetInputs>;
@@ -228,7 +228,7 @@ export function ArrangementInputs({
                   {num('installation.duct.innerDiameterM', 'installation.duct.innerDiameterM', 'Inner diameter', i.duct.innerDiameterM)}
                   {num('installation.duct.outerDiameterM', 'installation.duct.outerDiameterM', 'Outer diameter', i.duct.outerDiameterM)}
                 </div>
-                <p className={help}>{DEFAULT_SOURCES.duct}</p>
+                <p className={help}>{quantitiesInWords(DEFAULT_SOURCES.duct, units)}</p>
               </>
             ) : null}
           </fieldset>
@@ -254,7 +254,7 @@ export function ArrangementInputs({
                   {num('installation.backfill.resistivityKmPerW', 'installation.backfill.resistivityKmPerW', 'Thermal resistivity', i.backfill.resistivityKmPerW)}
                 </div>
                 <p className="field-error">{externalErrors['installation.backfill'] ?? ''}</p>
-                <p className={help}>{DEFAULT_SOURCES.backfill}</p>
+                <p className={help}>{quantitiesInWords(DEFAULT_SOURCES.backfill, units)}</p>
               </>
             ) : null}
           </fieldset>

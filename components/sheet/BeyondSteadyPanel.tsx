@@ -8,6 +8,7 @@
 import { useState } from 'react';
 import type { UseFormReturnType } from '@mantine/form';
 import { Plot, PLOT_CONFIG, PLOT_LAYOUT_BASE } from '@/components/plots/Plot';
+import { useDecimalSeparator } from '@/components/providers/NumberFormatProvider';
 import { computeBeyondSteady, readDailyProfileText, type BeyondSteadyResults } from '@/lib/sheet/beyondSteady';
 import type { SheetInputs } from '@/lib/sheet/schema';
 import { convertFromSi, formatNumber, unitLabel, type UnitSystem } from '@/lib/units';
@@ -18,6 +19,7 @@ const LIMIT_COLOUR = '#a8402b';
 
 export function BeyondSteadyPanel({ form, editable, candidateId, units }: { form: UseFormReturnType<SheetInputs>; editable: boolean; candidateId: string | null; units: UnitSystem }) {
   const values = form.values;
+  const separator = useDecimalSeparator();
   const [results, setResults] = useState<BeyondSteadyResults | null>(null);
   const [running, setRunning] = useState(false);
   const [profileError, setProfileError] = useState<string | null>(null);
@@ -45,7 +47,7 @@ export function BeyondSteadyPanel({ form, editable, candidateId, units }: { form
   };
 
   const readProfile = (text: string) => {
-    const read = readDailyProfileText(text);
+    const read = readDailyProfileText(text, separator);
     if ('error' in read) {
       setProfileError(read.error);
       return;
@@ -151,16 +153,17 @@ export function BeyondSteadyPanel({ form, editable, candidateId, units }: { form
                 {a.joints.map((j, i) => (
                   <div key={i} className="mt-1 grid grid-cols-[1fr_1fr_auto] items-end gap-2">
                     <NumberField field="alongRun.jointPositionM" label={`Joint ${i + 1} at`} units={units} testId={`joint-${i}-position`} value={j.positionM} disabled={!editable} onChange={(v) => form.setFieldValue(`alongRun.joints.${i}.positionM`, v as number)} />
-                    <label className="block">
-                      <span className="field-label">Resistance (µΩ)</span>
-                      <input
-                        type="number"
-                        className="field-input num"
-                        value={j.resistanceMicroOhm ?? ''}
-                        disabled={!editable}
-                        onChange={(e) => form.setFieldValue(`alongRun.joints.${i}.resistanceMicroOhm`, e.target.value === '' ? null : Number(e.target.value))}
-                      />
-                    </label>
+                    <NumberField
+                      field="alongRun.jointResistanceMicroOhm"
+                      label="Resistance"
+                      units={units}
+                      nullable
+                      placeholder="10 assumed"
+                      testId={`joint-${i}-resistance`}
+                      value={j.resistanceMicroOhm}
+                      disabled={!editable}
+                      onChange={(v) => form.setFieldValue(`alongRun.joints.${i}.resistanceMicroOhm`, v)}
+                    />
                     {editable ? (
                       <button type="button" className="btn-quiet" onClick={() => form.removeListItem('alongRun.joints', i)}>
                         Remove

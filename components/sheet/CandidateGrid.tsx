@@ -5,8 +5,10 @@ import { AllCommunityModule, ModuleRegistry, themeQuartz, type ColDef, type ColG
 import type { CandidateEvaluation } from '@/lib/electrical/sizing/types';
 import type { SheetCandidate } from '@/lib/sheet/candidates';
 import { candidateRecords } from '@/lib/sheet/sheetTables';
-import { convertFromSi, formatNumber, unitLabel, type UnitSystem } from '@/lib/units';
+import { convertFromSi, formatNumber, nameInSystem, unitLabel, type UnitSystem } from '@/lib/units';
 import type { CandidateGridColumns } from '@/lib/user/preferences';
+import { formatMoney, withCurrency } from '@/lib/units/money';
+import { useNumberFormat } from '@/components/providers/NumberFormatProvider';
 import { RESULT_STATES } from './resultState';
 
 ModuleRegistry.registerModules([AllCommunityModule]);
@@ -105,7 +107,8 @@ export function candidateRows(
     const counts = r.flagCounts;
     return {
       id: r.id,
-      label: r.label,
+      // Names are the catalogue's, as written; in imperial the size follows in US customary units.
+      label: nameInSystem(r.label, units),
       section: convertFromSi(r.sectionPerPhaseMm2, 'areaMm2', units),
       arrangement: r.arrangement,
       hotSpot: r.hotSpotC === null ? null : convertFromSi(r.hotSpotC, 'temperature', units),
@@ -201,7 +204,10 @@ export function CandidateGrid({
   editable,
   columnChoice = {},
   onColumnChoiceChange,
+  currency: currencyProp,
 }: {
+  /** The team's currency where the page has no workspace around it (the share page); else the workspace's. */
+  currency?: string;
   rows: CandidateGridRow[];
   units: UnitSystem;
   focusedId: string | null;
@@ -221,6 +227,8 @@ export function CandidateGrid({
   const [pickerOpen, setPickerOpen] = useState(false);
   const [choiceProblem, setChoiceProblem] = useState<string | null>(null);
 
+  const workspace = useNumberFormat();
+  const currency = currencyProp ?? workspace.currency;
   const pickable = useMemo<PickableColumn[]>(() => {
     const t = unitLabel('temperature', units);
     const text = (p: { value: unknown }) => (p.value ? String(p.value) : '—');
@@ -281,11 +289,11 @@ export function CandidateGrid({
       { group: 'Electrical', applies: hasDevice, def: { colId: 'smallestDevice', headerName: 'Smallest coordinated (A)', field: 'smallestDeviceA', width: 120, type: 'numericColumn', valueFormatter: num(4) } },
       { group: 'Electrical', applies: hasDevice, def: { colId: 'disconnection', headerName: 'Disconnection (IEC 60364-4-41)', field: 'disconnection', width: 130, valueFormatter: text, cellRenderer: VerdictCell } },
       { group: 'Cost', applies: true, def: { colId: 'mass', headerName: 'Mass (kg)', field: 'massKg', width: 88, type: 'numericColumn', valueFormatter: num(4) } },
-      { group: 'Cost', applies: true, def: { colId: 'cost', headerName: 'Material cost', field: 'cost', width: 96, type: 'numericColumn', valueFormatter: (p) => p.value ?? '—' } },
-      { group: 'Cost', applies: true, def: { colId: 'lifeCycleCost', headerName: 'Life-cycle cost', field: 'lifeCycleCost', width: 104, type: 'numericColumn', valueFormatter: (p) => p.value ?? '—' } },
+      { group: 'Cost', applies: true, def: { colId: 'cost', headerName: withCurrency('Material cost', currency), field: 'cost', width: 120, type: 'numericColumn', valueFormatter: (p) => formatMoney(p.value, currency) } },
+      { group: 'Cost', applies: true, def: { colId: 'lifeCycleCost', headerName: withCurrency('Life-cycle cost', currency), field: 'lifeCycleCost', width: 140, type: 'numericColumn', valueFormatter: (p) => formatMoney(p.value, currency) } },
       { group: 'Review', applies: true, def: { colId: 'flags', headerName: 'Assumption flags', field: 'flags', width: 150, wrapText: true, autoHeight: true, cellRenderer: VerdictCell, headerTooltip: '✖ blocker, ▲ review, i note' } },
     ];
-  }, [units, hasBars, hasDevice, hasGroup]);
+  }, [units, hasBars, hasDevice, hasGroup, currency]);
 
   const shown = useCallback((colId: string) => choice[colId] !== false, [choice]);
 

@@ -10,7 +10,9 @@ import { useQuery } from '@tanstack/react-query';
 import Decimal from 'decimal.js';
 import { barToCandidate, buildLayers, cableBuildToCandidate, type StoredRow } from '@/lib/catalogue';
 import { sheetCandidateSchema, type SheetCandidate } from '@/lib/sheet/candidates';
-import { formatQuantity, type UnitSystem } from '@/lib/units';
+import { convertToSi, formatQuantity, nameInSystem, unitLabel, type UnitSystem } from '@/lib/units';
+import { parseNumber } from '@/lib/units/parse';
+import { useDecimalSeparator } from '@/components/providers/NumberFormatProvider';
 import { INPUT_BOUNDS } from '@/lib/inputBounds';
 
 interface Option {
@@ -102,11 +104,18 @@ export function CandidatePicker({
   const [text, setText] = useState('');
   const [minSection, setMinSection] = useState('');
   const [perPhase, setPerPhase] = useState(1);
-  const [terminalLimit, setTerminalLimit] = useState('105');
+  const separator = useDecimalSeparator();
+  // 105 °C = 221 °F: the default shown in the user's system.
+  const [terminalLimit, setTerminalLimit] = useState(units === 'si' ? '105' : '221');
   const [problem, setProblem] = useState<string | null>(null);
 
   const words = text.trim().toLowerCase().split(/\s+/).filter(Boolean);
-  const min = Number(minSection) || 0;
+  const areaUnit = unitLabel('areaMm2', units);
+  const temperatureUnit = unitLabel('temperature', units);
+  // The one parser (lib/units/parse); the section is typed in the user's unit (mm² or kcmil).
+  const minParsed = parseNumber(minSection, { decimalSeparator: separator, field: 'Section from' });
+  const minProblem = !minParsed.ok && !minParsed.empty ? minParsed.message : null;
+  const min = minParsed.ok ? convertToSi(minParsed.value, 'areaMm2', units) : 0;
   const shown = options.filter(
     (o) =>
       o.kind === kind &&
@@ -142,8 +151,9 @@ export function CandidatePicker({
           <input id="pick-text" data-testid="picker-search" className="field-input py-1" value={text} onChange={(e) => setText(e.target.value)} placeholder="e.g. XLPE 240" />
         </div>
         <div>
-          <label htmlFor="pick-min" className="field-label">Section from (mm²)</label>
-          <input id="pick-min" className="field-input num py-1" inputMode="decimal" value={minSection} onChange={(e) => setMinSection(e.target.value)} />
+          <label htmlFor="pick-min" className="field-label">Section from ({areaUnit})</label>
+          <input id="pick-min" data-testid="picker-min-section" className="field-input num py-1" inputMode="decimal" value={minSection} aria-invalid={minProblem ? true : undefined} aria-describedby="pick-min-error" onChange={(e) => setMinSection(e.target.value)} />
+          <p id="pick-min-error" className="field-error" aria-live="polite">{minProblem ?? ''}</p>
         </div>
         <div>
           <label htmlFor="pick-n" className="field-label">{kind === 'bar' ? 'Bars per phase' : 'Cables per phase'}</label>
@@ -152,9 +162,9 @@ export function CandidatePicker({
       </div>
       {kind === 'bar' ? (
         <div className="mt-2 max-w-md">
-          <label htmlFor="pick-terminal" className="field-label">Joint and terminal limit (°C)</label>
+          <label htmlFor="pick-terminal" className="field-label">Joint and terminal limit ({temperatureUnit})</label>
           <input id="pick-terminal" className="field-input num py-1" inputMode="decimal" value={terminalLimit} onChange={(e) => setTerminalLimit(e.target.value)} />
-          <p className="text-[0.6875rem] leading-4 text-ink-500">The temperature the joints and terminals touching the bar may reach; 105 °C is often used for bare bolted copper joints (common practice). Use the switchgear maker’s value.</p>
+          <p className="text-[0.6875rem] leading-4 text-ink-500">The temperature the joints and terminals touching the bar may reach; {units === 'si' ? '105 °C' : '221 °F (105 °C)'} is often used for bare bolted copper joints (common practice). Use the switchgear maker’s value.</p>
         </div>
       ) : null}
       {problem ? <p role="alert" className="field-error">{problem}</p> : null}
@@ -173,7 +183,7 @@ export function CandidatePicker({
               return (
                 <li key={option.key} className="flex items-center gap-3 px-2 py-1 text-body">
                   <div className="min-w-0 flex-1">
-                    <p className="truncate font-medium">{option.label}</p>
+                    <p className="truncate font-medium">{nameInSystem(option.label, units)}</p>
                     <p className="truncate text-caption text-ink-500">
                       <span className="num">{formatQuantity(option.sectionMm2, 'areaMm2', units)}</span> · {option.material} · {option.detail}
                     </p>
@@ -185,8 +195,9 @@ export function CandidatePicker({
                     aria-label={`Add ${perPhase} × ${option.label}`}
                     onClick={() => {
                       try {
-                        const limit = terminalLimit.trim() === '' ? null : Number(terminalLimit);
-                        if (limit !== null && !Number.isFinite(limit)) throw new Error('The joint and terminal limit must be a number.');
+                        const parsed = parseNumber(terminalLimit, { decimalSeparator: separator, field: 'Joint and terminal limit' });
+                        if (!parsed.ok && !parsed.empty) throw new Error(parsed.message);
+                        const limit = parsed.ok ? convertToSi(parsed.value, 'temperature', units) : null;
                         const candidate = option.make(perPhase, limit);
                         if (existingIds.includes(candidate.id)) throw new Error('That candidate (with this many per phase) is already on the sheet.');
                         setProblem(null);

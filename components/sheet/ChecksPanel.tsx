@@ -32,7 +32,7 @@ export function ChecksPanel({ evaluation, units, lengthM }: { evaluation: Candid
         </Row>
         {sc.checked ? (
           <Row label="Short circuit (IEC 60949 adiabatic)" state={sc.withstands ? 'pass' : 'fail'}>
-            {formatNumber(sc.currentA ?? 0, 4)} A for {formatNumber(sc.durationS ?? 0, 3)} s → {sc.finalC === null || sc.finalC === undefined ? 'beyond the method' : formatQuantity(sc.finalC, 'temperature', units)} of {formatQuantity(sc.limitC ?? 0, 'temperature', units)} · needs ≥ {formatQuantity(sc.minimumSectionMm2 ?? 0, 'areaMm2', units)}
+            {formatNumber((sc.currentA ?? 0) / 1000, 4)} kA for {formatNumber(sc.durationS ?? 0, 3)} s → {sc.finalC === null || sc.finalC === undefined ? 'beyond the method' : formatQuantity(sc.finalC, 'temperature', units)} of {formatQuantity(sc.limitC ?? 0, 'temperature', units)} · needs ≥ {formatQuantity(sc.minimumSectionMm2 ?? 0, 'areaMm2', units)}
           </Row>
         ) : (
           <Row label="Short circuit">not checked{sc.reason ? `: ${sc.reason}` : ''}</Row>

@@ -2,9 +2,10 @@
 import type { UseFormReturnType } from '@mantine/form';
 import type { ReactNode } from 'react';
 import { DEFAULT_SOURCES, type SheetInputs } from '@/lib/sheet/schema';
-import { displayText, type SheetNumericField } from '@/lib/sheet/formUnits';
-import type { UnitSystem } from '@/lib/units';
+import { displayText, messageInDisplayUnit, type SheetNumericField } from '@/lib/sheet/formUnits';
+import { quantitiesInWords, type UnitSystem } from '@/lib/units';
 import { NumberField } from './NumberField';
+import { inputWarnings } from '@/lib/sheet/inputWarnings';
 import { ArrangementInputs } from './ArrangementInputs';
 import { BusbarSystemInputs } from './BusbarSystemInputs';
 import { ProtectionInputs } from './ProtectionInputs';
@@ -40,6 +41,7 @@ export function InputsForm({
   arrangementProblem?: string | null;
 }) {
   const values = form.values;
+  const warnings = new Map(inputWarnings(values, units).map((w) => [w.field, w.message]));
   const num = (field: SheetNumericField, label: string, extra: { help?: string; nullable?: boolean; placeholder?: string; testId?: string } = {}) => (
     <NumberField
       key={field}
@@ -48,8 +50,9 @@ export function InputsForm({
       units={units}
       value={getIn(values, field) as number | null}
       onChange={(v) => form.setFieldValue(field, v as never)}
-      error={(form.errors[field] as string | undefined) ?? externalErrors[field]}
+      error={messageInDisplayUnit(field, (form.errors[field] as string | undefined) ?? externalErrors[field])}
       disabled={disabled}
+      warning={warnings.get(field)}
       {...extra}
     />
   );
@@ -87,16 +90,16 @@ export function InputsForm({
             </div>
           </div>
           <div className="grid grid-cols-2 gap-2">
-            {num('circuit.frequencyHz', 'Frequency')}
-            {num('circuit.powerFactor', 'Power factor')}
+            {num('circuit.frequencyHz', 'Frequency', { testId: 'input-frequency' })}
+            {num('circuit.powerFactor', 'Power factor', { testId: 'input-power-factor' })}
           </div>
           <p className="text-[0.6875rem] leading-4 text-ink-500">{DEFAULT_SOURCES.frequencyHz} {DEFAULT_SOURCES.powerFactor}</p>
-          {num('circuit.lengthM', 'Route length')}
+          {num('circuit.lengthM', 'Route length', { testId: 'input-length' })}
           <div className="grid grid-cols-2 gap-2">
             {num('circuit.maxVoltageDropPercent', 'Allowed drop', { nullable: true, placeholder: 'no limit' })}
             {num('circuit.reactanceOhmPerM', 'Reactance', { nullable: true, placeholder: `${displayText('circuit.reactanceOhmPerM', 0.08e-3, units)} (Annex G)` })}
           </div>
-          <p className="text-[0.6875rem] leading-4 text-ink-500">{DEFAULT_SOURCES.maxVoltageDropPercent} {DEFAULT_SOURCES.reactanceOhmPerM}</p>
+          <p className="text-[0.6875rem] leading-4 text-ink-500">{DEFAULT_SOURCES.maxVoltageDropPercent} {quantitiesInWords(DEFAULT_SOURCES.reactanceOhmPerM, units)}</p>
         </Section>
 
         <Section title="Fault">
@@ -104,7 +107,7 @@ export function InputsForm({
           {values.fault.checked ? (
             <>
               <div className="grid grid-cols-2 gap-2">
-                {num('fault.currentA', 'Fault current')}
+                {num('fault.currentA', 'Fault current', { testId: 'input-fault-current' })}
                 {num('fault.durationS', 'Clearing time')}
               </div>
               <p className="text-[0.6875rem] leading-4 text-ink-500">{DEFAULT_SOURCES.fault}</p>

@@ -14,6 +14,13 @@ import type { SheetNumericField } from '@/lib/sheet/formUnits';
 import { DEVICE_KIND_WORDS, deviceKinds, SYSTEM_HELP, type SheetDeviceKind } from '@/lib/sheet/systemSchema';
 import type { UnitSystem } from '@/lib/units';
 import { NumberField } from './NumberField';
+import { useDecimalSeparator } from '@/components/providers/NumberFormatProvider';
+import { parseNumber, writeNumber, type DecimalSeparator } from '@/lib/units/parse';
+import { useUnreadFields } from './unreadFields';
+
+/** Under a decimal comma the items are separated by ';' or spaces; under a point also by ','. */
+const itemSplitter = (separator: DecimalSeparator) => (separator === ',' ? /[;\s]+/ : /[,;\s]+/);
+const listText = (values: number[], separator: DecimalSeparator) => values.map((v) => writeNumber(String(v), separator)).join(separator === ',' ? '; ' : ', ');
 
 type Form = UseFormReturnType<SheetInputs>;
 
@@ -21,11 +28,17 @@ const help = 'text-[0.6875rem] leading-4 text-ink-500';
 
 /** A list of numbers typed as "1000, 1250, 1600" (the trip unit's settings). */
 function NumberListField({ id, label, values, onChange, disabled, error }: { id: string; label: string; values: number[]; onChange: (v: number[]) => void; disabled: boolean; error?: string }) {
-  const [text, setText] = useState(values.join(', '));
+  const separator = useDecimalSeparator();
+  const { report } = useUnreadFields();
+  const [text, setText] = useState(listText(values, separator));
   const [problem, setProblem] = useState<string | null>(null);
+  useEffect(() => () => report(id, null), [report, id]);
   useEffect(() => {
-    const parsed = text.split(/[,;\s]+/).filter(Boolean).map(Number);
-    if (parsed.join(',') !== values.join(',')) setText(values.join(', '));
+    const parsed = text.split(itemSplitter(separator)).filter(Boolean).map((p) => {
+      const r = parseNumber(p, { decimalSeparator: separator, field: label });
+      return r.ok ? r.value : Number.NaN;
+    });
+    if (parsed.join(',') !== values.join(',')) setText(listText(values, separator));
     // eslint-disable-next-line react-hooks/exhaustive-deps -- only when the stored list changes
   }, [values.join(',')]);
   const shown = problem ?? error;
@@ -40,19 +53,26 @@ function NumberListField({ id, label, values, onChange, disabled, error }: { id:
         className="field-input num py-1"
         inputMode="decimal"
         value={text}
-        placeholder="e.g. 1000, 1250, 1600, 2000"
+        placeholder={separator === ',' ? 'e.g. 1000; 1250; 1600; 2000' : 'e.g. 1000, 1250, 1600, 2000'}
         disabled={disabled}
         aria-invalid={shown ? true : undefined}
         aria-describedby={`${id}-error`}
         onChange={(e) => {
           setText(e.target.value);
-          const parts = e.target.value.split(/[,;\s]+/).filter(Boolean);
-          const numbers = parts.map((p) => Number(p.replace(',', '.')));
-          if (numbers.some((v) => !Number.isFinite(v))) {
-            setProblem(`${label} must be numbers separated by commas`);
-            return;
+          const parts = e.target.value.split(itemSplitter(separator)).filter(Boolean);
+          const numbers: number[] = [];
+          for (const part of parts) {
+            const r = parseNumber(part, { decimalSeparator: separator, field: label });
+            if (!r.ok) {
+              const message = `${r.message} (separate the settings with ${separator === ',' ? '";" or spaces' : 'commas'})`;
+              setProblem(message);
+              report(id, message);
+              return;
+            }
+            numbers.push(r.value);
           }
           setProblem(null);
+          report(id, null);
           onChange(numbers);
         }}
       />

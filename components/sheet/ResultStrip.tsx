@@ -1,6 +1,6 @@
 'use client';
 import type { CandidateEvaluation } from '@/lib/electrical/sizing/types';
-import { formatNumber, formatQuantity, type UnitSystem } from '@/lib/units';
+import { formatNumber, formatQuantity, nameInSystem, type UnitSystem } from '@/lib/units';
 import { failureWords, thermalState } from '@/lib/sheet/candidateRow';
 import { governingCableOf, governingText } from '@/lib/sheet/groupWords';
 import { plainMessage } from '@/lib/sheet/arrangementCheck';
@@ -11,9 +11,23 @@ const LIMIT_SOURCES: Record<string, string> = { insulation: 'insulation', coatin
 function Figure({ label, value, testId }: { label: string; value: string; testId?: string }) {
   return (
     <div className="min-w-0">
-      <p className="text-caption uppercase tracking-wide text-ink-500">{label}</p>
+      <p className="text-caption tracking-wide text-ink-500">{label}</p>
       <p className="num truncate text-lead font-semibold text-ink-900" data-testid={testId}>{value}</p>
     </div>
+  );
+}
+
+function WarningList({ warnings }: { warnings: readonly string[] }) {
+  if (warnings.length === 0) return null;
+  return (
+    <ul className="mt-2 space-y-0.5 border-t border-ink-100 pt-1 text-caption text-tight-dark" data-testid="result-warnings" aria-label="Inputs to check">
+      {warnings.map((w) => (
+        <li key={w}>
+          <span aria-hidden="true">▲ </span>
+          {w}
+        </li>
+      ))}
+    </ul>
   );
 }
 
@@ -24,7 +38,16 @@ export function ResultStrip({
   source,
   chosen,
   otherLabels = [],
+  notCurrent = null,
+  warnings = [],
 }: {
+  /** Accepted inputs that need a word (lib/sheet/inputWarnings): listed with the result they shape. */
+  warnings?: readonly string[];
+  /**
+   * Why the result is not the result of the inputs on the screen (a field it cannot read, inputs
+   * out of range), or null. A result that is not current never shows a passing state.
+   */
+  notCurrent?: string | null;
   evaluation: CandidateEvaluation | null;
   /** Names of the other circuits on the sheet, for the governing cable's words. */
   otherLabels?: readonly string[];
@@ -48,6 +71,23 @@ export function ResultStrip({
       </div>
     );
   }
+  if (notCurrent) {
+    return (
+      <div className="panel border-2 border-dashed border-tight bg-tight-light p-3" data-testid="result-strip" data-state="not-current" role="status" aria-live="polite">
+        <p className="font-semibold text-tight-dark" data-testid="result-state">
+          <span aria-hidden="true">⚠</span> Not current: {notCurrent}
+        </p>
+        <p className="text-caption text-ink-700">
+          The figures below belong to the last inputs that could be read ({evaluation.label} at <span className="num">{formatNumber(evaluation.designCurrentA, 4)} A</span>), not to what is entered now.
+        </p>
+        <div className="mt-2 grid grid-cols-2 gap-3 opacity-60 sm:grid-cols-4">
+          <Figure label="Hot spot (last readable)" value={evaluation.hotSpotC === null ? '—' : formatQuantity(evaluation.hotSpotC, 'temperature', units, { digits: 4 })} />
+          <Figure label="Ampacity (last readable)" value={`${formatNumber(evaluation.ampacityA, 4)} A`} />
+        </div>
+        <WarningList warnings={warnings} />
+      </div>
+    );
+  }
   const thermal = thermalState(evaluation);
   // A candidate that fails any check (short circuit, voltage drop) is shown as failing, whatever its hot spot.
   const state = evaluation.passes ? thermal.state : 'over';
@@ -68,7 +108,7 @@ export function ResultStrip({
         </p>
         <p className="text-caption text-ink-600">
           {chosen ? 'Chosen: ' : 'Viewing: '}
-          <span className="font-medium text-ink-800">{evaluation.label}</span> at <span className="num">{formatNumber(evaluation.designCurrentA, 4)} A</span> · {source}
+          <span className="font-medium text-ink-800">{nameInSystem(evaluation.label, units)}</span> at <span className="num">{formatNumber(evaluation.designCurrentA, 4)} A</span> · {source}
         </p>
       </div>
       <div className="mt-2 grid grid-cols-2 gap-3 sm:grid-cols-4">
@@ -82,6 +122,7 @@ export function ResultStrip({
           {governingText(governing, t)}
         </p>
       ) : null}
+      <WarningList warnings={warnings} />
     </div>
   );
 }

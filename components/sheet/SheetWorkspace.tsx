@@ -45,6 +45,9 @@ import { ReEvaluationNotice } from './ReEvaluationNotice';
 import { arrangementRefusalOf, plainMessage, refusalSentence, refusalSubject } from '@/lib/sheet/arrangementCheck';
 import { reEvaluationOf } from '@/lib/sheet/reEvaluation';
 import type { CandidateGridColumns } from '@/lib/user/preferences';
+import { inputWarnings } from '@/lib/sheet/inputWarnings';
+import { messageInDisplayUnit, type SheetNumericField } from '@/lib/sheet/formUnits';
+import { UnreadFieldsContext, useUnreadFieldsState } from './unreadFields';
 
 // The plots and the grid are the slow part of a render (Plotly, AG Grid): they take the new result
 // in a deferred render, so that the result strip shows a keystroke's result at once.
@@ -126,12 +129,27 @@ export function SheetWorkspace({
 
   const editable = decide('edit', sheet, actor).allowed;
   const live = useLiveComputation(values, { enabled: true, withCurves: true });
+  // Text a field could not read (lib/units/parse) leaves the form at its last readable value: the
+  // result on the strip is then not the result of what is on the screen.
+  const unreadFields = useUnreadFieldsState();
+  const unreadMessages = Object.values(unreadFields.problems);
+  const firstFormErrorEntry = Object.entries(form.errors).find(([, e]) => typeof e === 'string' && e !== '');
+  const firstFormError = firstFormErrorEntry ? (messageInDisplayUnit(firstFormErrorEntry[0] as SheetNumericField, String(firstFormErrorEntry[1])) ?? undefined) : undefined;
   const snapshot = sheet.result;
   const liveEvaluations = live.computation?.ok ? live.computation.comparison.evaluations : null;
   // A frozen or submitted sheet shows the server's stored result; a sheet being edited shows the live one.
   const evaluations: CandidateEvaluation[] | null = editable ? liveEvaluations : (snapshot?.evaluations ?? null);
+  // Why the result shown is not the result of the inputs on the screen (null when it is): the strip
+  // then never shows a passing state (issue 22).
+  const notCurrent = !editable
+    ? null
+    : unreadMessages.length > 0
+      ? unreadMessages[0]
+      : live.invalid
+        ? (firstFormError ?? 'the inputs are incomplete or out of range')
+        : null;
   const sourceWords = editable
-    ? live.invalid
+    ? live.invalid || unreadMessages.length > 0
       ? 'inputs incomplete: showing the last valid result'
       : dirty
         ? 'computed live in your browser, not saved'
@@ -236,13 +254,14 @@ export function SheetWorkspace({
   // Only once the live result is of these very inputs, so that a refusal still being computed is not saved.
   const liveCurrent = live.inputsKey === JSON.stringify(values);
   const retryingFailed = failedInputs !== null && same(values, failedInputs);
-  const autosaveReady = editable && dirty && conflict === null && !save.isPending && !live.invalid && liveCurrent && refusal === null && !retryingFailed;
+  // A field holding text the number rule refused is not saved (the form still holds the last good value).
+  const autosaveReady = editable && dirty && conflict === null && !save.isPending && !live.invalid && unreadMessages.length === 0 && liveCurrent && refusal === null && !retryingFailed;
   useEffect(() => {
     if (!autosaveReady) return;
     const timer = window.setTimeout(() => saveNow(true), AUTOSAVE_MS);
     return () => window.clearTimeout(timer);
   }, [autosaveReady, saveNow]);
-  const mayManualSave = (dirty || reEvaluation !== null) && !save.isPending && !live.invalid && refusal === null;
+  const mayManualSave = (dirty || reEvaluation !== null) && !save.isPending && !live.invalid && unreadMessages.length === 0 && refusal === null;
   useUnsavedGuard({
     dirty: editable && (dirty || save.isPending),
     // Ctrl/Cmd+S on an editable sheet is ours (never the browser's "save page"), even when there is nothing to save.
@@ -252,7 +271,9 @@ export function SheetWorkspace({
     ? { words: 'Saving…', why: '' }
     : conflict
       ? { words: 'Not saved', why: 'someone saved a newer version; see below' }
-      : dirty
+      : editable && unreadMessages.length > 0
+        ? { words: 'Not saved', why: 'complete the inputs marked to save' }
+        : dirty
         ? {
             words: 'Not saved',
             why: refusal
@@ -315,6 +336,7 @@ export function SheetWorkspace({
   const mismatched = values.candidates.filter((c) => !installationSuits(values.installation.kind, c.kind, values.installation.enclosureInside));
 
   return (
+    <UnreadFieldsContext.Provider value={unreadFields}>
     <div className="space-y-3" data-testid="sheet-workspace">
       <header className="flex flex-wrap items-start justify-between gap-3">
         <div className="min-w-0">
@@ -364,7 +386,7 @@ export function SheetWorkspace({
                 data-testid="save-button"
                 // A result saved by an earlier method may be saved again as it stands, to store the current one.
                 disabled={!mayManualSave}
-                title={refusal ? `Not saved while ${refusalSubject(refusal)}: ${refusalSentence(refusal)}` : undefined}
+                title={refusal ? `Not saved while ${refusalSubject(refusal)}: ${refusalSentence(refusal)}` : unreadMessages.length > 0 ? `Not saved while ${unreadMessages[0]}` : undefined}
                 onClick={() => saveNow(false)}
               >
                 Save
@@ -447,7 +469,7 @@ export function SheetWorkspace({
 
         <div className="min-w-0 space-y-3">
           <div className="sticky top-0 z-10 -mx-1 bg-paper px-1 pb-1 pt-0.5">
-            <ResultStrip evaluation={focused ?? null} units={units} source={live.computing && editable ? 'computing…' : sourceWords} chosen={focusedId !== null && focusedId === values.chosenCandidateId} otherLabels={otherLabels} />
+            <ResultStrip evaluation={focused ?? null} notCurrent={notCurrent} warnings={editable ? inputWarnings(values, units).map((w) => w.message) : []} units={units} source={live.computing && editable ? 'computing…' : sourceWords} chosen={focusedId !== null && focusedId === values.chosenCandidateId} otherLabels={otherLabels} />
           </div>
           <FlagsPanel
             flags={chosenFlags}
@@ -592,5 +614,6 @@ export function SheetWorkspace({
         </div>
       </div>
     </div>
+    </UnreadFieldsContext.Provider>
   );
 }

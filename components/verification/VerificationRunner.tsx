@@ -225,7 +225,7 @@ export function VerificationRunner() {
         <table className="w-full min-w-[1100px] text-body" data-testid="verification-table">
           <caption className="sr-only">Verification cases: reference value, Ampwarden&apos;s value, deviation, tolerance and result</caption>
           <thead>
-            <tr className="border-b border-ink-200 text-left text-caption uppercase tracking-wide text-ink-500">
+            <tr className="border-b border-ink-200 text-left text-caption tracking-wide text-ink-500">
               <th scope="col" className="py-2 pr-3 font-medium">Case</th>
               <th scope="col" className="py-2 pr-3 font-medium">Source</th>
               <th scope="col" className="py-2 pr-3 font-medium">Quantity</th>

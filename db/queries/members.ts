@@ -20,6 +20,8 @@ export async function findSessionRow(userId: string, sessionId?: string, tx: Exe
       name: users.name,
       email: users.email,
       unitSystem: users.unitSystem,
+      decimalSeparator: users.decimalSeparator,
+      teamCurrency: teams.currency,
       active: users.active,
       sessionEpoch: users.sessionEpoch,
       revoked,
@@ -155,4 +157,19 @@ export async function newerInvitationExists(teamId: string, email: string, invit
     )
     .limit(1);
   return row !== undefined;
+}
+
+/** The team's currency (ISO 4217), named with every amount. */
+export async function teamCurrencyOf(teamId: string, tx: Executor = getDb()): Promise<string> {
+  const [row] = await tx.select({ currency: teams.currency }).from(teams).where(eq(teams.id, teamId));
+  return row?.currency ?? 'EUR';
+}
+
+/** Sets the team's currency; audited in the same transaction. Relabels the amounts, converts nothing. */
+export async function setTeamCurrency(actor: { teamId: string; id: string }, currency: string) {
+  await getDb().transaction(async (tx) => {
+    const [before] = await tx.select({ currency: teams.currency }).from(teams).where(eq(teams.id, actor.teamId));
+    await tx.update(teams).set({ currency }).where(eq(teams.id, actor.teamId));
+    await recordAudit(tx, { teamId: actor.teamId, actorId: actor.id, action: 'team.currency', entity: 'team', entityId: actor.teamId, detail: { from: before?.currency ?? null, to: currency } });
+  });
 }

@@ -8,7 +8,7 @@
  */
 import { aliasedTable, and, asc, desc, eq, isNull, ne, sql } from 'drizzle-orm';
 import { getDb, type Executor } from '../client';
-import { auditLog, projects, sheetContributions, sheetFlagAcknowledgements, sheets, users } from '../schema';
+import { auditLog, projects, sheetContributions, sheetFlagAcknowledgements, sheets, teams, users } from '../schema';
 import { recordAudit } from './audit';
 import { recordTransitionNotices, type MailNotice } from './notifications';
 import { notificationKindOf } from '../../lib/notifications/kinds';
@@ -71,6 +71,8 @@ const sheetColumns = {
   newerRevisionId: sql<string | null>`(select n.id from ${sheets} n where n.previous_revision_id = "sheets"."id" and n.deleted_at is null limit 1)`,
   editorIds: contributorsOf('edited'),
   submitterIds: contributorsOf('submitted'),
+  // The team's money (teams.currency): every amount the sheet prints, shares or exports names it.
+  teamCurrency: sql<string>`(select t.currency from ${teams} t where t.id = ${sheets.teamId})`,
 };
 
 function contributorsOf(kind: 'edited' | 'submitted') {

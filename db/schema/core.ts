@@ -1,6 +1,7 @@
 import { sql } from 'drizzle-orm';
 import {
   boolean,
+  check,
   index,
   integer,
   jsonb,
@@ -34,8 +35,14 @@ export const teams = pgTable('teams', {
   name: text('name').notNull(),
   /** Schedules: the smallest cable section run in parallel, mm²; null = the library's default (common practice). */
   minParallelSectionMm2: numeric('min_parallel_section_mm2'),
+  /**
+   * ISO 4217 code of the team's money (issue 22): shown beside every amount — the candidate grid,
+   * the PDF, the share page, the exports. Prices in the catalogue and the sheet's economics are in
+   * it; changing it relabels, it does not convert.
+   */
+  currency: text('currency').notNull().default('EUR'),
   createdAt: createdAt(),
-});
+}, (t) => [check('teams_currency_iso', sql`${t.currency} ~ '^[A-Z]{3}$'`)]);
 
 export const users = pgTable(
   'users',
@@ -55,6 +62,11 @@ export const users = pgTable(
      */
     licenceNumber: text('licence_number').notNull().default(''),
     licenceJurisdiction: text('licence_jurisdiction').notNull().default(''),
+    /**
+     * The decimal separator the user types ('.' or ','), lib/units/parse; null until they choose,
+     * and then the browser's locale decides (Intl.NumberFormat).
+     */
+    decimalSeparator: text('decimal_separator', { enum: ['.', ','] }),
     /** Bumped on deactivation or password change so that older sessions stop working. */
     sessionEpoch: integer('session_epoch').notNull().default(0),
     /** The user's own screen settings (lib/user/preferences.ts), e.g. the comparison grid's columns. */
@@ -62,7 +74,11 @@ export const users = pgTable(
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },
-  (t) => [uniqueIndex('users_email_unique').on(sql`lower(${t.email})`), index('users_team_idx').on(t.teamId)],
+  (t) => [
+    uniqueIndex('users_email_unique').on(sql`lower(${t.email})`),
+    index('users_team_idx').on(t.teamId),
+    check('users_decimal_separator', sql`${t.decimalSeparator} is null or ${t.decimalSeparator} in ('.', ',')`),
+  ],
 );
 
 /** A job site or building. */

@@ -19,6 +19,8 @@ const NUMBER_PATTERN = /^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/;
 /** Parses a user-entered number; `null` for an empty cell; a message when it is not a number. */
 export function parseDecimal(raw: unknown): { value: Decimal | null } | { error: string } {
   if (raw === null || raw === undefined) return { value: null };
+  // A cell the file-level reading refused (a decimal-comma file's ambiguous "1.250", lib/catalogue/files).
+  if (typeof raw === 'object' && typeof (raw as { refusedNumber?: unknown }).refusedNumber === 'string') return { error: `must be a number: ${(raw as { refusedNumber: string }).refusedNumber}` };
   if (typeof raw === 'number') {
     if (!Number.isFinite(raw)) return { error: 'must be a finite number' };
     return { value: new Decimal(raw) };

@@ -8,6 +8,7 @@
 import ExcelJS from 'exceljs';
 import { z } from 'zod';
 import { tableCsv } from '../files/csv';
+import { parseNumber, type DecimalSeparator } from '../units/parse';
 import { columnProblems, FileRefusal, keyRowsByHeader, readSpreadsheet, type SpreadsheetFormat, type UploadRules } from '../files/spreadsheet';
 import { CATALOGUE_COLUMNS, KIND_LABELS, columnByField, columnByHeader, type ColumnSpec } from './columns';
 import { ROW_SCHEMAS, type CatalogueKind, type CatalogueRowByKind } from './schemas';
@@ -42,11 +43,30 @@ function toTable(headers: unknown[], body: Array<{ row: number; cells: unknown[]
   return { headers: names, records: keyRowsByHeader(names, body) };
 }
 
+/**
+ * The number cells of a file written with a decimal comma (a semicolon-delimited CSV), read by the
+ * one parser (lib/units/parse) into the point notation the row schema reads, or left as the
+ * refusal in words ("1.250" is ambiguous there) for parseDecimal to report on its column.
+ */
+function withDecimalsRead(kind: CatalogueKind, record: RawRecord, decimalSeparator: DecimalSeparator): RawRecord {
+  const values: Record<string, unknown> = { ...record.values };
+  for (const column of CATALOGUE_COLUMNS[kind]) {
+    if (column.type !== 'decimal' && column.type !== 'integer') continue;
+    const raw = values[column.header];
+    if (typeof raw !== 'string' || raw.trim() === '') continue;
+    const text = raw.trim();
+    const parsed = parseNumber(text, { decimalSeparator, field: column.header, exponent: true });
+    values[column.header] = parsed.ok ? text.replace(',', '.') : { refusedNumber: parsed.message.replace(/^[^:]*: /, '') };
+  }
+  return { ...record, values };
+}
+
 /** Reads a file into header names and raw records, refusing what is not a catalogue sheet of `kind`. */
 export async function readCatalogueFile(kind: CatalogueKind, fileName: string, bytes: Uint8Array): Promise<RawRecord[]> {
-  const { headerCells, body } = await readSpreadsheet(fileName, bytes, CATALOGUE_UPLOAD);
-  const { headers, records } = toTable(headerCells, body);
+  const { headerCells, body, decimalSeparator } = await readSpreadsheet(fileName, bytes, CATALOGUE_UPLOAD);
+  const { headers, records: read } = toTable(headerCells, body);
   checkHeaders(kind, fileName, headers);
+  const records = decimalSeparator === '.' ? read : read.map((r) => withDecimalsRead(kind, r, decimalSeparator));
   if (records.length === 0) throw new FileRefusal(400, 'no_rows', `"${fileName}" has a header but no data rows.`);
   if (records.length > MAX_IMPORT_ROWS) {
     throw new FileRefusal(413, 'too_many_rows', `"${fileName}" has ${records.length} rows; the limit is ${MAX_IMPORT_ROWS}. Split it into smaller files.`);

@@ -17,6 +17,7 @@
  */
 import ExcelJS from 'exceljs';
 import Papa from 'papaparse';
+import { decimalSeparatorOfDelimiter, type DecimalSeparator } from '../units/parse';
 
 export type SpreadsheetFormat = 'csv' | 'xlsx';
 
@@ -101,6 +102,24 @@ export interface SpreadsheetRows {
   headerCells: unknown[];
   /** Rows after the header, numbered as a spreadsheet shows them (the header is row 1). Blank rows are left out. */
   body: Array<{ row: number; cells: unknown[] }>;
+  /**
+   * The decimal mark the file's text cells use (lib/units/parse): ',' for a semicolon-delimited CSV
+   * (the usual export where the comma is the decimal mark, common practice), '.' otherwise. XLSX
+   * numbers are numbers and need none.
+   */
+  decimalSeparator: DecimalSeparator;
+}
+
+/**
+ * The delimiter of a CSV from its header line: ';' when the line holds more semicolons than commas
+ * (outside quotes), else papaparse's own guess. The header decides because its cells are words:
+ * a data row's decimal commas would count as delimiters.
+ */
+function csvDelimiterOf(text: string): ';' | undefined {
+  const firstLine = text.split(/\r?\n/, 1)[0] ?? '';
+  const unquoted = firstLine.replace(/"[^"]*"/g, '');
+  const count = (ch: string) => unquoted.split(ch).length - 1;
+  return count(';') > count(',') ? ';' : undefined;
 }
 
 function tooManyRows(fileName: string, rules: UploadRules): FileRefusal {
@@ -122,12 +141,16 @@ function readCsv(fileName: string, bytes: Uint8Array, rules: UploadRules): Sprea
   const body: SpreadsheetRows['body'] = [];
   let rowNumber = 0;
   let refusal: FileRefusal | null = null;
+  const delimiter = csvDelimiterOf(text);
+  let seenDelimiter: string | undefined = delimiter;
   // Row by row (papaparse's step), so that the row limit stops the reading instead of following it.
   Papa.parse<string[]>(text, {
     header: false,
     skipEmptyLines: false,
+    ...(delimiter ? { delimiter } : {}),
     step: (result, parser) => {
       rowNumber += 1;
+      seenDelimiter ??= result.meta.delimiter;
       const quotes = result.errors.find((e) => e.type === 'Quotes');
       if (quotes) {
         refusal = new FileRefusal(400, 'unreadable', `"${fileName}" could not be read as CSV: ${quotes.message} (row ${rowNumber}).`);
@@ -148,7 +171,7 @@ function readCsv(fileName: string, bytes: Uint8Array, rules: UploadRules): Sprea
     },
   });
   if (refusal) throw refusal;
-  return { headerCells: headerCells ?? [], body };
+  return { headerCells: headerCells ?? [], body, decimalSeparator: decimalSeparatorOfDelimiter(seenDelimiter, '.') };
 }
 
 // ── workbooks: the zip container, read with its limits before exceljs sees it ──
@@ -334,7 +357,7 @@ async function readXlsx(fileName: string, bytes: Uint8Array, rules: UploadRules)
     else if (!cells.every(isBlankCell)) body.push({ row: rowNumber, cells });
   });
   if (body.length > rules.maxRows) throw tooManyRows(fileName, rules);
-  return { headerCells, body };
+  return { headerCells, body, decimalSeparator: '.' };
 }
 
 /** Checks the file, then reads its first sheet into the header cells and the body rows, within the limits of `rules`. */

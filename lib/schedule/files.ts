@@ -7,6 +7,8 @@ import ExcelJS from 'exceljs';
 import { tableCsv } from '../files/csv';
 import { columnProblems, FileRefusal, keyRowsByHeader, readSpreadsheet, type UploadRules } from '../files/spreadsheet';
 import { columnByHeader, normaliseHeader, SCHEDULE_COLUMNS } from './columns';
+import { cellWords, type CellRefusal } from './row';
+import { parseNumber, type DecimalSeparator } from '../units/parse';
 
 export const MAX_SCHEDULE_BYTES = 4 * 1024 * 1024;
 export const MAX_SCHEDULE_ROWS = 5000;
@@ -53,8 +55,27 @@ function toRecords(fileName: string, headerCells: unknown[], body: Array<{ row: 
 
 /** Reads a schedule file into records, or throws ScheduleFileRefusal saying why not. */
 export async function readScheduleFile(fileName: string, bytes: Uint8Array): Promise<ScheduleRecord[]> {
-  const { headerCells, body } = await readSpreadsheet(fileName, bytes, SCHEDULE_UPLOAD);
-  return toRecords(fileName, headerCells, body);
+  const { headerCells, body, decimalSeparator } = await readSpreadsheet(fileName, bytes, SCHEDULE_UPLOAD);
+  const records = toRecords(fileName, headerCells, body);
+  return decimalSeparator === '.' ? records : records.map((r) => withNumbersRead(r, decimalSeparator));
+}
+
+/**
+ * The number cells of a file written with another decimal mark, read with it by the one parser
+ * (lib/units/parse): a number, or the refusal in words ("1.250" is ambiguous under a comma).
+ * Text cells stay text.
+ */
+function withNumbersRead(record: ScheduleRecord, decimalSeparator: DecimalSeparator): ScheduleRecord {
+  const values: Record<string, unknown> = { ...record.values };
+  for (const column of SCHEDULE_COLUMNS) {
+    if (column.type !== 'number' && column.type !== 'integer') continue;
+    const key = normaliseHeader(column.header);
+    const raw = values[key];
+    if (typeof raw !== 'string' || raw.trim() === '') continue;
+    const parsed = parseNumber(raw, { decimalSeparator, field: column.header });
+    values[key] = parsed.ok ? parsed.value : ({ refusedNumber: cellWords(parsed.message, raw.trim()) } satisfies CellRefusal);
+  }
+  return { ...record, values };
 }
 
 // ── writing ──
@@ -62,6 +83,8 @@ export async function readScheduleFile(fileName: string, bytes: Uint8Array): Pro
 export interface Table {
   headers: string[];
   rows: Array<Array<string | number | null>>;
+  /** Columns (0-based) holding money: written as numbers with a two-decimal number format in XLSX. */
+  moneyColumns?: number[];
 }
 
 /** Through the shared CSV writer (lib/files/csv.ts): a circuit tag such as "=cmd()" cannot run as a formula. */
@@ -76,6 +99,7 @@ export async function tableToXlsx(table: Table, sheetName: string, notes?: Array
   sheet.addRow(table.headers).font = { bold: true };
   for (const row of table.rows) sheet.addRow(row);
   sheet.columns.forEach((col) => (col.width = 18));
+  for (const i of table.moneyColumns ?? []) sheet.getColumn(i + 1).numFmt = '#,##0.00';
   sheet.views = [{ state: 'frozen', ySplit: 1 }];
   if (notes) {
     const about = workbook.addWorksheet('About these columns');

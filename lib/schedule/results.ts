@@ -2,6 +2,7 @@
  * Results of a schedule as people read them: one flat line per circuit (grid and exports), the
  * filters (failing, flagged) and the totals (conductor mass, losses, cost).
  */
+import { moneyNumber, withCurrency } from '../units/money';
 import { Money } from '../electrical/economics';
 import { shortCircuitWord, type ShortCircuitWord } from '../sheet/candidateRow';
 import { formatNumber } from '../units';
@@ -185,7 +186,8 @@ const EXPORT_COLUMNS: Array<[string, (l: ResultLine) => string | number | null]>
   ['short-circuit final (°C)', (l) => round(l.shortCircuitFinalC, 0)],
   ['losses (W)', (l) => round(l.lossW, 1)],
   ['conductor mass (kg)', (l) => round(l.massKg, 1)],
-  ['material cost', (l) => l.materialCost],
+  // A number rounded to cents; the header names the currency (resultsTable).
+  ['material cost', (l) => moneyNumber(l.materialCost)],
   ['governing cable', (l) => l.governingCable],
   ['group rated by', (l) => l.groupMethod],
   ['phase spacing (mm)', (l) => l.phaseSpacingMm ?? null],
@@ -215,6 +217,14 @@ function round(value: number | null, digits: number): number | null {
 export const EXPORT_CAUTION =
   'Engineering aid only: results depend on the listed assumptions and flags; the installation must comply with IEC 60364 / national wiring rules and local authority requirements; every circuit must be checked and signed by a qualified, licensed engineer before use for construction.';
 
-export function resultsTable(lines: readonly ResultLine[]): Table {
-  return { headers: EXPORT_COLUMNS.map(([h]) => h), rows: lines.map((l) => EXPORT_COLUMNS.map(([, get]) => get(l))) };
+/** Headers of money columns, before the currency is added. */
+const MONEY_COLUMNS = new Set(['material cost']);
+
+/** `currency`: the team's (teams.currency), named in the money column's header; the XLSX writer formats that column as money. */
+export function resultsTable(lines: readonly ResultLine[], currency = ''): Table {
+  return {
+    headers: EXPORT_COLUMNS.map(([h]) => (currency && MONEY_COLUMNS.has(h) ? withCurrency(h, currency) : h)),
+    rows: lines.map((l) => EXPORT_COLUMNS.map(([, get]) => get(l))),
+    moneyColumns: EXPORT_COLUMNS.flatMap(([h], i) => (MONEY_COLUMNS.has(h) ? [i] : [])),
+  };
 }

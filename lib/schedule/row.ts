@@ -7,6 +7,7 @@ import { z } from 'zod';
 import { INPUT_BOUNDS } from '../inputBounds';
 import { columnByField, DEVICE_WORDS, FORMATION_WORDS, headerOf, INSTALLATION_WORDS, normaliseHeader, SCHEDULE_COLUMNS, SUPPORT_WORDS, type ScheduleField } from './columns';
 import { findFamily } from './families';
+import { parseNumberCell } from '../units/parse';
 
 export type ScheduleInstallation = 'cable-in-air' | 'buried' | 'bar-on-edge' | 'bar-flat';
 
@@ -29,15 +30,35 @@ function isBlank(raw: unknown): boolean {
   return raw === null || raw === undefined || (typeof raw === 'string' && raw.trim() === '');
 }
 
-/** A number cell: numbers from XLSX as they are, text from CSV with a point as decimal separator. */
+/**
+ * A number cell: numbers from XLSX as they are, text through the one parser (lib/units/parse)
+ * with a point — a file whose decimal mark is the comma (semicolon-delimited) has its number
+ * cells read with the comma when the file is read (lib/schedule/files.ts), so they arrive here
+ * as numbers, or as text the comma reading refused, with its message.
+ */
 function parseNumber(raw: unknown): number | null | { error: string } {
   if (isBlank(raw)) return null;
-  if (typeof raw === 'number') return Number.isFinite(raw) ? raw : { error: 'must be a finite number' };
-  if (typeof raw !== 'string') return { error: 'must be a number' };
-  const text = raw.trim().replace(/[\u00a0\u202f ]/g, '');
-  if (/^[-+]?\d+,\d+$/.test(text)) return { error: `must use a point as the decimal separator (got "${raw.trim()}")` };
-  if (!/^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(text)) return { error: `must be a number (got "${raw.trim()}")` };
-  return Number(text);
+  if (isCellRefusal(raw)) return { error: raw.refusedNumber };
+  const parsed = parseNumberCell(raw, { decimalSeparator: '.', field: '' });
+  if (parsed.ok) return parsed.value;
+  return { error: cellWords(parsed.message, String(raw).trim()) };
+}
+
+/** The parser's message for a cell: the column's header names the field in the problem list. */
+export function cellWords(parserMessage: string, shown: string): string {
+  const detail = parserMessage.replace(/^[^:]*: /, '');
+  return / is not a number$/.test(detail) ? `must be a number (got "${shown}")` : `must be a number: ${detail}`;
+}
+
+/**
+ * A number cell the file-level reading refused (a semicolon file's decimal comma, lib/schedule/files):
+ * a plain object, so that it survives the worker thread the file is read on.
+ */
+export interface CellRefusal {
+  refusedNumber: string;
+}
+export function isCellRefusal(raw: unknown): raw is CellRefusal {
+  return typeof raw === 'object' && raw !== null && typeof (raw as CellRefusal).refusedNumber === 'string';
 }
 
 /** A bound of lib/inputBounds (the one table), or a limit of the schedule's own. */

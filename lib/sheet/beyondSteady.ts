@@ -4,6 +4,7 @@
  * the PDF.
  */
 import Papa from 'papaparse';
+import { decimalSeparatorOfDelimiter, parseNumber, type DecimalSeparator } from '../units/parse';
 import { alongRunCheck, overTimeCheck, type AlongRunResult, type OverTimeResult } from '../electrical/sizing/beyondSteady';
 import type { SheetInputs } from './schema';
 import { toCandidates, toConditions } from './toSizing';
@@ -75,7 +76,7 @@ export function computeBeyondSteady(inputs: SheetInputs, candidateId: string): B
  * A first column of numbers that do not count the intervals is refused: a one-column file written
  * with decimal commas ("120,5") splits at the comma, and its last cell would read 5 A for 120.5 A.
  */
-export function profileFromRows(rows: unknown[][]): { currentsA: number[] } | { error: string } {
+export function profileFromRows(rows: unknown[][], decimalSeparator: DecimalSeparator = '.'): { currentsA: number[] } | { error: string } {
   const values: number[] = [];
   const leading: { row: number; first: string; last: string }[] = [];
   let seenRow = false;
@@ -85,17 +86,21 @@ export function profileFromRows(rows: unknown[][]): { currentsA: number[] } | { 
     const firstRow = !seenRow;
     seenRow = true;
     // The current is the last cell of a row ("hour, current" or just "current").
-    const text = cells[cells.length - 1].replace(',', '.');
-    const value = Number(text);
-    if (!Number.isFinite(value)) {
+    // The one parser (lib/units/parse) with the file's decimal separator.
+    const parsed = parseNumber(cells[cells.length - 1], { decimalSeparator, field: `Row ${r + 1}` });
+    if (!parsed.ok) {
       if (firstRow) continue; // header
-      return { error: `Row ${r + 1}: "${cells[cells.length - 1]}" is not a current in A` };
+      return { error: / is not a number$/.test(parsed.message) ? `Row ${r + 1}: "${cells[cells.length - 1]}" is not a current in A` : `${parsed.message} (a current in A)` };
     }
+    const value = parsed.value;
     if (value < 0) return { error: `Row ${r + 1}: a current must not be negative` };
     values.push(value);
     if (cells.length > 1) leading.push({ row: r + 1, first: cells[0], last: cells[cells.length - 1] });
   }
-  const firsts = leading.map((l) => Number(l.first.replace(',', '.')));
+  const firsts = leading.map((l) => {
+    const p = parseNumber(l.first, { decimalSeparator, field: 'first column' });
+    return p.ok ? p.value : Number.NaN;
+  });
   // Labels that are not plain numbers (clock times, dates) are fine; numbers must count evenly (0, 1, 2… or minutes).
   if (leading.length > 1 && firsts.every(Number.isFinite)) {
     const step = firsts[1] - firsts[0];
@@ -112,7 +117,7 @@ export function profileFromRows(rows: unknown[][]): { currentsA: number[] } | { 
  * Reads a pasted or uploaded daily-profile file (CSV, delimiter detected) with profileFromRows.
  * Blank lines are kept while parsing so that "Row N" in a message is line N of the file.
  */
-export function readDailyProfileText(text: string): { currentsA: number[] } | { error: string } {
+export function readDailyProfileText(text: string, userSeparator: DecimalSeparator = '.'): { currentsA: number[] } | { error: string } {
   const parsed = Papa.parse<unknown[]>(text, { skipEmptyLines: false });
-  return profileFromRows(parsed.data);
+  return profileFromRows(parsed.data, decimalSeparatorOfDelimiter(parsed.meta.delimiter, userSeparator));
 }

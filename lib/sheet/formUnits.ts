@@ -32,7 +32,9 @@ export const SHEET_FIELD_UNITS = {
   'circuit.powerFactor': { quantity: 'none' },
   'circuit.maxVoltageDropPercent': { quantity: 'none', fixedUnit: '%' },
   'circuit.reactanceOhmPerM': { quantity: 'resistanceOhmPerKm' },
-  'fault.currentA': { quantity: 'none', fixedUnit: 'A' },
+  // Fault currents in kA on every surface (the schedule's column, the sheet, the printed tables):
+  // switchgear and fault studies quote them in kA (common practice). Stored in A (API field currentA).
+  'fault.currentA': { quantity: 'none', fixedUnit: 'kA' },
   'fault.durationS': { quantity: 'none', fixedUnit: 's' },
   'environment.ambientC': { quantity: 'temperature' },
   'environment.windSpeedMPerS': { quantity: 'speedMPerS' },
@@ -68,6 +70,7 @@ export const SHEET_FIELD_UNITS = {
   'alongRun.lengthM': { quantity: 'lengthM' },
   'alongRun.terminalTemperatureC': { quantity: 'temperature' },
   'alongRun.jointPositionM': { quantity: 'lengthM' },
+  'alongRun.jointResistanceMicroOhm': { quantity: 'none', fixedUnit: 'µΩ' },
   'enclosureAir.heightM': { quantity: 'lengthM' },
   'enclosureAir.widthM': { quantity: 'lengthM' },
   'enclosureAir.depthM': { quantity: 'lengthM' },
@@ -113,6 +116,8 @@ const STORED_TO_QUANTITY_SCALE: Partial<Record<SheetNumericField, number>> = {
   'installation.duct.innerDiameterM': 1000,
   'installation.duct.outerDiameterM': 1000,
   'circuit.reactanceOhmPerM': 1000,
+  // Stored in A, shown in kA.
+  'fault.currentA': 1 / 1000,
   // Stored in seconds, shown in minutes.
   'overTime.overloadDurationS': 1 / 60,
   // The bus-bar system's lengths are stored in m and shown in mm (or in); the source impedance in Ω, shown in mΩ.
@@ -125,9 +130,18 @@ const STORED_TO_QUANTITY_SCALE: Partial<Record<SheetNumericField, number>> = {
   'protection.sourceImpedanceOhm': 1000,
 };
 
+/**
+ * `value × scale`, dividing by the whole number 1/scale where the scale is a fraction (1/1000 for
+ * kA, 1/60 for minutes): 25 kA is then exactly 25 000 A, not 25 / 0.001 = 24 999.999…
+ */
+function scaled(value: number, scale: number): number {
+  if (scale >= 1) return value * scale;
+  return value / Math.round(1 / scale);
+}
+
 export function toDisplay(field: SheetNumericField, storedValue: number, system: UnitSystem): number {
   const spec: FieldUnit = SHEET_FIELD_UNITS[field];
-  const value = storedValue * (STORED_TO_QUANTITY_SCALE[field] ?? 1);
+  const value = scaled(storedValue, STORED_TO_QUANTITY_SCALE[field] ?? 1);
   if (spec.quantity === 'none') return value;
   if (spec.quantity === 'speedMPerS') return system === 'si' ? value : metresToFeet(value);
   return convertFromSi(value, spec.quantity, system);
@@ -139,7 +153,7 @@ export function fromDisplay(field: SheetNumericField, shownValue: number, system
   if (spec.quantity === 'none') value = shownValue;
   else if (spec.quantity === 'speedMPerS') value = system === 'si' ? shownValue : feetToMetres(shownValue);
   else value = convertToSi(shownValue, spec.quantity, system);
-  return value / (STORED_TO_QUANTITY_SCALE[field] ?? 1);
+  return scaled(value, 1 / (STORED_TO_QUANTITY_SCALE[field] ?? 1));
 }
 
 export function displayUnit(field: SheetNumericField, system: UnitSystem): string {
@@ -149,10 +163,17 @@ export function displayUnit(field: SheetNumericField, system: UnitSystem): strin
   return unitLabel(spec.quantity, system);
 }
 
-/** A stored value as the text a field shows: rounded for reading, without float noise (0.30000000000000004). */
+/**
+ * A stored value as the text a field shows: rounded for reading, without float noise
+ * (0.30000000000000004). An SI value shows what was typed (six significant figures); a value
+ * converted to US customary units shows four (6 m reads 19.69 ft, not 19.685 ft) — the stored SI
+ * value keeps its precision until the field is edited.
+ */
 export function displayText(field: SheetNumericField, storedValue: number | null, system: UnitSystem): string {
   if (storedValue === null || !Number.isFinite(storedValue)) return '';
-  return formatNumber(toDisplay(field, storedValue, system), 6);
+  const spec: FieldUnit = SHEET_FIELD_UNITS[field];
+  const converted = system === 'imperial' && spec.quantity !== 'none';
+  return formatNumber(toDisplay(field, storedValue, system), converted ? 4 : 6);
 }
 
 /** Temperatures on the result strip and plots, in the user's system. */
@@ -161,4 +182,14 @@ export function temperatureIn(system: UnitSystem, temperatureC: number): number 
 }
 export function temperatureFrom(system: UnitSystem, shown: number): number {
   return system === 'si' ? shown : fahrenheitToCelsius(shown);
+}
+
+/**
+ * A message of the stored quantity (the bounds speak the stored unit: "at most 500000 A") in the
+ * unit the field shows, for the field whose display unit differs by a scale alone (the fault
+ * current, stored in A and shown in kA): "at most 500 kA".
+ */
+export function messageInDisplayUnit(field: SheetNumericField, message: string | undefined): string | undefined {
+  if (message === undefined || field !== 'fault.currentA') return message;
+  return message.replace(/(\d+(?:\.\d+)?) A\b/g, (_all, value: string) => `${formatNumber(Number(value) / 1000, 6)} kA`);
 }

@@ -35,6 +35,8 @@ export interface SheetRecord {
   approvedAt: Date | null;
   createdAt: Date;
   updatedAt: Date;
+  /** ISO 4217 code of the team's money, shown with every amount (teams.currency). */
+  teamCurrency: string;
   acknowledgements: { flagCode: string; comment: string; reviewerName: string | null; createdAt: Date }[];
 }
 

@@ -6,6 +6,7 @@
  * TypeScript (no React, no server code): the browser and the server both use it. SI units, as stored.
  */
 import { flagTitleList } from './flagWords';
+import { formatMoney, moneyNumber, withCurrency } from '../units/money';
 import type { CandidateEvaluation, CandidateEvaluationOk } from '@/lib/electrical/sizing/types';
 import { describeArrangement, sectionPerPhaseMm2, type SheetCandidate } from '@/lib/sheet/candidates';
 import type { SheetInputs } from '@/lib/sheet/schema';
@@ -34,7 +35,8 @@ const n = (value: number, digits = 4) => formatNumber(value, digits);
 const orAssumed = (value: number | null, digits = 4) => (value === null ? 'not entered (assumed, flagged)' : n(value, digits));
 
 /** Every input of the circuit with its unit, in the order of the inputs form. */
-export function inputRows(inputs: SheetInputs): InputRow[] {
+/** `currency`: the team's (teams.currency), named with the energy price; '' leaves the price unlabelled. */
+export function inputRows(inputs: SheetInputs, currency = ''): InputRow[] {
   const { circuit, fault, environment, installation, limits, economics } = inputs;
   const rows: InputRow[] = [
     { section: 'Circuit', label: 'Design current', value: n(circuit.designCurrentA), unit: 'A' },
@@ -54,7 +56,7 @@ export function inputRows(inputs: SheetInputs): InputRow[] {
   ];
   if (fault.checked) {
     rows.push(
-      { section: 'Fault', label: 'Prospective fault current', value: n(fault.currentA), unit: 'A' },
+      { section: 'Fault', label: 'Prospective fault current', value: n(fault.currentA / 1000), unit: 'kA' },
       { section: 'Fault', label: 'Clearing time', value: n(fault.durationS, 3), unit: 's' },
     );
   }
@@ -126,7 +128,7 @@ export function inputRows(inputs: SheetInputs): InputRow[] {
     rows.push(
       { section: 'Life-cycle cost', label: 'Loss load factor', value: n(economics.lossLoadFactor, 3), unit: '' },
       { section: 'Life-cycle cost', label: 'Hours per year', value: n(economics.hoursPerYear), unit: 'h' },
-      { section: 'Life-cycle cost', label: 'Energy price', value: economics.energyPricePerKWh, unit: 'per kWh' },
+      { section: 'Life-cycle cost', label: 'Energy price', value: economics.energyPricePerKWh, unit: currency ? `${currency} per kWh` : 'per kWh' },
       { section: 'Life-cycle cost', label: 'Discount rate', value: n(economics.discountRatePercent, 3), unit: '%' },
       { section: 'Life-cycle cost', label: 'Years', value: String(economics.years), unit: 'years' },
       { section: 'Life-cycle cost', label: 'Load growth', value: n(economics.loadGrowthPercent, 3), unit: '% a year' },
@@ -318,8 +320,9 @@ export const CANDIDATE_EXPORT_COLUMNS: ReadonlyArray<{ header: string; value: (r
   { header: 'voltage drop (%)', value: (r) => r.voltageDropPercent },
   { header: 'short circuit', value: (r) => r.shortCircuit },
   { header: 'conductor mass (kg)', value: (r) => r.massKg },
-  { header: 'material cost', value: (r) => r.materialCost },
-  { header: 'life-cycle cost', value: (r) => r.lifeCycleCost },
+  // Amounts as numbers rounded to cents; the currency is in the header (candidateExportHeaders).
+  { header: 'material cost', value: (r) => moneyNumber(r.materialCost) },
+  { header: 'life-cycle cost', value: (r) => moneyNumber(r.lifeCycleCost) },
   { header: 'governing cable', value: (r) => r.governingCable },
   { header: 'governing cable conductor (°C)', value: (r) => r.governingCableC },
   { header: 'group rated by', value: (r) => r.groupMethod },
@@ -345,7 +348,8 @@ export interface ChosenResultRow {
 }
 
 /** The chosen candidate's results in words and numbers with units, SI. */
-export function chosenResultRows(e: CandidateEvaluationOk, lengthM: number, otherLabels: readonly string[] = []): ChosenResultRow[] {
+export function chosenResultRows(e: CandidateEvaluationOk, lengthM: number, otherLabels: readonly string[] = [], currency = ''): ChosenResultRow[] {
+  const money = (v: string | null) => (currency ? formatMoney(v, currency) : (v ?? '—'));
   const t = (c: number | null | undefined) => (c === null || c === undefined ? '—' : formatQuantity(c, 'temperature', 'si'));
   const sc = e.shortCircuit;
   const vd = e.voltageDrop;
@@ -374,10 +378,10 @@ export function chosenResultRows(e: CandidateEvaluationOk, lengthM: number, othe
       label: 'Short circuit (IEC 60949 adiabatic)',
       value: !sc.checked
         ? `not checked${sc.reason ? `: ${sc.reason}` : ''}`
-        : `${n(sc.currentA ?? 0)} A for ${n(sc.durationS ?? 0, 3)} s: ${sc.finalC === null || sc.finalC === undefined ? 'beyond the method' : t(sc.finalC)} of ${t(sc.limitC)} allowed; needs at least ${formatQuantity(sc.minimumSectionMm2 ?? 0, 'areaMm2', 'si')}: ${sc.withstands ? 'passes' : 'fails'}`,
+        : `${n((sc.currentA ?? 0) / 1000)} kA for ${n(sc.durationS ?? 0, 3)} s: ${sc.finalC === null || sc.finalC === undefined ? 'beyond the method' : t(sc.finalC)} of ${t(sc.limitC)} allowed; needs at least ${formatQuantity(sc.minimumSectionMm2 ?? 0, 'areaMm2', 'si')}: ${sc.withstands ? 'passes' : 'fails'}`,
     },
     { label: 'Conductor mass', value: `${n(e.massKg)} kg` },
-    { label: 'Material cost / life-cycle cost', value: `${e.materialCost ?? '—'} / ${e.lifeCycleCost ?? '—'}` },
+    { label: 'Material cost / life-cycle cost', value: `${money(e.materialCost)} / ${money(e.lifeCycleCost)}` },
   ];
 }
 
@@ -409,4 +413,10 @@ export function formatDate(value: Date | string | null | undefined): string {
   if (!value) return '—';
   const date = typeof value === 'string' ? new Date(value) : value;
   return `${date.toISOString().slice(0, 16).replace('T', ' ')} UTC`;
+}
+
+/** Headers of the candidate export, the money columns with the team's currency. */
+export const MONEY_EXPORT_HEADERS: ReadonlySet<string> = new Set(['material cost', 'life-cycle cost']);
+export function candidateExportHeaders(currency: string): string[] {
+  return CANDIDATE_EXPORT_COLUMNS.map((c) => (MONEY_EXPORT_HEADERS.has(c.header) ? withCurrency(c.header, currency) : c.header));
 }

@@ -248,7 +248,7 @@ export function protectionLines(e: CandidateEvaluationOk): ResultLine[] {
     if (d) {
       lines.push(
         { label: 'Earth-fault loop impedance Z_s', value: `${n(d.loop.impedanceOhm * 1000)} mΩ (${d.loop.basis})` },
-        { label: 'Earth-fault current I_a = c·U₀/Z_s', value: `${n(d.faultCurrentA)} A (c = ${n(d.voltageFactor, 3)})` },
+        { label: 'Earth-fault current I_a = c·U₀/Z_s', value: `${n(d.faultCurrentA / 1000)} kA (c = ${n(d.voltageFactor, 3)})` },
         {
           label: `Disconnection within ${n(d.required.timeS, 3)} s (${d.clause})`,
           value: `${d.operating.timeS === undefined ? 'not shown by the device data' : `${n(d.operating.timeS, 3)} s`}; ${d.operating.basis}. Required: ${d.required.basis}`,

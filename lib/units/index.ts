@@ -135,7 +135,7 @@ interface QuantitySpec {
 
 export const QUANTITIES: Readonly<Record<Quantity, QuantitySpec>> = {
   temperature: { si: '°C', imperial: '°F', toImperial: celsiusToFahrenheit, fromImperial: fahrenheitToCelsius, digits: 4 },
-  temperatureRise: { si: 'K', imperial: '°F', toImperial: kelvinRiseToFahrenheitRise, fromImperial: fahrenheitRiseToKelvinRise, digits: 3 },
+  temperatureRise: { si: 'K', imperial: '°F rise', toImperial: kelvinRiseToFahrenheitRise, fromImperial: fahrenheitRiseToKelvinRise, digits: 3 },
   lengthMm: { si: 'mm', imperial: 'in', toImperial: mmToInches, fromImperial: inchesToMm, digits: 4 },
   lengthM: { si: 'm', imperial: 'ft', toImperial: metresToFeet, fromImperial: feetToMetres, digits: 4 },
   areaMm2: { si: 'mm²', imperial: 'kcmil', toImperial: mm2ToKcmil, fromImperial: kcmilToMm2, digits: 4 },
@@ -241,4 +241,63 @@ export function formatPower(watts: number, options: { digits?: number; per?: str
 export function lossPerLengthWords(lossWPerM: number, system: UnitSystem): string {
   if (system === 'si') return formatPower(lossWPerM, { digits: QUANTITIES.powerWPerM.digits, per: '/m' });
   return formatQuantity(lossWPerM, 'powerWPerM', system);
+}
+
+// ── words with quantities (help texts, candidate names) ──
+
+/** SI units as they appear in words, with the quantity each is; longest first so "mm²" wins over "mm" and "m". */
+const WORD_UNITS: ReadonlyArray<{ unit: string; quantity: Quantity }> = [
+  { unit: 'K·m/W', quantity: 'thermalResistivityKmPerW' },
+  { unit: 'mΩ/m', quantity: 'resistanceOhmPerKm' },
+  { unit: 'Ω/km', quantity: 'resistanceOhmPerKm' },
+  { unit: 'mm²', quantity: 'areaMm2' },
+  { unit: 'W/m', quantity: 'powerWPerM' },
+  { unit: 'm/s', quantity: 'lengthM' },
+  { unit: '°C', quantity: 'temperature' },
+  { unit: 'mm', quantity: 'lengthMm' },
+  { unit: 'm', quantity: 'lengthM' },
+  { unit: 'K', quantity: 'temperatureRise' },
+];
+const escapeRegExp = (s: string) => s.replace(/[.*+?^${}()|[\]\\/]/g, '\\$&');
+// A number, a space, a unit, and then no letter, digit or superscript (so "W/m²", "IEC 60364-5-52", "mΩ" stay whole).
+const WORD_QUANTITY = new RegExp(`(?<![\\w.,-])(\\d+(?:\\.\\d+)?) (${WORD_UNITS.map((u) => escapeRegExp(u.unit)).join('|')})(?![\\p{L}\\d²³/·])`, 'gu');
+
+/**
+ * Text written with SI quantities, for a reader in the chosen system: in imperial each quantity
+ * reads in US customary units, rounded to three significant figures, with the SI figure after it
+ * in brackets (the standards the texts quote are written in SI): "0.7 m" → "2.3 ft (0.7 m)",
+ * "30 °C" → "86 °F (30 °C)", a rise "70 K" → "126 °F rise (70 K)". SI text is returned as it is.
+ */
+export function quantitiesInWords(text: string, system: UnitSystem): string {
+  if (system === 'si') return text;
+  return text.replace(WORD_QUANTITY, (whole, value: string, unit: string) => {
+    const spec = WORD_UNITS.find((u) => u.unit === unit);
+    if (!spec) return whole;
+    if (Number(value) === 0 && spec.quantity !== 'temperature') return `0 ${unit === 'm/s' ? 'ft/s' : unitLabel(spec.quantity, 'imperial')}`;
+    // mΩ/m is Ω/km: the same number.
+    const converted = QUANTITIES[spec.quantity].toImperial(Number(value));
+    const imperialUnit = unit === 'm/s' ? 'ft/s' : unitLabel(spec.quantity, 'imperial');
+    return `${formatNumber(converted, 3)} ${imperialUnit} (${whole})`;
+  });
+}
+
+/**
+ * What a printed or shared document says about its units: it is in SI whatever the author's
+ * screen shows (the records it prints are SI; converting them there would be a second path to get wrong).
+ */
+export const DOCUMENT_UNITS_LINE =
+  'Units: SI throughout — temperatures in °C, temperature differences (margins, rises) in K, lengths in m and mm, sections in mm², currents in A, fault currents in kA, losses in W/m. Figures are not converted to the reader’s unit setting.';
+
+/**
+ * A catalogue name for a reader in the chosen system: kept as written (it is the name the
+ * catalogue and the drawings use), with its size in US customary units after it in imperial —
+ * "60 × 10 mm Copper bar (2.36 × 0.394 in)", "95 mm² copper XLPE/PVC single-core (187 kcmil)".
+ */
+export function nameInSystem(name: string, system: UnitSystem): string {
+  if (system === 'si') return name;
+  const bar = /(\d+(?:\.\d+)?) × (\d+(?:\.\d+)?) mm(?![²\p{L}])/u.exec(name);
+  if (bar) return `${name} (${formatNumber(mmToInches(Number(bar[1])), 3)} × ${formatNumber(mmToInches(Number(bar[2])), 3)} in)`;
+  const section = /(\d+(?:\.\d+)?) mm²/.exec(name);
+  if (section) return `${name} (${formatNumber(mm2ToKcmil(Number(section[1])), 3)} kcmil)`;
+  return name;
 }

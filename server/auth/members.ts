@@ -266,6 +266,16 @@ export async function resetPassword(input: z.infer<typeof resetPasswordSchema>) 
 
 export const unitSystemSchema = z.enum(['si', 'imperial'], { message: 'Choose si or imperial.' });
 
+/** '.' or ',', or 'browser' to let the browser's locale decide again (stored as null). */
+export const decimalSeparatorSchema = z.enum(['.', ',', 'browser'], { message: 'Choose ".", "," or "browser".' });
+
+export async function setDecimalSeparator(user: SessionUser, choice: z.infer<typeof decimalSeparatorSchema>) {
+  await getDb()
+    .update(users)
+    .set({ decimalSeparator: choice === 'browser' ? null : choice, updatedAt: new Date() })
+    .where(and(eq(users.teamId, user.teamId), eq(users.id, user.id)));
+}
+
 export async function setUnitSystem(user: SessionUser, unitSystem: z.infer<typeof unitSystemSchema>) {
   await getDb()
     .update(users)

@@ -2,7 +2,7 @@
 
 import { revalidatePath } from 'next/cache';
 import { authorizeAction } from './actions';
-import { setUnitSystem, unitSystemSchema } from './members';
+import { decimalSeparatorSchema, setDecimalSeparator, setUnitSystem, unitSystemSchema } from './members';
 import { updateUserPreferences } from '@/db/queries/preferences';
 import { candidateGridColumnsSchema } from '@/lib/user/preferences';
 
@@ -25,4 +25,13 @@ export async function saveCandidateGridColumnsAction(columns: unknown): Promise<
   if (!parsed.success) return { ok: false, message: parsed.error.issues[0]?.message ?? 'Not a column choice' };
   const saved = await updateUserPreferences(user.teamId, user.id, { candidateGridColumns: parsed.data });
   return saved ? { ok: true } : { ok: false, message: 'Your account was not found.' };
+}
+
+/** The decimal separator switch of the user menu; stored in users.decimal_separator (null = the browser's). */
+export async function setDecimalSeparatorAction(choice: unknown): Promise<{ decimalSeparator: '.' | ',' | null }> {
+  const user = await authorizeAction('authenticated');
+  const parsed = decimalSeparatorSchema.parse(choice);
+  await setDecimalSeparator(user, parsed);
+  revalidatePath('/', 'layout');
+  return { decimalSeparator: parsed === 'browser' ? null : parsed };
 }

@@ -21,6 +21,10 @@ export interface SessionUser {
   name: string;
   email: string;
   unitSystem: 'si' | 'imperial';
+  /** The separator the user chose, or null: then the browser's locale decides (lib/units/parse). */
+  decimalSeparator: '.' | ',' | null;
+  /** ISO 4217 code of the team's money, shown with every amount. */
+  teamCurrency: string;
 }
 
 /** The claims Ampwarden puts in the next-auth JWT (see server/auth/options.ts). */
@@ -67,6 +71,8 @@ export async function resolveSessionUser(claims: SessionClaims | null): Promise<
     name: row.name,
     email: row.email,
     unitSystem: row.unitSystem,
+    decimalSeparator: row.decimalSeparator ?? null,
+    teamCurrency: row.teamCurrency,
   };
 }
 

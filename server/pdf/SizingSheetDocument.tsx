@@ -15,7 +15,7 @@ import { chosenEvaluation, savedOptionalChecks, type ResultSnapshot } from '@/li
 import { STATUS_LABELS, type SheetStatus } from '@/lib/sheet/stateMachine';
 import type { SheetInputs } from '@/lib/sheet/schema';
 import type { CalculationPackage } from '@/lib/sheet/records';
-import { formatNumber } from '@/lib/units';
+import { DOCUMENT_UNITS_LINE, formatNumber } from '@/lib/units';
 import { PDF_FONT_FAMILY, pdfSafeText as safe } from './fonts';
 import { ProfileChart } from './ProfileChart';
 import { LineChart, legendWords } from './LineChart';
@@ -47,6 +47,8 @@ export interface PdfSheet {
   acknowledgements: { flagCode: string; comment: string; reviewerName: string | null; createdAt: Date | string }[];
   /** Document number, revision table and the approver's licence (server/pdf/pdfRenderer sheetPackagePdf); absent in a bare rendering. */
   calculationPackage?: CalculationPackage;
+  /** ISO 4217 code of the team's money, named with every amount. */
+  teamCurrency: string;
 }
 
 /** The marking of a sheet that is not approved: the same words on every page. */
@@ -81,14 +83,14 @@ const styles = StyleSheet.create({
   subtitle: { fontSize: 10, color: MUTED },
   block: { marginTop: 8, flexDirection: 'row', flexWrap: 'wrap', borderWidth: 0.7, borderColor: RULE },
   blockCell: { width: '20%', padding: 4, borderRightWidth: 0.5, borderBottomWidth: 0.5, borderColor: RULE },
-  blockLabel: { fontSize: 6.8, color: MUTED, textTransform: 'uppercase', letterSpacing: 0.4 },
+  blockLabel: { fontSize: 6.8, color: MUTED, letterSpacing: 0.4 },
   blockValue: { fontSize: 9, fontWeight: 600 },
   h2: { marginTop: 12, marginBottom: 3, fontSize: 11, fontWeight: 600, borderBottomWidth: 1, borderBottomColor: RULE, paddingBottom: 2 },
   caution: { marginTop: 6, padding: 6, borderWidth: 1, borderColor: TIGHT.fill, backgroundColor: TIGHT.light, fontSize: 8 },
   row: { flexDirection: 'row', borderBottomWidth: 0.5, borderBottomColor: RULE, paddingVertical: 1.6 },
   head: { color: MUTED, fontWeight: 600, fontSize: 7.4 },
   summary: { marginTop: 4, padding: 6, flexDirection: 'row', justifyContent: 'space-between', borderWidth: 1 },
-  figureLabel: { fontSize: 6.8, color: MUTED, textTransform: 'uppercase' },
+  figureLabel: { fontSize: 6.8, color: MUTED },
   figureValue: { fontSize: 12, fontWeight: 600 },
   flag: { marginTop: 4, flexDirection: 'row', gap: 6 },
   badge: { alignSelf: 'flex-start', width: 50, fontSize: 7, fontWeight: 600, paddingVertical: 1, textAlign: 'center', borderWidth: 0.7 },
@@ -235,7 +237,7 @@ export function SizingSheetDocument({ sheet, generatedAt = new Date() }: { sheet
   const flags = snapshot?.chosenFlags ?? [];
   const ackByCode = new Map(sheet.acknowledgements.map((a) => [a.flagCode, a]));
   const tone = toneOf(chosen);
-  const inputs = inputRows(sheet.inputs);
+  const inputs = inputRows(sheet.inputs, sheet.teamCurrency);
   const n = (v: number | null, d = 4) => (v === null ? '—' : formatNumber(v, d));
   const otherLabels = sheet.inputs.installation.otherCircuits.map((o) => o.label);
   const reEvaluation = reEvaluationOf(sheet.inputs, snapshot);
@@ -270,6 +272,7 @@ export function SizingSheetDocument({ sheet, generatedAt = new Date() }: { sheet
         <Text style={styles.brand}>AMPWARDEN · SIZING SHEET · CALCULATION PACKAGE</Text>
         <Text style={styles.title}>{safe(`${sheet.circuitTag} — ${sheet.title}`)}</Text>
         <Text style={styles.subtitle}>{safe(sheet.projectName)}</Text>
+        <Text style={{ fontSize: 7.5, color: MUTED, marginBottom: 4 }}>{safe(DOCUMENT_UNITS_LINE)}</Text>
         <TitleBlock sheet={sheet} generatedAt={generatedAt} />
         <View style={styles.caution}>
           <Text>{safe(`Caution. ${CAUTION_TEXT.join(' ')}`)}</Text>
@@ -307,7 +310,7 @@ export function SizingSheetDocument({ sheet, generatedAt = new Date() }: { sheet
                   { title: 'Quantity', width: '34%' },
                   { title: 'Value', width: '66%' },
                 ]}
-                rows={chosenResultRows(chosen, sheet.inputs.circuit.lengthM, otherLabels).map((r) => [r.label, r.value])}
+                rows={chosenResultRows(chosen, sheet.inputs.circuit.lengthM, otherLabels, sheet.teamCurrency).map((r) => [r.label, r.value])}
               />
             </View>
           </View>

@@ -5,7 +5,7 @@
  */
 import ExcelJS from 'exceljs';
 import { CAUTION_TEXT } from '@/lib/caution';
-import { CANDIDATE_EXPORT_COLUMNS, candidateRecords, formatDate } from '@/lib/sheet/sheetTables';
+import { CANDIDATE_EXPORT_COLUMNS, candidateExportHeaders, candidateRecords, formatDate, MONEY_EXPORT_HEADERS } from '@/lib/sheet/sheetTables';
 import type { SheetRecord } from '@/db/queries/sheets';
 import { tableCsv, toCsv } from '@/lib/files/csv';
 import { downloadResponse } from '@/server/http/download';
@@ -19,6 +19,8 @@ function aboutLines(sheet: SheetRecord): [string, string][] {
     ['project', sheet.projectName],
     ['revision', `${sheet.revision} (saved version ${sheet.version}), ${STATUS_LABELS[sheet.status]}`],
     ['result computed', `${formatDate(sheet.result?.computedAt)} by ${sheet.solverVersion ?? 'unknown solver'}`],
+    ['currency', `${sheet.teamCurrency} (the team's; amounts rounded to cents)`],
+    ['units', 'SI, as each header names them; fault currents in kA'],
     ['caution', CAUTION_TEXT.join(' ')],
   ];
 }
@@ -26,7 +28,7 @@ function aboutLines(sheet: SheetRecord): [string, string][] {
 export function candidateTable(sheet: SheetRecord): { headers: string[]; rows: (string | number | null)[][] } {
   const records = candidateRecords(sheet.inputs.candidates, sheet.result);
   return {
-    headers: CANDIDATE_EXPORT_COLUMNS.map((c) => c.header),
+    headers: candidateExportHeaders(sheet.teamCurrency),
     rows: records.map((r) => CANDIDATE_EXPORT_COLUMNS.map((c) => c.value(r))),
   };
 }
@@ -45,6 +47,10 @@ export async function candidatesXlsx(sheet: SheetRecord): Promise<Uint8Array> {
   const grid = workbook.addWorksheet('Candidates', { views: [{ state: 'frozen', ySplit: 1 }] });
   grid.addRow(table.headers).font = { bold: true };
   for (const row of table.rows) grid.addRow(row.map((v) => (v === null ? null : v)));
+  // Money as numbers with a number format (sortable, summable), never as text.
+  CANDIDATE_EXPORT_COLUMNS.forEach((c, i) => {
+    if (MONEY_EXPORT_HEADERS.has(c.header)) grid.getColumn(i + 1).numFmt = '#,##0.00';
+  });
   grid.columns.forEach((column, i) => {
     column.width = Math.min(40, Math.max(10, table.headers[i].length + 2));
   });

@@ -7,7 +7,7 @@
 //   reloads and sees the same. The figures on screen must equal what lib/sheet computes for the
 //   saved inputs (run here in the test), the saved inputs are SI, and the server's snapshot holds
 //   the same forces; κ is checked by hand: κ = 1.02 + 0.98·e^(−3·0.1) = 1.746 (IEC 60909-0 eq. 55);
-// - the same sheet in imperial units shows the phase spacing in inches (200 mm / 25.4 = 7.87402 in).
+// - the same sheet in imperial units shows the phase spacing in inches (200 mm / 25.4 = 7.874 in, four figures as a converted value shows).
 import fs from 'node:fs';
 import path from 'node:path';
 import { createRequire } from 'node:module';
@@ -186,11 +186,11 @@ describe('a bus-bar pack and its protection on the sheet', () => {
     await context.close();
   });
 
-  it('a designer working in imperial units sees the phase spacing in inches (200 mm / 25.4 = 7.87402 in), stored SI', async () => {
+  it('a designer working in imperial units sees the phase spacing in inches (200 mm / 25.4 = 7.874 in to four figures), stored SI', async () => {
     const page = await signInInBrowser(browser, imperialDesigner.email);
     await page.goto(appUrl(`/sheets/${sheetId}`));
     await page.getByTestId('input-phase-spacing').waitFor({ timeout: 60_000 });
-    await expect(page.getByTestId('input-phase-spacing').inputValue()).resolves.toBe('7.87402');
+    await expect(page.getByTestId('input-phase-spacing').inputValue()).resolves.toBe('7.874');
     await page.getByTestId('input-phase-spacing').fill('10');
     await expect.poll(() => page.getByTestId('save-state').innerText(), { timeout: 30_000 }).toBe('Not saved');
     await saveSheet(page);

@@ -18,6 +18,9 @@ function probes(bound: InputBound): number[] {
   return [bound.min - step(bound.min), bound.min, bound.min + step(bound.min), bound.max - step(bound.max), bound.max, bound.max + step(bound.max)];
 }
 
+/** A probe written out in full as a person or a spreadsheet writes it: the number parser (lib/units/parse) takes no exponent forms. */
+const written = (v: number) => v.toLocaleString('en-US', { useGrouping: false, maximumFractionDigits: 20 });
+
 function setIn<T>(value: T, path: string, v: unknown): T {
   const copy = structuredClone(value) as Record<string, unknown>;
   const keys = path.split('.');
@@ -165,7 +168,7 @@ describe('every edge reads the same ranges', () => {
   it.each(scheduleFields)('schedule: %s', (name, _sheet, _api, header) => {
     const column = SCHEDULE_COLUMNS.find((c) => normaliseHeader(c.header) === normaliseHeader(header))!;
     for (const v of probes(INPUT_BOUNDS[name])) {
-      const row = { ...good, [column.field]: String(v), ...(column.field === 'clearingTimeS' ? { faultCurrentKA: '10' } : {}) };
+      const row = { ...good, [column.field]: written(v), ...(column.field === 'clearingTimeS' ? { faultCurrentKA: '10' } : {}) };
       expect(issuesAt(scheduleRowSchema.safeParse(row), column.field) === 0, `${header} = ${v}`).toBe(withinBound(INPUT_BOUNDS[name], v));
     }
   });
@@ -173,7 +176,7 @@ describe('every edge reads the same ranges', () => {
   it('schedule: the fault current in kA is the table’s range in A divided by 1000', () => {
     const bound = INPUT_BOUNDS.faultCurrentA;
     for (const v of probes(bound)) {
-      const row = { ...good, faultCurrentKA: String(v / 1000), clearingTimeS: '0.2' };
+      const row = { ...good, faultCurrentKA: written(v / 1000), clearingTimeS: '0.2' };
       expect(issuesAt(scheduleRowSchema.safeParse(row), 'faultCurrentKA') === 0, `${v} A`).toBe(withinBound(bound, v));
     }
   });

@@ -52,6 +52,7 @@ export default async function SharedSheetPage({ params }: { params: Promise<{ to
     acknowledgements: sheet.acknowledgements.map((a) => ({ flagCode: a.flagCode, comment: a.comment, reviewerName: a.reviewerName })),
     // As saved with the result (older snapshots: computed here from the saved inputs, not in the reader's browser).
     optionalChecks: savedOptionalChecks(sheet.result, sheet.inputs),
+    teamCurrency: sheet.teamCurrency,
   };
   const approved = sheet.status === 'approved';
   return (

@@ -50,7 +50,7 @@ async function refusal(promise: Promise<unknown>): Promise<{ status: number; cod
 }
 
 function asSessionUser(row: { id: string; teamId: string; role: SessionUser['role']; name: string; email: string }, teamName: string): SessionUser {
-  return { id: row.id, teamId: row.teamId, role: row.role, name: row.name, email: row.email, teamName, unitSystem: 'si' };
+  return { id: row.id, teamId: row.teamId, role: row.role, name: row.name, email: row.email, teamName, unitSystem: 'si', decimalSeparator: null, teamCurrency: 'EUR' };
 }
 
 let team: Awaited<ReturnType<typeof createTestTeam>>;

@@ -622,6 +622,22 @@ export const ENDPOINT_MATRIX: MatrixEntry[] = [
   },
   {
     kind: 'action',
+    file: 'server/auth/preferenceActions.ts',
+    name: 'setDecimalSeparatorAction',
+    // Every signed-in person sets their own separator (users.decimal_separator); 'browser' clears it.
+    expect: signedIn(401, { viewer: 200, designer: 200, reviewer: 200, otherAdmin: 200, admin: 200 }),
+    args: () => ['browser'],
+  },
+  {
+    kind: 'action',
+    file: 'app/(workspace)/admin/members/currencyAction.ts',
+    name: 'setTeamCurrencyAction',
+    // Admins set their own team's currency (the session's team); the others are refused.
+    expect: signedIn(401, { viewer: 403, designer: 403, reviewer: 403, otherAdmin: 200, admin: 200 }),
+    args: () => ['EUR'],
+  },
+  {
+    kind: 'action',
     file: 'app/(workspace)/projects/actions.ts',
     name: 'createProjectAction',
     // Success ends in redirect() to the new project, which a fetch-style action call answers with 200 and an

@@ -1,5 +1,6 @@
 // Reading and writing catalogue files: refusals with clear messages, row/column problems, and the
 // round trip export → import (CSV and XLSX).
+import Papa from 'papaparse';
 import { describe, expect, it } from 'vitest';
 import { CATALOGUE_COLUMNS } from '@/lib/catalogue';
 import { FileRefusal, MAX_IMPORT_BYTES, readCatalogueFile, validateRecords, writeCsv, writeXlsx } from '@/lib/catalogue/files';
@@ -99,5 +100,28 @@ describe('export → import round trip', () => {
   });
   it('an empty template has only the header', async () => {
     expect(writeCsv('materials', []).trim()).toBe(CATALOGUE_COLUMNS.materials.map((c) => c.header).join(','));
+  });
+});
+
+describe('a semicolon-delimited catalogue file with decimal commas (issue 22)', () => {
+  it('reads the numbers with the comma and keeps every value exactly; an ambiguous "1.250" is refused on its column', async () => {
+    const csv = writeCsv('coverings', STANDARD_COVERINGS);
+    // The same file as a spreadsheet set to a comma decimal mark writes it: ';' between cells, ',' in numbers.
+    const cells = Papa.parse<string[]>(csv.trim(), { header: false }).data;
+    const semicolon = Papa.unparse(
+      cells.map((row, i) => row.map((c) => (i > 0 && /^-?\d+\.\d+$/.test(c) ? c.replace('.', ',') : c))),
+      { delimiter: ';', newline: '\r\n' },
+    );
+    expect(semicolon).toMatch(/;\d+,\d+/);
+    const { rows, problems } = validateRecords('coverings', await readCatalogueFile('coverings', 'x.csv', encode(semicolon)));
+    expect(problems).toEqual([]);
+    expect(rows[0].value.thermalResistivityKmPerW).toBe('5.0');
+
+    const column = CATALOGUE_COLUMNS.coverings.findIndex((c) => c.header === 'thermal_resistivity_km_per_w');
+    const edited = Papa.parse<string[]>(semicolon, { header: false, delimiter: ';' }).data;
+    edited[1][column] = '1.250';
+    const ambiguous = Papa.unparse(edited, { delimiter: ';', newline: '\r\n' });
+    const bad = validateRecords('coverings', await readCatalogueFile('coverings', 'x.csv', encode(ambiguous)));
+    expect(bad.problems).toContainEqual({ row: 2, column: 'thermal_resistivity_km_per_w', message: 'must be a number: 1.250 — use 1250 or 1,25 (the decimal separator is a comma)' });
   });
 });

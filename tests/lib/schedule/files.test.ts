@@ -44,3 +44,39 @@ describe('reading schedule files', () => {
     }
   });
 });
+
+describe('a semicolon-delimited schedule with decimal commas (issue 22)', () => {
+  const choices = [
+    { key: 'copper xlpe single-core', label: 'copper XLPE single-core', kind: 'cable' as const },
+    { key: 'copper bars', label: 'copper bars', kind: 'bar' as const },
+  ];
+  /** The template's own CSV rewritten as a spreadsheet set to a comma decimal mark writes it: ';' between cells, ',' in numbers. */
+  function semicolonCsv(edit: (cells: string[], headers: string[]) => void = () => {}): string {
+    const table = templateTable(choices.map((c) => c.label));
+    const lines = [table.headers.join(';')];
+    for (const row of table.rows) {
+      const cells = row.map((v) => (v === null ? '' : typeof v === 'number' ? String(v).replace('.', ',') : v));
+      edit(cells, table.headers);
+      lines.push(cells.join(';'));
+    }
+    return lines.join('\r\n');
+  }
+
+  it('reads the numbers with the comma as the decimal mark: the same rows as the template itself', async () => {
+    const table = templateTable(choices.map((c) => c.label));
+    const reference = validateScheduleRecords(await readScheduleFile('t.csv', text(tableToCsv(table))), choices);
+    const read = validateScheduleRecords(await readScheduleFile('semicolon.csv', text(semicolonCsv())), choices);
+    expect(read.problems).toEqual([]);
+    expect(read.rows).toEqual(reference.rows);
+    // The template has a decimal somewhere, or this test would not test the comma.
+    expect(table.rows.flat().some((v) => typeof v === 'number' && !Number.isInteger(v))).toBe(true);
+  });
+
+  it('refuses "1.250" in such a file as ambiguous, naming row and column', async () => {
+    const csv = semicolonCsv((cells, headers) => {
+      cells[headers.indexOf('length (m)')] = '1.250';
+    });
+    const { problems } = validateScheduleRecords(await readScheduleFile('semicolon.csv', text(csv)), choices);
+    expect(problems.find((p) => p.row === 2 && p.column === 'length (m)')?.message).toContain('1.250 — use 1250 or 1,25');
+  });
+});

@@ -5,6 +5,8 @@ import { TeamSizingSettings } from '@/components/team/TeamSizingSettings';
 import { requirePageUser } from '@/server/auth/session';
 import { MembersAdmin } from './MembersAdmin';
 import { setMinParallelSectionAction } from './teamSettingsActions';
+import { TeamCurrency } from './TeamCurrency';
+import { setTeamCurrencyAction } from './currencyAction';
 
 export const metadata = { title: 'Members' };
 export const dynamic = 'force-dynamic';
@@ -18,6 +20,7 @@ export default async function MembersPage() {
         Members of {user.teamName}
       </h1>
       <p className="mt-2 text-ink-600">Invite colleagues by e-mail, change what they may do, or close their access.</p>
+      <TeamCurrency currency={user.teamCurrency} onChange={setTeamCurrencyAction} />
       <MembersAdmin
         currentUserId={user.id}
         members={members.map((m) => ({ ...m, createdAt: m.createdAt.toISOString() }))}

@@ -9,18 +9,25 @@ import { recordAudit } from '@/db/queries/audit';
 import { setTeamMinParallelSection, teamSizingOptions } from '@/db/queries/teams';
 import { getDb } from '@/db/client';
 import { INPUT_BOUNDS, zodBound } from '@/lib/inputBounds';
+import { parseNumber } from '@/lib/units/parse';
 import { authorizeAction } from '@/server/auth/actions';
 import type { TeamSizingState } from '@/components/team/TeamSizingSettings';
 
-
 const bound = INPUT_BOUNDS.minParallelSectionMm2;
-const inputSchema = z.union([z.literal(''), z.coerce.number({ message: `${bound.label} must be a number in mm²` }).pipe(zodBound(z.number(), bound))]);
+const boundSchema = zodBound(z.number(), bound);
 
 export async function setMinParallelSectionAction(_state: TeamSizingState, formData: FormData): Promise<TeamSizingState> {
   const user = await authorizeAction('members:manage');
-  const parsed = inputSchema.safeParse(String(formData.get('minParallelSectionMm2') ?? '').trim());
-  if (!parsed.success) return { fieldError: parsed.error.issues[0]?.message ?? `${bound.label}: not a valid section` };
-  const sectionMm2 = parsed.data === '' ? null : parsed.data;
+  const text = String(formData.get('minParallelSectionMm2') ?? '').trim();
+  let sectionMm2: number | null = null;
+  if (text !== '') {
+    // The one number rule of the app, with the admin's own decimal separator.
+    const read = parseNumber(text, { decimalSeparator: user.decimalSeparator ?? '.', field: bound.label });
+    if (!read.ok) return { fieldError: read.message };
+    const inBounds = boundSchema.safeParse(read.value);
+    if (!inBounds.success) return { fieldError: inBounds.error.issues[0]?.message ?? `${bound.label}: out of bounds` };
+    sectionMm2 = inBounds.data;
+  }
   const before = await teamSizingOptions(user.teamId);
   await getDb().transaction(async (tx) => {
     await setTeamMinParallelSection(user.teamId, sectionMm2, tx);

@@ -11,6 +11,8 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { ColDef, ICellRendererParams, RowClickedEvent, SelectionChangedEvent } from 'ag-grid-community';
 import { DataGrid } from '@/components/grid/DataGrid';
 import type { ResultLine } from '@/lib/schedule';
+import { formatMoney, withCurrency } from '@/lib/units/money';
+import { useNumberFormat } from '@/components/providers/NumberFormatProvider';
 import { fetchProgress, fetchResults, fetchSchedule, fetchSheetBatch, openRowAsSheet, queueScheduleRows, requestSheetsForRows, uploadScheduleFile, type ScheduleDetail } from '../api';
 
 /** Without a stored row for this long, the page says that no worker seems to be running. */
@@ -84,7 +86,7 @@ function UploadStep({ detail, mayWrite }: { detail: ScheduleDetail; mayWrite: bo
               <div className="panel overflow-x-auto" role="region" aria-label="Problems in the file">
                 <table className="w-full text-left text-body">
                   <caption className="px-3 pt-2 text-left font-semibold text-over-dark">✕ Problems — correct the file and upload it again, or leave these rows out</caption>
-                  <thead className="border-b border-ink-100 text-caption uppercase tracking-wide text-ink-500">
+                  <thead className="border-b border-ink-100 text-caption tracking-wide text-ink-500">
                     <tr><th className="px-3 py-2">Row</th><th className="px-3 py-2">Column</th><th className="px-3 py-2">Problem</th></tr>
                   </thead>
                   <tbody>
@@ -103,7 +105,7 @@ function UploadStep({ detail, mayWrite }: { detail: ScheduleDetail; mayWrite: bo
             {previewRows.length > 0 ? (
               <div className="panel max-h-80 overflow-auto" role="region" aria-label="Clean rows">
                 <table className="w-full text-left text-body">
-                  <thead className="sticky top-0 border-b border-ink-100 bg-paper text-caption uppercase tracking-wide text-ink-500">
+                  <thead className="sticky top-0 border-b border-ink-100 bg-paper text-caption tracking-wide text-ink-500">
                     <tr><th className="px-3 py-2">Row</th><th className="px-3 py-2">Circuit</th><th className="px-3 py-2">From → to</th><th className="px-3 py-2 text-right">I_B (A)</th><th className="px-3 py-2 text-right">Length (m)</th><th className="px-3 py-2">Installation</th><th className="px-3 py-2">Family</th></tr>
                   </thead>
                   <tbody>
@@ -261,6 +263,7 @@ function Results({ scheduleId, mayOpenSheet, fileName }: { scheduleId: string; m
     onSuccess: (sheet) => router.push(`/sheets/${sheet.id}`),
   });
 
+  const { currency } = useNumberFormat();
   const columns = useMemo<ColDef<ResultLine>[]>(
     () => [
       { field: 'rowNumber', headerName: 'Row', width: 80, pinned: 'left', cellClass: 'num' },
@@ -287,10 +290,10 @@ function Results({ scheduleId, mayOpenSheet, fileName }: { scheduleId: string; m
       { field: 'smallestDeviceA', headerName: 'Smallest coordinated (A)', type: 'numericColumn', cellClass: 'num', valueFormatter: (p) => fmt(p.value, 0), width: 170 },
       { field: 'lossW', headerName: 'Losses (W)', type: 'numericColumn', cellClass: 'num', valueFormatter: (p) => fmt(p.value, 0), width: 110 },
       { field: 'massKg', headerName: 'Conductor mass (kg)', type: 'numericColumn', cellClass: 'num', valueFormatter: (p) => fmt(p.value, 1), width: 150 },
-      { field: 'materialCost', headerName: 'Material cost', type: 'numericColumn', cellClass: 'num', width: 120 },
+      { field: 'materialCost', headerName: withCurrency('Material cost', currency), type: 'numericColumn', cellClass: 'num', width: 140, valueFormatter: (p) => formatMoney(p.value, currency) },
       { field: 'remark', headerName: 'Remark', width: 320, tooltipField: 'remark' },
     ],
-    [],
+    [currency],
   );
 
   if (results.isPending) return <p role="status" className="text-ink-500">Loading the results…</p>;
@@ -342,7 +345,7 @@ function Results({ scheduleId, mayOpenSheet, fileName }: { scheduleId: string; m
             <dt>Circuits sized</dt><dd className="num text-right">{totals.sized} of {totals.circuits}</dd>
             <dt>Conductor mass</dt><dd className="num text-right">{fmt(totals.massKg, 0)} kg</dd>
             <dt>Losses at design current</dt><dd className="num text-right">{fmt(totals.lossW / 1000, 2)} kW</dd>
-            <dt>Material cost</dt><dd className="num text-right">{totals.materialCost}</dd>
+            <dt>Material cost</dt><dd className="num text-right">{formatMoney(totals.materialCost, currency)}</dd>
           </dl>
           {totals.circuitsWithoutCost > 0 ? <p className="mt-1 text-caption text-ink-600">{totals.circuitsWithoutCost} sized circuits have no price in the catalogue and are not in the cost.</p> : null}
           {totals.failing > 0 ? <p className="mt-1 text-caption text-over-dark">✕ {totals.failing} circuits have no passing size and are not in these totals.</p> : null}

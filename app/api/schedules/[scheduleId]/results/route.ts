@@ -1,4 +1,5 @@
 import { getSchedule, listScheduleResults } from '@/db/queries/schedules';
+import { teamCurrencyOf } from '@/db/queries/members';
 import { EXPORT_CAUTION, resultsTable, tableToCsv, tableToXlsx, totalsOf } from '@/lib/schedule';
 import { toCsv } from '@/lib/files/csv';
 import { apiHandler, ApiError } from '@/server/http/api';
@@ -11,7 +12,7 @@ export const GET = apiHandler({ permission: 'team:read' }, async (req, { user, p
   if (!schedule) throw new ApiError(404, 'not_found', 'No such schedule.');
   const lines = await listScheduleResults(user!.teamId, schedule.id);
   if (format === null) return Response.json({ lines, totals: totalsOf(lines), solverVersion: schedule.solverVersion });
-  const table = resultsTable(lines);
+  const table = resultsTable(lines, await teamCurrencyOf(user!.teamId));
   const base = `${schedule.name} results`;
   if (format === 'csv') {
     // The caution travels with the figures, as the last line of the file.
