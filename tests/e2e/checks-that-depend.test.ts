@@ -3,7 +3,9 @@
 // air inside the enclosure — the figures lib/sheet computeSheet gives for the saved inputs, run
 // here in the test — with the note saying so; (2) an own limit raised above the insulation's
 // rating is a blocker until the designer writes why it is safe, and then a review flag quoting
-// the reason for the reviewer.
+// the reason for the reviewer; (3) a bare bar from the catalogue has its short-circuit check run
+// whenever a fault is entered, at the catalogue's 200 °C (IEC 60865-1 recommendation, from memory)
+// with its source, and the final temperature is the library's for the saved inputs.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { closeDb } from '@/db/client';
@@ -11,7 +13,7 @@ import { createProject } from '@/db/queries/projects';
 import { getSheet } from '@/db/queries/sheets';
 import { copyStandardCatalogueToTeam } from '@/db/seed/catalogue';
 import { computeSheet } from '@/lib/sheet/compute';
-import { formatNumber } from '@/lib/units';
+import { formatNumber, formatQuantity } from '@/lib/units';
 import { addCatalogueCopperBar, createSheetFromProject, signInInBrowser, saveSheet } from './sheet-steps';
 import { launchBrowser, screenshot } from '../helpers/browser';
 import { createTestTeam, createTestUser } from '../helpers/fixtures';
@@ -45,6 +47,17 @@ async function chooseOnlyCandidate(page: Page): Promise<void> {
   await expect.poll(() => page.getByTestId('result-strip').innerText(), { timeout: 30_000 }).toMatch(/Chosen:/);
 }
 
+/** Saves the sheet and evaluates its stored inputs with the library (the figures the page must show). */
+async function saveAndEvaluate(page: Page, sheetId: string) {
+  await saveSheet(page);
+  const stored = (await getSheet(teamId, sheetId))!.inputs;
+  const computed = computeSheet(stored);
+  if (!computed.ok) throw new Error(computed.error.message);
+  const e = computed.comparison.evaluations[0];
+  if (!e.ok) throw new Error(e.error.message);
+  return { stored, e };
+}
+
 describe('results that match the checks they depend on', () => {
   it('with the enclosure check on, the headline is rated in the air inside and says so', async () => {
     const page = await signInInBrowser(browser, designerEmail);
@@ -61,12 +74,7 @@ describe('results that match the checks they depend on', () => {
     await expect.poll(() => page.getByTestId('hot-spot').innerText(), { timeout: 30_000 }).not.toBe(roomHotSpot);
     await screenshot(page, 'depend-01-enclosure-headline');
 
-    await saveSheet(page);
-    const stored = (await getSheet(teamId, sheetId))!.inputs;
-    const computed = computeSheet(stored);
-    if (!computed.ok) throw new Error(computed.error.message);
-    const e = computed.comparison.evaluations[0];
-    if (!e.ok) throw new Error(e.error.message);
+    const { stored, e } = await saveAndEvaluate(page, sheetId);
     expect(e.flags.map((f) => f.code)).toContain('ENCLOSURE_AIR_RATED');
     expect(e.ambientC).toBeGreaterThan(stored.environment.ambientC ?? 0);
     await expect(page.getByTestId('hot-spot').innerText()).resolves.toBe(`${formatNumber(e.hotSpotC!, 4)} °C`);
@@ -105,6 +113,30 @@ describe('results that match the checks they depend on', () => {
     await saveSheet(page);
     const stored = (await getSheet(teamId, sheetId))!.inputs;
     expect(stored.limits).toMatchObject({ temperatureLimitC: 105, raiseMaterialLimit: true, raiseJustification: reason });
+    await page.context().close();
+  });
+
+  it('a bare bar from the catalogue with a fault entered: the short-circuit check runs at the catalogue’s 200 °C with its source, the figure the library gives for the saved inputs', async () => {
+    const page = await signInInBrowser(browser, designerEmail);
+    const sheetId = await createSheetFromProject(page, projectId, { tag: 'BT-DEP3', title: 'Browser test bare bar fault', installation: 'bar-on-edge' });
+    await page.getByTestId('input-design-current').fill('1000');
+    await addCatalogueCopperBar(page, '60 × 10');
+    await page.getByLabel('Check the short-circuit withstand').check();
+    await page.getByTestId('input-fault-current').fill('30');
+    await page.getByLabel(/^Clearing time/).fill('0.5');
+    const checks = page.getByRole('region', { name: 'Losses, voltage drop, short circuit' });
+    await expect.poll(() => checks.innerText(), { timeout: 30_000 }).toContain('Short circuit (IEC 60949 adiabatic)');
+    await expect(checks.innerText()).resolves.toContain(`of ${formatQuantity(200, 'temperature', 'si')}`);
+    await expect(checks.innerText()).resolves.not.toContain('not checked');
+    // The catalogue gave the limit with its source: the library's own default is not flagged.
+    await expect(page.getByTestId('flags-panel').innerText()).resolves.not.toContain('Short-circuit temperature of the bar assumed');
+    await screenshot(page, 'depend-04-bare-bar-fault');
+
+    const { e } = await saveAndEvaluate(page, sheetId);
+    expect(e.shortCircuit.checked).toBe(true);
+    expect(e.shortCircuit.limitC).toBe(200);
+    expect(e.shortCircuit.currentA).toBe(30_000);
+    await expect(checks.innerText()).resolves.toContain(`→ ${formatQuantity(e.shortCircuit.finalC!, 'temperature', 'si')} of ${formatQuantity(200, 'temperature', 'si')}`);
     await page.context().close();
   });
 });

@@ -106,8 +106,8 @@ describe('PDF: the calculation package a licensed engineer signs', () => {
     const all = pages.join(' ');
     const number = documentNumberOf(approved.id);
     expect(number).toMatch(/^AW-[0-9A-F]{8}$/);
-    // The title block's labels are set in capitals.
-    expect(all).toContain(`DOCUMENT NUMBER ${number}`);
+    // The title block's labels are printed as written (never upper-cased: units inside labels must keep their case).
+    expect(all).toContain(`Document number ${number}`);
     for (const page of pages) expect(page).toContain(number);
     expect(all).toContain('Revisions Rev. Status What changed Edited by Submitted by Reviewed by Decision');
     expect(all).toContain(fold(`1 Approved First issue ${designer.name} ${designer.name} ${reviewer.name} Approved`));
