@@ -12,6 +12,8 @@ import { ROW_SCHEMAS, type CatalogueKind } from '@/lib/catalogue/schemas';
 import type { UnitSystem } from '@/lib/units';
 import { ApiFailure, createCatalogueItem } from './api';
 import { headerOf, toStoredValue } from './columnDefs';
+import { useNumberFormat } from '@/components/providers/NumberFormatProvider';
+import type { DecimalSeparator } from '@/lib/units/parse';
 import { useReferenceOptions } from './referenceOptions';
 
 type Errors = Record<string, string>;
@@ -20,14 +22,23 @@ function initialValues(kind: CatalogueKind): Record<string, string> {
   return Object.fromEntries(CATALOGUE_COLUMNS[kind].map((c) => [c.field, c.type === 'enum' && c.required ? (c.options?.[0] ?? '') : '']));
 }
 
-/** What the form sends: typed text → the stored form (SI decimals, whole numbers, empty optional values as null/''). */
-function storedRow(kind: CatalogueKind, values: Record<string, string>, units: UnitSystem): Record<string, unknown> {
+/**
+ * What the form sends: typed text → the stored form (SI decimals, whole numbers, empty optional
+ * values as null/''), read by the one number rule with the user's separator; a number the rule
+ * refuses is returned as that field's message instead.
+ */
+function storedRow(kind: CatalogueKind, values: Record<string, string>, units: UnitSystem, separator: DecimalSeparator): { row: Record<string, unknown>; refusals: Errors } {
   const row: Record<string, unknown> = {};
+  const refusals: Errors = {};
   for (const column of CATALOGUE_COLUMNS[kind]) {
     const typed = values[column.field] ?? '';
-    row[column.field] = column.type === 'decimal' ? toStoredValue(typed.trim(), column, units) : column.type === 'integer' && typed.trim() === '' ? null : typed;
+    if (column.type === 'decimal') {
+      const stored = toStoredValue(typed.trim(), column, units, separator);
+      if ('refusal' in stored) refusals[column.field] = stored.refusal;
+      else row[column.field] = stored.value;
+    } else row[column.field] = column.type === 'integer' && typed.trim() === '' ? null : typed;
   }
-  return row;
+  return { row, refusals };
 }
 
 export function AddItemPanel({ kind, units, onClose, onAdded }: { kind: CatalogueKind; units: UnitSystem; onClose: () => void; onAdded: (key: string) => void }) {
@@ -40,6 +51,7 @@ export function AddItemPanel({ kind, units, onClose, onAdded }: { kind: Catalogu
   const [values, setValues] = useState<Record<string, string>>(() => initialValues(kind));
   const [errors, setErrors] = useState<Errors>({});
   const [failure, setFailure] = useState<string | null>(null);
+  const { decimalSeparator: separator } = useNumberFormat();
 
   const add = useMutation({
     mutationFn: (row: Record<string, unknown>) => createCatalogueItem(kind, row),
@@ -60,11 +72,11 @@ export function AddItemPanel({ kind, units, onClose, onAdded }: { kind: Catalogu
   function submit(event: FormEvent) {
     event.preventDefault();
     setFailure(null);
-    const row = storedRow(kind, values, units);
+    const { row, refusals } = storedRow(kind, values, units, separator);
     const check = ROW_SCHEMAS[kind].safeParse(row);
-    if (!check.success) {
-      const found: Errors = {};
-      for (const issue of check.error.issues) {
+    if (!check.success || Object.keys(refusals).length > 0) {
+      const found: Errors = { ...refusals };
+      for (const issue of check.success ? [] : check.error.issues) {
         const field = String(issue.path[0] ?? '');
         found[field] ??= issue.message;
       }

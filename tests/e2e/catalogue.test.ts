@@ -168,8 +168,8 @@ describe('/catalogue', () => {
     await form.getByLabel('Source of limits').fill('Supplier datasheet');
     await form.getByRole('button', { name: 'Add the covering' }).click();
     await form.getByRole('alert').filter({ hasText: 'correct the fields marked below' }).waitFor();
-    // The import's own message for the same cell ("must be a number (got "abc")"), under the field.
-    await form.getByText('must be a number (got "abc")').waitFor();
+    // The one number rule's message (lib/units/parse, as the grid and the files read numbers), under the field.
+    await form.getByText('Thermal resistivity: abc is not a number').waitFor();
     expect(await form.getByText('Source of emissivity is required').count()).toBe(1);
     expect((await listCoverings(teamId)).some((c) => c.key === 'aramid-e2e')).toBe(false);
     await form.getByLabel(/^Thermal resistivity/).fill('5.5');

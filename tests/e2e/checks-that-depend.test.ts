@@ -14,7 +14,7 @@ import { getSheet } from '@/db/queries/sheets';
 import { copyStandardCatalogueToTeam } from '@/db/seed/catalogue';
 import { computeSheet } from '@/lib/sheet/compute';
 import { formatNumber, formatQuantity } from '@/lib/units';
-import { addCatalogueCopperBar, createSheetFromProject, signInInBrowser, saveSheet } from './sheet-steps';
+import { addCatalogueCopperBar, chooseOnlyCandidate, createSheetFromProject, signInInBrowser, saveSheet } from './sheet-steps';
 import { launchBrowser, screenshot } from '../helpers/browser';
 import { createTestTeam, createTestUser } from '../helpers/fixtures';
 
@@ -38,14 +38,6 @@ afterAll(async () => {
   await closeDb();
 });
 
-/** Chooses the sheet's one candidate (a sheet may already have chosen it). */
-async function chooseOnlyCandidate(page: Page): Promise<void> {
-  const grid = page.getByTestId('candidate-grid');
-  await expect.poll(() => grid.locator('[data-testid^="choose-"], [data-testid^="chosen-"]').count(), { timeout: 30_000 }).toBeGreaterThan(0);
-  const choose = grid.locator('[data-testid^="choose-"]');
-  if ((await choose.count()) > 0) await choose.first().dispatchEvent('click');
-  await expect.poll(() => page.getByTestId('result-strip').innerText(), { timeout: 30_000 }).toMatch(/Chosen:/);
-}
 
 /** Saves the sheet and evaluates its stored inputs with the library (the figures the page must show). */
 async function saveAndEvaluate(page: Page, sheetId: string) {
@@ -64,7 +56,6 @@ describe('results that match the checks they depend on', () => {
     const sheetId = await createSheetFromProject(page, projectId, { tag: 'BT-DEP1', title: 'Browser test enclosed riser', installation: 'bar-on-edge' });
     await page.getByTestId('input-design-current').fill('1000');
     await addCatalogueCopperBar(page, '60 × 10');
-    await chooseOnlyCandidate(page);
     const roomHotSpot = await page.getByTestId('hot-spot').innerText();
 
     const panel = page.getByTestId('enclosure-air');
