@@ -1,4 +1,5 @@
 'use client';
+import { DOCUMENT_UNITS_LINE } from '@/lib/units';
 /**
  * The sizing sheet for a link holder: read-only, from the saved snapshot. The result strip with
  * the flags directly under it, the checks, the heat-balance profile and the hot-spot curves, the
@@ -98,6 +99,7 @@ export function SharedSheetView({ sheet }: { sheet: SharedSheet }) {
           </div>
         ) : null}
         <h2 id="inputs-heading" className="text-body font-semibold">Inputs (SI units)</h2>
+        <p className="text-caption text-ink-500" data-testid="shared-units-line">{DOCUMENT_UNITS_LINE}</p>
         <table className="mt-1 w-full text-caption" data-testid="shared-inputs">
           <tbody>
             {inputs.map((row, i) => (

@@ -5,7 +5,7 @@ import { AllCommunityModule, ModuleRegistry, themeQuartz, type ColDef, type ColG
 import type { CandidateEvaluation } from '@/lib/electrical/sizing/types';
 import type { SheetCandidate } from '@/lib/sheet/candidates';
 import { candidateRecords } from '@/lib/sheet/sheetTables';
-import { convertFromSi, formatNumber, nameInSystem, unitLabel, type UnitSystem } from '@/lib/units';
+import { convertFromSi, formatNumber, KG_PER_POUND, nameInSystem, unitLabel, type UnitSystem } from '@/lib/units';
 import type { CandidateGridColumns } from '@/lib/user/preferences';
 import { formatMoney, withCurrency } from '@/lib/units/money';
 import { useNumberFormat } from '@/components/providers/NumberFormatProvider';
@@ -288,7 +288,7 @@ export function CandidateGrid({
       { group: 'Electrical', applies: hasDevice, def: { colId: 'device', headerName: 'Device and coordination', field: 'device', width: 180, wrapText: true, autoHeight: true, valueFormatter: text, cellRenderer: VerdictCell } },
       { group: 'Electrical', applies: hasDevice, def: { colId: 'smallestDevice', headerName: 'Smallest coordinated (A)', field: 'smallestDeviceA', width: 120, type: 'numericColumn', valueFormatter: num(4) } },
       { group: 'Electrical', applies: hasDevice, def: { colId: 'disconnection', headerName: 'Disconnection (IEC 60364-4-41)', field: 'disconnection', width: 130, valueFormatter: text, cellRenderer: VerdictCell } },
-      { group: 'Cost', applies: true, def: { colId: 'mass', headerName: 'Mass (kg)', field: 'massKg', width: 88, type: 'numericColumn', valueFormatter: num(4) } },
+      { group: 'Cost', applies: true, def: { colId: 'mass', headerName: units === 'si' ? 'Mass (kg)' : 'Mass (lb)', field: 'massKg', width: 88, type: 'numericColumn', valueFormatter: (p) => (p.value === null || p.value === undefined ? '—' : formatNumber(units === 'si' ? p.value : p.value / KG_PER_POUND, 4)) } },
       { group: 'Cost', applies: true, def: { colId: 'cost', headerName: withCurrency('Material cost', currency), field: 'cost', width: 120, type: 'numericColumn', valueFormatter: (p) => formatMoney(p.value, currency) } },
       { group: 'Cost', applies: true, def: { colId: 'lifeCycleCost', headerName: withCurrency('Life-cycle cost', currency), field: 'lifeCycleCost', width: 140, type: 'numericColumn', valueFormatter: (p) => formatMoney(p.value, currency) } },
       { group: 'Review', applies: true, def: { colId: 'flags', headerName: 'Assumption flags', field: 'flags', width: 150, wrapText: true, autoHeight: true, cellRenderer: VerdictCell, headerTooltip: '✖ blocker, ▲ review, i note' } },

@@ -1,11 +1,12 @@
 /**
  * The candidate comparison of a saved sheet as CSV or XLSX, from the stored result snapshot (never
- * from a browser's live numbers): one row per candidate, SI units in the headers, values unrounded.
- * A few lines above the table say which sheet, which solver and that the caution applies.
+ * from a browser's live numbers): one row per candidate, SI units in the headers, amounts rounded
+ * to cents. Lines above the table say which sheet, which solver and that the caution applies, and
+ * list the inputs the candidates were rated for (the PDF's printed inputs, the same rows).
  */
 import ExcelJS from 'exceljs';
 import { CAUTION_TEXT } from '@/lib/caution';
-import { CANDIDATE_EXPORT_COLUMNS, candidateExportHeaders, candidateRecords, formatDate, MONEY_EXPORT_HEADERS } from '@/lib/sheet/sheetTables';
+import { CANDIDATE_EXPORT_COLUMNS, candidateExportHeaders, candidateRecords, formatDate, inputRows, MONEY_EXPORT_HEADERS } from '@/lib/sheet/sheetTables';
 import type { SheetRecord } from '@/db/queries/sheets';
 import { tableCsv, toCsv } from '@/lib/files/csv';
 import { downloadResponse } from '@/server/http/download';
@@ -25,6 +26,11 @@ function aboutLines(sheet: SheetRecord): [string, string][] {
   ];
 }
 
+/** The inputs as the PDF prints them: section, quantity, value, unit. */
+function inputLines(sheet: SheetRecord): string[][] {
+  return [['input section', 'input', 'value', 'unit'], ...inputRows(sheet.inputs, sheet.teamCurrency).map((r) => [r.section, r.label, r.value, r.unit])];
+}
+
 export function candidateTable(sheet: SheetRecord): { headers: string[]; rows: (string | number | null)[][] } {
   const records = candidateRecords(sheet.inputs.candidates, sheet.result);
   return {
@@ -36,7 +42,7 @@ export function candidateTable(sheet: SheetRecord): { headers: string[]; rows: (
 /** The about lines, an empty line, then the table (the shared CSV writer: RFC 4180, formula cells made inert). */
 export function candidatesCsv(sheet: SheetRecord): string {
   const table = candidateTable(sheet);
-  return `${toCsv(aboutLines(sheet))}\r\n\r\n${tableCsv(table.headers, table.rows)}\r\n`;
+  return `${toCsv(aboutLines(sheet))}\r\n\r\n${toCsv(inputLines(sheet))}\r\n\r\n${tableCsv(table.headers, table.rows)}\r\n`;
 }
 
 /** Sheet "Candidates" holds the table alone (so it sorts and filters); sheet "About" the rest. */
@@ -58,6 +64,12 @@ export async function candidatesXlsx(sheet: SheetRecord): Promise<Uint8Array> {
   for (const line of aboutLines(sheet)) about.addRow(line);
   about.getColumn(1).width = 18;
   about.getColumn(2).width = 120;
+  const inputs = workbook.addWorksheet('Inputs');
+  for (const line of inputLines(sheet)) inputs.addRow(line);
+  inputs.getRow(1).font = { bold: true };
+  inputs.columns.forEach((column, i) => {
+    column.width = [18, 40, 24, 10][i] ?? 12;
+  });
   return new Uint8Array(await workbook.xlsx.writeBuffer());
 }
 

@@ -241,6 +241,8 @@ describe('in Chromium', () => {
     expect(await view.getByTestId('hot-spot').innerText()).toMatch(/°C/);
     expect(await view.getByTestId('flags-panel').innerText()).toContain('Ambient temperature assumed');
     expect(await view.getByTestId('shared-review-status').innerText()).toContain('Not approved');
+    // The link says which units it is in, as the PDF does (issue 22).
+    expect(await view.getByTestId('shared-units-line').innerText()).toMatch(/^Units: SI throughout/);
     expect(await view.locator('nav').count()).toBe(0);
     // No field of ours to type into (the grid's and the plot's own internal controls aside) and no form.
     const fields = await view.evaluate(() =>

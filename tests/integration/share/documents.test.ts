@@ -75,11 +75,15 @@ describe('the PDF sizing sheet', () => {
 });
 
 describe('candidate exports', () => {
-  it('CSV: one row per candidate with the saved snapshot’s numbers, unrounded', () => {
+  it('CSV: the inputs, then one row per candidate with the saved snapshot’s numbers (unrounded, for traceability; amounts to cents)', () => {
     const csv = candidatesCsv(sheet);
-    const [about, table] = csv.split('\r\n\r\n');
+    const [about, inputs, table] = csv.split('\r\n\r\n');
     expect(about).toContain(sheet.circuitTag);
     expect(about).toContain(CAUTION_TEXT[2]);
+    // The inputs the candidates were rated for, as the PDF prints them.
+    const inputLines = Papa.parse<string[]>(inputs.trim()).data;
+    expect(inputLines[0]).toEqual(['input section', 'input', 'value', 'unit']);
+    expect(inputLines).toContainEqual(['Circuit', 'Design current', String(sheet.inputs.circuit.designCurrentA), 'A']);
     const parsed = Papa.parse<Record<string, string>>(table.trim(), { header: true, skipEmptyLines: true });
     expect(parsed.errors).toEqual([]);
     expect(parsed.data.map((r) => r['candidate id'])).toEqual(['cu-xlpe-240', 'cu-pvc-50']);
@@ -97,7 +101,7 @@ describe('candidate exports', () => {
     expect(parsed.data[1].state).toMatch(/Over limit/);
   });
 
-  it('XLSX: the same table on the "Candidates" sheet, the about lines on "About"', async () => {
+  it('XLSX: the same table on the "Candidates" sheet, the about lines on "About", the inputs on "Inputs"', async () => {
     const workbook = new ExcelJS.Workbook();
     await workbook.xlsx.load((await candidatesXlsx(sheet)) as never);
     const grid = workbook.getWorksheet('Candidates')!;
@@ -110,5 +114,7 @@ describe('candidate exports', () => {
     expect(grid.getRow(2).getCell(col('section per phase (mm²)')).value).toBe(240);
     const about = workbook.getWorksheet('About')!;
     expect(String(about.getRow(1).getCell(2).value)).toContain(sheet.circuitTag);
+    const inputs = workbook.getWorksheet('Inputs')!;
+    expect((inputs.getRow(2).values as unknown[]).slice(1)).toEqual(['Circuit', 'Design current', String(sheet.inputs.circuit.designCurrentA), 'A']);
   });
 });
