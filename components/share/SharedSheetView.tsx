@@ -1,5 +1,6 @@
 'use client';
 import { DOCUMENT_UNITS_LINE } from '@/lib/units';
+import { inputWarnings } from '@/lib/sheet/inputWarnings';
 /**
  * The sizing sheet for a link holder: read-only, from the saved snapshot. The result strip with
  * the flags directly under it, the checks, the heat-balance profile and the hot-spot curves, the
@@ -115,6 +116,11 @@ export function SharedSheetView({ sheet }: { sheet: SharedSheet }) {
           </tbody>
         </table>
         {sheet.inputs.notes.trim() ? <p className="mt-2 whitespace-pre-line text-caption text-ink-700">Designer’s notes: {sheet.inputs.notes}</p> : null}
+        {inputWarnings(sheet.inputs).map((w) => (
+          <p key={w.field} className="mt-2 text-caption text-tight-dark" data-testid="shared-input-warning">
+            ▲ Input warning — {w.message}
+          </p>
+        ))}
       </aside>
 
       <div className="min-w-0 space-y-3">

@@ -14,6 +14,7 @@ import type { AssumptionFlag } from '@/lib/electrical/sizing/flags';
 import { chosenEvaluation, savedOptionalChecks, type ResultSnapshot } from '@/lib/sheet/snapshot';
 import { STATUS_LABELS, type SheetStatus } from '@/lib/sheet/stateMachine';
 import type { SheetInputs } from '@/lib/sheet/schema';
+import { inputWarnings } from '@/lib/sheet/inputWarnings';
 import type { CalculationPackage } from '@/lib/sheet/records';
 import { DOCUMENT_UNITS_LINE, formatNumber } from '@/lib/units';
 import { PDF_FONT_FAMILY, pdfSafeText as safe } from './fonts';
@@ -419,6 +420,9 @@ export function SizingSheetDocument({ sheet, generatedAt = new Date() }: { sheet
           rows={inputs.map((r) => [r.section, r.label, r.value, r.unit])}
         />
         {sheet.inputs.notes.trim() ? <Text style={{ marginTop: 4 }}>{safe(`Designer's notes: ${sheet.inputs.notes.trim()}`)}</Text> : null}
+        {inputWarnings(sheet.inputs).map((w) => (
+          <Text key={w.field} style={{ marginTop: 3, color: TIGHT.text }}>{safe(`Input warning — ${w.message}`)}</Text>
+        ))}
 
         <OptionalChecksSection inputs={sheet.inputs} snapshot={snapshot} />
 

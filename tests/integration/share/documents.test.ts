@@ -74,6 +74,16 @@ describe('the PDF sizing sheet', () => {
   });
 });
 
+describe('input warnings reach the reviewer', () => {
+  it('a DC sheet (0 Hz) prints the input warning in the PDF, from the saved inputs (lib/sheet/inputWarnings)', async () => {
+    const dc: SheetRecord = { ...sheet, inputs: { ...sheet.inputs, circuit: { ...sheet.inputs.circuit, frequencyHz: 0 } } };
+    const text = (await pagesOf(await renderSheetPdf(dc))).join(' ');
+    expect(text).toContain('Input warning — Frequency 0 Hz: the circuit is taken as DC');
+    const ac = (await pagesOf(await renderSheetPdf(sheet))).join(' ');
+    expect(ac).not.toContain('Input warning');
+  });
+});
+
 describe('candidate exports', () => {
   it('CSV: the inputs, then one row per candidate with the saved snapshot’s numbers (unrounded, for traceability; amounts to cents)', () => {
     const csv = candidatesCsv(sheet);
