@@ -94,6 +94,9 @@ describe('candidate exports', () => {
     const inputLines = Papa.parse<string[]>(inputs.trim()).data;
     expect(inputLines[0]).toEqual(['input section', 'input', 'value', 'unit']);
     expect(inputLines).toContainEqual(['Circuit', 'Design current', String(sheet.inputs.circuit.designCurrentA), 'A']);
+    // No cell of any block starts a spreadsheet formula (OWASP CSV injection; negative numbers aside).
+    const everyCell = Papa.parse<string[]>(csv, { skipEmptyLines: true }).data.flat();
+    expect(everyCell.filter((cell) => /^[=+\-@\t\r]/.test(cell) && !/^[+-]?\d/.test(cell))).toEqual([]);
     const parsed = Papa.parse<Record<string, string>>(table.trim(), { header: true, skipEmptyLines: true });
     expect(parsed.errors).toEqual([]);
     expect(parsed.data.map((r) => r['candidate id'])).toEqual(['cu-xlpe-240', 'cu-pvc-50']);
