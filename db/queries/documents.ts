@@ -8,9 +8,9 @@ import { and, desc, eq, gt, inArray, isNotNull, isNull, lt, ne, sql } from 'driz
 import { getDb, type Executor } from '../client';
 import { projects, schedules, sheets, users } from '../schema';
 import { recordAudit } from './audit';
-import { getSheet, isUuid, recordContribution } from './sheets';
-import { buildSnapshot, SHEET_SCHEMA_VERSION, type SheetStatus } from '../../lib/sheet';
-import type { Role } from '../../lib/auth/permissions';
+import { createSheet, getSheet, isUuid } from './sheets';
+import type { SheetStatus } from '../../lib/sheet';
+import { can, type Role } from '../../lib/auth/permissions';
 import {
   DELETE_RETENTION_DAYS,
   duplicateName,
@@ -115,36 +115,22 @@ export async function renameDocument(teamId: string, actor: DocumentActor, kind:
 // ── duplicate ──────────────────────────────────────────────────────────────────────────────────
 
 /** A new draft from a sheet's inputs: revision 1, no review history, naming where it came from. */
+/** A new draft of the sheet's newest inputs in `projectId`, through createSheet (recomputed by today's solver: the copy is a new document, not the origin's reviewed result). */
 async function copySheetInto(tx: Executor, teamId: string, actor: DocumentActor, sheetId: string, projectId: string) {
   const origin = await getSheet(teamId, sheetId, tx);
   if (!origin) throw notFound('sheet');
-  // Recomputed by today's solver: the copy is a new document, not the origin's reviewed result.
-  const snapshot = buildSnapshot(origin.inputs);
-  const [created] = await tx
-    .insert(sheets)
-    .values({
-      teamId,
+  const created = await createSheet(
+    teamId,
+    { userId: actor.userId, can: (permission) => can(actor.role, permission) },
+    {
       projectId,
       circuitTag: origin.circuitTag,
       title: duplicateSheetTitle(origin.title, origin.revision),
       inputs: origin.inputs,
-      result: snapshot,
-      schemaVersion: SHEET_SCHEMA_VERSION,
-      solverVersion: snapshot.solverVersion,
-      authorId: actor.userId,
-      duplicatedFromId: origin.id,
-      duplicatedFromRevision: origin.revision,
-    })
-    .returning({ id: sheets.id, title: sheets.title });
-  await recordContribution(tx, teamId, created.id, actor.userId, 'edited');
-  await recordAudit(tx, {
-    teamId,
-    actorId: actor.userId,
-    action: 'sheet.create',
-    entity: 'sheet',
-    entityId: created.id,
-    detail: { duplicateOf: origin.id, fromRevision: origin.revision, circuitTag: origin.circuitTag, title: created.title },
-  });
+      duplicatedFrom: { id: origin.id, revision: origin.revision },
+    },
+    tx,
+  );
   await recordAudit(tx, { teamId, actorId: actor.userId, action: 'sheet.duplicate', entity: 'sheet', entityId: origin.id, detail: { copyId: created.id, projectId } });
   return created;
 }

@@ -209,6 +209,8 @@ export interface NewSheet {
   circuitTag: string;
   title: string;
   inputs: SheetInputs;
+  /** A duplicate names its origin (issue 23); its history starts fresh. */
+  duplicatedFrom?: { id: string; revision: number };
 }
 
 /** `within`: the caller's transaction (the sheet is then made in a savepoint of it, e.g. with a batch item). */
@@ -234,8 +236,9 @@ export async function createSheet(teamId: string, actor: Actor, input: NewSheet,
         schemaVersion: SHEET_SCHEMA_VERSION,
         solverVersion: snapshot.solverVersion,
         authorId: actor.userId,
+        ...(input.duplicatedFrom ? { duplicatedFromId: input.duplicatedFrom.id, duplicatedFromRevision: input.duplicatedFrom.revision } : {}),
       })
-      .returning({ id: sheets.id, version: sheets.version });
+      .returning({ id: sheets.id, version: sheets.version, title: sheets.title });
     await recordContribution(tx, teamId, sheet.id, actor.userId, 'edited');
     await tx.update(projects).set({ updatedAt: new Date() }).where(eq(projects.id, input.projectId));
     await recordAudit(tx, {
@@ -244,7 +247,11 @@ export async function createSheet(teamId: string, actor: Actor, input: NewSheet,
       action: 'sheet.create',
       entity: 'sheet',
       entityId: sheet.id,
-      detail: { circuitTag: input.circuitTag, title: input.title },
+      detail: {
+        ...(input.duplicatedFrom ? { duplicateOf: input.duplicatedFrom.id, fromRevision: input.duplicatedFrom.revision } : {}),
+        circuitTag: input.circuitTag,
+        title: input.title,
+      },
     });
     return sheet;
   });
