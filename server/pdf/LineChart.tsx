@@ -7,11 +7,10 @@ import { G, Line, Polyline, Svg, Text } from '@react-pdf/renderer';
 import type { PackagePlot } from '@/lib/sheet/packagePlots';
 import { formatNumber } from '@/lib/units';
 import { pdfSafeText } from './fonts';
-import { niceTicks } from './ProfileChart';
+import { ChartAxes, niceTicks } from './ProfileChart';
 
 const INK = '#233040';
 const MUTED = '#4f6278';
-const GRID = '#dde3ea';
 const LIMIT = '#a8402b';
 const LINES = ['#2f3d4f', '#9a5a2e', '#17776f', '#6b4a06'];
 
@@ -34,24 +33,7 @@ export function LineChart({ plot, widthPt = 523, heightPt = 190 }: { plot: Packa
   const y = (v: number) => margin.top + plotH - ((v - yMin) / (yMax - yMin)) * plotH;
   return (
     <Svg width={widthPt} height={heightPt} viewBox={`0 0 ${widthPt} ${heightPt}`}>
-      {yTicks.map((t) => (
-        <G key={`y${t}`}>
-          <Line x1={margin.left} x2={margin.left + plotW} y1={y(t)} y2={y(t)} stroke={GRID} strokeWidth={0.5} />
-          <Text x={margin.left - 5} y={y(t) + 2.2} textAnchor="end" style={{ fontSize: 7 }} fill={INK}>
-            {formatNumber(t, 4)}
-          </Text>
-        </G>
-      ))}
-      {xTicks.map((t) => (
-        <G key={`x${t}`}>
-          <Line x1={x(t)} x2={x(t)} y1={margin.top + plotH} y2={margin.top + plotH + 3} stroke={INK} strokeWidth={0.7} />
-          <Text x={x(t)} y={margin.top + plotH + 11} textAnchor="middle" style={{ fontSize: 7 }} fill={INK}>
-            {formatNumber(t, 4)}
-          </Text>
-        </G>
-      ))}
-      <Line x1={margin.left} x2={margin.left} y1={margin.top} y2={margin.top + plotH} stroke={INK} strokeWidth={0.8} />
-      <Line x1={margin.left} x2={margin.left + plotW} y1={margin.top + plotH} y2={margin.top + plotH} stroke={INK} strokeWidth={0.8} />
+      <ChartAxes margin={margin} plotW={plotW} plotH={plotH} xTicks={xTicks} yTicks={yTicks} x={x} y={y} />
       {plot.limitC !== null ? (
         <G>
           <Line x1={margin.left} x2={margin.left + plotW} y1={y(plot.limitC)} y2={y(plot.limitC)} stroke={LIMIT} strokeWidth={1.1} strokeDasharray="4,3" />

@@ -27,6 +27,49 @@ export function niceTicks(min: number, max: number, count = 5): number[] {
   return ticks;
 }
 
+/** Grid lines, ticks with their figures, and the two axes of a chart in the calculation package (one drawing for every chart). */
+export function ChartAxes({
+  margin,
+  plotW,
+  plotH,
+  xTicks,
+  yTicks,
+  x,
+  y,
+}: {
+  margin: { left: number; top: number };
+  plotW: number;
+  plotH: number;
+  xTicks: number[];
+  yTicks: number[];
+  x: (v: number) => number;
+  y: (v: number) => number;
+}) {
+  return (
+    <G>
+      {yTicks.map((t) => (
+        <G key={`y${t}`}>
+          <Line x1={margin.left} x2={margin.left + plotW} y1={y(t)} y2={y(t)} stroke={GRID} strokeWidth={0.5} />
+          <Line x1={margin.left - 3} x2={margin.left} y1={y(t)} y2={y(t)} stroke={INK} strokeWidth={0.7} />
+          <Text x={margin.left - 5} y={y(t) + 2.2} textAnchor="end" style={{ fontSize: 7 }} fill={INK}>
+            {formatNumber(t, 4)}
+          </Text>
+        </G>
+      ))}
+      {xTicks.map((t) => (
+        <G key={`x${t}`}>
+          <Line x1={x(t)} x2={x(t)} y1={margin.top + plotH} y2={margin.top + plotH + 3} stroke={INK} strokeWidth={0.7} />
+          <Text x={x(t)} y={margin.top + plotH + 11} textAnchor="middle" style={{ fontSize: 7 }} fill={INK}>
+            {formatNumber(t, 4)}
+          </Text>
+        </G>
+      ))}
+      <Line x1={margin.left} x2={margin.left} y1={margin.top} y2={margin.top + plotH} stroke={INK} strokeWidth={0.8} />
+      <Line x1={margin.left} x2={margin.left + plotW} y1={margin.top + plotH} y2={margin.top + plotH} stroke={INK} strokeWidth={0.8} />
+    </G>
+  );
+}
+
 /**
  * `soil`: a buried cable's surroundings, drawn beyond its surface as a band not to scale (the
  * external resistance T₄ is a logarithm of the depth, not a layer of the radius) with the fall
@@ -96,25 +139,7 @@ export function ProfileChart({
           </Text>
         </G>
       ) : null}
-      {yTicks.map((t) => (
-        <G key={`y${t}`}>
-          <Line x1={margin.left} x2={margin.left + plotW} y1={y(t)} y2={y(t)} stroke={GRID} strokeWidth={0.5} />
-          <Line x1={margin.left - 3} x2={margin.left} y1={y(t)} y2={y(t)} stroke={INK} strokeWidth={0.7} />
-          <Text x={margin.left - 5} y={y(t) + 2.2} textAnchor="end" style={{ fontSize: 7 }} fill={INK}>
-            {formatNumber(t, 4)}
-          </Text>
-        </G>
-      ))}
-      {xTicks.map((t) => (
-        <G key={`x${t}`}>
-          <Line x1={x(t)} x2={x(t)} y1={margin.top + plotH} y2={margin.top + plotH + 3} stroke={INK} strokeWidth={0.7} />
-          <Text x={x(t)} y={margin.top + plotH + 11} textAnchor="middle" style={{ fontSize: 7 }} fill={INK}>
-            {formatNumber(t, 4)}
-          </Text>
-        </G>
-      ))}
-      <Line x1={margin.left} x2={margin.left} y1={margin.top} y2={margin.top + plotH} stroke={INK} strokeWidth={0.8} />
-      <Line x1={margin.left} x2={margin.left + plotW} y1={margin.top + plotH} y2={margin.top + plotH} stroke={INK} strokeWidth={0.8} />
+      <ChartAxes margin={margin} plotW={plotW} plotH={plotH} xTicks={xTicks} yTicks={yTicks} x={x} y={y} />
       <Line x1={margin.left} x2={margin.left + plotW} y1={y(limitC)} y2={y(limitC)} stroke={LIMIT} strokeWidth={1.1} strokeDasharray="4,3" />
       <Text x={margin.left + plotW - 2} y={y(limitC) - 3} textAnchor="end" style={{ fontSize: 7 }} fill={LIMIT}>
         {pdfSafeText(`limit ${formatNumber(limitC, 4)} °C (${limitLabel})`)}
