@@ -215,7 +215,7 @@ function cableModel(c: PreparedCable, k: PreparedConditions, group?: CableGroup,
       currentA: 0,
       // The neutral's heat under third harmonics rides on the equivalent conductor (the
       // multi-core heat path already puts it in the right core).
-      r20OhmPerM: (c.r20 * c.neutralHeatFactor) / n,
+      r20OhmPerM: (c.r20 * (n + c.neutralHeatShare)) / (n * n),
       alpha20PerK: c.alpha20,
       acFactor: 1,
       conductorConductivity: c.constants.thermalConductivityWPerMK,

@@ -213,7 +213,7 @@ function prepareCable(cand: CableCandidate, p: CommonPrep): PreparedCable {
     costs: cand.costs,
     cores,
     loadedCores,
-    neutralHeatFactor: (loadedCores + neutralShare) / loadedCores,
+    neutralHeatShare: neutralShare,
     conductorDiameterM: dc,
     outerDiameterM,
     ...(ks !== undefined ? { ks } : {}),

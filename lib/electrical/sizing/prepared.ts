@@ -93,11 +93,11 @@ export interface PreparedCable extends PreparedCommon {
   /** Loaded cores, modelled as one equivalent conductor. */
   loadedCores: number;
   /**
-   * The cable's heat over its loaded cores' (1 without harmonics): with third harmonics the
-   * neutral of a four- or five-core cable adds (3·h₃)² of a phase core's heat (IEC 60364-5-52
+   * The neutral's heat over one phase core's (0 without harmonics): with third harmonics the
+   * neutral of a four- or five-core cable gives off (3·h₃)² of a phase core's heat (IEC 60364-5-52
    * Annex E currents), carried by the equivalent conductor as a higher resistance.
    */
-  neutralHeatFactor: number;
+  neutralHeatShare: number;
   conductorDiameterM: number;
   outerDiameterM: number;
   ks?: number;

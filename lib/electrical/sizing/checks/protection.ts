@@ -124,7 +124,7 @@ export function harmonicsCheck(ctx: SizingContext, ampacityA: number): HarmonicC
     return null;
   }
   const r = harmonicNeutralSizing({ designCurrentA: cond.designCurrentA, thirdHarmonicFraction: h, cores: cand.cores });
-  const neutralHeatShare = (cand.neutralHeatFactor - 1) * cand.loadedCores;
+  const neutralHeatShare = cand.neutralHeatShare;
   const ratingThreeLoadedCoresA =
     neutralHeatShare > 0 ? ampacityCheck(sizingContext(cand.source, { ...cond, thirdHarmonicFraction: 0 }, cand.index, new FlagSet())).current : ampacityA;
   const annexEPasses = r.sizingCurrentA <= ratingThreeLoadedCoresA;
