@@ -172,7 +172,7 @@ function main(): void {
   }
   console.log('Ampacity (400 cases: cables in air/buried/sun/wind, bars on edge/flat)');
   console.log(`  solves per ampacity: median ${median(solves)}, 95th percentile ${percentile(solves, 0.95)}, max ${Math.max(...solves)} (target ≤ 30)`);
-  console.log(`  root-finder rootEvaluations per ampacity (each one current tried): median ${median(rootEvaluations)}, 95th percentile ${percentile(rootEvaluations, 0.95)}, max ${Math.max(...rootEvaluations)}`);
+  console.log(`  root-finder evaluations per ampacity (each one current tried): median ${median(rootEvaluations)}, 95th percentile ${percentile(rootEvaluations, 0.95)}, max ${Math.max(...rootEvaluations)}`);
   for (const [kind, e] of byKind) {
     console.log(
       `    ${kind.padEnd(14)} ${String(e.solves.length).padStart(3)} cases: evaluations median ${median(e.rootEvaluations)} / max ${Math.max(...e.rootEvaluations)}, 1-D solves median ${median(e.solves)} / max ${Math.max(...e.solves)}, ${median(e.ms).toFixed(2)} ms median wall`,
