@@ -30,9 +30,10 @@ export const apiTokens = pgTable(
 );
 
 /**
- * The store of rate-limiter-flexible's RateLimiterPostgres for per-token request limits (columns
- * exactly as that library expects), shared by every app instance; created by the migration so
- * that no request races to create it.
+ * Per-token request counts, one row per token and one-minute window (db/queries/apiTokens.ts
+ * authoriseTokenRequest counts them; the columns keep the layout of rate-limiter-flexible's
+ * Postgres store, which counted them first), shared by every app instance. UNLOGGED (migration
+ * 0016, which drizzle's schema cannot express): counts of one-minute windows need no crash safety.
  */
 export const apiTokenLimits = pgTable('api_token_limits', {
   key: varchar('key', { length: 255 }).primaryKey(),

@@ -13,11 +13,11 @@
  */
 import type { NextRequest } from 'next/server';
 import { ElectricalInputError, SizingError } from '@/lib/electrical';
-import { toDotPath } from '@/lib/api/finite';
-import { LAST_USED_RESOLUTION_MS, findTokenByHash, touchApiToken, type ApiTokenScope, type TokenPrincipal } from '@/db/queries/apiTokens';
+import { toDotPath, toWire } from '@/lib/api/finite';
+import { authoriseTokenRequest, type ApiTokenScope, type TokenPrincipal } from '@/db/queries/apiTokens';
 import { ApiError, errorResponse } from '@/server/http/errors';
 import { hashApiToken, looksLikeApiToken } from './tokens';
-import { consumeTokenRequest, type TokenRateState } from './limiter';
+import { rateState, type TokenRateState } from './limiter';
 
 export interface TokenApiContext {
   token: TokenPrincipal;
@@ -34,19 +34,36 @@ function rateHeaders(rate: TokenRateState): Record<string, string> {
   return { 'x-ratelimit-limit': String(rate.limit), 'x-ratelimit-remaining': String(rate.remaining), 'x-ratelimit-reset': String(rate.resetS) };
 }
 
-/** The token of the request, or an ApiError saying why not. */
-export async function authenticateToken(req: Request): Promise<TokenPrincipal> {
+/** The token in the Authorization header, or an ApiError saying what is wrong with the header. */
+function bearerTokenOf(req: Request): string {
   const header = req.headers.get('authorization');
   if (!header) throw new ApiError(401, 'unauthenticated', 'Send a team API token: Authorization: Bearer <token>. Admins create tokens under Admin → API tokens.');
   const match = /^Bearer\s+(\S+)\s*$/i.exec(header);
   if (!match) throw new ApiError(401, 'unauthenticated', 'The Authorization header must read "Bearer <token>".');
-  const token = match[1];
-  if (!looksLikeApiToken(token)) throw new ApiError(401, 'unauthenticated', 'This is not an Ampwarden API token.');
-  const found = await findTokenByHash(hashApiToken(token));
-  if (found.state === 'revoked') throw new ApiError(401, 'token_revoked', 'This API token has been revoked; ask an admin of your team for a new one.');
-  if (found.state === 'expired') throw new ApiError(401, 'token_expired', 'This API token has expired; ask an admin of your team for a new one.');
-  if (found.state !== 'active') throw new ApiError(401, 'unauthenticated', 'Unknown API token.');
-  return found.principal;
+  if (!looksLikeApiToken(match[1])) throw new ApiError(401, 'unauthenticated', 'This is not an Ampwarden API token.');
+  return match[1];
+}
+
+/**
+ * Authenticates the request's token, checks its scope and counts the request against the token's
+ * rate — one database round trip (db/queries/apiTokens.ts authoriseTokenRequest). Throws an
+ * ApiError (401, 403) when the request may not go on; a request over the rate comes back with
+ * `rate.allowed` false.
+ */
+export async function authoriseRequest(req: Request, scope: ApiTokenScope): Promise<{ token: TokenPrincipal; rate: TokenRateState }> {
+  const found = await authoriseTokenRequest(hashApiToken(bearerTokenOf(req)), scope);
+  switch (found.state) {
+    case 'revoked':
+      throw new ApiError(401, 'token_revoked', 'This API token has been revoked; ask an admin of your team for a new one.');
+    case 'expired':
+      throw new ApiError(401, 'token_expired', 'This API token has expired; ask an admin of your team for a new one.');
+    case 'unknown':
+      throw new ApiError(401, 'unauthenticated', 'Unknown API token.');
+    case 'missing_scope':
+      throw new ApiError(403, 'forbidden', `This API token lacks the ${scope} scope; an admin can create one that has it.`);
+    case 'active':
+      return { token: found.principal, rate: rateState(found.principal.requestsPerMinute, found.window) };
+  }
 }
 
 /** Maps the calculation library's own errors; everything else goes to the shared mapping. */
@@ -67,17 +84,20 @@ export function calculationErrorResponse(error: unknown, fieldPrefix?: { from: s
 }
 
 /**
- * A result holding NaN or ±Infinity is never sent (JSON would turn it into null, read as "no
- * value"). It happens only at the degenerate edge of a method — a limit a hair above the starting
+ * The JSON answer of a calculation route, through lib/api toWire: every number to nine significant
+ * digits, and never a result holding NaN or ±Infinity (JSON would turn it into null, read as "no
+ * value"). That happens only at the degenerate edge of a method — a limit a hair above the starting
  * temperature, say — so the caller gets 422 naming the value, and the server log keeps the case
  * for the library's authors.
  */
-export function nonFiniteResult(resultPath: string): ApiError {
-  console.warn(`ampwarden: non-finite number in a calculation result at ${resultPath}`);
-  return new ApiError(
+export function calculationJson(answer: object): Response {
+  const wire = toWire(answer);
+  if (wire.ok) return Response.json(wire.value);
+  console.warn(`ampwarden: non-finite number in a calculation result at ${wire.path}`);
+  throw new ApiError(
     422,
     'no_finite_result',
-    `The calculation gave no finite value for ${resultPath}; the inputs lie at the edge of the method (for example a limit equal to the starting temperature). Check them.`,
+    `The calculation gave no finite value for ${wire.path}; the inputs lie at the edge of the method (for example a limit equal to the starting temperature). Check them.`,
   );
 }
 
@@ -90,22 +110,17 @@ export function tokenApiHandler(
     try {
       let token: TokenPrincipal;
       try {
-        token = await authenticateToken(req);
+        ({ token, rate } = await authoriseRequest(req, options.scope));
       } catch (error) {
         if (error instanceof ApiError && error.status === 401) return withHeaders(errorResponse(error), UNAUTHENTICATED_HEADERS);
         throw error;
       }
-      if (!token.scopes.includes(options.scope)) {
-        throw new ApiError(403, 'forbidden', `This API token lacks the ${options.scope} scope; an admin can create one that has it.`);
-      }
-      rate = await consumeTokenRequest(token.tokenId, token.requestsPerMinute);
       if (!rate.allowed) {
         return withHeaders(
           errorResponse(new ApiError(429, 'rate_limited', `This token may make ${rate.limit} requests a minute; try again in ${rate.resetS} s.`)),
           { ...rateHeaders(rate), 'retry-after': String(rate.resetS) },
         );
       }
-      if (!token.lastUsedAt || Date.now() - token.lastUsedAt.getTime() > LAST_USED_RESOLUTION_MS) await touchApiToken(token.tokenId);
       const response = await handler(req, { token });
       return withHeaders(response, rateHeaders(rate));
     } catch (error) {

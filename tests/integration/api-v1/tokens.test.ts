@@ -143,4 +143,36 @@ describe('bearer authentication on /api/v1', () => {
     const rows = await getDb().execute(sql`select points from api_token_limits where key like ${'apitoken:%'}`);
     expect(rows.rows.length).toBeGreaterThan(0);
   });
+
+  it('the window: remaining counts down, a new minute starts afresh, and refused requests (revoked, wrong scope) are not counted', async () => {
+    const created = await createTeamApiToken(teamId, adminId, { name: 'Window check', scopes: ['read'], requestsPerMinute: 5 });
+    const key = `apitoken:${created.id}`;
+    const points = async () => (await getDb().execute<{ points: number }>(sql`select points from api_token_limits where key = ${key}`)).rows[0]?.points ?? null;
+    const first = await ENDPOINTS.flags(getRequest('flags', created.token));
+    const second = await ENDPOINTS.flags(getRequest('flags', created.token));
+    expect([first.headers.get('x-ratelimit-remaining'), second.headers.get('x-ratelimit-remaining')]).toEqual(['4', '3']);
+    const resetS = Number(second.headers.get('x-ratelimit-reset'));
+    expect(resetS).toBeGreaterThanOrEqual(59);
+    expect(resetS).toBeLessThanOrEqual(60);
+    // A request on a scope the token lacks is refused before it is counted.
+    expect((await ENDPOINTS.evaluate(jsonRequest('evaluate', created.token, EXAMPLE_EVALUATE_REQUEST))).status).toBe(403);
+    expect(await points()).toBe(2);
+    // The window ended (moved into the past): the next request starts a new one at 1.
+    await getDb().execute(sql`update api_token_limits set expire = expire - 61000 where key = ${key}`);
+    const fresh = await ENDPOINTS.flags(getRequest('flags', created.token));
+    expect(fresh.headers.get('x-ratelimit-remaining')).toBe('4');
+    expect(await points()).toBe(1);
+    // A revoked token is refused and not counted.
+    await revokeApiToken(teamId, adminId, created.id);
+    expect((await ENDPOINTS.flags(getRequest('flags', created.token))).status).toBe(401);
+    expect(await points()).toBe(1);
+  });
+
+  it('concurrent requests are counted exactly: 24 at once on a rate of 10 → 10 answered, 14 refused with 429', async () => {
+    const created = await createTeamApiToken(teamId, adminId, { name: 'Burst check', scopes: ['read'], requestsPerMinute: 10 });
+    const answers = await Promise.all(Array.from({ length: 24 }, () => ENDPOINTS.flags(getRequest('flags', created.token))));
+    const statuses = answers.map((answer) => answer.status);
+    expect(statuses.filter((status) => status === 200)).toHaveLength(10);
+    expect(statuses.filter((status) => status === 429)).toHaveLength(14);
+  });
 });
