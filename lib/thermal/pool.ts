@@ -71,10 +71,36 @@ class FreshArrays implements Scratch {
   release(): void {}
 }
 
+/** One new buffer, handed out as consecutive views: storage that outlives a solve, in one allocation. */
+class Slab implements ArraySource {
+  private readonly buffer: Float64Array;
+  private offset = 0;
+
+  constructor(size: number) {
+    this.buffer = new Float64Array(size);
+  }
+
+  take(length: number): Float64Array {
+    const start = this.offset;
+    this.offset += length;
+    // Past the planned size (a caller that asks for more than it sized), fall back to a fresh array.
+    if (this.offset > this.buffer.length) return new Float64Array(length);
+    return this.buffer.subarray(start, this.offset);
+  }
+}
+
 const shared = new SharedScratch();
 
 /** Fresh zero-filled arrays each time: for storage that outlives one solve. */
 export const freshArrays: ArraySource = new FreshArrays();
+
+/**
+ * Zero-filled arrays for storage that outlives one solve (a prepared problem), carved out of one
+ * buffer of `size` doubles: one backing store for the garbage collector instead of some twenty.
+ */
+export function slabArrays(size: number): ArraySource {
+  return new Slab(size);
+}
 
 /** Room for `size` doubles, zero-filled, taken in order; call `release` when the solve is done. */
 export function borrowScratch(size: number): Scratch {

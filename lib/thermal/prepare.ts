@@ -7,11 +7,11 @@
  * `prepare(problem).at(I, F)` gives the SteadyResult that solveSteady gives for the problem with
  * source.current = I and source.acFactor = F — the same code path, so the same numbers.
  */
-import { createContext, withProblem, type SolverContext } from './assembly';
+import { contextStoreSize, createContext, withProblem, type SolverContext } from './assembly';
 import { ThermalInputError } from './errors';
 import { iterate } from './iterate';
 import type { NormalizedBoundary, NormalizedProblem } from './normalized';
-import { freshArrays, type ArraySource } from './pool';
+import { slabArrays, type ArraySource } from './pool';
 import { steadyStart, undrivenTemperature } from './reference';
 import { convergedResult, peakPosition, unboundedResult } from './results';
 import {
@@ -83,7 +83,7 @@ function surroundingsGiven(boundary: unknown): boolean {
 export function preparedFrom(
   normalized: NormalizedProblem,
   surroundingsExplicit: { inner: boolean; outer: boolean } = { inner: false, outer: false },
-  arrays: ArraySource = freshArrays,
+  arrays: ArraySource = slabArrays(contextStoreSize(normalized)),
 ): PreparedProblem {
   return new Prepared(createContext(normalized, undefined, arrays), surroundingsExplicit);
 }
