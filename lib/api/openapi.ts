@@ -9,6 +9,7 @@ import { API_VERSION, DEFAULT_REQUESTS_PER_MINUTE, MAX_CANDIDATES_PER_REQUEST, M
 import { ampacityRequestSchema, evaluateRequestSchema } from './schemas';
 import { EXAMPLE_AMPACITY_REQUEST, EXAMPLE_BURIED_GROUP_REQUEST, EXAMPLE_BUSBAR_SYSTEM_REQUEST, EXAMPLE_EVALUATE_REQUEST } from './examples';
 import { ampacityResponseSchema, errorResponseSchema, evaluateResponseSchema, flagsResponseSchema } from './responses';
+import { WIRE_SIGNIFICANT_DIGITS } from './finite';
 
 type JsonObject = Record<string, unknown>;
 
@@ -64,7 +65,7 @@ export function buildOpenApiDocument(): JsonObject {
       version: API_VERSION,
       description: [
         'Size bus bars and cables by their heating from your own tools: the same heat-balance solver, flags and checks as the Ampwarden sizing sheet.',
-        'All quantities are SI (A, V, m, mm², °C, K·m/W, Ω/m); the unit is part of every field name.',
+        `All quantities are SI (A, V, m, mm², °C, K·m/W, Ω/m); the unit is part of every field name. Numbers in answers carry ${WIRE_SIGNIFICANT_DIGITS} significant digits.`,
         `Authenticate with a team API token (Authorization: Bearer …) that an admin creates; the calc scope is needed for calculations. Each token has its own rate limit (default ${DEFAULT_REQUESTS_PER_MINUTE} requests per minute).`,
         `At most ${MAX_CANDIDATES_PER_REQUEST} candidates per evaluation and ${MAX_REQUEST_BYTES} bytes per body.`,
         'Every answer carries the assumption flags and a caution: results are an engineering aid and must be checked and signed by a qualified, licensed engineer.',

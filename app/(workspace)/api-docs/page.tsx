@@ -8,6 +8,7 @@ import {
   EXAMPLE_EVALUATE_REQUEST,
   MAX_CANDIDATES_PER_REQUEST,
   MAX_REQUEST_BYTES,
+  WIRE_SIGNIFICANT_DIGITS,
 } from '@/lib/api';
 import { fieldRows, variantRows, type FieldRow } from '@/lib/api/fieldTable';
 import { CautionNotice } from '@/components/shell/CautionNotice';
@@ -210,6 +211,7 @@ export default async function ApiDocsPage() {
           Read <span className="num">passes</span> together with the flags: a <span className="num">blocker</span> fails the candidate, a{' '}
           <span className="num">review</span> flag is a statement a licensed reviewer must accept before the sizing is used, a{' '}
           <span className="num">note</span> is shown for the record. Inputs you leave out are assumed — and flagged — never silently filled in.
+          Every number in an answer carries {WIRE_SIGNIFICANT_DIGITS} significant digits, far more than any input or method supports.
         </p>
         <p className="mt-3">
           Bars are rated as the system they form when <span className="num">installation.system</span> is given: each bar of a pack with its own share of the current and its own

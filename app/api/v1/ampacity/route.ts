@@ -1,7 +1,7 @@
 import { ampacity } from '@/lib/electrical';
-import { API_CAUTION, API_VERSION, MAX_REQUEST_BYTES, ampacityConditions, ampacityRequestSchema, findNonFinite, type AmpacityResponse } from '@/lib/api';
+import { API_CAUTION, API_VERSION, MAX_REQUEST_BYTES, ampacityConditions, ampacityRequestSchema, type AmpacityResponse } from '@/lib/api';
 import { readJsonBody } from '@/server/apiTokens/body';
-import { nonFiniteResult, tokenApiHandler } from '@/server/apiTokens/handler';
+import { calculationJson, tokenApiHandler } from '@/server/apiTokens/handler';
 
 export const dynamic = 'force-dynamic';
 
@@ -9,7 +9,5 @@ export const dynamic = 'force-dynamic';
 export const POST = tokenApiHandler({ scope: 'calc', fieldPrefix: { from: 'candidates.0', to: 'candidate' } }, async (req) => {
   const request = ampacityRequestSchema.parse(await readJsonBody(req, MAX_REQUEST_BYTES));
   const answer: AmpacityResponse = { apiVersion: API_VERSION, caution: API_CAUTION, ampacity: ampacity(request.candidate, ampacityConditions(request)) };
-  const nonFinite = findNonFinite(answer);
-  if (nonFinite) throw nonFiniteResult(nonFinite);
-  return Response.json(answer);
+  return calculationJson(answer);
 });

@@ -1,7 +1,7 @@
 import { compareCandidates } from '@/lib/electrical';
-import { API_CAUTION, API_VERSION, MAX_REQUEST_BYTES, evaluateRequestSchema, findNonFinite, toDotPath, type EvaluateResponse } from '@/lib/api';
+import { API_CAUTION, API_VERSION, MAX_REQUEST_BYTES, evaluateRequestSchema, toDotPath, type EvaluateResponse } from '@/lib/api';
 import { readJsonBody } from '@/server/apiTokens/body';
-import { nonFiniteResult, tokenApiHandler } from '@/server/apiTokens/handler';
+import { calculationJson, tokenApiHandler } from '@/server/apiTokens/handler';
 
 export const dynamic = 'force-dynamic';
 
@@ -30,8 +30,6 @@ export const POST = tokenApiHandler({ scope: 'calc' }, async (req) => {
     );
   }
   const answer: EvaluateResponse = { apiVersion: API_VERSION, caution: API_CAUTION, ...comparison };
-  const nonFinite = findNonFinite(answer);
-  if (nonFinite) throw nonFiniteResult(nonFinite);
-  return Response.json(answer);
+  return calculationJson(answer);
 });
 
