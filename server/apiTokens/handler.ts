@@ -8,12 +8,11 @@
  * - no or malformed Authorization header → 401 `unauthenticated`; unknown, revoked or expired
  *   token → 401 naming which; token without the scope → 403 `forbidden`;
  * - over the token's rate → 429 `rate_limited` with Retry-After;
- * - ZodError → 400 with the field paths; ApiError → its status; the library's input errors → 400
- *   with the field; SizingError (no honest answer) → 422; database down → 503; else 500.
+ * - ZodError → 400 with the field paths; ApiError → its status; database down → 503; else 500.
+ *   The calculations' own errors (the library's input errors → 400, SizingError → 422) are
+ *   answered in the calculation thread (server/calculation/answers.ts).
  */
 import type { NextRequest } from 'next/server';
-import { ElectricalInputError, SizingError } from '@/lib/electrical';
-import { toDotPath, toWire } from '@/lib/api/finite';
 import { authoriseTokenRequest, type ApiTokenScope, type TokenPrincipal } from '@/db/queries/apiTokens';
 import { ApiError, errorResponse } from '@/server/http/errors';
 import { hashApiToken, looksLikeApiToken } from './tokens';
@@ -66,43 +65,8 @@ export async function authoriseRequest(req: Request, scope: ApiTokenScope): Prom
   }
 }
 
-/** Maps the calculation library's own errors; everything else goes to the shared mapping. */
-export function calculationErrorResponse(error: unknown, fieldPrefix?: { from: string; to: string }): Response {
-  if (error instanceof ElectricalInputError) {
-    let fieldPath = toDotPath(error.field);
-    if (fieldPrefix && fieldPath.startsWith(fieldPrefix.from)) fieldPath = fieldPrefix.to + fieldPath.slice(fieldPrefix.from.length);
-    const message = error.message.startsWith(`${error.field}: `) ? error.message.slice(error.field.length + 2) : error.message;
-    return Response.json(
-      { error: { code: 'invalid_input', message: `${fieldPath}: ${message}`, fieldPath, issues: [{ path: fieldPath, message }] } },
-      { status: 400 },
-    );
-  }
-  if (error instanceof SizingError) {
-    return Response.json({ error: { code: error.code.toLowerCase(), message: error.message } }, { status: 422 });
-  }
-  return errorResponse(error);
-}
-
-/**
- * The JSON answer of a calculation route, through lib/api toWire: every number to nine significant
- * digits, and never a result holding NaN or ±Infinity (JSON would turn it into null, read as "no
- * value"). That happens only at the degenerate edge of a method — a limit a hair above the starting
- * temperature, say — so the caller gets 422 naming the value, and the server log keeps the case
- * for the library's authors.
- */
-export function calculationJson(answer: object): Response {
-  const wire = toWire(answer);
-  if (wire.ok) return Response.json(wire.value);
-  console.warn(`ampwarden: non-finite number in a calculation result at ${wire.path}`);
-  throw new ApiError(
-    422,
-    'no_finite_result',
-    `The calculation gave no finite value for ${wire.path}; the inputs lie at the edge of the method (for example a limit equal to the starting temperature). Check them.`,
-  );
-}
-
 export function tokenApiHandler(
-  options: { scope: ApiTokenScope; fieldPrefix?: { from: string; to: string } },
+  options: { scope: ApiTokenScope },
   handler: (req: NextRequest, ctx: TokenApiContext) => Promise<Response>,
 ): (req: NextRequest) => Promise<Response> {
   return async (req) => {
@@ -124,7 +88,7 @@ export function tokenApiHandler(
       const response = await handler(req, { token });
       return withHeaders(response, rateHeaders(rate));
     } catch (error) {
-      const response = calculationErrorResponse(error, options.fieldPrefix);
+      const response = errorResponse(error);
       return rate ? withHeaders(response, rateHeaders(rate)) : response;
     }
   };

@@ -1,5 +1,6 @@
 // Issue 11: the v1 bodies — field-path errors, size and batch limits, media type, and the OpenAPI
 // document checked by independent validators (the OpenAPI 3.1 meta-schema, and ajv for its schemas).
+import { monitorEventLoopDelay } from 'node:perf_hooks';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import Ajv2020 from 'ajv/dist/2020';
 import { Validator } from '@seriousme/openapi-schema-validator';
@@ -7,6 +8,7 @@ import { closeDb } from '@/db/client';
 import { ampacity, compareCandidates } from '@/lib/electrical';
 import {
   EXAMPLE_AMPACITY_REQUEST,
+  EXAMPLE_BUSBAR_SYSTEM_REQUEST,
   EXAMPLE_EVALUATE_REQUEST,
   MAX_CANDIDATES_PER_REQUEST,
   MAX_REQUEST_BYTES,
@@ -114,6 +116,23 @@ describe('POST /api/v1/evaluate', () => {
       expect(answer.status, raw).toBe(400);
       await readError(answer);
     }
+  });
+});
+
+describe('calculations run off the request thread (issue 19: nothing may stall the server)', () => {
+  it('the event loop keeps turning while a bus-bar system is computed (a quarter second or more of solving)', async () => {
+    // A first call starts the calculation thread, so that only the calculation itself is timed below.
+    expect((await ENDPOINTS.evaluate(jsonRequest('evaluate', token, EXAMPLE_EVALUATE_REQUEST))).status).toBe(200);
+    const delay = monitorEventLoopDelay({ resolution: 5 });
+    delay.enable();
+    const started = performance.now();
+    const answer = await ENDPOINTS.evaluate(jsonRequest('evaluate', token, EXAMPLE_BUSBAR_SYSTEM_REQUEST));
+    const tookMs = performance.now() - started;
+    delay.disable();
+    expect(answer.status).toBe(200);
+    expect(tookMs, 'the calculation is long enough to be seen').toBeGreaterThan(100);
+    // Computed on this thread, the loop would stand still for the whole calculation.
+    expect(delay.max / 1e6, `longest stall ${(delay.max / 1e6).toFixed(0)} ms during a ${tookMs.toFixed(0)} ms calculation`).toBeLessThan(tookMs / 3);
   });
 });
 
