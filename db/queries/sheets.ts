@@ -116,7 +116,9 @@ async function loadAcknowledgements(teamId: string, sheetId: string, tx: Executo
 }
 
 export async function getSheet(teamId: string, sheetId: string, tx: Executor = getDb()): Promise<SheetRecord | null> {
-  const row = await loadSheetRow(teamId, sheetId, tx);
+  if (!isUuid(sheetId)) return null;
+  // Both reads at once: the page that shows a sheet waits for one round trip, not two.
+  const [row, acknowledgements] = await Promise.all([loadSheetRow(teamId, sheetId, tx), loadAcknowledgements(teamId, sheetId, tx)]);
   if (!row) return null;
   return {
     ...row,
@@ -124,7 +126,7 @@ export async function getSheet(teamId: string, sheetId: string, tx: Executor = g
     inputs: readSheetInputs(row.inputs, row.schemaVersion),
     storedSchemaVersion: row.schemaVersion,
     result: readSnapshot(row.result),
-    acknowledgements: await loadAcknowledgements(teamId, sheetId, tx),
+    acknowledgements,
   };
 }
 
