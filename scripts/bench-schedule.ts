@@ -5,7 +5,8 @@
  *
  * Needs a migrated database in DATABASE_URL, e.g. the one `npm start` runs:
  *   eval "$(scripts/dev-env.sh)" && npm run bench:schedule
- * Options (environment): BENCH_ROWS (default 1000), BENCH_WORKERS (default 1), SCHEDULE_BATCH_ROWS.
+ * Options (environment): BENCH_ROWS (default 1000), BENCH_WORKERS (default 1), SCHEDULE_BATCH_ROWS;
+ * BENCH_PROF=1 writes a V8 CPU profile of each worker process to /tmp/wprof (open it in Chrome DevTools).
  * It works in a team of its own (slug bench-…) and deletes it afterwards.
  */
 import { spawn } from 'node:child_process';
@@ -56,7 +57,7 @@ function benchCsv(rows: number): Uint8Array {
 }
 
 function startWorker(id: string) {
-  const child = spawn(process.execPath, ['--import', 'tsx', 'scripts/worker.ts'], {
+  const child = spawn(process.execPath, [...(process.env.BENCH_PROF ? ['--cpu-prof', '--cpu-prof-dir=/tmp/wprof'] : []), '--import', 'tsx', 'scripts/worker.ts'], {
     cwd: path.resolve(import.meta.dirname, '..'),
     env: { ...process.env, WORKER_ID: id, SCHEDULE_POLL_SECONDS: process.env.SCHEDULE_POLL_SECONDS ?? '0.5' },
     stdio: ['ignore', 'pipe', 'inherit'],
